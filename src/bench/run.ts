@@ -1,0 +1,38 @@
+/**
+ * `npm run bench`: timings of the hot paths, outside the test run. Each bench module prints its
+ * own lines; nothing here decides pass or fail.
+ */
+const benches: { name: string; module: string; fn: string }[] = [
+  { name: "tensor engine", module: "./fieldBench.js", fn: "fieldBench" },
+  { name: "whole plan", module: "./planBench.js", fn: "planBench" },
+];
+
+const log = (line: string): void => {
+  process.stdout.write(`${line}\n`);
+};
+
+async function main(): Promise<void> {
+  log(`cellwright bench — node ${process.version}, ${new Date().toISOString()}`);
+  for (const b of benches) {
+    log("");
+    log(`== ${b.name}`);
+    let mod: Record<string, unknown>;
+    try {
+      mod = await import(b.module);
+    } catch {
+      log(`(not available: ${b.module})`);
+      continue;
+    }
+    const fn = mod[b.fn] as ((l: (s: string) => void) => Promise<void>) | undefined;
+    if (typeof fn !== "function") {
+      log(`(no ${b.fn} in ${b.module})`);
+      continue;
+    }
+    await fn(log);
+  }
+}
+
+main().catch((err) => {
+  process.stderr.write(`bench failed: ${(err as Error).stack ?? String(err)}\n`);
+  process.exitCode = 1;
+});
