@@ -1,0 +1,223 @@
+/**
+ * Types of the planner: the settings a plan is made with (the design's `reduction` and
+ * `realization` keys, resolved, possibly overridden), and the plan itself — levels, regions,
+ * per-cell flags, recipes and device-level figures. The command line and the interactive session
+ * both call `planFromField` (plan/runPlan.ts) and read these types.
+ */
+import type { DeviceGrid } from "../field/deviceGrid.js";
+
+export type Polarization = "Ez" | "Hz";
+export type SchemeName = "full" | "unit-mu" | "non-magnetic" | "isotropic" | "matched";
+export type LatticeName = "square" | "hex" | "cubic";
+
+/** Resolved choices of one plan. Every field has a value (defaults applied). */
+export interface PlanSettings {
+  polarization: Polarization;
+  scheme: SchemeName;
+  /** for unit-mu: which in-plane principal value is set to 1 */
+  unitAxis: "larger" | "smaller";
+  /** index of the dielectric the device is embedded in (1 = vacuum); scales ε and μ */
+  backgroundIndex: number;
+  /** largest number of distinct recipes; null = as few as `tolerance` allows (up to MAX_LEVELS) */
+  levels: number | null;
+  /** largest relative error accepted on any target component (default 0.05) */
+  tolerance: number;
+  /** allowed material ids; null = every catalog material valid at the design frequency */
+  materials: string[] | null;
+  /** allowed cell family ids; null = all (resonant families only where needed) */
+  families: string[] | null;
+  /** fabrication process id; null = no process limit (flagged in the report) */
+  process: string | null;
+  /** lattice; null = every lattice the families support */
+  lattice: LatticeName | null;
+  /** largest in-plane anisotropy ratio accepted (default 10) */
+  maxAnisotropy: number;
+  /** largest attenuation along the longest straight path, dB; null = not checked */
+  lossBudgetDb: number | null;
+  /** fractional bandwidth the device must work over; null = not checked */
+  bandwidth: number | null;
+}
+
+/** A partial PlanSettings overriding what the design says (command-line options, session edits). */
+export type PlanOverrides = Partial<PlanSettings>;
+
+/** Upper limit of levels when only a tolerance is given. */
+export const MAX_LEVELS = 64;
+export const DEFAULT_TOLERANCE = 0.05;
+export const DEFAULT_MAX_ANISOTROPY = 10;
+
+/** Stages reported to the progress callback, in order. */
+export type PlanStage = "reduce" | "quantize" | "regions" | "match" | "flags" | "figures";
+export type PlanProgress = (stage: PlanStage, fraction: number) => void;
+
+/**
+ * One target component of the plan, in the principal frame of the cell:
+ * Ez: eps_z, mu_1 (smaller in-plane principal value), mu_2 (larger); Hz: mu_z, eps_1, eps_2.
+ */
+export interface TargetComponent {
+  /** column stem in the build list: "eps_z", "mu_1" … */
+  name: string;
+  kind: "eps" | "mu";
+  /** "z" (out of plane), "1" (smaller in-plane), "2" (larger in-plane) */
+  axis: "z" | "1" | "2";
+  /** true when every device cell has the same value (then it is not clustered) */
+  constant: boolean;
+}
+
+/** A buildable unit cell for one level. */
+export interface Recipe {
+  family: string;
+  host: string;
+  /** inclusion material id ("" for families of one material, e.g. holes-in-slab uses air) */
+  inclusion: string;
+  lattice: LatticeName;
+  fillFraction: number;
+  /** named dimensions with their unit in the key: { radius_m: 0.0012, wall_m: 0.0003 } */
+  dimensions: Record<string, number>;
+  /** achieved value of each target component (real part), same order as Plan.components */
+  achieved: number[];
+  /** relative error of the recipe against the level's target, largest over components */
+  relError: number;
+  /** loss tangent of the effective medium along the dominant component */
+  lossTangent: number;
+  /** imaginary part of the effective index at the design frequency */
+  indexIm: number;
+  /** Maxwell Garnett – Bruggeman spread, relative */
+  spread: number;
+  /** fractional bandwidth where the target stays within tolerance (resonant families), else null */
+  bandwidth: number | null;
+  /** smallest feature of the cell (inclusion size or wall), metres */
+  featureM: number;
+  resonant: boolean;
+  /** lower is better */
+  score: number;
+  notes: string[];
+}
+
+/** One level: a distinct target value shared by a group of cells, and its recipe. */
+export interface PlanLevel {
+  /** 1-based, as written in the build list */
+  index: number;
+  /** target value of each component (the cluster centre) */
+  target: number[];
+  cellCount: number;
+  /** largest relative quantization error of a cell of this level */
+  maxQuantizationError: number;
+  recipe: Recipe | null;
+  runnersUp: Recipe[];
+  /** why no recipe was found (empty when one was) */
+  reasons: string[];
+  /** flag bits that hold for every cell of this level because of its recipe (or its absence) */
+  flags: number;
+}
+
+/** One connected zone of cells sharing a level (4-neighbour on the lattice). */
+export interface PlanRegion {
+  /** 1-based */
+  index: number;
+  level: number;
+  cellCount: number;
+  /** lattice-index bounding box */
+  iMin: number;
+  iMax: number;
+  jMin: number;
+  jMax: number;
+}
+
+export interface BillOfMaterialsRow {
+  material: string;
+  /** cells that use this material (as host or inclusion) */
+  cells: number;
+  /** volume of the material, m³ (3D) or cross-section area per metre of height, m² (2D) */
+  volume: number;
+  volumeUnit: "m3" | "m2";
+}
+
+export interface DeviceFigures {
+  /** cells carrying each flag */
+  flagCounts: Record<string, number>;
+  /** regions where each flag occurs */
+  flagRegions: Record<string, number[]>;
+  maxRelError: number;
+  medianRelError: number;
+  /** attenuation along the longest straight path through the device, dB (∫ k0·Im n ds) */
+  lossDb: number;
+  /** length of that path, metres, and its direction (unit vector) */
+  lossPathM: number;
+  lossPathDirection: [number, number];
+  /** loss budget from the settings, and whether the plan meets it */
+  lossBudgetDb: number | null;
+  lossWithinBudget: boolean | null;
+  /** normal-incidence power reflection at the outer boundary of the chosen reduction (null if unknown) */
+  boundaryReflection: number | null;
+  /** narrowest bandwidth among resonant levels (null when none is resonant) */
+  minBandwidth: number | null;
+  bandwidthRequired: number | null;
+  bandwidthMet: boolean | null;
+  smallestFeatureM: number | null;
+  processMinFeatureM: number | null;
+  billOfMaterials: BillOfMaterialsRow[];
+  /** largest in-plane anisotropy ratio of the reduced targets */
+  largestAnisotropy: number;
+}
+
+/** The complete plan. Per-cell data are typed arrays of length grid.count. */
+export interface Plan {
+  design: {
+    name: string;
+    notes: string;
+    sourcePath: string;
+    frequencyHz: number;
+    /** free-space wavelength, metres */
+    wavelengthM: number;
+    transform: string;
+  };
+  settings: PlanSettings;
+  /** why the reduction costs what it costs: short plain sentences for the report */
+  reductionNotes: string[];
+  grid: DeviceGrid;
+  components: TargetComponent[];
+  /** per component, per cell: the continuous (reduced) target */
+  targets: Float64Array[];
+  /** orientation of the larger in-plane principal axis, radians from x, per cell */
+  axisAngleRad: Float64Array;
+  /** 0-based level of each cell */
+  level: Int32Array;
+  /** 0-based region of each cell */
+  region: Int32Array;
+  /** relative quantization error of each cell (largest over components) */
+  quantizationError: Float64Array;
+  /** relative error of the achieved value against the cell's own target (NaN when no recipe) */
+  relError: Float64Array;
+  /** flag bitmask of each cell, bits from plan/flags.ts */
+  flags: Uint16Array;
+  levels: PlanLevel[];
+  regions: PlanRegion[];
+  /** quantization method used, for the report */
+  quantization: { method: string; dimensions: number; maxError: number };
+  figures: DeviceFigures;
+  /** true when every cell has a recipe */
+  buildable: boolean;
+  /** warnings for the report and stderr */
+  warnings: string[];
+}
+
+/** The machine-readable summary (summary.json and `plan --json`). */
+export interface PlanSummary {
+  design: string;
+  cells: number;
+  levels: number;
+  regions: number;
+  flags: Record<string, number>;
+  maxRelError: number | null;
+  medianRelError: number | null;
+  lossDb: number;
+  boundaryReflection: number | null;
+  minBandwidth: number | null;
+  materials: string[];
+  outputs: string[];
+  buildable: boolean;
+  polarization: Polarization;
+  scheme: SchemeName;
+  tolerance: number;
+}
