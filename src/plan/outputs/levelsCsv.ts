@@ -1,0 +1,55 @@
+/**
+ * levels.csv: one row per level with its target, its recipe and up to three runners-up.
+ * Columns: level, cells, regions, target_<c>…, max_quantization_error, family, host, inclusion,
+ * lattice, fill_fraction, achieved_<c>…, rel_error, <dimension>_m…, loss_tangent, mg_bruggeman_spread,
+ * bandwidth, smallest_feature_m, flags, reasons, runner_up_1, runner_up_2, runner_up_3.
+ */
+import type { Plan, Recipe } from "../planTypes.js";
+import { flagList } from "../flags.js";
+import { csvField, fmt } from "./csvText.js";
+import { dimensionColumns } from "./buildListRows.js";
+
+export const RUNNERS_UP_SHOWN = 3;
+
+/** "laminate PTFE/alumina-96 square f=0.312 err=0.4%" — one runner-up in one cell. */
+export function recipeLabel(r: Recipe): string {
+  const mats = r.inclusion ? `${r.host}/${r.inclusion}` : r.host;
+  return `${r.family} ${mats} ${r.lattice} f=${fmt(r.fillFraction, 3)} err=${fmt(r.relError * 100, 2)}%`;
+}
+
+/** The whole levels.csv text (small: one row per level). */
+export function levelsCsvText(plan: Plan): string {
+  const dims = dimensionColumns(plan);
+  const comps = plan.components.map((c) => c.name);
+  const header = [
+    "level", "cells", "regions",
+    ...comps.map((c) => `target_${c}`),
+    "max_quantization_error", "family", "host", "inclusion", "lattice", "fill_fraction",
+    ...comps.map((c) => `achieved_${c}`),
+    "rel_error", ...dims, "loss_tangent", "mg_bruggeman_spread", "bandwidth", "smallest_feature_m",
+    "flags", "reasons",
+    ...Array.from({ length: RUNNERS_UP_SHOWN }, (_, k) => `runner_up_${k + 1}`),
+  ];
+  const regionsPerLevel = new Int32Array(plan.levels.length);
+  for (const r of plan.regions) regionsPerLevel[r.level - 1]++;
+  const lines = [header.join(",")];
+  for (const lv of plan.levels) {
+    const r = lv.recipe;
+    const row: string[] = [String(lv.index), String(lv.cellCount), String(regionsPerLevel[lv.index - 1])];
+    row.push(...lv.target.map((t) => fmt(t)));
+    row.push(fmt(lv.maxQuantizationError, 4));
+    if (r) {
+      row.push(csvField(r.family), csvField(r.host), csvField(r.inclusion), r.lattice, fmt(r.fillFraction));
+      row.push(...r.achieved.map((a) => fmt(a)));
+      row.push(fmt(r.relError, 4));
+      for (const d of dims) row.push(d in r.dimensions ? fmt(r.dimensions[d]) : "");
+      row.push(fmt(r.lossTangent, 4), fmt(r.spread, 4), r.bandwidth === null ? "" : fmt(r.bandwidth, 4), fmt(r.featureM, 4));
+    } else {
+      row.push("", "", "", "", "", ...comps.map(() => ""), "", ...dims.map(() => ""), "", "", "", "");
+    }
+    row.push(flagList(lv.flags), csvField(lv.reasons.join("; ")));
+    for (let k = 0; k < RUNNERS_UP_SHOWN; k++) row.push(lv.runnersUp[k] ? csvField(recipeLabel(lv.runnersUp[k])) : "");
+    lines.push(row.join(","));
+  }
+  return lines.join("\n") + "\n";
+}

@@ -1,0 +1,26 @@
+/** The machine-readable summary of a plan (summary.json, and stdout with `plan --json`). */
+import type { Plan, PlanSummary } from "../planTypes.js";
+
+/** Build the summary object; `outputs` are the paths written (empty before writing). */
+export function planSummary(plan: Plan, outputs: string[]): PlanSummary {
+  const f = plan.figures;
+  const materials = f.billOfMaterials.map((b) => b.material);
+  return {
+    design: plan.design.name,
+    cells: plan.grid.count,
+    levels: plan.levels.length,
+    regions: plan.regions.length,
+    flags: { ...f.flagCounts },
+    maxRelError: Number.isFinite(f.maxRelError) ? f.maxRelError : null,
+    medianRelError: Number.isFinite(f.medianRelError) ? f.medianRelError : null,
+    lossDb: f.lossDb,
+    boundaryReflection: f.boundaryReflection,
+    minBandwidth: f.minBandwidth,
+    materials,
+    outputs,
+    buildable: plan.buildable,
+    polarization: plan.settings.polarization,
+    scheme: plan.settings.scheme,
+    tolerance: plan.settings.tolerance,
+  };
+}

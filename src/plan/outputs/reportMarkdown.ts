@@ -1,0 +1,117 @@
+/**
+ * report.md: a short, readable report of a plan — design, reduction and its cost, levels,
+ * flags with where they are, device-level figures, bill of materials, cautions and assumptions.
+ */
+import type { Plan } from "../planTypes.js";
+import { FLAGS } from "../flags.js";
+import { fmt } from "./csvText.js";
+import { recipeLabel } from "./levelsCsv.js";
+
+function si(x: number, unit: string): string {
+  if (!Number.isFinite(x)) return "—";
+  const a = Math.abs(x);
+  const prefixes: [number, string][] = [[1e9, "G"], [1e6, "M"], [1e3, "k"], [1, ""], [1e-3, "m"], [1e-6, "µ"], [1e-9, "n"]];
+  for (const [f, p] of prefixes) if (a >= f) return `${fmt(x / f, 4)} ${p}${unit}`;
+  return `${fmt(x, 4)} ${unit}`;
+}
+
+function pct(x: number | null): string {
+  return x === null || !Number.isFinite(x) ? "—" : `${fmt(x * 100, 3)} %`;
+}
+
+function regionList(ids: number[]): string {
+  if (ids.length === 0) return "—";
+  const shown = ids.slice(0, 12).join(", ");
+  return ids.length > 12 ? `${shown} … (${ids.length} regions)` : shown;
+}
+
+/** Safety cautions that fit the design frequency. */
+export function cautions(frequencyHz: number): string[] {
+  const out = [
+    "Measurement with radio-frequency sources: keep to the exposure limits of your local regulations and keep people out of the main beam of horns and open waveguides while transmitting.",
+  ];
+  if (frequencyHz > 3e13) {
+    out.push("Optical and infrared sources: lasers used to test the device need eye protection rated for the wavelength and power, a controlled beam path and the laser-safety practice of your site.");
+  }
+  out.push(
+    "Resins, solvents and etchants (printing resins, developers, PCB etchants, cleaning solvents): handle them with gloves, ventilation and the supplier's safety data sheet; cure and dispose of waste as the sheet says.",
+    "These notes are general; defer to local codes and licensed practice for anything that can hurt people.",
+  );
+  return out;
+}
+
+/** The report text. */
+export function reportMarkdown(plan: Plan): string {
+  const d = plan.design;
+  const s = plan.settings;
+  const f = plan.figures;
+  const L: string[] = [];
+  L.push(`# Build plan: ${d.name}`, "");
+  if (d.notes) L.push(d.notes, "");
+  if (!plan.buildable) {
+    const n = f.flagCounts.norecipe ?? 0;
+    L.push(`**Not buildable as asked:** ${n} of ${plan.grid.count} cells have no recipe. See the flags below for why and what would help.`, "");
+  }
+  L.push("## Design", "");
+  L.push(`- source: \`${d.sourcePath}\`, transform: ${d.transform}`);
+  L.push(`- design frequency ${si(d.frequencyHz, "Hz")} (free-space wavelength ${si(d.wavelengthM, "m")})`);
+  L.push(`- ${plan.grid.count} device cells of pitch ${si(plan.grid.pitchM, "m")} (λ₀/${fmt(d.wavelengthM / plan.grid.pitchM, 3)})`);
+  L.push("");
+  L.push("## Reduction", "");
+  L.push(`Polarization ${s.polarization}, scheme \`${s.scheme}\`${s.scheme === "unit-mu" ? ` (the ${s.unitAxis} in-plane μ set to 1)` : ""}, background index ${fmt(s.backgroundIndex, 4)}.`, "");
+  for (const n of plan.reductionNotes) L.push(`- ${n}`);
+  L.push(`- outer-boundary reflection (normal incidence, power): ${f.boundaryReflection === null ? "not known for this field" : pct(f.boundaryReflection)}`);
+  L.push(`- largest in-plane anisotropy of the targets: ${fmt(f.largestAnisotropy, 4)} (limit ${fmt(s.maxAnisotropy, 3)})`);
+  L.push("");
+  L.push("## Levels", "");
+  L.push(`${plan.levels.length} levels (${s.levels === null ? `as few as a ${pct(s.tolerance)} tolerance allows` : `at most ${s.levels}`}), quantized by ${plan.quantization.method}; largest quantization error ${pct(plan.quantization.maxError)}. ${plan.regions.length} connected regions.`, "");
+  const comps = plan.components.map((c) => c.name);
+  L.push(`| level | cells | ${comps.join(" | ")} | recipe | error | flags |`);
+  L.push(`|---:|---:|${comps.map(() => "---:").join("|")}|---|---:|---|`);
+  for (const lv of plan.levels) {
+    const r = lv.recipe;
+    const flags = FLAGS.filter((_, k) => lv.flags & (1 << k)).map((x) => x.name).join(", ");
+    L.push(`| ${lv.index} | ${lv.cellCount} | ${lv.target.map((t) => fmt(t, 4)).join(" | ")} | ${r ? recipeLabel(r) : `none: ${lv.reasons.slice(0, 2).join("; ")}`} | ${r ? pct(r.relError) : "—"} | ${flags || "—"} |`);
+  }
+  L.push("", "Runners-up for each level are in levels.csv.", "");
+  L.push("## Flags", "");
+  const present = FLAGS.filter((x) => (f.flagCounts[x.name] ?? 0) > 0);
+  if (present.length === 0) L.push("No cell carries a flag.");
+  else {
+    L.push("| flag | cells | regions | meaning |", "|---|---:|---|---|");
+    for (const x of present) L.push(`| ${x.name} | ${f.flagCounts[x.name]} | ${regionList(f.flagRegions[x.name] ?? [])} | ${x.meaning} |`);
+  }
+  L.push("");
+  L.push("## Device-level figures", "");
+  L.push(`- relative error of achieved vs target: largest ${pct(f.maxRelError)}, median ${pct(f.medianRelError)} (tolerance ${pct(s.tolerance)})`);
+  L.push(`- loss: ${fmt(f.lossDb, 3)} dB along the worst straight row or column of cells (${si(f.lossPathM, "m")} long), ∫ k₀·Im n ds${f.lossBudgetDb === null ? " (no budget set)" : `; budget ${fmt(f.lossBudgetDb, 3)} dB: ${f.lossWithinBudget ? "met" : "**exceeded**"}`}`);
+  L.push(`- narrowest bandwidth of a resonant level: ${f.minBandwidth === null ? "no resonant cells" : pct(f.minBandwidth)}${f.bandwidthRequired === null ? "" : `; required ${pct(f.bandwidthRequired)}: ${f.bandwidthMet === false ? "**not met**" : "met"}`}`);
+  L.push(`- smallest feature used: ${f.smallestFeatureM === null ? "—" : si(f.smallestFeatureM, "m")}; process limit: ${f.processMinFeatureM === null ? "no process given" : si(f.processMinFeatureM, "m")}`);
+  L.push("");
+  L.push("## Bill of materials", "");
+  if (f.billOfMaterials.length === 0) L.push("No material is used (no cell has a recipe).");
+  else {
+    const unit = f.billOfMaterials[0].volumeUnit === "m2" ? "cross-section (m² per metre of height)" : "volume (m³)";
+    L.push(`| material | cells | ${unit} |`, "|---|---:|---:|");
+    for (const b of f.billOfMaterials) L.push(`| ${b.material} | ${b.cells} | ${fmt(b.volume, 4)} |`);
+  }
+  L.push("");
+  if (plan.warnings.length) {
+    L.push("## Warnings", "");
+    for (const w of plan.warnings) L.push(`- ${w}`);
+    L.push("");
+  }
+  L.push("## Cautions", "");
+  for (const c of cautions(d.frequencyHz)) L.push(`- ${c}`);
+  L.push("");
+  L.push("## Assumptions", "");
+  L.push(
+    "- Each cell is replaced by a uniform effective medium computed with quasi-static mixing rules (Maxwell Garnett, Bruggeman, Wiener laminate bounds). These hold when the cell is much smaller than the wavelength inside it; the plan flags cells coarser than λ/10 in their densest material and refuses cells coarser than λ/4.",
+    "- Where Maxwell Garnett and Bruggeman disagree by more than the tolerance, the value is uncertain: verify such cells with a full-wave unit-cell simulation before building.",
+    "- Resonant cells (wire media, split rings) follow simple analytic models; their bandwidth and loss are estimates to be confirmed by measurement or simulation.",
+    "- Cells are matched level by level: every cell of a level gets the same recipe, so its error is the quantization error plus the recipe's error.",
+    "- The loss figure sums k₀·Im n along straight lattice rows and columns; it ignores reflections and scattering.",
+  );
+  L.push("");
+  return L.join("\n");
+}

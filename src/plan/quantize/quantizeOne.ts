@@ -1,0 +1,94 @@
+/**
+ * Quantization of ONE target component into levels with simple-statistics' ckmeans (Wang & Song,
+ * "Ckmeans.1d.dp: optimal k-means clustering in one dimension by dynamic programming", R Journal
+ * 3(2), 2011): the optimal 1D partition into k contiguous groups.
+ *
+ * - Values are clustered in log scale when all are positive (so equal steps mean equal relative
+ *   error), linearly otherwise.
+ * - Each distinct value counts once, and at most SAMPLE_LIMIT evenly spaced order statistics of the
+ *   distinct values are clustered: the tolerance is about the largest error of any cell, not the
+ *   average over cells, so a value shared by many cells needs no extra weight; the cap keeps the
+ *   dynamic programme (k × n memory) small for 10⁶-cell devices.
+ * - Every cell is then assigned to its group by the boundaries between groups, and each group's
+ *   level value is the minimax centre of its actual range (minimaxCentre).
+ */
+import { ckmeans } from "simple-statistics";
+import { minimaxCentre, relErr } from "./relativeError.js";
+
+export const SAMPLE_LIMIT = 4000;
+
+export interface Quantized {
+  /** group of each cell, 0-based, groups ordered by increasing value of the first component */
+  level: Int32Array;
+  /** centre of each group, per component: centres[g][c] */
+  centres: number[][];
+  /** relative quantization error of each cell (largest over components) */
+  error: Float64Array;
+  maxError: number;
+}
+
+/** Sorted distinct values, thinned to at most `limit` evenly spaced order statistics. */
+export function distinctSample(values: Float64Array, limit: number): Float64Array {
+  const sorted = Float64Array.from(values).sort();
+  let n = 0;
+  for (let k = 0; k < sorted.length; k++) {
+    if (k === 0 || sorted[k] !== sorted[n - 1]) sorted[n++] = sorted[k];
+  }
+  if (n <= limit) return sorted.slice(0, n);
+  const out = new Float64Array(limit);
+  for (let k = 0; k < limit; k++) out[k] = sorted[Math.round((k * (n - 1)) / (limit - 1))];
+  return out;
+}
+
+/** Cluster one component into exactly min(k, distinct values) groups. */
+export function quantizeOneWithK(values: Float64Array, k: number): Quantized {
+  const n = values.length;
+  const sample = distinctSample(values, SAMPLE_LIMIT);
+  let positive = true;
+  for (let s = 0; s < sample.length; s++) if (!(sample[s] > 0)) { positive = false; break; }
+  const scaled = Array.from(sample, (v) => (positive ? Math.log(v) : v));
+  const groups = ckmeans(scaled, Math.max(1, Math.min(k, sample.length)));
+  // boundaries between consecutive groups, in the scaled space
+  const bounds: number[] = [];
+  for (let g = 0; g + 1 < groups.length; g++) {
+    const a = groups[g][groups[g].length - 1];
+    const b = groups[g + 1][0];
+    bounds.push(0.5 * (a + b));
+  }
+  const level = new Int32Array(n);
+  const lo = new Float64Array(groups.length).fill(Infinity);
+  const hi = new Float64Array(groups.length).fill(-Infinity);
+  for (let c = 0; c < n; c++) {
+    const v = values[c];
+    const x = positive ? Math.log(v) : v;
+    let a = 0, b = bounds.length; // first boundary above x
+    while (a < b) {
+      const m = (a + b) >> 1;
+      if (bounds[m] < x) a = m + 1;
+      else b = m;
+    }
+    level[c] = a;
+    if (v < lo[a]) lo[a] = v;
+    if (v > hi[a]) hi[a] = v;
+  }
+  return finish(values, level, lo, hi);
+}
+
+function finish(values: Float64Array, level: Int32Array, lo: Float64Array, hi: Float64Array): Quantized {
+  // drop empty groups (possible when the sample thinned a group away) and renumber
+  const map = new Int32Array(lo.length).fill(-1);
+  const centres: number[][] = [];
+  for (let g = 0; g < lo.length; g++) {
+    if (lo[g] <= hi[g]) { map[g] = centres.length; centres.push([minimaxCentre(lo[g], hi[g])]); }
+  }
+  const error = new Float64Array(values.length);
+  let maxError = 0;
+  for (let c = 0; c < values.length; c++) {
+    const g = map[level[c]];
+    level[c] = g;
+    const e = relErr(centres[g][0], values[c]);
+    error[c] = e;
+    if (e > maxError) maxError = e;
+  }
+  return { level, centres, error, maxError };
+}
