@@ -1,24 +1,40 @@
 /** The design's `realization` key: what the shop may use to build the device. */
 import { z } from "zod";
+import { closest } from "../../core/errors.js";
 
-export const realizationSchema = z
-  .object({
-    /** material ids allowed (host and inclusions); default: every catalog material valid at the frequency */
-    materials: z.array(z.string()).min(1).optional(),
-    /** unit-cell family ids allowed; default: every non-resonant family, resonant ones where needed */
-    families: z.array(z.string()).min(1).optional(),
-    /** fabrication process id */
-    process: z.string().optional(),
-    lattice: z.enum(["square", "hex", "cubic"]).optional(),
-    /** largest number of distinct cell recipes */
-    levels: z.number().int().min(1).max(256).optional(),
-    /** largest relative error accepted on any target component */
-    tolerance: z.number().positive().max(1).optional(),
-    maxAnisotropy: z.number().min(1).optional(),
-    lossBudgetDb: z.number().nonnegative().optional(),
-    /** fractional bandwidth the device must work over, e.g. 0.1 */
-    bandwidth: z.number().positive().max(2).optional(),
-  })
-  .strict();
+const shape = {
+  /** material ids allowed (host and inclusions); default: every catalog material valid at the frequency */
+  materials: z.array(z.string()).min(1).optional(),
+  /** unit-cell family ids allowed; default: every non-resonant family, resonant ones where needed */
+  families: z.array(z.string()).min(1).optional(),
+  /** fabrication process id */
+  process: z.string().optional(),
+  lattice: z.enum(["square", "hex", "cubic"]).optional(),
+  /** largest number of distinct cell recipes */
+  levels: z.number().int().min(1).max(256).optional(),
+  /** largest relative error accepted on any target component */
+  tolerance: z.number().positive().max(1).optional(),
+  maxAnisotropy: z.number().min(1).optional(),
+  lossBudgetDb: z.number().nonnegative().optional(),
+  /** fractional bandwidth the device must work over, e.g. 0.1 */
+  bandwidth: z.number().positive().max(2).optional(),
+};
+
+export const REALIZATION_KEYS = Object.keys(shape);
+
+/** "unknown key 'levles'; did you mean levels?" for each unknown key. */
+function unknownKeysMessage(keys: readonly string[]): string {
+  return keys
+    .map((k) => {
+      const near = closest(k, REALIZATION_KEYS, 2);
+      return `unknown key '${k}'${near.length ? `; did you mean ${near.join(" or ")}?` : ""}`;
+    })
+    .join("; ");
+}
+
+export const realizationSchema = z.strictObject(shape, {
+  error: (issue) =>
+    issue.code === "unrecognized_keys" ? unknownKeysMessage((issue as unknown as { keys: string[] }).keys) : undefined,
+});
 
 export type RealizationSpec = z.infer<typeof realizationSchema>;
