@@ -1,0 +1,78 @@
+/**
+ * The shared shape of every unit-cell family (one file per family in ./families, listed in
+ * registry.ts). A family turns a fill fraction into dimensions for a given pitch and lattice and
+ * back, knows its geometric range, its smallest feature, and which mixing rule applies along each
+ * principal axis.
+ *
+ * Axes: every family here is uniaxial or isotropic. `parallel` is the field along the family's
+ * axis (along rods, holes and wires; in the layer planes of a laminate; along the ring axis of a
+ * split ring); `perpendicular` is the field across it (in the plane of a rod lattice; normal to the
+ * layers). Isotropic families (spheres, cubes, strut lattice) give the same value on both.
+ */
+import type { Complex } from "../core/complex.js";
+import type { InverseResult, MixingRuleId } from "../media/mixing/mixingRule.js";
+import type { Lattice } from "./lattice.js";
+
+export type Axis = "parallel" | "perpendicular";
+
+/** Extra context the resonant families need (their response depends on pitch and frequency). */
+export interface CellContext {
+  pitchM?: number;
+  frequencyHz?: number;
+  /** DC conductivity of the metal phase (S/m); resonant families fall back to ωε₀·Im ε of the inclusion */
+  conductivitySPerM?: number;
+}
+
+export interface AxisPermittivity {
+  parallel: Complex;
+  perpendicular: Complex;
+  /** mixing rule (or model) used along each axis */
+  rules: { parallel: MixingRuleId | "wire-medium" | "host"; perpendicular: MixingRuleId | "wire-medium" | "host" };
+}
+
+/**
+ * Smallest sizes a process must make. `featureM`: the smallest solid part (inclusion diameter,
+ * strut or layer width; for holes in a slab, the wall between holes). `gapM`: the smallest opening
+ * between solid parts (the wall between inclusions; for holes, the hole diameter).
+ */
+export interface SmallestFeature {
+  featureM: number;
+  gapM: number;
+}
+
+/** Result of a family inverse: the rule's inverse, then checked against the geometric range. */
+export interface FillResult extends InverseResult {
+  /** fill fraction the mixing rule asks for before the geometric range is applied (NaN if none) */
+  ruleFill: number;
+  /** true when `fill` is a number inside the family's fill range */
+  inRange: boolean;
+}
+
+/** Which phase the fabrication process has to shape (gases are never checked against a process). */
+export type FabricatedPhase = "inclusion" | "host" | "both";
+
+export interface CellFamily {
+  id: string;
+  /** one line for help texts */
+  description: string;
+  resonant: boolean;
+  lattices: Lattice[];
+  /** 2: invariant along one axis (rods, holes, layers, wires); 3: a full 3D cell */
+  dimension: 2 | 3;
+  /** response symmetry: isotropic families give the same ε on both axes */
+  isotropic: boolean;
+  /** the axis a single target applies to when none is named */
+  defaultAxis: Axis;
+  fabricatedPhase: FabricatedPhase;
+  /** geometric fill range [min, max] (max: touching inclusions, or a solid cell) */
+  fillRange(lattice: Lattice): [number, number];
+  /** SI dimensions (radiusM, widthM, thicknessM…) of `fill` in a cell of `pitchM` */
+  dimensionsFromFill(fill: number, pitchM: number, lattice: Lattice): Record<string, number>;
+  /** inverse of dimensionsFromFill */
+  fillFromDimensions(dims: Record<string, number>, pitchM: number, lattice: Lattice): number;
+  smallestFeatureM(fill: number, pitchM: number, lattice: Lattice): SmallestFeature;
+  /** effective ε per principal axis at `fill` (the host is the continuous phase) */
+  effectivePermittivity(host: Complex, inclusion: Complex, fill: number, lattice: Lattice, context?: CellContext): AxisPermittivity;
+  /** fill fraction whose effective Re ε along `axis` equals `targetRe`, inside the family's range */
+  fillForTarget(host: Complex, inclusion: Complex, targetRe: number, axis: Axis, lattice: Lattice, context?: CellContext): FillResult;
+}

@@ -1,0 +1,175 @@
+/**
+ * Split-ring resonator: a stack (spacing l) of double split rings — inner radius r, ring width c,
+ * radial gap d between the two rings — on a cubic lattice of pitch a. For a magnetic field along
+ * the ring axis it gives a Lorentz permeability
+ *   μ(ω) = 1 − Fω²/(ω² − ω0² + iΓω),   F = πr²/a²                       (exp(−iωt); Im μ ≥ 0)
+ *   ω0² = 3lc₀²/(π ε_h ln(2c/d) r³),   Γ = 2lR'/(μ₀r)
+ * (Pendry, Holden, Robbins, Stewart, "Magnetism from conductors and enhanced nonlinear phenomena",
+ * IEEE Trans. Microw. Theory Tech. 47, 2075 (1999) — exact form from memory). R' = 1/(σ c t_eff) is
+ * the ring resistance per unit length of circumference, t_eff the metal thickness capped at two
+ * skin depths (both faces; common practice). The host factor ε_h (rings embedded in the host
+ * scale the inter-ring capacitance) is our extension; it is 1 in air.
+ * μ → 1 at low frequency, μ → μ∞ = 1 − F at high frequency, Re μ = 0 at ω0/sqrt(1 − F).
+ * Values of μ' between 1 − F and 1 are out of reach for a ring of that F.
+ * The capacitance formula assumes a narrow gap (d ≲ c); it is undefined for d ≥ 2c.
+ */
+import type { Complex } from "../core/complex.js";
+import { C0, MU0 } from "./physicalConstants.js";
+import { skinDepthM, stripEffectiveThicknessM } from "./skinDepth.js";
+import { toleranceBand, type ToleranceBand } from "./toleranceBand.js";
+
+const TWO_PI = 2 * Math.PI;
+
+export interface SplitRingGeometry {
+  /** cell side a, m */
+  pitchM: number;
+  /** inner ring radius r, m */
+  ringRadiusM: number;
+  /** ring (strip) width c, m */
+  ringWidthM: number;
+  /** radial gap d between the two rings, m */
+  ringGapM: number;
+  /** spacing l of the rings along their axis, m (default: the pitch) */
+  stackSpacingM?: number;
+  /** metal thickness, m (default: thick compared with the skin depth) */
+  metalThicknessM?: number;
+}
+
+/** F = πr²/a², the fraction of the cell the ring encloses (Pendry et al. 1999). */
+export const splitRingFill = (ringRadiusM: number, pitchM: number): number => (Math.PI * ringRadiusM * ringRadiusM) / (pitchM * pitchM);
+
+/** X = 3lc₀²/(π ε_h ω0² r³), so that ln(2c/d) = X at resonance ω0. */
+function capacitanceLog(stackM: number, ringRadiusM: number, resonanceHz: number, hostEpsRe: number): number {
+  const w0 = TWO_PI * resonanceHz;
+  return (3 * stackM * C0 * C0) / (Math.PI * hostEpsRe * w0 * w0 * ringRadiusM ** 3);
+}
+
+/** Resonance frequency f0 (Hz) of the rings; NaN when d ≥ 2c (the model's log is not positive). */
+export function splitRingResonanceHz(g: SplitRingGeometry, hostEpsRe = 1): number {
+  const lg = Math.log((2 * g.ringWidthM) / g.ringGapM);
+  if (!(lg > 0)) return NaN;
+  const l = g.stackSpacingM ?? g.pitchM;
+  return Math.sqrt((3 * l * C0 * C0) / (Math.PI * hostEpsRe * lg * g.ringRadiusM ** 3)) / TWO_PI;
+}
+
+/** Gap d (m) between the rings that puts the resonance at f0: d = 2c·exp(−X). */
+export function ringGapForResonance(g: Omit<SplitRingGeometry, "ringGapM">, resonanceHz: number, hostEpsRe = 1): number {
+  return 2 * g.ringWidthM * Math.exp(-capacitanceLog(g.stackSpacingM ?? g.pitchM, g.ringRadiusM, resonanceHz, hostEpsRe));
+}
+
+/** Damping Γ (rad/s) = 2lR'/(μ₀r), R' = 1/(σ c t_eff) at frequency f. 0 for a perfect conductor. */
+export function splitRingDampingRadPerS(g: SplitRingGeometry, conductivitySPerM: number, frequencyHz: number): number {
+  if (conductivitySPerM === Infinity) return 0;
+  const tEff = stripEffectiveThicknessM(g.metalThicknessM, skinDepthM(conductivitySPerM, frequencyHz));
+  const rPerLength = 1 / (conductivitySPerM * g.ringWidthM * tEff);
+  return (2 * (g.stackSpacingM ?? g.pitchM) * rPerLength) / (MU0 * g.ringRadiusM);
+}
+
+/** Lorentz μ = 1 − Fω²/(ω² − ω0² + iΓω) at f (Hz). */
+export function lorentzMu(fill: number, resonanceHz: number, gammaRadPerS: number, frequencyHz: number): Complex {
+  const w = TWO_PI * frequencyHz;
+  const w0 = TWO_PI * resonanceHz;
+  const dr = w * w - w0 * w0;
+  const di = gammaRadPerS * w;
+  const m = dr * dr + di * di;
+  const num = fill * w * w;
+  // −num/(dr + i di) = −num(dr − i di)/m
+  return { re: 1 - (num * dr) / m, im: (num * di) / m };
+}
+
+export interface ResonanceChoice {
+  /** resonance frequency, Hz; NaN when the target is out of reach for this F */
+  resonanceHz: number;
+  reason?: string;
+}
+
+/**
+ * Resonance f0 that gives the lossless Lorentz μ' = targetMu at f: f0² = f²(1 − F/(1 − μ')).
+ * Out of reach when 1 − F ≤ μ' ≤ 1 (μ' = 1 needs no rings).
+ */
+export function resonanceForTargetMu(targetMu: number, frequencyHz: number, fill: number): ResonanceChoice {
+  if (targetMu >= 1 - fill && targetMu <= 1) {
+    return { resonanceHz: NaN, reason: `μ' = ${targetMu} lies between the high-frequency limit 1 − F = ${(1 - fill).toPrecision(4)} and 1; use smaller rings (F < ${(1 - targetMu).toPrecision(4)})` };
+  }
+  return { resonanceHz: frequencyHz * Math.sqrt(1 - fill / (1 - targetMu)) };
+}
+
+export interface SplitRingResponse {
+  fill: number;
+  resonanceHz: number;
+  /** Re μ = 0 (lossless) at f0/sqrt(1 − F), Hz; NaN when F ≥ 1 */
+  magneticPlasmaHz: number;
+  muHighFrequency: number;
+  gammaRadPerS: number;
+  skinDepthM: number;
+  mu: Complex;
+}
+
+/** μ at the design frequency for rings of geometry g (resonance from the geometry unless given). */
+export function splitRingResponse(g: SplitRingGeometry, conductivitySPerM: number, frequencyHz: number, hostEpsRe = 1, resonanceHz?: number): SplitRingResponse {
+  const fill = splitRingFill(g.ringRadiusM, g.pitchM);
+  const f0 = resonanceHz ?? splitRingResonanceHz(g, hostEpsRe);
+  const gamma = splitRingDampingRadPerS(g, conductivitySPerM, frequencyHz);
+  return {
+    fill,
+    resonanceHz: f0,
+    magneticPlasmaHz: fill < 1 ? f0 / Math.sqrt(1 - fill) : NaN,
+    muHighFrequency: 1 - fill,
+    gammaRadPerS: gamma,
+    skinDepthM: conductivitySPerM === Infinity ? 0 : skinDepthM(conductivitySPerM, frequencyHz),
+    mu: lorentzMu(fill, f0, gamma, frequencyHz),
+  };
+}
+
+/** Band around the design frequency where Re μ stays within ±toleranceAbs of targetMu (Γ held fixed). */
+export function splitRingBandwidth(r: SplitRingResponse, frequencyHz: number, targetMu: number, toleranceAbs: number): ToleranceBand {
+  return toleranceBand((f) => lorentzMu(r.fill, r.resonanceHz, r.gammaRadPerS, f).re, frequencyHz, targetMu, toleranceAbs);
+}
+
+export interface SplitRingDesignInput {
+  pitchM: number;
+  frequencyHz: number;
+  targetMu: number;
+  conductivitySPerM: number;
+  hostEpsRe?: number;
+  /** ring radius; default: the largest ring whose outer edge stays at 0.45a with d ≈ c (ours), shrunk to F = (1 − μ')/2 when that F is too large */
+  ringRadiusM?: number;
+  /** strip width; default a/20 (ours) */
+  ringWidthM?: number;
+  stackSpacingM?: number;
+  metalThicknessM?: number;
+}
+
+export interface SplitRingDesign {
+  geometry: SplitRingGeometry | null;
+  response: SplitRingResponse | null;
+  /** why no geometry was found, or what to watch */
+  reasons: string[];
+}
+
+/**
+ * Ring geometry for a target μ' at the design frequency: choose r (hence F), put the lossless
+ * resonance where μ'(f) = target, then pick the inter-ring gap d that tunes the rings there.
+ * The achieved μ includes the metal loss, so Re μ differs slightly from the target.
+ */
+export function designSplitRing(input: SplitRingDesignInput): SplitRingDesign {
+  const { pitchM: a, frequencyHz, targetMu, conductivitySPerM } = input;
+  const eh = input.hostEpsRe ?? 1;
+  const c = input.ringWidthM ?? a / 20;
+  let r = input.ringRadiusM ?? 0.45 * a - 3 * c;
+  const reasons: string[] = [];
+  if (!(r > 0)) return { geometry: null, response: null, reasons: [`ring width ${c} m leaves no room for a ring in a ${a} m cell`] };
+  if (input.ringRadiusM === undefined && targetMu < 1 && splitRingFill(r, a) >= 1 - targetMu) {
+    r = a * Math.sqrt((1 - targetMu) / 2 / Math.PI);
+  }
+  const fill = splitRingFill(r, a);
+  const choice = resonanceForTargetMu(targetMu, frequencyHz, fill);
+  if (!Number.isFinite(choice.resonanceHz)) return { geometry: null, response: null, reasons: [choice.reason ?? "target out of reach"] };
+  const base = { pitchM: a, ringRadiusM: r, ringWidthM: c, stackSpacingM: input.stackSpacingM, metalThicknessM: input.metalThicknessM };
+  const d = ringGapForResonance(base, choice.resonanceHz, eh);
+  const geometry: SplitRingGeometry = { ...base, ringGapM: d };
+  if (d > c) reasons.push(`ring gap ${d.toPrecision(3)} m exceeds the ring width: outside the narrow-gap capacitance model`);
+  if (r + 2 * c + d > a / 2) reasons.push(`rings (outer radius ${(r + 2 * c + d).toPrecision(3)} m) do not fit a ${a} m cell`);
+  const response = splitRingResponse(geometry, conductivitySPerM, frequencyHz, eh, choice.resonanceHz);
+  return { geometry, response, reasons };
+}
