@@ -1,0 +1,104 @@
+/**
+ * Bounds on the effective permittivity of a two-phase mixture of real, positive phases:
+ * Wiener (any geometry, anisotropic allowed) and Hashin–Shtrikman (isotropic, 2D or 3D).
+ * `fill` is always the volume fraction of the second phase (the inclusion).
+ */
+import type { Complex } from "../core/complex.js";
+
+/**
+ * Wiener bounds [series, parallel] = [1/((1−f)/ε₁ + f/ε₂), (1−f)ε₁ + fε₂], sorted. Exact for a
+ * laminate (field across / along the layers). Real phases (ε > 0 for the series mean to bound).
+ * Source: Wiener, Abh. Math.-Phys. Kl. Sächs. Ges. Wiss. 32, 509 (1912).
+ * Example: wienerBounds(1, 4, 0.5) → [1.6, 2.5].
+ */
+export function wienerBounds(eps1: number, eps2: number, fill: number): [number, number] {
+  const par = (1 - fill) * eps1 + fill * eps2;
+  const ser = 1 / ((1 - fill) / eps1 + fill / eps2);
+  return par >= ser ? [ser, par] : [par, ser];
+}
+
+/**
+ * Hashin–Shtrikman bounds for an isotropic mixture in `dimension` dimensions, sorted. Each is the
+ * Maxwell Garnett value with one phase as host (depolarization 1/d):
+ *   ε_HS(host a, inclusion b, fraction f_b) = ε_a + f_b ε_a (ε_b − ε_a)/(ε_a + (1 − f_b)(ε_b − ε_a)/d).
+ * The lower bound has the lower-permittivity phase as host. Real positive phases.
+ * Sources: Hashin, Shtrikman, J. Appl. Phys. 33, 3125 (1962); Milton, "The Theory of Composites"
+ * (2002), §23.
+ * Example: hashinShtrikmanBounds(1, 4, 0.5, 3) → [1.75, 2.2857…] (= [7/4, 16/7]).
+ */
+export function hashinShtrikmanBounds(eps1: number, eps2: number, fill: number, dimension: 2 | 3): [number, number] {
+  const mg = (a: number, b: number, fb: number) => a + (fb * a * (b - a)) / (a + ((1 - fb) * (b - a)) / dimension);
+  const x = mg(eps1, eps2, fill);
+  const y = mg(eps2, eps1, 1 - fill);
+  return x <= y ? [x, y] : [y, x];
+}
+
+export type BoundName = "phase" | "wiener" | "hashin-shtrikman";
+
+export interface BoundsCheckResult {
+  /** the target can be reached (with some fill, or at the given fill with some geometry) */
+  reachable: boolean;
+  /** false when a phase is lossy or not positive: bounds on the real part then do not hold */
+  applies: boolean;
+  /** range of the real part allowed by the tightest bound that applies */
+  lower: number;
+  upper: number;
+  /** which bound the target violates, and on which side */
+  violated?: { bound: BoundName; side: "lower" | "upper"; value: number };
+  /** one line for the user when unreachable or when the check does not apply */
+  message?: string;
+}
+
+const re = (x: number | Complex): number => (typeof x === "number" ? x : x.re);
+const lossy = (x: number | Complex): boolean => typeof x !== "number" && x.im !== 0;
+const fmt = (x: number): string => Number(x.toPrecision(6)).toString();
+
+/**
+ * Is a real target reachable with this pair? Without `fill`: any fill in [0, 1], so the target
+ * must lie between the two phase values. With `fill`: it must lie inside the Wiener bounds (any
+ * geometry, laminates reach them) and, for an isotropic mixture (`isotropic`, default true), inside
+ * the Hashin–Shtrikman bounds of `dimension`. Lossy or non-positive phases: `applies` is false and
+ * the target counts as reachable (the bounds on Re ε do not hold for them).
+ */
+export function boundsCheck(
+  host: number | Complex,
+  inclusion: number | Complex,
+  targetRe: number,
+  dimension: 2 | 3,
+  fill?: number,
+  isotropic = true,
+): BoundsCheckResult {
+  const h = re(host);
+  const i = re(inclusion);
+  if (lossy(host) || lossy(inclusion) || !(h > 0) || !(i > 0)) {
+    return {
+      reachable: true,
+      applies: false,
+      lower: -Infinity,
+      upper: Infinity,
+      message: "bounds on the real part hold for real positive phases only; this pair is lossy or negative, so reachability is decided by the mixing rule",
+    };
+  }
+  const at = fill === undefined ? "" : ` at fill ${fmt(fill)}`;
+  const checks: { bound: BoundName; lo: number; hi: number; what: string }[] = [];
+  if (fill === undefined) checks.push({ bound: "phase", lo: Math.min(h, i), hi: Math.max(h, i), what: "of the pair (no fill fraction goes beyond the phases)" });
+  else {
+    const [wl, wh] = wienerBounds(h, i, fill);
+    checks.push({ bound: "wiener", lo: wl, hi: wh, what: `Wiener bound${at} (no geometry reaches beyond it)` });
+    if (isotropic) {
+      const [hl, hh] = hashinShtrikmanBounds(h, i, fill, dimension);
+      checks.push({ bound: "hashin-shtrikman", lo: hl, hi: hh, what: `${dimension}D Hashin–Shtrikman bound${at} (no isotropic mixture reaches beyond it)` });
+    }
+  }
+  const tol = 1e-12 * Math.max(h, i);
+  for (const c of checks) {
+    if (targetRe > c.hi + tol) {
+      return { reachable: false, applies: true, lower: c.lo, upper: c.hi, violated: { bound: c.bound, side: "upper", value: c.hi }, message: `target ${fmt(targetRe)} is above the upper ${c.what}: ${fmt(c.hi)}` };
+    }
+    if (targetRe < c.lo - tol) {
+      return { reachable: false, applies: true, lower: c.lo, upper: c.hi, violated: { bound: c.bound, side: "lower", value: c.lo }, message: `target ${fmt(targetRe)} is below the lower ${c.what}: ${fmt(c.lo)}` };
+    }
+  }
+  const last = checks[checks.length - 1];
+  return { reachable: true, applies: true, lower: last.lo, upper: last.hi };
+}
