@@ -1,0 +1,97 @@
+/** Rows of the Levels screen and the detail of the selected level. Pure selectors over a plan. */
+import { flagNames } from "../../plan/flags.js";
+import type { Plan } from "../../plan/planTypes.js";
+import { formatPercent, formatValue } from "./formatValue.js";
+import { prettyComponent } from "./mapQuantities.js";
+import { recipeHeadline, recipeLines } from "./recipeText.js";
+
+export interface LevelRow {
+  /** 1-based level number */
+  index: number;
+  cells: number;
+  /** target of each component, formatted */
+  target: string;
+  recipe: string;
+  /** error of the recipe against the level's target */
+  error: string;
+  runnersUp: number;
+  flags: string;
+  buildable: boolean;
+}
+
+/** Table columns, with the width each takes (the recipe column takes the rest). */
+export const LEVEL_COLUMNS = [
+  { title: "lvl", width: 4 },
+  { title: "cells", width: 6 },
+  { title: "target", width: 18 },
+  { title: "error", width: 8 },
+  { title: "alt", width: 4 },
+  { title: "recipe", width: 0 },
+] as const;
+
+export function levelRows(plan: Plan): LevelRow[] {
+  return plan.levels.map((l) => ({
+    index: l.index,
+    cells: l.cellCount,
+    target: l.target.map((v) => formatValue(v)).join(" "),
+    recipe: l.recipe ? recipeHeadline(l.recipe) : `no recipe: ${l.reasons[0] ?? "nothing reaches the target"}`,
+    error: l.recipe ? formatPercent(l.recipe.relError) : "—",
+    runnersUp: l.runnersUp.length,
+    flags: flagNames(l.flags).join(" "),
+    buildable: l.recipe !== null,
+  }));
+}
+
+/** Every line about one level: target, recipe, why it won, the runners-up. */
+export function levelDetail(plan: Plan, levelIndex0: number): string[] {
+  const l = plan.levels[levelIndex0];
+  if (!l) return [];
+  const names = plan.components.map((c) => prettyComponent(c.name));
+  const lines = [
+    `level ${l.index}: ${l.cellCount} cells, target ${names.map((n, k) => `${n} ${formatValue(l.target[k])}`).join(", ")}`,
+    `largest quantization error of its cells ${formatPercent(l.maxQuantizationError)}`,
+  ];
+  if (l.flags) lines.push(`flags: ${flagNames(l.flags).join(", ")}`);
+  if (l.recipe) {
+    lines.push("recipe:");
+    for (const s of recipeLines(l.recipe, names)) lines.push(`  ${s}`);
+  } else {
+    lines.push("no recipe:");
+    for (const r of l.reasons) lines.push(`  ${r}`);
+  }
+  if (l.runnersUp.length) {
+    lines.push(`runners-up (${l.runnersUp.length}):`);
+    l.runnersUp.forEach((r, k) => lines.push(`  ${k + 1}. ${recipeHeadline(r)} — error ${formatPercent(r.relError)}, score ${formatValue(r.score)}`));
+  } else {
+    lines.push("no runners-up");
+  }
+  return lines;
+}
+
+/** The cell of a level nearest the centroid of its cells (where Enter puts the map cursor), −1 if none. */
+export function levelCentreCell(plan: Plan, levelIndex0: number): number {
+  let si = 0;
+  let sj = 0;
+  let n = 0;
+  const { i, j, count } = plan.grid;
+  for (let c = 0; c < count; c++) {
+    if (plan.level[c] !== levelIndex0) continue;
+    si += i[c];
+    sj += j[c];
+    n++;
+  }
+  if (n === 0) return -1;
+  const ci = si / n;
+  const cj = sj / n;
+  let best = -1;
+  let bestD = Infinity;
+  for (let c = 0; c < count; c++) {
+    if (plan.level[c] !== levelIndex0) continue;
+    const d = (i[c] - ci) ** 2 + (j[c] - cj) ** 2;
+    if (d < bestD) {
+      bestD = d;
+      best = c;
+    }
+  }
+  return best;
+}
