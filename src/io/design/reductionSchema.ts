@@ -1,18 +1,21 @@
 /** The design's `reduction` key: which simplification of the tensors the device accepts. */
 import { z } from "zod";
+import { REDUCTION_SCHEME_NAMES, type ReductionSchemeName } from "../../reduce/schemes/schemeNames.js";
 
-export const REDUCTION_SCHEMES = ["full", "unit-mu", "non-magnetic", "isotropic", "matched"] as const;
-export type ReductionSchemeName = (typeof REDUCTION_SCHEMES)[number];
+export { REDUCTION_SCHEME_NAMES, type ReductionSchemeName };
 
 export const reductionSchema = z
   .object({
-    scheme: z.enum(REDUCTION_SCHEMES),
-    /** for unit-mu: which principal value of the in-plane μ becomes 1 */
+    /** full, unit-mu (Ez), non-magnetic (Hz), isotropic, matched; see src/reduce/schemes */
+    scheme: z.enum(REDUCTION_SCHEME_NAMES),
+    /** for unit-mu (and matched in Ez): which principal value of the in-plane μ becomes 1 */
     unitAxis: z.enum(["larger", "smaller"]).optional(),
-    /** index of the dielectric the device sits in (scales every ε and μ) */
+    /** index of the non-magnetic dielectric the device sits in (ε × n_b², replacing the design's background) */
     backgroundIndex: z.number().positive().optional(),
     /** permittivity floor used for the minimum background index (default 1) */
     epsFloor: z.number().positive().optional(),
+    /** |μ − 1| above this counts as magnetic (default 0.001) */
+    muTolerance: z.number().nonnegative().optional(),
   })
   .strict();
 

@@ -1,0 +1,16 @@
+import type { ReductionScheme } from "./reductionScheme.js";
+
+/**
+ * `unit-mu` (Ez only): α = 1/λ, λ the larger (default) or smaller principal value of μ_t, so that
+ * principal value becomes 1 and ε_zz takes the inverse scale (ε_zz·λ). For the linear cylindrical
+ * cloak with `larger` this gives μ_r = ((r−a)/r)², μ_θ = 1, ε_z = (b/(b−a))² (Schurig et al.,
+ * "Metamaterial electromagnetic cloak at microwave frequencies", Science 314, 977 (2006)).
+ */
+export const unitMuScheme: ReductionScheme = {
+  name: "unit-mu",
+  summary: "Ez: scale each cell so one principal μ is 1; one magnetic component left",
+  polarizations: ["Ez"],
+  cellScale: (_pol, lambdaMin, lambdaMax, _s, unitLarger) => 1 / (unitLarger ? lambdaMax : lambdaMin),
+  isotropize: false,
+  matchBoundary: false,
+};
