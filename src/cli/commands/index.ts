@@ -6,4 +6,5 @@
 import type { Command } from "../command.js";
 
 export const COMMANDS: Record<string, { summary: string; load: () => Promise<Command> }> = {
+  field: { summary: "compute the material tensors of a design", load: () => import("./field.js").then((m) => m.command) },
 };

@@ -1,0 +1,80 @@
+/**
+ * The lattice of square (2D) or cubic (3D) cells of one pitch covering a device's bounding box;
+ * a cell belongs to the device when its centre lies in the device region. One lattice cell centre
+ * sits at `origin` (default: the centre of the bounding box).
+ */
+import { InputError } from "../core/errors.js";
+import type { DeviceGrid } from "./deviceGrid.js";
+import type { Bounds3 } from "./transforms/transform.js";
+
+/** Largest bounding-box lattice we are willing to scan (cells). */
+export const MAX_LATTICE_CELLS = 5e7;
+
+export interface GridRequest {
+  pitchM: number;
+  origin?: [number, number];
+  /** 3: full 3D lattice; 2: the z = 0 plane only */
+  dimension: 2 | 3;
+  /** where to blame in messages, e.g. "design.json: $.grid.pitch" */
+  where: string;
+}
+
+function axis(min: number, max: number, centre: number, pitch: number): { first: number; n: number } {
+  const first = Math.ceil((min - centre) / pitch - 0.5 - 1e-9);
+  const last = Math.floor((max - centre) / pitch + 0.5 + 1e-9);
+  return { first, n: Math.max(0, last - first + 1) };
+}
+
+/**
+ * Build the device grid. `contains` is called once per lattice point (twice: count, then fill).
+ * Throws InputError at `where` when the lattice would be too large.
+ */
+export function buildDeviceGrid(bounds: Bounds3, contains: (x: number, y: number, z: number) => boolean, req: GridRequest): DeviceGrid {
+  const p = req.pitchM;
+  const ox = req.origin ? req.origin[0] : 0.5 * (bounds.minX + bounds.maxX);
+  const oy = req.origin ? req.origin[1] : 0.5 * (bounds.minY + bounds.maxY);
+  const oz = 0.5 * (bounds.minZ + bounds.maxZ);
+  const ax = axis(bounds.minX, bounds.maxX, ox, p);
+  const ay = axis(bounds.minY, bounds.maxY, oy, p);
+  const az = req.dimension === 3 ? axis(bounds.minZ, bounds.maxZ, oz, p) : { first: 0, n: 1 };
+  const total = ax.n * ay.n * az.n;
+  if (total > MAX_LATTICE_CELLS) {
+    throw new InputError({
+      where: req.where,
+      message: `a pitch of ${p} m gives ${total.toExponential(2)} lattice cells; expected at most ${MAX_LATTICE_CELLS.toExponential(0)} (use a coarser pitch)`,
+    });
+  }
+  const x0 = ox + ax.first * p, y0 = oy + ay.first * p, z0 = req.dimension === 3 ? oz + az.first * p : 0;
+  let count = 0;
+  for (let k = 0; k < az.n; k++) {
+    const z = z0 + k * p;
+    for (let j = 0; j < ay.n; j++) {
+      const y = y0 + j * p;
+      for (let i = 0; i < ax.n; i++) if (contains(x0 + i * p, y, z)) count++;
+    }
+  }
+  const grid: DeviceGrid = {
+    dimension: req.dimension,
+    pitchM: p,
+    nx: ax.n, ny: ay.n, nz: az.n,
+    originXM: x0, originYM: y0, originZM: z0,
+    count,
+    i: new Int32Array(count), j: new Int32Array(count), k: new Int32Array(count),
+    xM: new Float64Array(count), yM: new Float64Array(count), zM: new Float64Array(count),
+  };
+  let c = 0;
+  for (let k = 0; k < az.n; k++) {
+    const z = z0 + k * p;
+    for (let j = 0; j < ay.n; j++) {
+      const y = y0 + j * p;
+      for (let i = 0; i < ax.n; i++) {
+        const x = x0 + i * p;
+        if (!contains(x, y, z)) continue;
+        grid.i[c] = i; grid.j[c] = j; grid.k[c] = k;
+        grid.xM[c] = x; grid.yM[c] = y; grid.zM[c] = z;
+        c++;
+      }
+    }
+  }
+  return grid;
+}

@@ -1,0 +1,125 @@
+/**
+ * The tensor engine: for every cell of the device grid, K = ∂G/∂x' (closed form, or compiled
+ * derivatives for expression maps), det J = 1/det K, ε' = ε_b J Jᵀ/det J, μ' = μ_b J Jᵀ/det J,
+ * principal values and anisotropy ratios. Folding maps (det J ≤ 0) are an InputError naming the
+ * first cells; the singular inner boundary of a cloak is handled by `innerOffsetM` (cells closer
+ * than that are evaluated at that distance) and/or `cap` (largest principal value), both counted
+ * in `capped`. Pure and allocation-free per cell.
+ * Source: Pendry, Schurig, Smith, Science 312, 1780 (2006).
+ */
+import { InputError, ProgrammerError } from "../core/errors.js";
+import { allocSymField } from "../core/symTensor.js";
+import type { TensorField, PointEvaluator } from "./tensorField.js";
+import type { FieldDesign } from "./transformSpec.js";
+import type { Transform } from "./transforms/transform.js";
+import { makeTransform } from "./transforms/registry.js";
+import { buildDeviceGrid } from "./buildDeviceGrid.js";
+import { materialFromK } from "./materialFromK.js";
+import { principal3, capPrincipal } from "./principalValues.js";
+import { checkExpressionDerivatives } from "./checkExpressionDerivatives.js";
+import { describeBadCells, type BadCell } from "./describeBadCells.js";
+
+/** Boundary samples requested from each transform. */
+export const BOUNDARY_SAMPLES = 256;
+/** Bad cells listed in a folding error. */
+const LISTED = 3;
+
+/** Exact material at one physical point for `transform` (no offset, no cap). */
+export function pointEvaluator(transform: Transform, epsB: number, muB: number): PointEvaluator {
+  const k = new Float64Array(9), s = new Float64Array(6);
+  return (x, y, z, epsOut, muOut) => {
+    if (!transform.contains(x, y, z)) return NaN;
+    transform.jacobianK(k, x, y, z);
+    const det = materialFromK(s, k);
+    if (!(det > 0) || det === Infinity) return NaN;
+    for (let q = 0; q < 6; q++) { epsOut[q] = epsB * s[q]; muOut[q] = muB * s[q]; }
+    return 1 / det;
+  };
+}
+
+/**
+ * Compute the tensor field of a design. For `imported` designs pass the field read by
+ * io/fieldCsv.ts (it is returned as is). Throws InputError (where = "<file>: $.transform…") for
+ * folding or undefined maps, and for grids with no cell inside the device.
+ */
+export function computeTensorField(design: FieldDesign, importedField?: TensorField): TensorField {
+  const spec = design.transform;
+  if (spec.kind === "imported") {
+    if (!importedField) throw new ProgrammerError("imported designs need their field: use loadFieldForDesign");
+    return importedField;
+  }
+  const file = design.sourcePath;
+  const transform = makeTransform(spec);
+  const dimension = transform.dimension === 3 && !design.grid.slice ? 3 : 2;
+  const grid = buildDeviceGrid(transform.bounds, transform.contains, {
+    pitchM: design.grid.pitchM, origin: design.grid.origin, dimension, where: `${file}: $.grid.pitch`,
+  });
+  const n = grid.count;
+  if (n === 0) {
+    throw new InputError({ where: `${file}: $.grid`, message: "no cell centre lies inside the device; expected a pitch smaller than the device (or another origin)" });
+  }
+  if (spec.kind === "expression") checkExpressionDerivatives(spec, grid, `${file}: $.transform.virtual`);
+
+  const epsB = design.background.eps, muB = design.background.mu, ratio = muB / epsB;
+  const eps = allocSymField(n), mu = allocSymField(n);
+  const detJ = new Float64Array(n);
+  const epsPrincipal: [Float64Array, Float64Array, Float64Array] = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
+  const muPrincipal: [Float64Array, Float64Array, Float64Array] = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
+  const epsAnisotropy = new Float64Array(n), muAnisotropy = new Float64Array(n);
+  const capped = new Uint8Array(n);
+  const cap = spec.cap ?? null;
+  const offset = "innerOffsetM" in spec && spec.innerOffsetM !== undefined && spec.innerOffsetM > 0 && transform.clampToInnerOffset
+    ? spec.innerOffsetM : 0;
+
+  const k = new Float64Array(9), s = new Float64Array(6), te = new Float64Array(6), tm = new Float64Array(6);
+  const ve = new Float64Array(3), vm = new Float64Array(3), pt = new Float64Array(3);
+  const bad: BadCell[] = [];
+  let badCount = 0;
+  const { xM, yM, zM } = grid;
+  for (let c = 0; c < n; c++) {
+    let x = xM[c], y = yM[c], z = zM[c];
+    let flagged = 0;
+    if (offset > 0) {
+      pt[0] = x; pt[1] = y; pt[2] = z;
+      if (transform.clampToInnerOffset!(pt, offset)) { x = pt[0]; y = pt[1]; z = pt[2]; flagged = 1; }
+    }
+    transform.jacobianK(k, x, y, z);
+    const det = materialFromK(s, k);
+    if (!(det > 0) || det === Infinity) {
+      if (bad.length < LISTED) bad.push({ cell: c, detK: det });
+      badCount++;
+      continue;
+    }
+    detJ[c] = 1 / det;
+    for (let q = 0; q < 6; q++) { te[q] = epsB * s[q]; tm[q] = muB * s[q]; }
+    principal3(ve, te);
+    vm[0] = ratio * ve[0]; vm[1] = ratio * ve[1]; vm[2] = ratio * ve[2];
+    if (cap !== null) {
+      if (capPrincipal(te, ve, cap)) flagged = 1;
+      if (capPrincipal(tm, vm, cap)) flagged = 1;
+    }
+    eps.xx[c] = te[0]; eps.yy[c] = te[1]; eps.zz[c] = te[2]; eps.xy[c] = te[3]; eps.xz[c] = te[4]; eps.yz[c] = te[5];
+    mu.xx[c] = tm[0]; mu.yy[c] = tm[1]; mu.zz[c] = tm[2]; mu.xy[c] = tm[3]; mu.xz[c] = tm[4]; mu.yz[c] = tm[5];
+    epsPrincipal[0][c] = ve[0]; epsPrincipal[1][c] = ve[1]; epsPrincipal[2][c] = ve[2];
+    muPrincipal[0][c] = vm[0]; muPrincipal[1][c] = vm[1]; muPrincipal[2][c] = vm[2];
+    epsAnisotropy[c] = ve[2] / ve[0];
+    muAnisotropy[c] = vm[2] / vm[0];
+    capped[c] = flagged;
+  }
+  if (badCount > 0) {
+    const where = spec.kind === "expression" ? `${file}: $.transform.virtual` : `${file}: $.transform`;
+    const what = spec.kind === "expression" ? ` (x = '${spec.virtual.x}', y = '${spec.virtual.y}')` : "";
+    throw new InputError({ where, message: describeBadCells(bad, badCount, grid, what) });
+  }
+  return {
+    source: spec.kind,
+    grid,
+    background: { eps: epsB, mu: muB },
+    eps, mu, detJ,
+    epsPrincipal, muPrincipal, epsAnisotropy, muAnisotropy,
+    capped,
+    capValue: cap,
+    outerBoundary: transform.sampleOuterBoundary(BOUNDARY_SAMPLES),
+    evaluateAt: pointEvaluator(transform, epsB, muB),
+  };
+}

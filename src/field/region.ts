@@ -1,0 +1,116 @@
+/**
+ * Device regions for expression maps: circle, annulus, rectangle, polygon. Each gives a bounding
+ * box, a point test and outer-boundary samples. Lengths in metres.
+ */
+import type { BoundarySamples } from "./tensorField.js";
+import type { Bounds3 } from "./transforms/transform.js";
+import { circleBoundary, edgeBoundary, joinBoundaries } from "./transforms/circleBoundary.js";
+
+export type RegionSpec =
+  | { shape: "circle"; centerM: [number, number]; radiusM: number }
+  | { shape: "annulus"; centerM: [number, number]; innerRadiusM: number; outerRadiusM: number }
+  | { shape: "rectangle"; minM: [number, number]; maxM: [number, number] }
+  | { shape: "polygon"; pointsM: [number, number][] };
+
+export interface Region {
+  bounds: Bounds3;
+  contains(xM: number, yM: number): boolean;
+  sampleBoundary(count: number): BoundarySamples;
+}
+
+/** Build the point test, bounds and boundary sampler of a region. */
+export function makeRegion(spec: RegionSpec): Region {
+  switch (spec.shape) {
+    case "circle": {
+      const [cx, cy] = spec.centerM, r = spec.radiusM, r2 = r * r;
+      return {
+        bounds: { minX: cx - r, maxX: cx + r, minY: cy - r, maxY: cy + r, minZ: 0, maxZ: 0 },
+        contains: (x, y) => (x - cx) * (x - cx) + (y - cy) * (y - cy) <= r2,
+        sampleBoundary: (n) => circleBoundary(cx, cy, r, n),
+      };
+    }
+    case "annulus": {
+      const [cx, cy] = spec.centerM, a2 = spec.innerRadiusM ** 2, b = spec.outerRadiusM, b2 = b * b;
+      return {
+        bounds: { minX: cx - b, maxX: cx + b, minY: cy - b, maxY: cy + b, minZ: 0, maxZ: 0 },
+        contains: (x, y) => {
+          const d = (x - cx) * (x - cx) + (y - cy) * (y - cy);
+          return d > a2 && d <= b2;
+        },
+        sampleBoundary: (n) => circleBoundary(cx, cy, b, n),
+      };
+    }
+    case "rectangle": {
+      const [x0, y0] = spec.minM, [x1, y1] = spec.maxM;
+      const inset = 1e-9 * Math.max(x1 - x0, y1 - y0);
+      return {
+        bounds: { minX: x0, maxX: x1, minY: y0, maxY: y1, minZ: 0, maxZ: 0 },
+        contains: (x, y) => x >= x0 && x <= x1 && y >= y0 && y <= y1,
+        sampleBoundary: (n) => {
+          const per = Math.max(2, Math.floor(n / 4));
+          return joinBoundaries([
+            edgeBoundary(x0, y0, x1, y0, 0, -1, per, inset),
+            edgeBoundary(x1, y0, x1, y1, 1, 0, per, inset),
+            edgeBoundary(x1, y1, x0, y1, 0, 1, per, inset),
+            edgeBoundary(x0, y1, x0, y0, -1, 0, per, inset),
+          ]);
+        },
+      };
+    }
+    case "polygon": {
+      const pts = spec.pointsM;
+      const n = pts.length;
+      const xs = new Float64Array(n), ys = new Float64Array(n);
+      for (let k = 0; k < n; k++) { xs[k] = pts[k][0]; ys[k] = pts[k][1]; }
+      let area2 = 0;
+      for (let k = 0; k < n; k++) {
+        const m = (k + 1) % n;
+        area2 += xs[k] * ys[m] - xs[m] * ys[k];
+      }
+      const ccw = area2 > 0;
+      const bounds = {
+        minX: Math.min(...xs), maxX: Math.max(...xs), minY: Math.min(...ys), maxY: Math.max(...ys), minZ: 0, maxZ: 0,
+      };
+      const inset = 1e-9 * Math.max(bounds.maxX - bounds.minX, bounds.maxY - bounds.minY);
+      return {
+        bounds,
+        // even–odd ray casting
+        contains: (x, y) => {
+          let inside = false;
+          for (let k = 0, m = n - 1; k < n; m = k++) {
+            const yk = ys[k], ym = ys[m];
+            if ((yk > y) !== (ym > y)) {
+              const xCross = xs[k] + ((y - yk) * (xs[m] - xs[k])) / (ym - yk);
+              if (x < xCross) inside = !inside;
+            }
+          }
+          return inside;
+        },
+        sampleBoundary: (count) => {
+          let perimeter = 0;
+          for (let k = 0; k < n; k++) perimeter += Math.hypot(xs[(k + 1) % n] - xs[k], ys[(k + 1) % n] - ys[k]);
+          const parts: BoundarySamples[] = [];
+          for (let k = 0; k < n; k++) {
+            const m = (k + 1) % n;
+            const dx = xs[m] - xs[k], dy = ys[m] - ys[k], len = Math.hypot(dx, dy);
+            if (len === 0) continue;
+            // outward normal: right of the edge for a counter-clockwise polygon
+            const nx = ccw ? dy / len : -dy / len, ny = ccw ? -dx / len : dx / len;
+            parts.push(edgeBoundary(xs[k], ys[k], xs[m], ys[m], nx, ny, Math.max(2, Math.round((count * len) / perimeter)), inset));
+          }
+          return joinBoundaries(parts);
+        },
+      };
+    }
+  }
+}
+
+/** Twice the signed area of a polygon (positive when counter-clockwise). */
+export function polygonArea2(points: [number, number][]): number {
+  let s = 0;
+  for (let k = 0; k < points.length; k++) {
+    const [x0, y0] = points[k], [x1, y1] = points[(k + 1) % points.length];
+    s += x0 * y1 - x1 * y0;
+  }
+  return s;
+}

@@ -1,0 +1,135 @@
+/**
+ * The design's `transform` key: a discriminated union on `kind`, one strict object per kind.
+ * JSON parameter names are a contract (users and tests write them); the parsed spec is SI with
+ * unit-suffixed names (see field/transformSpec.ts). Expression maps are compiled later, by
+ * parseDesign.
+ */
+import { z } from "zod";
+import { point2, positiveQuantity, quantity } from "./quantitySchema.js";
+import { regionSchema } from "./regionSchema.js";
+
+const length = () => positiveQuantity("length");
+const cap = z.number().positive().optional();
+const innerOffset = quantity("length").refine((v) => v >= 0, { message: "expected a length ≥ 0" }).optional();
+
+/** Add an issue at `path` of the transform object. */
+function issue(ctx: z.RefinementCtx, path: string, message: string): void {
+  ctx.addIssue({ code: "custom", message, path: [path] });
+}
+
+const radialCloak = z
+  .object({
+    kind: z.literal("radial-cloak"),
+    innerRadius: length(),
+    outerRadius: length(),
+    profile: z.enum(["linear", "quadratic"]).default("linear"),
+    center: point2.optional(),
+    innerOffset,
+    cap,
+  })
+  .strict()
+  .superRefine((t, ctx) => {
+    if (!(t.innerRadius < t.outerRadius)) return issue(ctx, "outerRadius", "expected outerRadius > innerRadius");
+    if (t.profile === "quadratic" && !(t.outerRadius > 2 * t.innerRadius)) {
+      issue(ctx, "profile", `the quadratic profile folds unless outerRadius > 2 × innerRadius (got ${t.outerRadius} m ≤ 2 × ${t.innerRadius} m); use 'linear' or a larger outer radius`);
+    }
+    if (t.innerOffset !== undefined && !(t.innerOffset < t.outerRadius - t.innerRadius)) {
+      issue(ctx, "innerOffset", "expected innerOffset smaller than outerRadius − innerRadius");
+    }
+  })
+  .transform((t) => ({
+    kind: t.kind, innerRadiusM: t.innerRadius, outerRadiusM: t.outerRadius, profile: t.profile,
+    center: t.center, innerOffsetM: t.innerOffset, cap: t.cap,
+  }));
+
+const concentrator = z
+  .object({
+    kind: z.literal("concentrator"),
+    innerRadius: length(),
+    compressedRadius: length(),
+    outerRadius: length(),
+    center: point2.optional(),
+    cap,
+  })
+  .strict()
+  .superRefine((t, ctx) => {
+    if (!(t.innerRadius < t.compressedRadius)) issue(ctx, "compressedRadius", "expected compressedRadius > innerRadius");
+    else if (!(t.compressedRadius < t.outerRadius)) issue(ctx, "outerRadius", "expected outerRadius > compressedRadius");
+  })
+  .transform((t) => ({
+    kind: t.kind, innerRadiusM: t.innerRadius, compressedRadiusM: t.compressedRadius, outerRadiusM: t.outerRadius,
+    center: t.center, cap: t.cap,
+  }));
+
+const rotator = z
+  .object({ kind: z.literal("rotator"), innerRadius: length(), outerRadius: length(), angle: quantity("angle"), center: point2.optional(), cap })
+  .strict()
+  .superRefine((t, ctx) => {
+    if (!(t.innerRadius < t.outerRadius)) issue(ctx, "outerRadius", "expected outerRadius > innerRadius");
+  })
+  .transform((t) => ({ kind: t.kind, innerRadiusM: t.innerRadius, outerRadiusM: t.outerRadius, angleRad: t.angle, center: t.center, cap: t.cap }));
+
+const beamShifter = z
+  .object({ kind: z.literal("beam-shifter"), length: length(), height: length(), shift: quantity("length"), cap })
+  .strict()
+  .transform((t) => ({ kind: t.kind, lengthM: t.length, heightM: t.height, shiftM: t.shift, cap: t.cap }));
+
+const beamBend = z
+  .object({
+    kind: z.literal("beam-bend"),
+    innerRadius: length(),
+    outerRadius: length(),
+    angle: quantity("angle"),
+    referenceRadius: length(),
+    center: point2.optional(),
+    cap,
+  })
+  .strict()
+  .superRefine((t, ctx) => {
+    if (!(t.innerRadius < t.outerRadius)) issue(ctx, "outerRadius", "expected outerRadius > innerRadius");
+    if (!(t.angle > 0 && t.angle <= 2 * Math.PI + 1e-12)) issue(ctx, "angle", "expected an angle between 0 and 360 deg");
+  })
+  .transform((t) => ({
+    kind: t.kind, innerRadiusM: t.innerRadius, outerRadiusM: t.outerRadius, angleRad: Math.min(t.angle, 2 * Math.PI),
+    referenceRadiusM: t.referenceRadius, center: t.center, cap: t.cap,
+  }));
+
+const sphericalCloak = z
+  .object({ kind: z.literal("spherical-cloak"), innerRadius: length(), outerRadius: length(), center: point2.optional(), innerOffset, cap })
+  .strict()
+  .superRefine((t, ctx) => {
+    if (!(t.innerRadius < t.outerRadius)) return issue(ctx, "outerRadius", "expected outerRadius > innerRadius");
+    if (t.innerOffset !== undefined && !(t.innerOffset < t.outerRadius - t.innerRadius)) {
+      issue(ctx, "innerOffset", "expected innerOffset smaller than outerRadius − innerRadius");
+    }
+  })
+  .transform((t) => ({ kind: t.kind, innerRadiusM: t.innerRadius, outerRadiusM: t.outerRadius, center: t.center, innerOffsetM: t.innerOffset, cap: t.cap }));
+
+const expression = z
+  .object({
+    kind: z.literal("expression"),
+    virtual: z.object({ x: z.string().min(1), y: z.string().min(1) }).strict(),
+    region: regionSchema,
+    cap,
+  })
+  .strict();
+
+const imported = z.object({ kind: z.literal("imported"), file: z.string().min(1) }).strict();
+
+export const transformSchema = z.discriminatedUnion("kind", [
+  radialCloak, concentrator, rotator, beamShifter, beamBend, sphericalCloak, expression, imported,
+]);
+
+/** JSON keys accepted by each kind, for "did you mean" messages. */
+export const TRANSFORM_KEYS: Record<string, string[]> = {
+  "radial-cloak": ["kind", "innerRadius", "outerRadius", "profile", "center", "innerOffset", "cap"],
+  concentrator: ["kind", "innerRadius", "compressedRadius", "outerRadius", "center", "cap"],
+  rotator: ["kind", "innerRadius", "outerRadius", "angle", "center", "cap"],
+  "beam-shifter": ["kind", "length", "height", "shift", "cap"],
+  "beam-bend": ["kind", "innerRadius", "outerRadius", "angle", "referenceRadius", "center", "cap"],
+  "spherical-cloak": ["kind", "innerRadius", "outerRadius", "center", "innerOffset", "cap"],
+  expression: ["kind", "virtual", "region", "cap"],
+  imported: ["kind", "file"],
+};
+
+export type ParsedTransform = z.output<typeof transformSchema>;
