@@ -50,15 +50,29 @@ export interface BoundsCheckResult {
 }
 
 const re = (x: number | Complex): number => (typeof x === "number" ? x : x.re);
-const lossy = (x: number | Complex): boolean => typeof x !== "number" && x.im !== 0;
+const im = (x: number | Complex): number => (typeof x === "number" ? 0 : x.im);
+
+/** Largest tan δ of a phase for which the real-part bounds are still applied (see realBoundsApply). */
+export const LOW_LOSS_LIMIT = 0.1;
+
+/**
+ * Whether bounds on Re ε apply to this pair: both real parts positive and both phases low-loss
+ * (|ε''|/ε' ≤ LOW_LOSS_LIMIT). Exact for lossless phases; for low loss a mixing rule's real part
+ * moves only at second order in tan δ (the rule is real-analytic), so the bounds hold to about
+ * tan δ² (≤ 1 % at the limit).
+ */
+export function realBoundsApply(host: number | Complex, inclusion: number | Complex): boolean {
+  return [host, inclusion].every((x) => re(x) > 0 && Math.abs(im(x)) <= LOW_LOSS_LIMIT * re(x));
+}
 const fmt = (x: number): string => Number(x.toPrecision(6)).toString();
 
 /**
  * Is a real target reachable with this pair? Without `fill`: any fill in [0, 1], so the target
  * must lie between the two phase values. With `fill`: it must lie inside the Wiener bounds (any
  * geometry, laminates reach them) and, for an isotropic mixture (`isotropic`, default true), inside
- * the Hashin–Shtrikman bounds of `dimension`. Lossy or non-positive phases: `applies` is false and
- * the target counts as reachable (the bounds on Re ε do not hold for them).
+ * the Hashin–Shtrikman bounds of `dimension`. Only real parts are compared; when
+ * realBoundsApply is false (lossy or non-positive phases) `applies` is false and the target counts
+ * as reachable (the bounds on Re ε do not hold; the mixing rule decides).
  */
 export function boundsCheck(
   host: number | Complex,
@@ -70,33 +84,34 @@ export function boundsCheck(
 ): BoundsCheckResult {
   const h = re(host);
   const i = re(inclusion);
-  if (lossy(host) || lossy(inclusion) || !(h > 0) || !(i > 0)) {
+  if (!realBoundsApply(host, inclusion)) {
     return {
       reachable: true,
       applies: false,
       lower: -Infinity,
       upper: Infinity,
-      message: "bounds on the real part hold for real positive phases only; this pair is lossy or negative, so reachability is decided by the mixing rule",
+      message: "bounds on the real part hold for positive, low-loss phases only; with this pair the mixing rule alone decides reachability",
     };
   }
   const at = fill === undefined ? "" : ` at fill ${fmt(fill)}`;
-  const checks: { bound: BoundName; lo: number; hi: number; what: string }[] = [];
-  if (fill === undefined) checks.push({ bound: "phase", lo: Math.min(h, i), hi: Math.max(h, i), what: "of the pair (no fill fraction goes beyond the phases)" });
-  else {
+  const checks: { bound: BoundName; lo: number; hi: number; name: [string, string]; why: string }[] = [];
+  if (fill === undefined) {
+    checks.push({ bound: "phase", lo: Math.min(h, i), hi: Math.max(h, i), name: ["smaller phase value", "larger phase value"], why: "no fill fraction goes beyond the phases of the pair" });
+  } else {
     const [wl, wh] = wienerBounds(h, i, fill);
-    checks.push({ bound: "wiener", lo: wl, hi: wh, what: `Wiener bound${at} (no geometry reaches beyond it)` });
+    checks.push({ bound: "wiener", lo: wl, hi: wh, name: [`lower Wiener bound${at}`, `upper Wiener bound${at}`], why: "no geometry goes beyond it" });
     if (isotropic) {
       const [hl, hh] = hashinShtrikmanBounds(h, i, fill, dimension);
-      checks.push({ bound: "hashin-shtrikman", lo: hl, hi: hh, what: `${dimension}D Hashin–Shtrikman bound${at} (no isotropic mixture reaches beyond it)` });
+      checks.push({ bound: "hashin-shtrikman", lo: hl, hi: hh, name: [`lower ${dimension}D Hashin–Shtrikman bound${at}`, `upper ${dimension}D Hashin–Shtrikman bound${at}`], why: "no isotropic mixture goes beyond it" });
     }
   }
   const tol = 1e-12 * Math.max(h, i);
   for (const c of checks) {
     if (targetRe > c.hi + tol) {
-      return { reachable: false, applies: true, lower: c.lo, upper: c.hi, violated: { bound: c.bound, side: "upper", value: c.hi }, message: `target ${fmt(targetRe)} is above the upper ${c.what}: ${fmt(c.hi)}` };
+      return { reachable: false, applies: true, lower: c.lo, upper: c.hi, violated: { bound: c.bound, side: "upper", value: c.hi }, message: `target ${fmt(targetRe)} is above the ${c.name[1]} ${fmt(c.hi)} (${c.why})` };
     }
     if (targetRe < c.lo - tol) {
-      return { reachable: false, applies: true, lower: c.lo, upper: c.hi, violated: { bound: c.bound, side: "lower", value: c.lo }, message: `target ${fmt(targetRe)} is below the lower ${c.what}: ${fmt(c.lo)}` };
+      return { reachable: false, applies: true, lower: c.lo, upper: c.hi, violated: { bound: c.bound, side: "lower", value: c.lo }, message: `target ${fmt(targetRe)} is below the ${c.name[0]} ${fmt(c.lo)} (${c.why})` };
     }
   }
   const last = checks[checks.length - 1];
