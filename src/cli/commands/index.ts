@@ -7,4 +7,7 @@ import type { Command } from "../command.js";
 
 export const COMMANDS: Record<string, { summary: string; load: () => Promise<Command> }> = {
   field: { summary: "compute the material tensors of a design", load: () => import("./field.js").then((m) => m.command) },
+  material: { summary: "list the material catalog or evaluate a material at a frequency", load: () => import("./material.js").then((m) => m.command) },
+  mix: { summary: "effective permittivity of a two-phase mixture, or the fill fraction for a target", load: () => import("./mix.js").then((m) => m.command) },
+  cell: { summary: "design one unit cell: dimensions, effective ε or μ, process and homogenization checks", load: () => import("./cell.js").then((m) => m.command) },
 };
