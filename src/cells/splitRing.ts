@@ -19,6 +19,8 @@ import { skinDepthM, stripEffectiveThicknessM } from "./skinDepth.js";
 import { toleranceBand, type ToleranceBand } from "./toleranceBand.js";
 
 const TWO_PI = 2 * Math.PI;
+/** Narrowest gap treated as makeable at all, 1 nm (common practice: below a few atomic layers). */
+export const MIN_BUILDABLE_GAP_M = 1e-9;
 
 export interface SplitRingGeometry {
   /** cell side a, m */
@@ -168,6 +170,7 @@ export function designSplitRing(input: SplitRingDesignInput): SplitRingDesign {
   const base = { pitchM: a, ringRadiusM: r, ringWidthM: c, stackSpacingM: input.stackSpacingM, metalThicknessM: input.metalThicknessM };
   const d = ringGapForResonance(base, choice.resonanceHz, eh);
   const geometry: SplitRingGeometry = { ...base, ringGapM: d };
+  if (d < MIN_BUILDABLE_GAP_M) reasons.push(`the rings need a gap of ${d.toPrecision(3)} m between them to resonate at ${(choice.resonanceHz / 1e9).toPrecision(4)} GHz: below 1 nm, nothing makes it (use larger rings, closer stacking or a denser host)`);
   if (d > c) reasons.push(`ring gap ${d.toPrecision(3)} m exceeds the ring width: outside the narrow-gap capacitance model`);
   if (r + 2 * c + d > a / 2) reasons.push(`rings (outer radius ${(r + 2 * c + d).toPrecision(3)} m) do not fit a ${a} m cell`);
   const response = splitRingResponse(geometry, conductivitySPerM, frequencyHz, eh, choice.resonanceHz);

@@ -1,0 +1,49 @@
+/** Checks every cell design shares: target error, process reach, homogenization. */
+import { cAbs, type Complex, cSqrt } from "../core/complex.js";
+import type { FabricatedPhase, SmallestFeature } from "./cellFamily.js";
+import type { CellPhase } from "./cellDesignTypes.js";
+import { homogenizationCheck, type HomogenizationCheck } from "./homogenization.js";
+import { checkProcess, type Process, type ProcessCheck } from "./process.js";
+
+/** |Re achieved − target| / max(|target|, 1): relative above 1, absolute near zero (so ε ≈ 0 targets are not held to an impossible relative precision). */
+export function matchError(achieved: Complex, target: number): number {
+  return Math.abs(achieved.re - target) / Math.max(Math.abs(target), 1);
+}
+
+/** The ±band a tolerance allows around a target: tolerance·max(|target|, 1). */
+export const toleranceAbs = (tolerance: number, target: number): number => tolerance * Math.max(Math.abs(target), 1);
+
+/** Phases the process must shape: gases and liquids are never shaped (they fill what is made). */
+export function shapedPhases(which: FabricatedPhase, host: CellPhase, inclusion: CellPhase): CellPhase[] {
+  const list = which === "both" ? [inclusion, host] : which === "host" ? [host] : [inclusion];
+  return list.filter((p) => p.class !== "gas" && p.class !== "liquid");
+}
+
+/** Process check over every shaped phase (the size reasons once, each unsupported material once). */
+export function processCheckFor(process: Process | undefined, feature: SmallestFeature & { heightM?: number }, phases: CellPhase[]): ProcessCheck | null {
+  if (!process) return null;
+  const reasons = new Set<string>();
+  const list = phases.length ? phases : [];
+  if (list.length === 0) for (const r of checkProcess(process, feature, process.materialClasses[0]).reasons) reasons.add(r);
+  for (const p of list) for (const r of checkProcess(process, feature, p.class).reasons) reasons.add(r);
+  return { ok: reasons.size === 0, reasons: [...reasons] };
+}
+
+/** Index of a phase for the homogenization check: |Re sqrt(ε)|; metals are skipped (fields do not enter them). */
+export function phaseIndex(p: CellPhase): number {
+  return p.class === "metal" ? 0 : Math.abs(cSqrt(p.eps).re);
+}
+
+/** Homogenization check with n_max over the given phases and effective values (ε·μ). */
+export function homogenizationFor(pitchM: number, frequencyHz: number, phases: CellPhase[], effective: Complex[]): HomogenizationCheck & { nMax: number } {
+  let nMax = 1;
+  for (const p of phases) nMax = Math.max(nMax, phaseIndex(p));
+  for (const e of effective) if (Number.isFinite(cAbs(e))) nMax = Math.max(nMax, Math.sqrt(cAbs(e)));
+  return { ...homogenizationCheck(pitchM, frequencyHz, nMax), nMax };
+}
+
+/** The human line for a homogenization result that is not ok. */
+export function homogenizationNote(h: HomogenizationCheck): string {
+  const frac = `pitch is ${h.ratio.toPrecision(3)} of the wavelength in the densest material`;
+  return h.status === "refuse" ? `${frac}: too coarse to homogenize (needs ≤ 0.25, ideally ≤ 0.1)` : `${frac}: above the λ/10 guideline, effective-medium values are approximate`;
+}

@@ -1,0 +1,152 @@
+/**
+ * Design one unit cell: for a family, lattice, pitch, frequency and two evaluated materials, find
+ * the fill fraction (and so the dimensions) whose effective response meets the target, then check
+ * what the cell can promise: the error on each targeted axis, the smallest feature against the
+ * process, the pitch against the wavelength (homogenization), and the Maxwell Garnett/Bruggeman
+ * spread. Resonant families (wire medium, split ring) also report their band and passivity limit.
+ * Pure: materials come in already evaluated at the design frequency.
+ *
+ * Matching: one target → the family's inverse for that axis (closed form or bounded iteration);
+ * two targets on a uniaxial family (one geometric degree of freedom) → the fill that minimizes the
+ * larger of the two errors (golden-section search over the fill range; the error is quasi-convex
+ * in the fill because each axis is monotone in it). Out of reach → the closest reachable fill,
+ * valid = false and a reason. Valid means: every targeted value within `tolerance`, the process
+ * (when given) can make it, and the cell is not too coarse ("refuse"); a "warn" homogenization and
+ * a spread above the tolerance are notes, not failures.
+ */
+import { ProgrammerError } from "../core/errors.js";
+import type { Axis, CellFamily, FillResult } from "./cellFamily.js";
+import { homogenizationFor, homogenizationNote, matchError, processCheckFor, shapedPhases } from "./cellChecks.js";
+import type { CellDesign, CellDesignRequest, CellTarget } from "./cellDesignTypes.js";
+import { designResonantCell } from "./designResonantCell.js";
+import { cellSpread } from "./mixingSpread.js";
+import { getCellFamily } from "./registry.js";
+
+export const DEFAULT_TOLERANCE = 0.05;
+const AXES: Axis[] = ["parallel", "perpendicular"];
+
+/** Design a cell (see the module comment). Throws ProgrammerError for a malformed request. */
+export function designCell(request: CellDesignRequest): CellDesign {
+  const family = getCellFamily(request.familyId);
+  checkRequest(request, family);
+  if (family.resonant) return designResonantCell(request, family);
+  return designMixedCell(request, family);
+}
+
+function checkRequest(req: CellDesignRequest, family: CellFamily): void {
+  const bad = (what: string) => {
+    throw new ProgrammerError(`designCell: ${what}`, req);
+  };
+  if (!(req.pitchM > 0) || !Number.isFinite(req.pitchM)) bad("pitchM must be a finite number > 0");
+  if (!(req.frequencyHz > 0) || !Number.isFinite(req.frequencyHz)) bad("frequencyHz must be a finite number > 0");
+  if (!family.lattices.includes(req.lattice)) bad(`${family.id} takes lattices ${family.lattices.join(", ")}, not ${req.lattice}`);
+  if (req.fill !== undefined) {
+    const [lo, hi] = family.fillRange(req.lattice);
+    if (!(req.fill >= lo && req.fill <= hi)) bad(`fill ${req.fill} outside ${family.id}'s range [${lo}, ${hi}]`);
+  }
+  const t = req.target ?? {};
+  if (req.fill === undefined && t.parallel === undefined && t.perpendicular === undefined && t.mu === undefined && req.splitRing === undefined) {
+    bad("give a target or a fill");
+  }
+}
+
+function goldenMin(fn: (x: number) => number, lo: number, hi: number): number {
+  const g = (Math.sqrt(5) - 1) / 2;
+  let a = lo;
+  let b = hi;
+  let c = b - g * (b - a);
+  let d = a + g * (b - a);
+  let fc = fn(c);
+  let fd = fn(d);
+  for (let k = 0; k < 200 && b - a > 1e-14; k++) {
+    if (fc <= fd) {
+      b = d; d = c; fd = fc; c = b - g * (b - a); fc = fn(c);
+    } else {
+      a = c; c = d; fc = fd; d = a + g * (b - a); fd = fn(d);
+    }
+  }
+  const x = 0.5 * (a + b);
+  // the ends may be better when the optimum sits on the range boundary
+  return [lo, x, hi].reduce((best, v) => (fn(v) < fn(best) ? v : best), x);
+}
+
+/** Non-resonant families: fill from the target(s), then the checks. */
+function designMixedCell(req: CellDesignRequest, family: CellFamily): CellDesign {
+  const { host, inclusion, lattice, pitchM } = req;
+  const tolerance = req.tolerance ?? DEFAULT_TOLERANCE;
+  const target: CellTarget = { ...(req.target ?? {}) };
+  const reasons: string[] = [];
+  const notes: string[] = [];
+  const [lo, hi] = family.fillRange(lattice);
+  const eff = (f: number) => family.effectivePermittivity(host.eps, inclusion.eps, f, lattice);
+  const axes = AXES.filter((a) => target[a] !== undefined);
+
+  let fill: number;
+  if (req.fill !== undefined) fill = req.fill;
+  else if (axes.length === 1) {
+    const axis = axes[0];
+    const r: FillResult = family.fillForTarget(host.eps, inclusion.eps, target[axis]!, axis, lattice);
+    if (r.inRange) fill = r.fill;
+    else {
+      reasons.push(r.reason ?? `ε' = ${target[axis]} out of reach`);
+      fill = closestFill(r.ruleFill, lo, hi, (f) => matchError(eff(f)[axis], target[axis]!));
+    }
+  } else {
+    const worst = (f: number) => Math.max(...axes.map((a) => matchError(eff(f)[a], target[a]!)));
+    fill = goldenMin(worst, lo, hi);
+  }
+
+  const e = eff(fill);
+  const relError: CellDesign["relError"] = { max: 0 };
+  for (const a of axes) {
+    relError[a] = matchError(e[a], target[a]!);
+    relError.max = Math.max(relError.max, relError[a]!);
+  }
+  if (relError.max > tolerance) {
+    const worstAxis = axes.reduce((w, a) => (relError[a]! > relError[w]! ? a : w), axes[0]);
+    if (!reasons.length) reasons.push(`${worstAxis} ε' ${fmt(e[worstAxis].re)} misses the target ${target[worstAxis]} by ${pct(relError[worstAxis]!)} (tolerance ${pct(tolerance)})`);
+  }
+
+  const feature = family.smallestFeatureM(fill, pitchM, lattice);
+  const processCheck = processCheckFor(req.process, { ...feature, ...(req.heightM !== undefined ? { heightM: req.heightM } : {}) }, shapedPhases(family.fabricatedPhase, host, inclusion));
+  if (processCheck && !processCheck.ok) reasons.push(...processCheck.reasons);
+  const homogenization = homogenizationFor(pitchM, req.frequencyHz, [host, inclusion], [e.parallel, e.perpendicular]);
+  if (homogenization.status === "refuse") reasons.push(homogenizationNote(homogenization));
+  else if (homogenization.status === "warn") notes.push(homogenizationNote(homogenization));
+  const s = cellSpread(e, host.eps, inclusion.eps, fill);
+  const uncertain = s.max > tolerance;
+  if (uncertain) notes.push(`Maxwell Garnett and Bruggeman differ by ${pct(s.max)} at fill ${fmt(fill)}: verify with a full-wave unit-cell simulation`);
+
+  return {
+    familyId: family.id,
+    lattice,
+    pitchM,
+    frequencyHz: req.frequencyHz,
+    hostId: host.id,
+    inclusionId: inclusion.id,
+    fill,
+    dimensions: family.dimensionsFromFill(fill, pitchM, lattice),
+    achieved: { parallel: e.parallel, perpendicular: e.perpendicular, mu: { re: 1, im: 0 } },
+    rules: e.rules,
+    target,
+    relError,
+    tolerance,
+    feature,
+    processCheck,
+    homogenization,
+    spread: { ...s, uncertain },
+    valid: reasons.length === 0,
+    reasons,
+    notes,
+  };
+}
+
+/** Closest reachable fill: the rule's fill clamped to the range, or the better end when there is none. */
+function closestFill(ruleFill: number, lo: number, hi: number, err: (f: number) => number): number {
+  if (Number.isFinite(ruleFill)) return Math.min(hi, Math.max(lo, ruleFill));
+  return err(lo) <= err(hi) ? lo : hi;
+}
+
+const fmt = (x: number): string => Number(x.toPrecision(4)).toString();
+const pct = (x: number): string => `${Number((100 * x).toPrecision(3))} %`;
+

@@ -1,0 +1,188 @@
+/**
+ * designCell for the resonant families. Wire medium: wire radius for the target ε along the wires
+ * (or the given fill), plasma-frequency estimates, damping, the band within tolerance and the
+ * passivity bound. Split ring: ring sizes for the target μ (or the given sizes), resonance, loss,
+ * band and passivity bound with μ∞ = 1 − F. Called through designCell.
+ */
+import { type Complex, ONE, cMul } from "../core/complex.js";
+import { ProgrammerError } from "../core/errors.js";
+import { getMixingRule } from "../media/mixing/registry.js";
+import type { CellFamily } from "./cellFamily.js";
+import { homogenizationFor, homogenizationNote, matchError, processCheckFor, shapedPhases, toleranceAbs } from "./cellChecks.js";
+import type { CellDesign, CellDesignRequest, RingReport, WireReport } from "./cellDesignTypes.js";
+import { passivityBandwidthBound } from "./passivity.js";
+import { EPS0 } from "./physicalConstants.js";
+import { designSplitRing, splitRingBandwidth, splitRingResponse, type SplitRingGeometry, type SplitRingResponse } from "./splitRing.js";
+import { MIN_RADIUS_RATIO, bandwidthWithinTolerance, radiusForTarget, wireMediumResponse } from "./wireMedium.js";
+
+const DEFAULT_TOLERANCE = 0.05;
+const fmt = (x: number): string => Number(x.toPrecision(4)).toString();
+const pct = (x: number): string => `${Number((100 * x).toPrecision(3))} %`;
+
+function conductivity(req: CellDesignRequest): number {
+  const sigma = req.inclusion.conductivitySPerM ?? 2 * Math.PI * req.frequencyHz * EPS0 * req.inclusion.eps.im;
+  if (!(sigma > 0)) throw new ProgrammerError(`designCell: ${req.familyId} needs a conducting inclusion (σ > 0)`, req.inclusion);
+  return sigma;
+}
+
+export function designResonantCell(req: CellDesignRequest, family: CellFamily): CellDesign {
+  return family.id === "wire-medium" ? designWireCell(req, family) : designRingCell(req, family);
+}
+
+function finish(req: CellDesignRequest, family: CellFamily, parts: Omit<CellDesign, "familyId" | "lattice" | "pitchM" | "frequencyHz" | "hostId" | "inclusionId" | "valid" | "processCheck" | "homogenization" | "spread" | "tolerance">, effective: Complex[]): CellDesign {
+  const tolerance = req.tolerance ?? DEFAULT_TOLERANCE;
+  const reasons = [...parts.reasons];
+  const notes = [...parts.notes];
+  if (parts.relError.max > tolerance) {
+    const keys = (["parallel", "perpendicular", "mu"] as const).filter((k) => parts.relError[k] !== undefined);
+    const k = keys.reduce((w, x) => (parts.relError[x]! > parts.relError[w]! ? x : w), keys[0]);
+    const got = k === "mu" ? parts.achieved.mu.re : parts.achieved[k].re;
+    if (!reasons.length) reasons.push(`${k === "mu" ? "μ'" : `${k} ε'`} ${fmt(got)} misses the target ${parts.target[k]} by ${pct(parts.relError[k]!)} (tolerance ${pct(tolerance)})`);
+  }
+  const processCheck = processCheckFor(req.process, { ...parts.feature, ...(req.heightM !== undefined ? { heightM: req.heightM } : {}) }, shapedPhases(family.fabricatedPhase, req.host, req.inclusion));
+  if (processCheck && !processCheck.ok) reasons.push(...processCheck.reasons);
+  const homogenization = homogenizationFor(req.pitchM, req.frequencyHz, [req.host], effective);
+  if (homogenization.status === "refuse") reasons.push(homogenizationNote(homogenization));
+  else if (homogenization.status === "warn") notes.push(homogenizationNote(homogenization));
+  return {
+    familyId: family.id,
+    lattice: req.lattice,
+    pitchM: req.pitchM,
+    frequencyHz: req.frequencyHz,
+    hostId: req.host.id,
+    inclusionId: req.inclusion.id,
+    ...parts,
+    tolerance,
+    processCheck,
+    homogenization,
+    spread: { parallel: 0, perpendicular: 0, max: 0, uncertain: false },
+    valid: reasons.length === 0,
+    reasons,
+    notes,
+  };
+}
+
+function designWireCell(req: CellDesignRequest, family: CellFamily): CellDesign {
+  const { pitchM, frequencyHz, host } = req;
+  const sigma = conductivity(req);
+  const tolerance = req.tolerance ?? DEFAULT_TOLERANCE;
+  const target = { ...(req.target ?? {}) };
+  const reasons: string[] = [];
+  const notes: string[] = [];
+  const reAt = (r: number) => wireMediumResponse({ pitchM, radiusM: r, frequencyHz, hostEps: host.eps, conductivitySPerM: sigma }).eps;
+  let radiusM: number;
+  if (req.fill !== undefined) radiusM = pitchM * Math.sqrt(req.fill / Math.PI);
+  else if (target.parallel !== undefined) {
+    const r = radiusForTarget(target.parallel, pitchM, frequencyHz, host.eps, sigma);
+    if (Number.isFinite(r.radiusM)) radiusM = r.radiusM;
+    else {
+      reasons.push(r.reason ?? `ε' = ${target.parallel} out of reach`);
+      const ends = [MIN_RADIUS_RATIO * pitchM, (pitchM / 2) * (1 - 1e-9)];
+      radiusM = ends.reduce((b, x) => (matchError(reAt(x), target.parallel!) < matchError(reAt(b), target.parallel!) ? x : b));
+    }
+  } else throw new ProgrammerError("designCell: wire-medium needs target.parallel or a fill", req);
+
+  const resp = wireMediumResponse({ pitchM, radiusM, frequencyHz, hostEps: host.eps, conductivitySPerM: sigma });
+  const fill = resp.fill;
+  const perp = getMixingRule("mg-cylinder").forward(host.eps, req.inclusion.eps, Math.min(fill, Math.PI / 4));
+  const achieved = { parallel: resp.eps, perpendicular: perp, mu: ONE };
+  const relError: CellDesign["relError"] = { max: 0 };
+  for (const a of ["parallel", "perpendicular"] as const) {
+    if (target[a] === undefined) continue;
+    relError[a] = matchError(achieved[a], target[a]!);
+    relError.max = Math.max(relError.max, relError[a]!);
+  }
+  const bandTarget = target.parallel ?? resp.eps.re;
+  const tolAbs = toleranceAbs(tolerance, bandTarget);
+  const band = bandwidthWithinTolerance({ pitchM, radiusM, frequencyHz, hostEps: host.eps, conductivitySPerM: sigma }, bandTarget, tolAbs);
+  const passivity = passivityBandwidthBound(bandTarget, tolAbs);
+  const w = 2 * Math.PI * frequencyHz;
+  if (!resp.plasma.thinWireApplies) notes.push(`thick wires (r/a = ${fmt(radiusM / pitchM)}): the thin-wire formula is off by ${pct(Math.abs(resp.plasma.thinWireRelDiff))}; the thick-wire form is used`);
+  if (sigma / (w * EPS0) < 100) notes.push(`the metal is not a good conductor at this frequency (σ/ωε₀ = ${fmt(sigma / (w * EPS0))}); the wire model assumes one`);
+  if (resp.gammaRadPerS > 0.1 * w) notes.push(`strong damping (γ/ω = ${fmt(resp.gammaRadPerS / w)}): thin wires of this metal are lossy`);
+  const report: WireReport = {
+    kind: "wire-medium",
+    radiusM,
+    plasma: resp.plasma,
+    effectivePlasmaHz: resp.effectivePlasmaHz,
+    gammaRadPerS: resp.gammaRadPerS,
+    skinDepthM: resp.skinDepthM,
+    band,
+    passivity,
+  };
+  return finish(req, family, {
+    fill,
+    dimensions: { radiusM },
+    achieved,
+    rules: { parallel: "wire-medium", perpendicular: "mg-cylinder" },
+    target,
+    relError,
+    feature: family.smallestFeatureM(fill, pitchM, req.lattice),
+    resonance: report,
+    reasons,
+    notes,
+  }, [resp.eps, perp]);
+}
+
+function designRingCell(req: CellDesignRequest, family: CellFamily): CellDesign {
+  const { pitchM: a, frequencyHz, host } = req;
+  const sigma = conductivity(req);
+  const tolerance = req.tolerance ?? DEFAULT_TOLERANCE;
+  const target = { ...(req.target ?? {}) };
+  const sizes = { ...(req.splitRing ?? {}) };
+  if (req.fill !== undefined && sizes.ringRadiusM === undefined) sizes.ringRadiusM = a * Math.sqrt(req.fill / Math.PI);
+  const reasons: string[] = [];
+  const notes: string[] = [];
+  let geometry: SplitRingGeometry | null;
+  let resp: SplitRingResponse | null;
+  if (sizes.ringGapM !== undefined) {
+    geometry = { pitchM: a, ringRadiusM: sizes.ringRadiusM ?? 0.3 * a, ringWidthM: sizes.ringWidthM ?? a / 20, ringGapM: sizes.ringGapM, stackSpacingM: sizes.stackSpacingM, metalThicknessM: sizes.metalThicknessM };
+    resp = splitRingResponse(geometry, sigma, frequencyHz, host.eps.re);
+    if (!Number.isFinite(resp.resonanceHz)) reasons.push(`ring gap ${geometry.ringGapM} m is not below twice the ring width: outside the split-ring model`);
+  } else if (target.mu !== undefined) {
+    const d = designSplitRing({ pitchM: a, frequencyHz, targetMu: target.mu, conductivitySPerM: sigma, hostEpsRe: host.eps.re, ...sizes });
+    geometry = d.geometry;
+    resp = d.response;
+    reasons.push(...d.reasons);
+  } else throw new ProgrammerError("designCell: split-ring needs target.mu or the ring gap", req);
+
+  if (!geometry || !resp) {
+    return finish(req, family, {
+      fill: null, dimensions: {}, achieved: { parallel: host.eps, perpendicular: host.eps, mu: { re: NaN, im: NaN } },
+      rules: { parallel: "host", perpendicular: "host" }, target, relError: { max: Infinity },
+      feature: { featureM: NaN, gapM: NaN }, reasons, notes,
+    }, [host.eps]);
+  }
+  const relError: CellDesign["relError"] = { max: 0 };
+  if (target.mu !== undefined) relError.mu = relError.max = matchError(resp.mu, target.mu);
+  const bandTarget = target.mu ?? resp.mu.re;
+  const tolAbs = toleranceAbs(tolerance, bandTarget);
+  const band: RingReport["band"] = splitRingBandwidth(resp, frequencyHz, bandTarget, tolAbs);
+  const { ringRadiusM: r, ringWidthM: c, ringGapM: d } = geometry;
+  const wall = a - 2 * (r + 2 * c + d);
+  if (wall <= 0 && !reasons.some((x) => x.includes("do not fit"))) reasons.push(`rings (outer radius ${fmt(r + 2 * c + d)} m) do not fit a ${a} m cell`);
+  notes.push(`Im μ = ${fmt(resp.mu.im)} at the design frequency (loss from the metal's conductivity)`);
+  const report: RingReport = {
+    kind: "split-ring",
+    geometry,
+    resonanceHz: resp.resonanceHz,
+    magneticPlasmaHz: resp.magneticPlasmaHz,
+    muHighFrequency: resp.muHighFrequency,
+    gammaRadPerS: resp.gammaRadPerS,
+    skinDepthM: resp.skinDepthM,
+    band,
+    passivity: passivityBandwidthBound(bandTarget, tolAbs, resp.muHighFrequency),
+  };
+  return finish(req, family, {
+    fill: resp.fill,
+    dimensions: { ringRadiusM: r, ringWidthM: c, ringGapM: d, stackSpacingM: geometry.stackSpacingM ?? a },
+    achieved: { parallel: host.eps, perpendicular: host.eps, mu: resp.mu },
+    rules: { parallel: "host", perpendicular: "host" },
+    target,
+    relError,
+    feature: { featureM: c, gapM: Math.max(0, Math.min(d, wall)) },
+    resonance: report,
+    reasons,
+    notes,
+  }, [host.eps, cMul(host.eps, resp.mu)]);
+}

@@ -1,0 +1,62 @@
+/** Human-readable lines for a cell design (pure; the command line prints them). */
+import { type Complex, formatComplex } from "../core/complex.js";
+import type { CellDesign } from "./cellDesignTypes.js";
+
+const g = (x: number, d = 4): string => (Number.isFinite(x) ? Number(x.toPrecision(d)).toString() : String(x));
+
+/** Length in a readable unit: "1.2 mm", "350 nm". */
+export function formatLength(m: number): string {
+  if (!Number.isFinite(m)) return String(m);
+  if (m === 0) return "0";
+  const a = Math.abs(m);
+  const [s, u] = a >= 1 ? [1, "m"] : a >= 1e-3 ? [1e3, "mm"] : a >= 1e-6 ? [1e6, "µm"] : a >= 1e-9 ? [1e9, "nm"] : [1e12, "pm"];
+  return `${g(m * s)} ${u}`;
+}
+
+/** Frequency in a readable unit: "8.2 GHz". */
+export function formatFrequency(hz: number): string {
+  if (!Number.isFinite(hz)) return String(hz);
+  const units: [number, string][] = [[1e12, "THz"], [1e9, "GHz"], [1e6, "MHz"], [1e3, "kHz"]];
+  for (const [s, u] of units) if (Math.abs(hz) >= s) return `${g(hz / s)} ${u}`;
+  return `${g(hz)} Hz`;
+}
+
+const c = (z: Complex): string => formatComplex(z, 5);
+const pct = (x: number): string => `${g(100 * x, 3)} %`;
+
+/** Lines describing the design, one fact per line. */
+export function formatCellDesign(d: CellDesign): string[] {
+  const out: string[] = [];
+  out.push(`${d.familyId} (${d.lattice} lattice), pitch ${formatLength(d.pitchM)}, ${formatFrequency(d.frequencyHz)}: host ${d.hostId}, ${d.familyId === "wire-medium" || d.familyId === "split-ring" ? "metal" : "inclusion"} ${d.inclusionId}`);
+  out.push(`fill fraction     ${d.fill === null ? "none" : g(d.fill, 5)}`);
+  const dims = Object.entries(d.dimensions).map(([k, v]) => `${k.replace(/M$/, "")} ${formatLength(v)}`);
+  if (dims.length) out.push(`dimensions        ${dims.join(", ")}`);
+  const tgt = (k: "parallel" | "perpendicular" | "mu") => (d.target[k] !== undefined ? `   target ${d.target[k]}   error ${pct(d.relError[k]!)}` : "");
+  out.push(`ε parallel        ${c(d.achieved.parallel)}   (${d.rules.parallel})${tgt("parallel")}`);
+  out.push(`ε perpendicular   ${c(d.achieved.perpendicular)}   (${d.rules.perpendicular})${tgt("perpendicular")}`);
+  if (d.familyId === "split-ring") out.push(`μ along the rings ${c(d.achieved.mu)}   (Lorentz)${tgt("mu")}`);
+  out.push(`smallest feature  ${formatLength(d.feature.featureM)}, gap ${formatLength(d.feature.gapM)}`);
+  if (d.processCheck) out.push(`process           ${d.processCheck.ok ? "ok" : d.processCheck.reasons.join("; ")}`);
+  out.push(`homogenization    ${d.homogenization.status}: pitch = ${g(d.homogenization.ratio, 3)} λ in the densest material (n = ${g(d.homogenization.nMax, 4)})`);
+  if (d.spread.max > 0) out.push(`MG–Bruggeman      ${pct(d.spread.max)} spread${d.spread.uncertain ? " (uncertain)" : ""}`);
+  const r = d.resonance;
+  if (r?.kind === "wire-medium") {
+    const p = r.plasma;
+    out.push(`plasma frequency  thick-wire ${formatFrequency(p.thickWireHz)} (used), corrected thin-wire ${formatFrequency(p.correctedHz)}, thin-wire ${formatFrequency(p.thinWireHz)}${p.thinWireApplies ? "" : " (thin-wire assumption r/a ≤ 0.01 not met)"}`);
+    out.push(`damping           γ/2π = ${formatFrequency(r.gammaRadPerS / (2 * Math.PI))}, skin depth ${formatLength(r.skinDepthM)}`);
+  }
+  if (r?.kind === "split-ring") {
+    out.push(`resonance         ${formatFrequency(r.resonanceHz)}, μ' = 0 at ${formatFrequency(r.magneticPlasmaHz)}, μ∞ = 1 − F = ${g(r.muHighFrequency)}`);
+    out.push(`damping           Γ/2π = ${formatFrequency(r.gammaRadPerS / (2 * Math.PI))}, skin depth ${formatLength(r.skinDepthM)}`);
+  }
+  if (r) {
+    const b = r.band;
+    const band = b.fractional > 0 ? `${pct(b.fractional)} (${formatFrequency(b.loHz)}${b.openBelow ? " or below" : ""} – ${formatFrequency(b.hiHz)}${b.openAbove ? " or above" : ""})` : "none (the design point is outside the tolerance)";
+    out.push(`band in tolerance ${band}`);
+    out.push(`passivity bound   ${r.passivity ? `${pct(r.passivity.strong)} (strong), ${pct(r.passivity.weak)} (weak)` : "none (target not below the high-frequency limit)"}`);
+  }
+  out.push(`result            ${d.valid ? "valid" : "NOT buildable as asked"}`);
+  for (const x of d.reasons) out.push(`  - ${x}`);
+  for (const x of d.notes) out.push(`  note: ${x}`);
+  return out;
+}

@@ -1,0 +1,177 @@
+/**
+ * `cellwright cell`: design or evaluate one unit cell of a family — dimensions, achieved ε (or μ)
+ * per axis, fill fraction, feature check against a process, homogenization check, and for the
+ * resonant families the band within tolerance and the passivity bound. Exit 2 when the cell is not
+ * buildable as asked (target out of reach, process limit, cell too coarse).
+ */
+import { InputError, type InputIssue } from "../../core/errors.js";
+import type { CellPhase, CellDesignRequest, CellTarget, SplitRingSizes } from "../../cells/cellDesignTypes.js";
+import { designCell, DEFAULT_TOLERANCE } from "../../cells/designCell.js";
+import { formatCellDesign } from "../../cells/formatCellDesign.js";
+import { parseLattice } from "../../cells/lattice.js";
+import { CELL_FAMILIES, getCellFamily } from "../../cells/registry.js";
+import { findMaterial, loadMaterialCatalog } from "../../io/materialCatalog.js";
+import { findProcess, loadProcessCatalog } from "../../io/processCatalog.js";
+import { parseQuantity } from "../../io/quantity.js";
+import { evaluateMaterial } from "../../media/material.js";
+import { flagOption, stringOption } from "../args.js";
+import type { CliIo } from "../cliIo.js";
+import type { Command, ParsedArgs } from "../command.js";
+import { EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
+
+function plainNumber(text: string, where: string, what: string): number {
+  const v = Number(text);
+  if (text.trim() === "" || !Number.isFinite(v)) throw new InputError({ where, message: `expected ${what}, got '${text}'` });
+  return v;
+}
+
+async function positiveLength(args: ParsedArgs, name: string): Promise<number | undefined> {
+  const t = stringOption(args, name);
+  if (t === undefined) return undefined;
+  const v = await parseQuantity(t, "length", `--${name}`);
+  if (!(v > 0)) throw new InputError({ where: `--${name}`, message: `expected a length > 0, got '${t}'` });
+  return v;
+}
+
+async function phase(id: string, where: string, frequencyHz: number, io: CliIo): Promise<CellPhase> {
+  const m = findMaterial(await loadMaterialCatalog(), id, where);
+  const v = evaluateMaterial(m, frequencyHz);
+  if (v.warning) io.stderr(`warning: ${where}: ${v.warning}\n`);
+  return { id: m.id, eps: v.eps, class: m.class, ...(m.conductivitySPerM !== undefined ? { conductivitySPerM: m.conductivitySPerM } : {}) };
+}
+
+const json = (x: unknown): string => JSON.stringify(x, (_k, v) => (typeof v === "number" && !Number.isFinite(v) ? null : v));
+
+export const command: Command = {
+  name: "cell",
+  summary: "design one unit cell: dimensions, effective ε or μ, process and homogenization checks",
+  usage: "cell <family> --pitch P [--lattice square|hex|cubic] --frequency F --host ID --inclusion ID (--fill F | --target EPS) [--axis parallel|perpendicular] [--process ID] [--json]",
+  details: [
+    `families: ${CELL_FAMILIES.map((f) => f.id).join(", ")}.`,
+    "parallel = field along the rods, holes or wires (in the layer planes of a laminate); perpendicular = across.",
+    "--target matches the real part of ε along --axis (default: the family's main axis); the loss follows.",
+    "wire-medium: --radius R and/or --target EPS (ε along the wires), --metal ID (default copper), --host ID (default air).",
+    "split-ring: --target MU (μ along the ring axis) or --ring-gap D, with optional --ring-radius, --ring-width,",
+    "  --stack-spacing, --thickness; --metal ID (default copper), --host ID (default air).",
+    "Tolerance: |achieved − target| ≤ T·max(|target|, 1). Exit 2 when the cell is not buildable as asked.",
+  ].join("\n"),
+  options: [
+    { name: "pitch", type: "string", valueName: "P", description: "cell pitch (lattice constant), e.g. '2 mm'" },
+    { name: "lattice", type: "string", valueName: "L", description: "square, hex or cubic (default: the family's first)" },
+    { name: "frequency", type: "string", valueName: "F", description: "design frequency, e.g. '10 GHz'" },
+    { name: "host", type: "string", valueName: "ID", description: "host material id (default air for wire-medium and split-ring)" },
+    { name: "inclusion", type: "string", valueName: "ID", description: "inclusion material id" },
+    { name: "fill", type: "string", valueName: "F", description: "fill fraction of the inclusion, 0..1 (evaluate)" },
+    { name: "target", type: "string", valueName: "EPS", description: "target Re ε (Re μ for split-ring) (design)" },
+    { name: "axis", type: "string", valueName: "A", description: "axis the target applies to: parallel or perpendicular" },
+    { name: "tolerance", type: "string", valueName: "T", description: `allowed error on the target (default ${DEFAULT_TOLERANCE})` },
+    { name: "process", type: "string", valueName: "ID", description: "fabrication process id (catalogs/processes.csv)" },
+    { name: "height", type: "string", valueName: "H", description: "feature height (slab thickness, rod length) for the aspect-ratio limit" },
+    { name: "metal", type: "string", valueName: "ID", description: "wire or ring metal (default copper)" },
+    { name: "radius", type: "string", valueName: "R", description: "wire radius (wire-medium)" },
+    { name: "ring-radius", type: "string", valueName: "R", description: "inner ring radius (split-ring)" },
+    { name: "ring-width", type: "string", valueName: "W", description: "ring strip width (split-ring)" },
+    { name: "ring-gap", type: "string", valueName: "D", description: "gap between the two rings (split-ring; else designed)" },
+    { name: "stack-spacing", type: "string", valueName: "L", description: "ring spacing along the axis (split-ring; default the pitch)" },
+    { name: "thickness", type: "string", valueName: "T", description: "metal thickness (split-ring; default thick vs the skin depth)" },
+    { name: "json", type: "boolean", description: "print one JSON object on stdout" },
+  ],
+  maxPositionals: 1,
+  async run(args, io) {
+    const familyId = args.positionals[0];
+    if (familyId === undefined) throw new InputError({ where: "cell", message: `expected a family: ${CELL_FAMILIES.map((f) => f.id).join(", ")}` });
+    const family = getCellFamily(familyId, "family");
+    const issues: InputIssue[] = [];
+    const need = (name: string, what: string) => {
+      if (stringOption(args, name) === undefined) issues.push({ where: `--${name}`, message: `expected ${what}` });
+    };
+    need("pitch", "the cell pitch, e.g. '2 mm'");
+    need("frequency", "the design frequency, e.g. '10 GHz'");
+    const fillText = stringOption(args, "fill");
+    const targetText = stringOption(args, "target");
+    const ringOnly = ["ring-radius", "ring-width", "ring-gap", "stack-spacing", "thickness"];
+    for (const o of ringOnly) if (family.id !== "split-ring" && stringOption(args, o) !== undefined) issues.push({ where: `--${o}`, message: "only for the split-ring family" });
+    if (family.id !== "wire-medium" && stringOption(args, "radius") !== undefined) issues.push({ where: "--radius", message: "only for the wire-medium family" });
+    if (!family.resonant) {
+      need("host", "a host material id");
+      need("inclusion", "an inclusion material id");
+      if (stringOption(args, "metal") !== undefined) issues.push({ where: "--metal", message: "only for wire-medium and split-ring" });
+      if ((fillText === undefined) === (targetText === undefined)) issues.push({ where: "cell", message: "give exactly one of --fill F or --target EPS" });
+    } else if (family.id === "wire-medium" && fillText === undefined && targetText === undefined && stringOption(args, "radius") === undefined) {
+      issues.push({ where: "cell", message: "wire-medium needs --radius R, --fill F or --target EPS" });
+    } else if (family.id === "split-ring" && targetText === undefined && stringOption(args, "ring-gap") === undefined) {
+      issues.push({ where: "cell", message: "split-ring needs --target MU or --ring-gap D" });
+    }
+    if (issues.length) throw new InputError(issues);
+
+    const latticeText = stringOption(args, "lattice");
+    const lattice = latticeText === undefined ? family.lattices[0] : parseLattice(latticeText, "--lattice");
+    if (!family.lattices.includes(lattice)) throw new InputError({ where: "--lattice", message: `${family.id} takes ${family.lattices.join(" or ")}, not ${lattice}` });
+    const pitchM = (await positiveLength(args, "pitch"))!;
+    const frequencyHz = await parseQuantity(stringOption(args, "frequency"), "frequency", "--frequency");
+    if (!(frequencyHz > 0)) throw new InputError({ where: "--frequency", message: `expected a frequency > 0, got '${stringOption(args, "frequency")}'` });
+
+    let fill: number | undefined;
+    if (fillText !== undefined) {
+      fill = plainNumber(fillText, "--fill", "a fill fraction in [0, 1]");
+      if (fill < 0 || fill > 1) throw new InputError({ where: "--fill", message: `expected a fill fraction in [0, 1], got '${fillText}'` });
+      const [lo, hi] = family.fillRange(lattice);
+      if (fill < lo) throw new InputError({ where: "--fill", message: `${fill} is below the smallest fill ${lo} of ${family.id}` });
+      if (fill > hi) throw new InputError({ where: "--fill", message: `${fill} is above the geometric limit ${Number(hi.toPrecision(4))} of ${family.id} in a ${lattice} lattice (inclusions touch)` });
+    }
+    const radiusM = await positiveLength(args, "radius");
+    if (radiusM !== undefined) {
+      if (!(radiusM < pitchM / 2)) throw new InputError({ where: "--radius", message: `expected a wire radius below half the pitch (${pitchM / 2} m), got ${radiusM} m` });
+      fill = (Math.PI * radiusM * radiusM) / (pitchM * pitchM);
+    }
+    const target: CellTarget = {};
+    if (targetText !== undefined) {
+      const t = plainNumber(targetText, "--target", family.id === "split-ring" ? "a real permeability such as '0.3'" : "a real permittivity such as '3.2'");
+      if (family.id === "split-ring") target.mu = t;
+      else {
+        const axisText = stringOption(args, "axis") ?? family.defaultAxis;
+        if (axisText !== "parallel" && axisText !== "perpendicular") throw new InputError({ where: "--axis", message: `expected parallel or perpendicular, got '${axisText}'` });
+        if (family.id === "wire-medium" && axisText !== "parallel") throw new InputError({ where: "--axis", message: "a wire medium is designed for ε along the wires (parallel)" });
+        target[axisText] = t;
+      }
+    }
+    const tolText = stringOption(args, "tolerance");
+    const tolerance = tolText === undefined ? DEFAULT_TOLERANCE : plainNumber(tolText, "--tolerance", "a tolerance > 0");
+    if (!(tolerance > 0)) throw new InputError({ where: "--tolerance", message: `expected a tolerance > 0, got '${tolText}'` });
+    const heightM = await positiveLength(args, "height");
+    const splitRing: SplitRingSizes = {};
+    const sizeKeys: [string, keyof SplitRingSizes][] = [["ring-radius", "ringRadiusM"], ["ring-width", "ringWidthM"], ["ring-gap", "ringGapM"], ["stack-spacing", "stackSpacingM"], ["thickness", "metalThicknessM"]];
+    for (const [flag, key] of sizeKeys) {
+      const v = await positiveLength(args, flag);
+      if (v !== undefined) splitRing[key] = v;
+    }
+
+    const processId = stringOption(args, "process");
+    const process = processId === undefined ? undefined : findProcess(await loadProcessCatalog(), processId, "--process");
+    const hostId = stringOption(args, "host") ?? "air";
+    const host = await phase(hostId, "--host", frequencyHz, io);
+    let inclusion: CellPhase;
+    if (family.resonant) {
+      const metalId = stringOption(args, "metal") ?? stringOption(args, "inclusion") ?? "copper";
+      const where = stringOption(args, "metal") !== undefined ? "--metal" : "--inclusion";
+      inclusion = await phase(metalId, where, frequencyHz, io);
+      if (inclusion.class !== "metal") throw new InputError({ where, message: `'${metalId}' is a ${inclusion.class}; expected a metal` });
+    } else inclusion = await phase(stringOption(args, "inclusion")!, "--inclusion", frequencyHz, io);
+
+    const request: CellDesignRequest = {
+      familyId: family.id, lattice, pitchM, frequencyHz, host, inclusion, target, tolerance,
+      ...(fill !== undefined ? { fill } : {}),
+      ...(process ? { process } : {}),
+      ...(heightM !== undefined ? { heightM } : {}),
+      ...(family.id === "split-ring" ? { splitRing } : {}),
+    };
+    const design = designCell(request);
+    if (flagOption(args, "json")) {
+      io.stdout(`${json({ command: "cell", ...design, host: { id: host.id, class: host.class, eps: host.eps }, inclusion: { id: inclusion.id, class: inclusion.class, eps: inclusion.eps }, process: process?.id ?? null })}\n`);
+    } else {
+      io.stdout(`${formatCellDesign(design).join("\n")}\n`);
+    }
+    if (!design.valid) for (const r of design.reasons) io.stderr(`not buildable: ${r}\n`);
+    return design.valid ? EXIT_OK : EXIT_NOT_BUILDABLE;
+  },
+};
