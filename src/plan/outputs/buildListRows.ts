@@ -69,6 +69,8 @@ export async function emitBuildList(
   const zs = three ? Array.from({ length: g.nz }, (_, k) => fmt(g.originZM + k * g.pitchM, 8)) : [];
   const { achieved, recipe } = levelTexts(plan);
   const m = plan.components.length;
+  const noAchieved = ",".repeat(m);
+  const noRecipe = ",".repeat(5 + dimensionColumns(plan).length + 1);
   const lines: string[] = [];
   for (let c = 0; c < g.count; c++) {
     const lv = plan.level[c];
@@ -76,11 +78,11 @@ export async function emitBuildList(
     if (three) row += `${g.k[c]},`;
     row += `${xs[g.i[c]]},${ys[g.j[c]]},`;
     if (three) row += `${zs[g.k[c]]},`;
-    row += `${fmt((plan.axisAngleRad[c] * 180) / Math.PI, 4)},${plan.region[c] + 1},${lv + 1}`;
+    row += `${fmt((plan.axisAngleRad[c] * 180) / Math.PI, 4)},${plan.region[c] + 1},${lv >= 0 ? lv + 1 : ""}`;
     for (let k = 0; k < m; k++) row += `,${fmt(plan.targets[k][c])}`;
-    row += achieved[lv];
+    row += lv >= 0 ? achieved[lv] : noAchieved;
     row += `,${fmt(plan.relError[c], 4)},${fmt(plan.quantizationError[c], 4)}`;
-    row += recipe[lv];
+    row += lv >= 0 ? recipe[lv] : noRecipe;
     row += `,${flagList(plan.flags[c])}\n`;
     lines.push(row);
     if (lines.length === chunkRows) {

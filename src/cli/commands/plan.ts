@@ -1,0 +1,129 @@
+/**
+ * `cellwright plan <design.json>`: the main job — from the design's tensor field to a cell-by-cell
+ * build list, levels, report, summary and maps in one output folder (written as one unit).
+ * Exit 0: every cell has a recipe; 2: outputs complete but some cells have none; 1: bad input
+ * (nothing written).
+ */
+import { InputError } from "../../core/errors.js";
+import { loadDesign } from "../../io/design/loadDesign.js";
+import { loadFieldForDesign } from "../../io/fieldCsv.js";
+import { loadMaterialCatalog } from "../../io/materialCatalog.js";
+import { writePlanOutputs } from "../../io/planOutputs.js";
+import { loadProcessCatalog } from "../../io/processCatalog.js";
+import { loadSessionFile } from "../../io/sessionFile.js";
+import { planSummary } from "../../plan/outputs/planSummary.js";
+import { planFromField } from "../../plan/runPlan.js";
+import type { Plan, PlanOverrides } from "../../plan/planTypes.js";
+import { flagOption, stringOption } from "../args.js";
+import type { CliIo } from "../cliIo.js";
+import type { Command, ParsedArgs } from "../command.js";
+import { EXIT_INPUT, EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
+import { resolve } from "node:path";
+
+export const DEFAULT_OUT_DIR = "cellwright-out";
+
+/** Command-line overrides (--levels, --tolerance, --polarization, --scheme). */
+export function optionOverrides(args: ParsedArgs): PlanOverrides {
+  const o: PlanOverrides = {};
+  const levels = stringOption(args, "levels");
+  if (levels !== undefined) {
+    const v = Number(levels);
+    if (!Number.isInteger(v) || v < 1 || v > 256) throw new InputError({ where: "--levels", message: `expected a whole number from 1 to 256, got '${levels}'` });
+    o.levels = v;
+  }
+  const tol = stringOption(args, "tolerance");
+  if (tol !== undefined) {
+    const v = Number(tol.trim().endsWith("%") ? Number(tol.trim().slice(0, -1)) / 100 : tol);
+    if (!(v > 0 && v <= 1)) throw new InputError({ where: "--tolerance", message: `expected a relative error in (0, 1], e.g. 0.03 or 3%, got '${tol}'` });
+    o.tolerance = v;
+  }
+  const pol = stringOption(args, "polarization");
+  if (pol !== undefined) {
+    if (pol !== "Ez" && pol !== "Hz") throw new InputError({ where: "--polarization", message: `expected Ez or Hz, got '${pol}'` });
+    o.polarization = pol;
+  }
+  const scheme = stringOption(args, "scheme");
+  if (scheme !== undefined) {
+    const names = ["full", "unit-mu", "non-magnetic", "isotropic", "matched"] as const;
+    if (!(names as readonly string[]).includes(scheme)) throw new InputError({ where: "--scheme", message: `expected one of ${names.join(", ")}, got '${scheme}'` });
+    o.scheme = scheme as (typeof names)[number];
+  }
+  return o;
+}
+
+/** Short human summary for stdout. */
+export function humanSummary(plan: Plan, outputs: string[]): string {
+  const s = planSummary(plan, outputs);
+  const flagged = Object.entries(s.flags).filter(([, n]) => n > 0).map(([k, n]) => `${k} ${n}`).join(", ");
+  const pct = (x: number | null): string => (x === null ? "—" : `${Number((x * 100).toPrecision(3))} %`);
+  const lines = [
+    `${s.design}`,
+    `  ${s.cells} cells, ${s.levels} levels, ${s.regions} regions (${s.polarization}, ${s.scheme}, tolerance ${pct(s.tolerance)})`,
+    `  error: largest ${pct(s.maxRelError)}, median ${pct(s.medianRelError)}; loss ${Number(s.lossDb.toPrecision(3))} dB; boundary reflection ${pct(s.boundaryReflection)}`,
+    `  flags: ${flagged || "none"}`,
+    `  materials: ${s.materials.join(", ") || "none"}`,
+    s.buildable ? "  every cell has a recipe" : `  NOT BUILDABLE AS ASKED: ${s.flags.norecipe} cells have no recipe (see report.md)`,
+    "outputs:",
+    ...outputs.map((p) => `  ${p}`),
+  ];
+  return lines.join("\n") + "\n";
+}
+
+/** Load, plan and write; shared by `plan` and `start`. Returns the exit code. */
+export async function runPlanCommand(designPath: string, overrides: PlanOverrides, outDir: string, json: boolean, io: CliIo): Promise<number> {
+  const design = await loadDesign(designPath, io.cwd);
+  const [field, materials, processes] = await Promise.all([loadFieldForDesign(design), loadMaterialCatalog(), loadProcessCatalog()]);
+  let lastStage = "";
+  const plan = planFromField(design, field, { materials, processes }, overrides, (stage) => {
+    if (!json && stage !== lastStage) { io.stderr(`… ${stage}\n`); lastStage = stage; }
+  });
+  for (const w of plan.warnings) io.stderr(`warning: ${w}\n`);
+  const controller = new AbortController();
+  const onSigint = (): void => controller.abort();
+  process.once("SIGINT", onSigint);
+  let outputs: string[];
+  try {
+    outputs = await writePlanOutputs(plan, resolve(io.cwd, outDir), { signal: controller.signal });
+  } catch (err) {
+    if ((err as Error).name === "AbortError") { io.stderr("interrupted; no output was written\n"); return EXIT_INPUT; }
+    throw err;
+  } finally {
+    process.off("SIGINT", onSigint);
+  }
+  if (json) io.stdout(`${JSON.stringify(planSummary(plan, outputs))}\n`);
+  else io.stdout(humanSummary(plan, outputs));
+  return plan.buildable ? EXIT_OK : EXIT_NOT_BUILDABLE;
+}
+
+export const command: Command = {
+  name: "plan",
+  summary: "plan a device: levels, recipes, flags, build list, report and maps",
+  usage: "plan <design.json> [--out DIR] [--json] [--session FILE] [--levels N] [--tolerance T] [--polarization Ez|Hz] [--scheme NAME]",
+  details: [
+    "Reduces the design's field, quantizes the targets into levels, groups cells into regions, finds",
+    "a recipe per level and writes build-list.csv, levels.csv, report.md, maps.svg and summary.json.",
+    "Exit codes: 0 every cell has a recipe; 2 outputs written but some cells have none; 1 bad input.",
+  ].join("\n"),
+  options: [
+    { name: "out", type: "string", valueName: "DIR", description: `output folder (default ./${DEFAULT_OUT_DIR})` },
+    { name: "json", type: "boolean", description: "print the summary as one JSON object on stdout" },
+    { name: "session", type: "string", valueName: "FILE", description: "take the design and overrides from a saved session file" },
+    { name: "levels", type: "string", valueName: "N", description: "largest number of distinct recipes (overrides the design)" },
+    { name: "tolerance", type: "string", valueName: "T", description: "largest relative error accepted, e.g. 0.03 (overrides the design)" },
+    { name: "polarization", type: "string", valueName: "Ez|Hz", description: "polarization the device serves (overrides the design)" },
+    { name: "scheme", type: "string", valueName: "NAME", description: "reduction scheme: full, unit-mu, non-magnetic, isotropic, matched" },
+  ],
+  async run(args: ParsedArgs, io: CliIo): Promise<number> {
+    const sessionPath = stringOption(args, "session");
+    let designPath = args.positionals[0];
+    let overrides: PlanOverrides = {};
+    if (sessionPath !== undefined) {
+      const session = await loadSessionFile(resolve(io.cwd, sessionPath));
+      overrides = { ...session.overrides };
+      designPath ??= session.designPath;
+    }
+    if (designPath === undefined) throw new InputError({ where: "plan", message: "expected a design file (or --session FILE)" });
+    overrides = { ...overrides, ...optionOverrides(args) };
+    return runPlanCommand(designPath, overrides, stringOption(args, "out") ?? DEFAULT_OUT_DIR, flagOption(args, "json"), io);
+  },
+};

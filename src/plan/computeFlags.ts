@@ -1,0 +1,99 @@
+/**
+ * Per-cell flags and achieved errors. Flags that follow from the cell's own target (subunity,
+ * magnetic, anisotropic, unreachable, capped) are set cell by cell; flags that follow from the
+ * level's recipe or its absence (norecipe, undersize, coarse, uncertain, narrowband) hold for every
+ * cell of the level; inexact is set where the achieved value misses the cell's target by more than
+ * the tolerance.
+ */
+import type { ReducedField } from "../reduce/reducedField.js";
+import {
+  F_ANISOTROPIC, F_CAPPED, F_COARSE, F_INEXACT, F_MAGNETIC, F_NARROWBAND, F_NORECIPE, F_SUBUNITY, F_UNCERTAIN, F_UNDERSIZE, F_UNREACHABLE,
+} from "./flags.js";
+import type { Candidate, LevelSearch } from "./match/levelCandidates.js";
+import type { EvaluatedMaterial } from "./match/matchContext.js";
+import type { PlanLevel, PlanSettings, TargetComponent } from "./planTypes.js";
+import { relErr, REL_FLOOR } from "./quantize/relativeError.js";
+
+export interface FlagInput {
+  reduced: ReducedField;
+  targets: Float64Array[];
+  comps: TargetComponent[];
+  level: Int32Array;
+  levels: PlanLevel[];
+  searches: LevelSearch[];
+  perLevel: Candidate[][];
+  chosen: number[];
+  settings: PlanSettings;
+  materials: EvaluatedMaterial[];
+  capped: number;
+  undefinedFlag: number;
+}
+
+/** Level-wide flag bits (also stored on each PlanLevel). */
+function levelFlags(lv: PlanLevel, search: LevelSearch, settings: PlanSettings): number {
+  let m = 0;
+  const r = lv.recipe as Candidate | null;
+  if (!r) {
+    m |= F_NORECIPE;
+    for (const reason of search.refusals.keys()) {
+      if (reason.includes("process limit")) m |= F_UNDERSIZE;
+      if (reason.includes("coarser than")) m |= F_COARSE;
+    }
+    return m;
+  }
+  if (r.homogenization === "warn") m |= F_COARSE;
+  if (r.spread > settings.tolerance) m |= F_UNCERTAIN;
+  if (settings.bandwidth !== null && r.bandwidth !== null && r.bandwidth < settings.bandwidth) m |= F_NARROWBAND;
+  return m;
+}
+
+export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Float64Array; warnings: string[] } {
+  const { reduced, targets, comps, level, levels, settings } = inp;
+  const n = level.length;
+  const flags = new Uint16Array(n);
+  const relError = new Float64Array(n).fill(NaN);
+  const warnings: string[] = [];
+  levels.forEach((lv, l) => { lv.flags = levelFlags(lv, inp.searches[l], settings); });
+  // the widest ε range any allowed ordinary pair reaches
+  let epsLo = Infinity, epsHi = -Infinity;
+  for (const m of inp.materials) {
+    if (m.isMetal) continue;
+    epsLo = Math.min(epsLo, m.eps.re);
+    epsHi = Math.max(epsHi, m.eps.re);
+  }
+  const tol = settings.tolerance;
+  const epsIdx = comps.map((c, k) => (c.kind === "eps" ? k : -1)).filter((k) => k >= 0);
+  const muIdx = comps.map((c, k) => (c.kind === "mu" ? k : -1)).filter((k) => k >= 0);
+  const m = comps.length;
+  for (let c = 0; c < n; c++) {
+    let f = 0;
+    const rf = reduced.flags[c];
+    if (rf & inp.capped) f |= F_CAPPED;
+    const l = level[c];
+    if (l < 0 || rf & inp.undefinedFlag) { flags[c] = f | F_NORECIPE; continue; }
+    for (const k of epsIdx) {
+      const v = targets[k][c];
+      if (v < 1) f |= F_SUBUNITY;
+      if (v < epsLo * (1 - tol) || v > epsHi * (1 + tol)) f |= F_UNREACHABLE;
+    }
+    for (const k of muIdx) if (relErr(1, targets[k][c]) > tol) f |= F_MAGNETIC;
+    if (reduced.anisotropy[c] > settings.maxAnisotropy) f |= F_ANISOTROPIC;
+    const lv = levels[l];
+    f |= lv.flags;
+    const r = lv.recipe;
+    if (r) {
+      let e = 0;
+      for (let k = 0; k < m; k++) {
+        const t = targets[k][c];
+        const w = Math.abs(t) > REL_FLOOR ? Math.abs(t) : REL_FLOOR;
+        const x = Math.abs(r.achieved[k] - t) / w;
+        if (x > e) e = x;
+      }
+      relError[c] = e;
+      if (e > tol) f |= F_INEXACT;
+    }
+    flags[c] = f;
+  }
+  if (epsLo === Infinity) warnings.push("no dielectric material is allowed at the design frequency");
+  return { flags, relError, warnings };
+}

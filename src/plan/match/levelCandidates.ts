@@ -1,0 +1,246 @@
+/**
+ * All recipes for one level: materials × families × lattices × orientations allowed by the design
+ * and the process. A recipe is kept only if its fill fraction lies inside the family's geometric
+ * range, the process can make its smallest feature and gap in its material, its cell is fine enough
+ * to homogenize (coarser than λ/4 in the densest material is refused), and every target component
+ * lies inside the reach of the material pair (the pair's own bounds for ordinary mixes). Resonant
+ * families are tried only where needed: wire media where a permittivity below 1 is asked for, split
+ * rings where a permeability other than 1 is.
+ */
+import { complex, refractiveIndex, type Complex } from "../../core/complex.js";
+import type { CellFamily } from "../../cells/cellFamily.js";
+import type { Lattice } from "../../cells/lattice.js";
+import { checkProcess } from "../../cells/process.js";
+import { homogenizationCheck } from "../../cells/homogenization.js";
+import { designSplitRing, splitRingBandwidth } from "../../cells/splitRing.js";
+import { bandwidthWithinTolerance } from "../../cells/wireMedium.js";
+import { relErr } from "../quantize/relativeError.js";
+import type { Recipe } from "../planTypes.js";
+import { axisFor, orientationsFor, type Direction } from "./componentMapping.js";
+import type { EvaluatedMaterial, MatchContext } from "./matchContext.js";
+import { mixingSpread } from "./mixingSpread.js";
+
+export interface Candidate extends Recipe {
+  /** "ok" or "warn" (λ/10 … λ/4) */
+  homogenization: "ok" | "warn";
+  orientation: Direction;
+}
+
+export interface LevelSearch {
+  candidates: Candidate[];
+  /** counts of the reasons recipes were refused, for the report when none is left */
+  refusals: Map<string, number>;
+}
+
+/** Families whose printed or standing phase holds itself up, so air may be the host. */
+const GAS_HOST_FAMILIES = new Set(["strut-lattice", "rods-in-host"]);
+
+function dimensionsToColumns(dims: Record<string, number>): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const [k, v] of Object.entries(dims)) {
+    const key = (k.endsWith("M") ? `${k.slice(0, -1)}_m` : k).replace(/([a-z0-9])([A-Z])/g, "$1_$2").toLowerCase();
+    out[key] = v;
+  }
+  return out;
+}
+
+function refuse(s: LevelSearch, reason: string): void {
+  s.refusals.set(reason, (s.refusals.get(reason) ?? 0) + 1);
+}
+
+/** Search every allowed recipe for the level target (values in ctx.components order). */
+export function levelCandidates(target: number[], ctx: MatchContext): LevelSearch {
+  const search: LevelSearch = { candidates: [], refusals: new Map() };
+  const comps = ctx.components;
+  const epsIdx = comps.map((c, k) => (c.kind === "eps" ? k : -1)).filter((k) => k >= 0);
+  const muIdx = comps.map((c, k) => (c.kind === "mu" ? k : -1)).filter((k) => k >= 0);
+  const magneticIdx = muIdx.filter((k) => relErr(1, target[k]) > ctx.tolerance);
+  const needsSubunity = epsIdx.some((k) => target[k] < 1);
+  const inPlane = comps.filter((c) => c.axis !== "z").map((c) => comps.indexOf(c));
+  const inPlaneIsotropic = inPlane.length < 2 || relErr(target[inPlane[0]], target[inPlane[1]]) < 1e-9;
+  const solids = ctx.materials.filter((m) => !m.isMetal && m.material.class !== "gas" && !m.isFluid);
+  // isFluid: liquids (a liquid is never the host)
+  const dielectrics = ctx.materials.filter((m) => !m.isMetal);
+  const metals = ctx.materials.filter((m) => m.isMetal);
+
+  for (const family of ctx.families) {
+    const lattices = family.lattices.filter((l) => ctx.lattice === null || l === ctx.lattice);
+    if (lattices.length === 0) { refuse(search, `${family.id} has no ${ctx.lattice} lattice`); continue; }
+    if (family.id === "split-ring") {
+      if (magneticIdx.length === 0) continue; // resonant: only where needed
+      if (magneticIdx.length > 1) { refuse(search, "split rings give μ ≠ 1 along one axis only; two magnetic components are asked for"); continue; }
+      for (const lattice of lattices) for (const host of solids) for (const metal of metals) splitRing(search, target, ctx, family, lattice, host, metal, magneticIdx[0], epsIdx);
+      continue;
+    }
+    if (magneticIdx.length > 0) { refuse(search, `${family.id} cannot give μ ≠ 1`); continue; }
+    if (family.resonant) {
+      if (!needsSubunity) continue; // wire media only where ε < 1 is needed
+      for (const lattice of lattices) for (const o of orientationsFor(family, inPlaneIsotropic)) for (const host of solids) for (const metal of metals) mixed(search, target, ctx, family, lattice, o, host, metal, epsIdx);
+      continue;
+    }
+    for (const lattice of lattices) {
+      for (const o of orientationsFor(family, inPlaneIsotropic)) {
+        for (const host of dielectrics) {
+          // the host is the continuous phase: a solid, or air around a self-supporting print
+          if (host.isFluid || (host.material.class === "gas" && !GAS_HOST_FAMILIES.has(family.id))) continue;
+          for (const inc of dielectrics) {
+            if (inc === host) continue;
+            // the pair's own bounds: every ordinary mix lies between its two phases
+            const lo = Math.min(host.eps.re, inc.eps.re), hi = Math.max(host.eps.re, inc.eps.re);
+            if (epsIdx.some((k) => target[k] < lo * (1 - ctx.tolerance) || target[k] > hi * (1 + ctx.tolerance))) { refuse(search, "target outside the bounds of the material pair"); continue; }
+            mixed(search, target, ctx, family, lattice, o, host, inc, epsIdx);
+          }
+        }
+      }
+    }
+  }
+  return search;
+}
+
+/** Check the process on the fabricated phase(s); returns reasons (empty when fine). */
+function processReasons(ctx: MatchContext, family: CellFamily, host: EvaluatedMaterial, inc: EvaluatedMaterial, featureM: number, gapM: number): string[] {
+  if (!ctx.process) return [];
+  const phases = family.fabricatedPhase === "both" ? [host, inc] : family.fabricatedPhase === "host" ? [host] : [inc];
+  const reasons: string[] = [];
+  for (const p of phases) {
+    if (p.material.class === "gas") continue;
+    reasons.push(...checkProcess(ctx.process, { featureM, gapM }, p.material.class).reasons);
+  }
+  return reasons;
+}
+
+function homogenization(ctx: MatchContext, phases: Complex[]): { status: "ok" | "warn" | "refuse"; ratio: number } {
+  let nMax = 1;
+  for (const e of phases) {
+    const n = refractiveIndex(e).re;
+    if (Number.isFinite(n) && n > nMax) nMax = n;
+  }
+  return homogenizationCheck(ctx.pitchM, ctx.frequencyHz, nMax);
+}
+
+function indexIm(eps: Complex, mu: Complex): number {
+  const n = refractiveIndex(eps, mu);
+  return Number.isFinite(n.im) ? Math.max(0, n.im) : 0;
+}
+
+/** A mixing family (or wire medium) with one fill fraction solved from one of the ε components. */
+function mixed(
+  s: LevelSearch, target: number[], ctx: MatchContext, family: CellFamily, lattice: Lattice, o: Direction,
+  host: EvaluatedMaterial, inc: EvaluatedMaterial, epsIdx: number[],
+): void {
+  const comps = ctx.components;
+  const context = { pitchM: ctx.pitchM, frequencyHz: ctx.frequencyHz, conductivitySPerM: inc.material.conductivitySPerM };
+  let best: { fill: number; achieved: Complex[]; err: number } | null = null;
+  let lastReason = "";
+  for (const k of epsIdx) {
+    const axis = axisFor(family, o, comps[k].axis);
+    let r;
+    try {
+      r = family.fillForTarget(host.eps, inc.eps, target[k], axis, lattice, context);
+    } catch {
+      continue;
+    }
+    if (!r.inRange || !Number.isFinite(r.fill)) { lastReason = r.reason ?? "fill fraction out of range"; continue; }
+    const ap = family.effectivePermittivity(host.eps, inc.eps, r.fill, lattice, context);
+    const achieved = comps.map((c) => (c.kind === "eps" ? (axisFor(family, o, c.axis) === "parallel" ? ap.parallel : ap.perpendicular) : complex(1)));
+    let err = 0;
+    for (let c = 0; c < comps.length; c++) err = Math.max(err, relErr(achieved[c].re, target[c]));
+    if (!best || err < best.err) best = { fill: r.fill, achieved, err };
+  }
+  if (!best) { refuse(s, lastReason ? `fill out of the family's range (${family.id})` : "no fill fraction found"); return; }
+  const { fill, achieved, err } = best;
+  const feature = family.smallestFeatureM(fill, ctx.pitchM, lattice);
+  const proc = processReasons(ctx, family, host, inc, feature.featureM, feature.gapM);
+  if (proc.length) { refuse(s, "feature or gap below the process limit"); return; }
+  const effs = epsIdx.map((k) => achieved[k]);
+  const h = homogenization(ctx, [...(inc.isMetal ? [] : [inc.eps]), host.eps, ...effs]);
+  if (h.status === "refuse") { refuse(s, "cell coarser than λ/4 in its densest material"); return; }
+  // spread, loss and bandwidth along the dominant (first) ε component
+  const dom = epsIdx[0];
+  const domAxis = axisFor(family, o, comps[dom].axis);
+  const ap = family.effectivePermittivity(host.eps, inc.eps, fill, lattice, context);
+  let spread = 0;
+  for (const k of epsIdx) {
+    const axis = axisFor(family, o, comps[k].axis);
+    spread = Math.max(spread, mixingSpread(ap.rules[axis], family.dimension, host.eps, inc.eps, fill));
+  }
+  const eDom = domAxis === "parallel" ? ap.parallel : ap.perpendicular;
+  let bandwidth: number | null = null;
+  if (family.resonant) {
+    const wireIdx = epsIdx.find((k) => axisFor(family, o, comps[k].axis) === "parallel");
+    if (wireIdx !== undefined) {
+      const dims = family.dimensionsFromFill(fill, ctx.pitchM, lattice);
+      const band = bandwidthWithinTolerance(
+        { pitchM: ctx.pitchM, radiusM: dims.radiusM, frequencyHz: ctx.frequencyHz, hostEps: host.eps, conductivitySPerM: context.conductivitySPerM ?? Infinity },
+        target[wireIdx], ctx.tolerance * Math.max(Math.abs(target[wireIdx]), 0.01),
+      );
+      bandwidth = band.fractional;
+    }
+  }
+  const mu = complex(1);
+  s.candidates.push({
+    family: family.id,
+    host: host.material.id,
+    inclusion: inc.material.id,
+    lattice,
+    fillFraction: fill,
+    dimensions: dimensionsToColumns(family.dimensionsFromFill(fill, ctx.pitchM, lattice)),
+    achieved: achieved.map((a) => a.re),
+    relError: err,
+    lossTangent: eDom.re !== 0 ? Math.abs(eDom.im / eDom.re) : Infinity,
+    indexIm: indexIm(eDom, mu),
+    spread,
+    bandwidth,
+    featureM: Math.min(feature.featureM, feature.gapM > 0 ? feature.gapM : Infinity),
+    resonant: family.resonant,
+    score: 0,
+    notes: [],
+    homogenization: h.status,
+    orientation: o,
+  });
+}
+
+/** Split rings in a host: μ along the ring axis from the ring design, ε from the host. */
+function splitRing(
+  s: LevelSearch, target: number[], ctx: MatchContext, family: CellFamily, lattice: Lattice,
+  host: EvaluatedMaterial, metal: EvaluatedMaterial, mk: number, epsIdx: number[],
+): void {
+  const comps = ctx.components;
+  const sigma = metal.material.conductivitySPerM ?? 2 * Math.PI * ctx.frequencyHz * 8.8541878128e-12 * metal.eps.im;
+  const design = designSplitRing({ pitchM: ctx.pitchM, frequencyHz: ctx.frequencyHz, targetMu: target[mk], conductivitySPerM: sigma, hostEpsRe: host.eps.re });
+  if (!design.geometry || !design.response) { refuse(s, design.reasons[0] ?? "no split-ring geometry reaches the target"); return; }
+  const g = design.geometry;
+  const r = design.response;
+  const achievedC: Complex[] = comps.map((c, k) => (c.kind === "eps" ? host.eps : k === mk ? r.mu : complex(1)));
+  let err = 0;
+  for (let c = 0; c < comps.length; c++) err = Math.max(err, relErr(achievedC[c].re, target[c]));
+  const wall = Math.max(0, ctx.pitchM - 2 * (g.ringRadiusM + 2 * g.ringWidthM + g.ringGapM));
+  const featureM = g.ringWidthM;
+  const gapM = Math.min(g.ringGapM, wall > 0 ? wall : Infinity);
+  const proc = processReasons(ctx, family, host, metal, featureM, gapM);
+  if (proc.length) { refuse(s, "feature or gap below the process limit"); return; }
+  const h = homogenization(ctx, [host.eps]);
+  if (h.status === "refuse") { refuse(s, "cell coarser than λ/4 in its densest material"); return; }
+  const band = splitRingBandwidth(r, ctx.frequencyHz, target[mk], ctx.tolerance * Math.max(Math.abs(target[mk]), 0.01));
+  const epsDom = epsIdx.length ? achievedC[epsIdx[0]] : host.eps;
+  s.candidates.push({
+    family: family.id,
+    host: host.material.id,
+    inclusion: metal.material.id,
+    lattice,
+    fillFraction: r.fill,
+    dimensions: dimensionsToColumns({ ringRadiusM: g.ringRadiusM, ringWidthM: g.ringWidthM, ringGapM: g.ringGapM }),
+    achieved: achievedC.map((a) => a.re),
+    relError: err,
+    lossTangent: Math.max(host.value.lossTangent, r.mu.re !== 0 ? Math.abs(r.mu.im / r.mu.re) : Infinity),
+    indexIm: indexIm(epsDom, r.mu),
+    spread: 0,
+    bandwidth: band.fractional,
+    featureM: Math.min(featureM, gapM),
+    resonant: true,
+    score: 0,
+    notes: design.reasons,
+    homogenization: h.status,
+    orientation: comps[mk].axis,
+  });
+}

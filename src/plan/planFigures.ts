@@ -1,0 +1,80 @@
+/** Device-level figures of a plan: loss along straight paths, errors, bill of materials. */
+import type { DeviceGrid } from "../field/deviceGrid.js";
+import type { BillOfMaterialsRow, PlanLevel } from "./planTypes.js";
+
+/** 20·log10(e): nepers of field amplitude to decibels. */
+export const DB_PER_NEPER = 20 / Math.LN10;
+
+export interface LossPath {
+  lossDb: number;
+  lengthM: number;
+  direction: [number, number];
+}
+
+/**
+ * Attenuation along every straight row and column of cells (and z line in 3D):
+ * A = 20·log10(e) · k0 · Σ Im n · pitch over the device cells of the line, in dB (the field decays
+ * as exp(−k0 ∫ Im n ds) for exp(−iωt)). Returns the line with the largest attenuation (ties: the
+ * longest). `indexIm` holds Im n per cell.
+ */
+export function worstStraightPath(grid: DeviceGrid, indexIm: Float64Array, k0: number): LossPath {
+  const { nx, ny, nz } = grid;
+  const rows = new Float64Array(ny * nz), rowN = new Int32Array(ny * nz);
+  const cols = new Float64Array(nx * nz), colN = new Int32Array(nx * nz);
+  const zl = new Float64Array(grid.dimension === 3 ? nx * ny : 0), zN = new Int32Array(zl.length);
+  for (let c = 0; c < grid.count; c++) {
+    const i = grid.i[c], j = grid.j[c], k = grid.k[c];
+    const v = indexIm[c];
+    rows[k * ny + j] += v; rowN[k * ny + j]++;
+    cols[k * nx + i] += v; colN[k * nx + i]++;
+    if (zl.length) { zl[j * nx + i] += v; zN[j * nx + i]++; }
+  }
+  let best: LossPath = { lossDb: 0, lengthM: 0, direction: [1, 0] };
+  const consider = (sum: Float64Array, count: Int32Array, direction: [number, number]): void => {
+    for (let q = 0; q < sum.length; q++) {
+      const db = DB_PER_NEPER * k0 * sum[q] * grid.pitchM;
+      const len = count[q] * grid.pitchM;
+      if (db > best.lossDb || (db === best.lossDb && len > best.lengthM)) best = { lossDb: db, lengthM: len, direction };
+    }
+  };
+  consider(rows, rowN, [1, 0]);
+  consider(cols, colN, [0, 1]);
+  if (zl.length) consider(zl, zN, [0, 0]);
+  return best;
+}
+
+/** Median of the finite entries (NaN when none). */
+export function finiteMedian(values: Float64Array): number {
+  let n = 0;
+  for (let c = 0; c < values.length; c++) if (Number.isFinite(values[c])) n++;
+  if (n === 0) return NaN;
+  const a = new Float64Array(n);
+  n = 0;
+  for (let c = 0; c < values.length; c++) if (Number.isFinite(values[c])) a[n++] = values[c];
+  a.sort();
+  return n % 2 ? a[(n - 1) >> 1] : 0.5 * (a[n / 2 - 1] + a[n / 2]);
+}
+
+/**
+ * Bill of materials: cells and volume per material (2D: cross-section per metre of height, m²;
+ * 3D: m³), from each level's recipe: inclusion volume fill·cell, host (1 − fill)·cell. Gases are
+ * left out (nothing to buy).
+ */
+export function billOfMaterials(levels: PlanLevel[], cellSize: number, dimension: 2 | 3, isGas: (id: string) => boolean): BillOfMaterialsRow[] {
+  const rows = new Map<string, BillOfMaterialsRow>();
+  const add = (id: string, cells: number, volume: number): void => {
+    if (!id || isGas(id)) return;
+    const r = rows.get(id) ?? { material: id, cells: 0, volume: 0, volumeUnit: dimension === 3 ? "m3" : "m2" };
+    r.cells += cells;
+    r.volume += volume;
+    rows.set(id, r);
+  };
+  const cell = dimension === 3 ? cellSize ** 3 : cellSize ** 2;
+  for (const lv of levels) {
+    const r = lv.recipe;
+    if (!r) continue;
+    add(r.host, lv.cellCount, (1 - r.fillFraction) * cell * lv.cellCount);
+    add(r.inclusion, lv.cellCount, r.fillFraction * cell * lv.cellCount);
+  }
+  return [...rows.values()].sort((a, b) => b.volume - a.volume || a.material.localeCompare(b.material));
+}

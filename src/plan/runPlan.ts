@@ -1,0 +1,217 @@
+/**
+ * The planner: field → reduction → per-cell targets → levels → regions → recipes per level →
+ * flags → device-level figures. Pure (no files, no clock); the command line and the interactive
+ * session both call `planFromField`.
+ */
+import { InputError, unknownWithSuggestion, type InputIssue } from "../core/errors.js";
+import { sym2MajorAngle } from "../core/eigen.js";
+import { CELL_FAMILIES } from "../cells/registry.js";
+import type { Process } from "../cells/process.js";
+import type { TensorField } from "../field/tensorField.js";
+import { evaluateMaterial, type Material } from "../media/material.js";
+import { reduceField } from "../reduce/reduceField.js";
+import { FLAG_CAPPED, FLAG_UNDEFINED } from "../reduce/reducedField.js";
+import { schemeSummary } from "../reduce/schemeMetrics.js";
+import { findRegions } from "./findRegions.js";
+import { computeFlags } from "./computeFlags.js";
+import { chooseRecipes } from "./match/chooseRecipes.js";
+import { levelCandidates, type Candidate } from "./match/levelCandidates.js";
+import type { EvaluatedMaterial, MatchContext } from "./match/matchContext.js";
+import { planFiguresFor } from "./planFiguresFor.js";
+import { MAX_LEVELS, type Plan, type PlanLevel, type PlanOverrides, type PlanProgress, type TargetComponent } from "./planTypes.js";
+import { quantizeTargets } from "./quantize/quantizeTargets.js";
+import { reductionNotes } from "./reductionNotes.js";
+import { resolveSettings, type SettingsSource } from "./resolveSettings.js";
+import { RUNNERS_UP } from "./match/chooseRecipes.js";
+
+export interface PlanCatalogs {
+  materials: readonly Material[];
+  processes: readonly Process[];
+}
+
+/** What the planner reads from a design. */
+export interface PlanDesign extends SettingsSource {
+  name: string;
+  notes?: string;
+  frequencyHz: number;
+  sourcePath: string;
+  transform: { kind: string };
+}
+
+const C0 = 299_792_458;
+
+/** Check ids in the settings against the catalogs; all problems at once. */
+function checkIds(design: PlanDesign, s: ReturnType<typeof resolveSettings>, catalogs: PlanCatalogs): void {
+  const issues: InputIssue[] = [];
+  const at = (path: string): string => `${design.sourcePath}: $.realization.${path}`;
+  const matIds = catalogs.materials.map((m) => m.id);
+  (s.materials ?? []).forEach((id, k) => {
+    if (!matIds.includes(id)) issues.push({ where: at(`materials[${k}]`), message: unknownWithSuggestion("material", id, matIds) });
+  });
+  const famIds = CELL_FAMILIES.map((f) => f.id);
+  (s.families ?? []).forEach((id, k) => {
+    if (!famIds.includes(id)) issues.push({ where: at(`families[${k}]`), message: unknownWithSuggestion("cell family", id, famIds) });
+  });
+  if (s.process !== null && !catalogs.processes.some((p) => p.id === s.process)) {
+    issues.push({ where: at("process"), message: unknownWithSuggestion("process", s.process, catalogs.processes.map((p) => p.id)) });
+  }
+  if (issues.length) throw new InputError(issues);
+}
+
+/**
+ * Plan a device. Throws InputError for unknown ids, a 3D field, an empty device region, or a
+ * reduction that does not apply; everything else (unbuildable cells, errors) comes back as flags.
+ */
+export function planFromField(
+  design: PlanDesign,
+  field: TensorField,
+  catalogs: PlanCatalogs,
+  overrides: PlanOverrides = {},
+  onProgress?: PlanProgress,
+): Plan {
+  const settings = resolveSettings(design, overrides);
+  checkIds(design, settings, catalogs);
+  const grid = field.grid;
+  if (grid.count === 0) throw new InputError({ where: `${design.sourcePath}: $.transform`, message: "the device region holds no cell of the grid; check the region and the pitch" });
+  if (grid.dimension === 3) throw new InputError({ where: `${design.sourcePath}: $.grid`, message: "the planner builds 2D devices (invariant along z); plan a 2D slice instead" });
+  const n = grid.count;
+  const f = design.frequencyHz;
+
+  // 1. reduction → per-cell targets
+  onProgress?.("reduce", 0);
+  const reduced = reduceField(field, {
+    polarization: settings.polarization,
+    scheme: settings.scheme,
+    unitAxis: settings.unitAxis,
+    backgroundIndex: settings.backgroundIndex === 1 && !design.reduction?.backgroundIndex ? undefined : settings.backgroundIndex,
+    where: { polarization: `${design.sourcePath}: $.polarization`, scheme: `${design.sourcePath}: $.reduction.scheme` },
+  });
+  const ez = settings.polarization === "Ez";
+  const outName = ez ? "eps_zz" : "mu_zz";
+  const pre = ez ? "mu" : "eps";
+  const comps: TargetComponent[] = [
+    { name: ez ? "eps_z" : "mu_z", kind: ez ? "eps" : "mu", axis: "z", constant: false },
+    { name: `${pre}_1`, kind: ez ? "mu" : "eps", axis: "1", constant: false },
+    { name: `${pre}_2`, kind: ez ? "mu" : "eps", axis: "2", constant: false },
+  ];
+  const targets = [reduced.components[outName], reduced.principal[0], reduced.principal[1]];
+  const xx = reduced.components[`${pre}_xx`], yy = reduced.components[`${pre}_yy`], xy = reduced.components[`${pre}_xy`];
+  const axisAngleRad = new Float64Array(n);
+  const valid = new Uint8Array(n);
+  let nValid = 0;
+  for (let c = 0; c < n; c++) {
+    axisAngleRad[c] = sym2MajorAngle(xx[c], xy[c], yy[c]);
+    const ok = !(reduced.flags[c] & FLAG_UNDEFINED) && Number.isFinite(targets[0][c]) && Number.isFinite(targets[1][c]) && Number.isFinite(targets[2][c]);
+    valid[c] = ok ? 1 : 0;
+    if (ok) nValid++;
+  }
+  if (nValid === 0) throw new InputError({ where: design.sourcePath, message: "the reduction is undefined in every cell of the device" });
+
+  // 2. quantization (on the cells where the reduction is defined)
+  onProgress?.("quantize", 0);
+  const sub = nValid === n ? targets : targets.map((t) => { const a = new Float64Array(nValid); let q = 0; for (let c = 0; c < n; c++) if (valid[c]) a[q++] = t[c]; return a; });
+  const q = quantizeTargets(sub, { maxLevels: settings.levels, goal: settings.tolerance / 2, cap: MAX_LEVELS });
+  comps.forEach((c, k) => { c.constant = sub[k].every((v) => v === sub[k][0]); });
+  const level = new Int32Array(n).fill(-1);
+  const quantizationError = new Float64Array(n).fill(NaN);
+  for (let c = 0, p = 0; c < n; c++) {
+    if (!valid[c]) continue;
+    level[c] = q.level[p];
+    quantizationError[c] = q.error[p];
+    p++;
+  }
+
+  // 3. regions
+  onProgress?.("regions", 0);
+  const { region, regions } = findRegions(grid, level);
+
+  // 4. matching, per level
+  const materials = evaluateMaterials(catalogs.materials, settings.materials, f);
+  const families = CELL_FAMILIES.filter((fam) => settings.families === null || settings.families.includes(fam.id));
+  const ctx: MatchContext = {
+    polarization: settings.polarization,
+    components: comps,
+    pitchM: grid.pitchM,
+    frequencyHz: f,
+    tolerance: settings.tolerance,
+    materials,
+    families,
+    lattice: settings.lattice,
+    process: settings.process === null ? null : catalogs.processes.find((p) => p.id === settings.process)!,
+    bandwidth: settings.bandwidth,
+  };
+  const cellCounts = new Int32Array(q.centres.length);
+  const maxQ = new Float64Array(q.centres.length);
+  for (let c = 0; c < n; c++) {
+    if (level[c] < 0) continue;
+    cellCounts[level[c]]++;
+    if (quantizationError[c] > maxQ[level[c]]) maxQ[level[c]] = quantizationError[c];
+  }
+  const searches = q.centres.map((centre, l) => {
+    onProgress?.("match", l / q.centres.length);
+    return levelCandidates(centre, ctx);
+  });
+  const perLevel: Candidate[][] = searches.map((s) => s.candidates);
+  const chosen = chooseRecipes(perLevel, settings.tolerance);
+  const levels: PlanLevel[] = q.centres.map((centre, l) => {
+    const list = perLevel[l];
+    const k = chosen[l];
+    const reasons = k >= 0 ? [] : [...searches[l].refusals.entries()].sort((a, b) => b[1] - a[1]).map(([r, cnt]) => `${r} (${cnt})`);
+    if (k < 0 && reasons.length === 0) reasons.push("no allowed family, material or lattice applies to this target");
+    return {
+      index: l + 1,
+      target: centre,
+      cellCount: cellCounts[l],
+      maxQuantizationError: maxQ[l],
+      recipe: k >= 0 ? list[k] : null,
+      runnersUp: list.filter((_, m) => m !== k).slice(0, RUNNERS_UP),
+      reasons,
+      flags: 0,
+    };
+  });
+
+  // 5. flags and achieved errors
+  onProgress?.("flags", 0);
+  const { flags, relError, warnings } = computeFlags({ reduced, targets, comps, level, levels, searches, perLevel, chosen, settings, materials, capped: FLAG_CAPPED, undefinedFlag: FLAG_UNDEFINED });
+
+  // 6. device-level figures
+  onProgress?.("figures", 0);
+  const cheapestEps = Math.min(...materials.filter((m) => !m.isMetal && m.eps.re > 0).map((m) => m.eps.re), Infinity);
+  const summary = schemeSummary(reduced, field, { epsFloor: Number.isFinite(cheapestEps) ? cheapestEps : 1 });
+  const figures = planFiguresFor({ grid, level, levels, regions: region, regionCount: regions.length, flags, relError, reduced, settings, k0: (2 * Math.PI * f) / C0, boundaryReflection: Number.isFinite(summary.boundaryReflection) ? summary.boundaryReflection : null, materials, process: ctx.process });
+  const plan: Plan = {
+    design: { name: design.name, notes: design.notes ?? "", sourcePath: design.sourcePath, frequencyHz: f, wavelengthM: C0 / f, transform: design.transform.kind },
+    settings,
+    reductionNotes: reductionNotes(summary, settings, Number.isFinite(cheapestEps) ? cheapestEps : 1),
+    grid,
+    components: comps,
+    targets,
+    axisAngleRad,
+    level,
+    region,
+    quantizationError,
+    relError,
+    flags,
+    levels,
+    regions,
+    quantization: { method: q.method, dimensions: q.dimensions, maxError: q.maxError },
+    figures,
+    buildable: (figures.flagCounts.norecipe ?? 0) === 0,
+    warnings,
+  };
+  onProgress?.("figures", 1);
+  return plan;
+}
+
+/** The allowed materials evaluated at the design frequency (default: all valid there). */
+export function evaluateMaterials(catalog: readonly Material[], ids: string[] | null, frequencyHz: number): EvaluatedMaterial[] {
+  const chosen = ids === null ? catalog : ids.map((id) => catalog.find((m) => m.id === id)!);
+  const out: EvaluatedMaterial[] = [];
+  for (const m of chosen) {
+    const value = evaluateMaterial(m, frequencyHz);
+    if (ids === null && !value.inRange) continue;
+    if (!Number.isFinite(value.eps.re) || !Number.isFinite(value.eps.im)) continue;
+    out.push({ material: m, value, eps: value.eps, isMetal: m.class === "metal", isFluid: m.class === "liquid" });
+  }
+  return out;
+}
