@@ -10,4 +10,5 @@ export const COMMANDS: Record<string, { summary: string; load: () => Promise<Com
   material: { summary: "list the material catalog or evaluate a material at a frequency", load: () => import("./material.js").then((m) => m.command) },
   mix: { summary: "effective permittivity of a two-phase mixture, or the fill fraction for a target", load: () => import("./mix.js").then((m) => m.command) },
   cell: { summary: "design one unit cell: dimensions, effective ε or μ, process and homogenization checks", load: () => import("./cell.js").then((m) => m.command) },
+  plan: { summary: "plan a device: levels, recipes, flags, build list, report and maps", load: () => import("./plan.js").then((m) => m.command) },
 };
