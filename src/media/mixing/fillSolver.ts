@@ -52,6 +52,8 @@ export function solveFillByBracketing(
   let hi = -Infinity;
   let fPrev = 0;
   let gPrev = g(0);
+  let fBest = 0;
+  let gBest = Math.abs(gPrev);
   if (gPrev === 0) return { fill: 0, achieved: forward(0), converged: true, iterations: evaluations };
   lo = Math.min(lo, gPrev + targetRe);
   hi = Math.max(hi, gPrev + targetRe);
@@ -61,6 +63,10 @@ export function solveFillByBracketing(
     if (Number.isFinite(gk)) {
       lo = Math.min(lo, gk + targetRe);
       hi = Math.max(hi, gk + targetRe);
+      if (Math.abs(gk) < gBest) {
+        gBest = Math.abs(gk);
+        fBest = f;
+      }
     }
     if (gk === 0) return { fill: f, achieved: forward(f), converged: true, iterations: evaluations };
     if (Number.isFinite(gk) && Number.isFinite(gPrev) && Math.sign(gk) !== Math.sign(gPrev)) {
@@ -97,6 +103,10 @@ export function solveFillByBracketing(
     }
     fPrev = f;
     gPrev = gk;
+  }
+  // no sign change: the target may still be met within rounding at a scan point (an end, say)
+  if (gBest <= 1e-9 * Math.max(1, Math.abs(targetRe))) {
+    return { fill: fBest, achieved: forward(fBest), converged: true, iterations: evaluations };
   }
   return {
     fill: NaN,
