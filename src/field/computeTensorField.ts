@@ -92,7 +92,19 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     }
     detJ[c] = 1 / det;
     for (let q = 0; q < 6; q++) { te[q] = epsB * s[q]; tm[q] = muB * s[q]; }
-    principal3(ve, te);
+    if (k[2] === 0 && k[5] === 0 && k[6] === 0 && k[7] === 0) {
+      // z decouples: the in-plane pair has det = (ε_b K_zz)² exactly, so the smaller value is
+      // taken as det/larger instead of mean − half, which cancels near a singular boundary.
+      const mean = 0.5 * (te[0] + te[1]), d = 0.5 * (te[0] - te[1]);
+      const big = mean + Math.sqrt(d * d + te[3] * te[3]);
+      const small = (epsB * k[8]) * (epsB * k[8]) / big;
+      const z = te[2];
+      if (z <= small) { ve[0] = z; ve[1] = small; ve[2] = big; }
+      else if (z <= big) { ve[0] = small; ve[1] = z; ve[2] = big; }
+      else { ve[0] = small; ve[1] = big; ve[2] = z; }
+    } else {
+      principal3(ve, te);
+    }
     vm[0] = ratio * ve[0]; vm[1] = ratio * ve[1]; vm[2] = ratio * ve[2];
     if (cap !== null) {
       if (capPrincipal(te, ve, cap)) flagged = 1;

@@ -7,20 +7,21 @@
  * Physical → virtual: x = r', y = R0 θ'; K rows: n̂ᵀ, (R0/r') θ̂ᵀ, ẑᵀ.
  */
 import type { BeamBendSpec } from "../transformSpec.js";
-import type { Transform } from "./transform.js";
+import { OUTER_SLACK, type Transform } from "./transform.js";
 import { circleBoundary, edgeBoundary, joinBoundaries } from "./circleBoundary.js";
 
 export function beamBend(spec: BeamBendSpec): Transform {
   const a = spec.innerRadiusM, b = spec.outerRadiusM, span = spec.angleRad, r0 = spec.referenceRadiusM;
   const [cx, cy] = spec.center ?? [0, 0];
+  const spanS = span * OUTER_SLACK;
   const angleOf = (dx: number, dy: number): number => {
     const th = Math.atan2(dy, dx);
     return th < 0 ? th + 2 * Math.PI : th;
   };
   const inside = (dx: number, dy: number): boolean => {
     const r = Math.sqrt(dx * dx + dy * dy);
-    if (!(r >= a && r <= b && r > 0)) return false;
-    return span >= 2 * Math.PI || angleOf(dx, dy) <= span;
+    if (!(r >= a && r <= b * OUTER_SLACK && r > 0)) return false;
+    return span >= 2 * Math.PI || angleOf(dx, dy) <= spanS;
   };
   // bounding box of the sector: the corners plus every axis crossing inside the span
   let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity;

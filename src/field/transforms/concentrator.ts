@@ -5,13 +5,14 @@
  * r' = R1 + (r − R2)(R3 − R1)/(R3 − R2). The map is the identity at R3.
  */
 import type { ConcentratorSpec } from "../transformSpec.js";
-import type { Transform } from "./transform.js";
+import { OUTER_SLACK, type Transform } from "./transform.js";
 import { radialK2 } from "./radialJacobian.js";
 import { circleBoundary } from "./circleBoundary.js";
 
 export function concentrator(spec: ConcentratorSpec): Transform {
   const r1 = spec.innerRadiusM, r2 = spec.compressedRadiusM, r3 = spec.outerRadiusM;
   const [cx, cy] = spec.center ?? [0, 0];
+  const r3s = r3 * OUTER_SLACK;
   const core = r2 / r1; // dr/dr' in the core
   const shell = (r3 - r2) / (r3 - r1); // dr/dr' in the shell
   const h = (rp: number): number => (rp < r1 ? core * rp : r2 + (rp - r1) * shell);
@@ -20,11 +21,11 @@ export function concentrator(spec: ConcentratorSpec): Transform {
     dimension: 2,
     bounds: { minX: cx - r3, maxX: cx + r3, minY: cy - r3, maxY: cy + r3, minZ: 0, maxZ: 0 },
     contains(x, y) {
-      return (x - cx) * (x - cx) + (y - cy) * (y - cy) <= r3 * r3;
+      return (x - cx) * (x - cx) + (y - cy) * (y - cy) <= r3s * r3s;
     },
     forward(out, x, y, z) {
       const dx = x - cx, dy = y - cy, r = Math.sqrt(dx * dx + dy * dy);
-      if (!(r <= r3)) return false;
+      if (!(r <= r3s)) return false;
       const rp = r < r2 ? r / core : r1 + (r - r2) / shell;
       const f = r === 0 ? 1 / core : rp / r;
       out[0] = cx + dx * f; out[1] = cy + dy * f; out[2] = z;
@@ -32,7 +33,7 @@ export function concentrator(spec: ConcentratorSpec): Transform {
     },
     inverse(out, x, y, z) {
       const dx = x - cx, dy = y - cy, rp = Math.sqrt(dx * dx + dy * dy);
-      if (!(rp <= r3)) return false;
+      if (!(rp <= r3s)) return false;
       const f = rp === 0 ? core : h(rp) / rp;
       out[0] = cx + dx * f; out[1] = cy + dy * f; out[2] = z;
       return true;

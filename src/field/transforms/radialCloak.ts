@@ -7,7 +7,7 @@
  * K in the polar basis: K_rr = 1/g'(r), K_θθ = r/r'. Singular at r' = a.
  */
 import type { RadialCloakSpec } from "../transformSpec.js";
-import type { Transform } from "./transform.js";
+import { INNER_SLACK, OUTER_SLACK, type Transform } from "./transform.js";
 import { radialK2 } from "./radialJacobian.js";
 import { circleBoundary } from "./circleBoundary.js";
 
@@ -37,6 +37,7 @@ export function cloakProfile(profile: "linear" | "quadratic", a: number, b: numb
 export function radialCloak(spec: RadialCloakSpec): Transform {
   const a = spec.innerRadiusM, b = spec.outerRadiusM;
   const [cx, cy] = spec.center ?? [0, 0];
+  const bb = b * OUTER_SLACK, aa = a * INNER_SLACK;
   const p = cloakProfile(spec.profile, a, b);
   const linear = spec.profile === "linear";
   const s = (b - a) / b;
@@ -46,18 +47,18 @@ export function radialCloak(spec: RadialCloakSpec): Transform {
     bounds: { minX: cx - b, maxX: cx + b, minY: cy - b, maxY: cy + b, minZ: 0, maxZ: 0 },
     contains(x, y) {
       const r = Math.sqrt((x - cx) * (x - cx) + (y - cy) * (y - cy));
-      return r > a && r <= b;
+      return r > aa && r <= bb;
     },
     forward(out, x, y, z) {
       const dx = x - cx, dy = y - cy, r = Math.sqrt(dx * dx + dy * dy);
-      if (!(r > 0 && r <= b)) return false;
+      if (!(r > 0 && r <= bb)) return false;
       const f = p.g(r) / r;
       out[0] = cx + dx * f; out[1] = cy + dy * f; out[2] = z;
       return true;
     },
     inverse(out, x, y, z) {
       const dx = x - cx, dy = y - cy, rp = Math.sqrt(dx * dx + dy * dy);
-      if (!(rp > a && rp <= b)) return false;
+      if (!(rp > aa && rp <= bb)) return false;
       const f = p.h(rp) / rp;
       out[0] = cx + dx * f; out[1] = cy + dy * f; out[2] = z;
       return true;

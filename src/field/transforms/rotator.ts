@@ -5,12 +5,13 @@
  * K = ∂(x, y)/∂(x', y') with ∂r/∂x' = n̂, ∂θ/∂x' = θ̂'/r' + t n̂, t = θ0/(b − a).
  */
 import type { RotatorSpec } from "../transformSpec.js";
-import type { Transform } from "./transform.js";
+import { OUTER_SLACK, type Transform } from "./transform.js";
 import { circleBoundary } from "./circleBoundary.js";
 
 export function rotator(spec: RotatorSpec): Transform {
   const a = spec.innerRadiusM, b = spec.outerRadiusM, th0 = spec.angleRad;
   const [cx, cy] = spec.center ?? [0, 0];
+  const bb = b * OUTER_SLACK;
   const t = th0 / (b - a);
   return {
     kind: "rotator",
@@ -18,11 +19,11 @@ export function rotator(spec: RotatorSpec): Transform {
     bounds: { minX: cx - b, maxX: cx + b, minY: cy - b, maxY: cy + b, minZ: 0, maxZ: 0 },
     contains(x, y) {
       const r = Math.sqrt((x - cx) * (x - cx) + (y - cy) * (y - cy));
-      return r > a && r <= b;
+      return r > a && r <= bb;
     },
     forward(out, x, y, z) {
       const dx = x - cx, dy = y - cy, r = Math.sqrt(dx * dx + dy * dy);
-      if (!(r > a && r <= b)) return false;
+      if (!(r > a && r <= bb)) return false;
       const phi = th0 * (b - r) / (b - a);
       const c = Math.cos(phi), s = Math.sin(phi);
       out[0] = cx + c * dx - s * dy; out[1] = cy + s * dx + c * dy; out[2] = z;
@@ -30,7 +31,7 @@ export function rotator(spec: RotatorSpec): Transform {
     },
     inverse(out, x, y, z) {
       const dx = x - cx, dy = y - cy, rp = Math.sqrt(dx * dx + dy * dy);
-      if (!(rp > a && rp <= b)) return false;
+      if (!(rp > a && rp <= bb)) return false;
       const phi = -th0 * (b - rp) / (b - a);
       const c = Math.cos(phi), s = Math.sin(phi);
       out[0] = cx + c * dx - s * dy; out[1] = cy + s * dx + c * dy; out[2] = z;

@@ -4,13 +4,14 @@
  * (Pendry, Schurig, Smith, Science 312, 1780 (2006)). Centre in the z = 0 plane.
  */
 import type { SphericalCloakSpec } from "../transformSpec.js";
-import type { Transform } from "./transform.js";
+import { INNER_SLACK, OUTER_SLACK, type Transform } from "./transform.js";
 import { radialK3 } from "./radialJacobian.js";
 import { circleBoundary } from "./circleBoundary.js";
 
 export function sphericalCloak(spec: SphericalCloakSpec): Transform {
   const a = spec.innerRadiusM, b = spec.outerRadiusM;
   const [cx, cy] = spec.center ?? [0, 0];
+  const bb = b * OUTER_SLACK, aa = a * INNER_SLACK;
   const s = (b - a) / b;
   return {
     kind: "spherical-cloak",
@@ -18,18 +19,18 @@ export function sphericalCloak(spec: SphericalCloakSpec): Transform {
     bounds: { minX: cx - b, maxX: cx + b, minY: cy - b, maxY: cy + b, minZ: -b, maxZ: b },
     contains(x, y, z) {
       const r = Math.sqrt((x - cx) * (x - cx) + (y - cy) * (y - cy) + z * z);
-      return r > a && r <= b;
+      return r > aa && r <= bb;
     },
     forward(out, x, y, z) {
       const dx = x - cx, dy = y - cy, r = Math.sqrt(dx * dx + dy * dy + z * z);
-      if (!(r > 0 && r <= b)) return false;
+      if (!(r > 0 && r <= bb)) return false;
       const f = (a + r * s) / r;
       out[0] = cx + dx * f; out[1] = cy + dy * f; out[2] = z * f;
       return true;
     },
     inverse(out, x, y, z) {
       const dx = x - cx, dy = y - cy, rp = Math.sqrt(dx * dx + dy * dy + z * z);
-      if (!(rp > a && rp <= b)) return false;
+      if (!(rp > aa && rp <= bb)) return false;
       const f = (rp - a) / s / rp;
       out[0] = cx + dx * f; out[1] = cy + dy * f; out[2] = z * f;
       return true;

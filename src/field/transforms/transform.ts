@@ -48,3 +48,12 @@ export interface Transform {
 
 /** Relative distance inside the outer boundary where boundary samples are placed. */
 export const BOUNDARY_INSET = 1e-9;
+
+/** Relative slack on outer radii so points on the boundary (up to rounding) count as inside. */
+export const OUTER_SLACK = 1 + 1e-12;
+
+/**
+ * Relative slack on singular inner radii: centres within 1e-9 of the radius count as on the
+ * (open) singular boundary, i.e. outside the device, instead of producing det K = 0 by rounding.
+ */
+export const INNER_SLACK = 1 + 1e-9;
