@@ -49,6 +49,9 @@ export function parseProcessCatalog(text: string, file = "processes.csv"): Proce
     seen.add(id);
     const name = cell("name");
     if (!name) issues.push({ where: at("name"), message: "name: expected a name" });
+    const minFeatureM = num("min_feature_m");
+    const minGapM = num("min_gap_m");
+    const maxAspectRatio = num("max_aspect_ratio");
     const classes = cell("material_classes").split(";").map((s) => s.trim()).filter(Boolean);
     if (classes.length === 0) issues.push({ where: at("material_classes"), message: "material_classes: expected at least one class" });
     for (const c of classes) {
@@ -56,7 +59,7 @@ export function parseProcessCatalog(text: string, file = "processes.csv"): Proce
     }
     const source = cell("source");
     if (!source) issues.push({ where: at("source"), message: "source: expected a publication or 'common practice'" });
-    out.push({ id, name, minFeatureM: num("min_feature_m"), minGapM: num("min_gap_m"), maxAspectRatio: num("max_aspect_ratio"), materialClasses: classes, source });
+    out.push({ id, name, minFeatureM, minGapM, maxAspectRatio, materialClasses: classes, source });
   });
   if (issues.length) throw new InputError(issues);
   return out;
