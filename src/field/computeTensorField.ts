@@ -121,7 +121,7 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   if (badCount > 0) {
     const where = spec.kind === "expression" ? `${file}: $.transform.virtual` : `${file}: $.transform`;
     const what = spec.kind === "expression" ? ` (x = '${spec.virtual.x}', y = '${spec.virtual.y}')` : "";
-    throw new InputError({ where, message: describeBadCells(bad, badCount, grid, what) });
+    throw new InputError({ where, message: describeBadCells(bad, badCount, grid, what, transform.clampToInnerOffset !== undefined) });
   }
   return {
     source: spec.kind,

@@ -10,7 +10,7 @@ export interface BadCell {
 const mm = (m: number): string => `${Number((m * 1000).toPrecision(6))} mm`;
 
 /** "the map folds (det J ≤ 0) at 12 cells, first: cell (3, 4) at (1.5 mm, 2 mm), …; expected …" */
-export function describeBadCells(bad: BadCell[], total: number, grid: DeviceGrid, what: string): string {
+export function describeBadCells(bad: BadCell[], total: number, grid: DeviceGrid, what: string, hasInnerOffset: boolean): string {
   const folds = bad.some((b) => b.detK < 0);
   const undefinedMap = bad.some((b) => Number.isNaN(b.detK));
   const kind = folds
@@ -30,6 +30,8 @@ export function describeBadCells(bad: BadCell[], total: number, grid: DeviceGrid
     ? "expected an orientation-preserving map (det J > 0 everywhere in the device)"
     : undefinedMap
       ? "expected a map with a finite Jacobian in every cell"
-      : "set transform.innerOffset to keep cells away from the singular boundary";
+      : hasInnerOffset
+        ? "set transform.innerOffset to keep cells away from the singular boundary"
+        : "expected a region that keeps cells off the singular points of the map";
   return `the map${what} ${kind} at ${total} cell${total === 1 ? "" : "s"}, first ${list}; ${hint}`;
 }

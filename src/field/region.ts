@@ -5,6 +5,7 @@
 import type { BoundarySamples } from "./tensorField.js";
 import type { Bounds3 } from "./transforms/transform.js";
 import { circleBoundary, edgeBoundary, joinBoundaries } from "./transforms/circleBoundary.js";
+import { INNER_SLACK, OUTER_SLACK } from "./transforms/transform.js";
 
 export type RegionSpec =
   | { shape: "circle"; centerM: [number, number]; radiusM: number }
@@ -22,7 +23,7 @@ export interface Region {
 export function makeRegion(spec: RegionSpec): Region {
   switch (spec.shape) {
     case "circle": {
-      const [cx, cy] = spec.centerM, r = spec.radiusM, r2 = r * r;
+      const [cx, cy] = spec.centerM, r = spec.radiusM, r2 = (r * OUTER_SLACK) ** 2;
       return {
         bounds: { minX: cx - r, maxX: cx + r, minY: cy - r, maxY: cy + r, minZ: 0, maxZ: 0 },
         contains: (x, y) => (x - cx) * (x - cx) + (y - cy) * (y - cy) <= r2,
@@ -30,7 +31,7 @@ export function makeRegion(spec: RegionSpec): Region {
       };
     }
     case "annulus": {
-      const [cx, cy] = spec.centerM, a2 = spec.innerRadiusM ** 2, b = spec.outerRadiusM, b2 = b * b;
+      const [cx, cy] = spec.centerM, a2 = (spec.innerRadiusM * INNER_SLACK) ** 2, b = spec.outerRadiusM, b2 = (b * OUTER_SLACK) ** 2;
       return {
         bounds: { minX: cx - b, maxX: cx + b, minY: cy - b, maxY: cy + b, minZ: 0, maxZ: 0 },
         contains: (x, y) => {
