@@ -1,33 +1,29 @@
 /**
- * How far Maxwell Garnett and Bruggeman disagree for one axis of a family at a fill fraction: the
- * family's own rule against its counterpart (MG cylinder ↔ Bruggeman 2D, MG sphere ↔ Bruggeman 3D).
- * Rules exact for their geometry (Wiener parallel and series means) have no spread. Maxwell Garnett
- * suits isolated inclusions at low fill, Bruggeman aggregates at high fill; where they disagree by
- * more than the design tolerance the cell should be verified with a full-wave unit-cell simulation.
+ * How far Maxwell Garnett and Bruggeman disagree along each axis of a family at a fill fraction,
+ * with the media module's measure (mgBruggemanSpread: |ε_MG − ε_Br| / |ε_Br|, same dimension).
+ * Axes mixed by MG cylinders or 2D Bruggeman use the 2D pair, MG spheres or 3D Bruggeman the 3D
+ * pair; rules exact for their geometry (Wiener parallel and series means) and the resonant models
+ * have no spread. Where the spread exceeds the design tolerance the cell should be verified with a
+ * full-wave unit-cell simulation (common practice).
  */
 import type { Complex } from "../core/complex.js";
-import type { MixingRuleId } from "../media/mixing/mixingRule.js";
-import { getMixingRule } from "../media/mixing/registry.js";
+import { mgBruggemanSpread } from "../media/uncertainty.js";
 import type { AxisPermittivity } from "./cellFamily.js";
 
-const COUNTERPART: Partial<Record<string, MixingRuleId>> = {
-  "mg-cylinder": "bruggeman-2d",
-  "bruggeman-2d": "mg-cylinder",
-  "mg-sphere": "bruggeman-3d",
-  "bruggeman-3d": "mg-sphere",
+const DIMENSION: Partial<Record<string, 2 | 3>> = {
+  "mg-cylinder": 2,
+  "bruggeman-2d": 2,
+  "mg-sphere": 3,
+  "bruggeman-3d": 3,
 };
 
-/** The rule an axis rule is compared with, or undefined when the axis rule is exact. */
-export const spreadCounterpart = (rule: string): MixingRuleId | undefined => COUNTERPART[rule];
+/** Dimension of the MG/Bruggeman pair an axis rule is compared within, or undefined when exact. */
+export const spreadDimension = (rule: string): 2 | 3 | undefined => DIMENSION[rule];
 
-/**
- * |Re ε_rule − Re ε_counterpart| / max(|Re ε_rule|, 1) along one axis; 0 when the rule is exact.
- */
-export function axisSpread(rule: string, host: Complex, inclusion: Complex, fill: number, value: Complex): number {
-  const other = spreadCounterpart(rule);
-  if (!other || !(fill > 0)) return 0;
-  const alt = getMixingRule(other).forward(host, inclusion, fill);
-  return Math.abs(value.re - alt.re) / Math.max(Math.abs(value.re), 1);
+/** Spread along one axis; 0 when the rule is exact for its geometry. */
+export function axisSpread(rule: string, host: Complex, inclusion: Complex, fill: number): number {
+  const d = spreadDimension(rule);
+  return d === undefined ? 0 : mgBruggemanSpread(host, inclusion, fill, d);
 }
 
 export interface CellSpread {
@@ -38,7 +34,7 @@ export interface CellSpread {
 
 /** Spread on both axes of a family's effective permittivity. */
 export function cellSpread(eff: AxisPermittivity, host: Complex, inclusion: Complex, fill: number): CellSpread {
-  const parallel = axisSpread(eff.rules.parallel, host, inclusion, fill, eff.parallel);
-  const perpendicular = axisSpread(eff.rules.perpendicular, host, inclusion, fill, eff.perpendicular);
+  const parallel = axisSpread(eff.rules.parallel, host, inclusion, fill);
+  const perpendicular = axisSpread(eff.rules.perpendicular, host, inclusion, fill);
   return { parallel, perpendicular, max: Math.max(parallel, perpendicular) };
 }

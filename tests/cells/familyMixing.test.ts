@@ -61,3 +61,22 @@ describe("effective permittivity per axis", () => {
     expect(r.reason).toMatch(/geometric limit 0\.7854 \(touching rods, square lattice\)/);
   });
 });
+
+describe("Maxwell Garnett / Bruggeman spread per axis", () => {
+  it("exact axes have none; MG axes use the pair of their dimension", async () => {
+    const { cellSpread } = await import("../../src/cells/mixingSpread.js");
+    const lam = getCellFamily("laminate");
+    expect(cellSpread(lam.effectivePermittivity(air, alumina, 0.3, "square"), air, alumina, 0.3).max).toBe(0);
+    // host 1, inclusion 4, f = 1/2: MG spheres (1+2fβ)/(1−fβ) with β = (4−1)/(4+2) = 1/2 gives 2;
+    // Bruggeman 3D: 0.5(4−ε)/(4+2ε) + 0.5(1−ε)/(1+2ε) = 0 ⇔ 4ε² − 5ε − 8 = 0, ε = (5+√153)/8
+    // (Maxwell Garnett 1904; Bruggeman 1935, as in references.md)
+    const br = (5 + Math.sqrt(153)) / 8;
+    const sph = getCellFamily("spheres-in-host");
+    const s = cellSpread(sph.effectivePermittivity(air, complex(4), 0.5, "cubic"), air, complex(4), 0.5);
+    expectClose(s.max, (br - 2) / br, { rel: 1e-9 });
+    const rods = getCellFamily("rods-in-host");
+    const r = cellSpread(rods.effectivePermittivity(air, complex(4), 0.5, "square"), air, complex(4), 0.5);
+    expect(r.parallel).toBe(0);
+    expect(r.perpendicular).toBeGreaterThan(0);
+  });
+});
