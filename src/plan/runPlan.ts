@@ -19,7 +19,7 @@ import { levelCandidates, type Candidate } from "./match/levelCandidates.js";
 import type { EvaluatedMaterial, MatchContext } from "./match/matchContext.js";
 import { planFiguresFor } from "./planFiguresFor.js";
 import { MAX_LEVELS, type Plan, type PlanLevel, type PlanOverrides, type PlanProgress, type TargetComponent } from "./planTypes.js";
-import { quantizeTargets } from "./quantize/quantizeTargets.js";
+import { isConstant, quantizeTargets } from "./quantize/quantizeTargets.js";
 import { reductionNotes } from "./reductionNotes.js";
 import { resolveSettings, type SettingsSource } from "./resolveSettings.js";
 import { RUNNERS_UP } from "./match/chooseRecipes.js";
@@ -111,7 +111,7 @@ export function planFromField(
   onProgress?.("quantize", 0);
   const sub = nValid === n ? targets : targets.map((t) => { const a = new Float64Array(nValid); let q = 0; for (let c = 0; c < n; c++) if (valid[c]) a[q++] = t[c]; return a; });
   const q = quantizeTargets(sub, { maxLevels: settings.levels, goal: settings.tolerance / 2, cap: MAX_LEVELS });
-  comps.forEach((c, k) => { c.constant = sub[k].every((v) => v === sub[k][0]); });
+  comps.forEach((c, k) => { c.constant = isConstant(sub[k]); });
   const level = new Int32Array(n).fill(-1);
   const quantizationError = new Float64Array(n).fill(NaN);
   for (let c = 0, p = 0; c < n; c++) {

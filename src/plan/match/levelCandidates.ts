@@ -151,7 +151,7 @@ function mixed(
   const { fill, achieved, err } = best;
   const feature = family.smallestFeatureM(fill, ctx.pitchM, lattice);
   const proc = processReasons(ctx, family, host, inc, feature.featureM, feature.gapM);
-  if (proc.length) { refuse(s, "feature or gap below the process limit"); return; }
+  if (proc.length) { refuse(s, `below the process limit: ${proc[0]}`); return; }
   const effs = epsIdx.map((k) => achieved[k]);
   const h = homogenization(ctx, [...(inc.isMetal ? [] : [inc.eps]), host.eps, ...effs]);
   if (h.status === "refuse") { refuse(s, "cell coarser than λ/4 in its densest material"); return; }
@@ -218,7 +218,7 @@ function splitRing(
   const featureM = g.ringWidthM;
   const gapM = Math.min(g.ringGapM, wall > 0 ? wall : Infinity);
   const proc = processReasons(ctx, family, host, metal, featureM, gapM);
-  if (proc.length) { refuse(s, "feature or gap below the process limit"); return; }
+  if (proc.length) { refuse(s, `below the process limit: ${proc[0]}`); return; }
   const h = homogenization(ctx, [host.eps]);
   if (h.status === "refuse") { refuse(s, "cell coarser than λ/4 in its densest material"); return; }
   const band = splitRingBandwidth(r, ctx.frequencyHz, target[mk], ctx.tolerance * Math.max(Math.abs(target[mk]), 0.01));

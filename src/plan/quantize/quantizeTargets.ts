@@ -5,7 +5,7 @@
  */
 import { quantizeOneWithK, type Quantized } from "./quantizeOne.js";
 import { quantizeMany } from "./quantizeMany.js";
-import { relErr } from "./relativeError.js";
+import { relErr, REL_FLOOR } from "./relativeError.js";
 
 export interface QuantizeOptions {
   /** largest number of levels (null: up to `cap`) */
@@ -24,10 +24,17 @@ export interface QuantizedTargets extends Quantized {
   dimensions: number;
 }
 
-/** True when every entry equals the first (exactly). */
+/** Relative spread below which a component counts as the same in every cell (rounding noise). */
+export const CONSTANT_SPREAD = 1e-9;
+
+/** True when every entry equals the first to within CONSTANT_SPREAD (relative, floor REL_FLOOR). */
 export function isConstant(v: Float64Array): boolean {
-  for (let k = 1; k < v.length; k++) if (v[k] !== v[0]) return false;
-  return true;
+  let lo = v[0], hi = v[0];
+  for (let k = 1; k < v.length; k++) {
+    if (v[k] < lo) lo = v[k];
+    if (v[k] > hi) hi = v[k];
+  }
+  return hi - lo <= CONSTANT_SPREAD * Math.max(Math.abs(lo), Math.abs(hi), REL_FLOOR);
 }
 
 /**
