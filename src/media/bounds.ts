@@ -24,7 +24,7 @@ export function wienerBounds(eps1: number, eps2: number, fill: number): [number,
  * The lower bound has the lower-permittivity phase as host. Real positive phases.
  * Sources: Hashin, Shtrikman, J. Appl. Phys. 33, 3125 (1962); Milton, "The Theory of Composites"
  * (2002), §23.
- * Example: hashinShtrikmanBounds(1, 4, 0.5, 3) → [1.75, 2.2857…] (= [7/4, 16/7]).
+ * Example: hashinShtrikmanBounds(1, 4, 0.5, 3) → [2, 2.2857…] (= [2, 16/7]).
  */
 export function hashinShtrikmanBounds(eps1: number, eps2: number, fill: number, dimension: 2 | 3): [number, number] {
   const mg = (a: number, b: number, fb: number) => a + (fb * a * (b - a)) / (a + ((1 - fb) * (b - a)) / dimension);

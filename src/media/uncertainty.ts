@@ -14,7 +14,7 @@ const asComplex = (x: number | Complex): Complex => (typeof x === "number" ? { r
  * Relative spread |ε_MG − ε_Br| / |ε_Br| at `fill` of inclusion in host, with the Maxwell Garnett
  * rule of the same dimension (spheres for 3, cylinders across the axis for 2; host as given) and
  * the symmetric Bruggeman rule. 0 at f = 0 and f = 1 and for equal phases.
- * Example: mgBruggemanSpread(1, 4, 0.5, 3) → |1.75 − 2| / 2 = 0.125.
+ * Example: mgBruggemanSpread(1, 4, 0.5, 3) → |2 − 2.1718| / 2.1718 ≈ 0.0791.
  */
 export function mgBruggemanSpread(host: number | Complex, inclusion: number | Complex, fill: number, dimension: 2 | 3): number {
   const h = asComplex(host);

@@ -9,9 +9,8 @@ describe("Wiener and Hashin–Shtrikman bounds", () => {
     expectClose(wienerBounds(4, 1, 0.5), [1.6, 2.5], { rel: 1e-15 });
   });
 
-  it("Hashin–Shtrikman 3D for 1 and 4 at f = 1/2: [7/4, 16/7] (Hashin, Shtrikman 1962, evaluated by hand)", () => {
-    // lower: 1 + 0.5/(1/3 + 0.5/3) = 1 + 0.5/0.5 = 2? — no: 1 + f2/(1/(ε2−ε1) + f1/(3ε1)) = 1 + 0.5/(1/3 + 1/6) = 2
-    // The MG form used in the code: 1 + 0.5·1·3/(1 + 0.5·3/3) = 1 + 1.5/1.5 = 2. Both agree: 2.
+  it("Hashin–Shtrikman for 1 and 4 at f = 1/2: 3D [2, 16/7], 2D [13/7, 28/13] (Hashin, Shtrikman 1962, evaluated by hand)", () => {
+    // HS form ε1 + f2/(1/(ε2−ε1) + f1/(d ε1)), lower (d = 3): 1 + 0.5/(1/3 + 0.5/3) = 1 + 0.5/0.5 = 2
     // upper: 4 + 0.5/(1/(1−4) + 0.5/12) = 4 + 0.5/(−1/3 + 1/24) = 4 − 0.5·24/7 = 16/7 ≈ 2.2857
     expectClose(hashinShtrikmanBounds(1, 4, 0.5, 3), [2, 16 / 7], { rel: 1e-14 });
     // 2D: lower 1 + 0.5/(1/3 + 0.5/2) = 1 + 0.5/(7/12) = 13/7; upper 4 + 0.5/(−1/3 + 0.5/8) = 4 − 0.5·48/13 = 28/13

@@ -4,7 +4,7 @@ import { mgBruggemanSpread } from "../../src/media/uncertainty.js";
 import { expectClose } from "../helpers/close.js";
 
 describe("Maxwell Garnett – Bruggeman spread", () => {
-  it("1 in 4 at f = 1/2 (3D): MG 2 (host 1), Bruggeman 2 → 0; host 4: MG 16/7 vs 2 → 1/7", () => {
+  it("1 and 4 at f = 1/2 (3D): MG 2 (host 1) or 16/7 (host 4) against Bruggeman's root of its quadratic", () => {
     // Bruggeman 3D, 1 and 4 at 1/2: 2ε² − bε − 4 = 0 with b = 0.5(8 − 1) + 0.5(2 − 4) = 2.5 →
     // ε = (2.5 + sqrt(6.25 + 32))/4 = 2.171..., computed here from the quadratic (Bruggeman 1935)
     const br = (2.5 + Math.sqrt(6.25 + 32)) / 4;
