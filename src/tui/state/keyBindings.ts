@@ -124,6 +124,10 @@ export const KEY_BINDINGS: readonly KeyBinding[] = [
   { keys: ["n", "escape", "q"], label: "n / Esc", does: "stay", scope: "confirmQuit", command: "close" },
   { keys: ["C-c"], label: "Ctrl+C", does: "quit at once", scope: "confirmQuit", command: "forceQuit" },
   // help and notices
+  { keys: ["up"], label: "↑ / ↓", does: "scroll this help", scope: "help", command: "up" },
+  { keys: ["down"], label: "", does: "", scope: "help", command: "down" },
+  { keys: ["pageup"], label: "", does: "", scope: "help", command: "pageUp" },
+  { keys: ["pagedown", "space"], label: "", does: "", scope: "help", command: "pageDown" },
   { keys: ["escape", "?", "q", "enter"], label: "Esc / ?", does: "close", scope: "help", command: "close" },
   { keys: ["escape", "enter", "space"], label: "Esc / Enter", does: "close", scope: "notice", command: "close" },
 ];

@@ -7,7 +7,7 @@
 import type { Plan, PlanOverrides, PlanSettings, PlanStage, Polarization } from "../../plan/planTypes.js";
 import { schemesFor } from "../../reduce/schemes/registry.js";
 import { chooseLayout, moveCursor } from "./heatMap.js";
-import { SCREENS, type CommandId } from "./keyBindings.js";
+import { helpSections, SCREENS, type CommandId } from "./keyBindings.js";
 import { mapQuantities, findQuantity, largestValueCell } from "./mapQuantities.js";
 import { levelCentreCell } from "./levelViews.js";
 import { flagRegionRows } from "./flagRegions.js";
@@ -146,7 +146,7 @@ function globalCommand(state: SessionState, command: CommandId): SessionState {
     case "screenFlags":
       return { ...state, screen: "flags" };
     case "help":
-      return { ...state, overlay: { kind: "help" } };
+      return { ...state, overlay: { kind: "help", offset: 0 } };
     case "quit":
       if (hasUnsavedChanges(state)) return { ...state, overlay: { kind: "confirmQuit" } };
       return { ...state, exitNow: true };
@@ -209,6 +209,11 @@ function commandReducer(state: SessionState, command: CommandId): SessionState {
     if (command === "forceQuit") return { ...cleared, exitNow: true };
     if (command === "quit") return globalCommand({ ...cleared, overlay: null }, "quit");
     if (o.kind === "picker") return pickerCommand(cleared, o, command);
+    if (o.kind === "help" && (command === "up" || command === "down" || command === "pageUp" || command === "pageDown")) {
+      const step = command === "up" ? -1 : command === "down" ? 1 : command === "pageUp" ? -state.listRows : state.listRows;
+      const total = helpSections().reduce((n, sec) => n + sec.rows.length + 2, 0);
+      return { ...cleared, overlay: { kind: "help", offset: clamp(o.offset + step, 0, Math.max(0, total - state.listRows)) } };
+    }
     if (o.kind === "confirmQuit") {
       if (command === "confirmYes") return { ...cleared, overlay: null, exitNow: true };
       if (command === "confirmSave") return { ...cleared, overlay: null, saveWanted: true, quitWanted: true, status: "saving the choices…" };

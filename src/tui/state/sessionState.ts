@@ -30,7 +30,7 @@ export interface PickOption {
 }
 
 export type Overlay =
-  | { kind: "help" }
+  | { kind: "help"; offset: number }
   | { kind: "confirmQuit" }
   | {
       kind: "picker";

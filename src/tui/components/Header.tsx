@@ -1,0 +1,65 @@
+/** Top two lines: what is being planned with which choices, the screen tabs and the progress. */
+import { Box, Text } from "ink";
+import { SCREENS } from "../state/keyBindings.js";
+import { effectiveSettings, hasUnsavedChanges, planIsStale, type SessionState } from "../state/sessionState.js";
+import { formatPercent } from "../state/formatValue.js";
+import { STAGE_WORDS, THEME } from "../theme.js";
+
+export function settingsLine(state: SessionState): string {
+  const s = effectiveSettings(state);
+  if (!s) return "reading the design…";
+  const levels = s.levels ?? (state.plan && !planIsStale(state) ? `${state.plan.levels.length} (auto)` : "auto");
+  const parts = [
+    s.polarization,
+    s.scheme,
+    `levels ${levels}`,
+    `tol ${formatPercent(s.tolerance)}`,
+    `process ${s.process ?? "none"}`,
+  ];
+  if (s.materials) parts.push(`${s.materials.length} materials`);
+  if (s.families) parts.push(`${s.families.length} families`);
+  return parts.join(" · ");
+}
+
+export function ProgressLine({ state, width }: { state: SessionState; width: number }) {
+  const c = state.computing;
+  if (!c) {
+    if (state.planError) return <Text color={THEME.error}>plan failed</Text>;
+    return <Text color={THEME.ok}>plan up to date</Text>;
+  }
+  const barWidth = Math.max(4, Math.min(12, width - 30));
+  const filled = Math.round(Math.max(0, Math.min(1, c.fraction)) * barWidth);
+  return (
+    <Text color={THEME.warn}>
+      {STAGE_WORDS[c.stage] ?? c.stage} {"█".repeat(filled)}
+      {"░".repeat(barWidth - filled)} {Math.round(c.fraction * 100)} %
+    </Text>
+  );
+}
+
+export function Header({ state, width }: { state: SessionState; width: number }) {
+  const name = state.plan?.design.name ?? state.designPath.split(/[\\/]/).pop() ?? "";
+  const unsaved = hasUnsavedChanges(state);
+  return (
+    <Box flexDirection="column" width={width}>
+      <Box>
+        <Box flexGrow={1} flexShrink={1}>
+          <Text wrap="truncate-end">
+            <Text bold color={THEME.accent}>cellwright</Text> <Text bold>{name}</Text> <Text color={THEME.dim}>│</Text> {settingsLine(state)}
+          </Text>
+        </Box>
+        {unsaved ? <Text color={THEME.warn}> ● unsaved</Text> : null}
+      </Box>
+      <Box>
+        <Box flexGrow={1}>
+          {SCREENS.map((sc) => (
+            <Text key={sc.id} inverse={state.screen === sc.id} bold={state.screen === sc.id}>
+              {` ${sc.key} ${sc.title} `}
+            </Text>
+          ))}
+        </Box>
+        <ProgressLine state={state} width={width} />
+      </Box>
+    </Box>
+  );
+}
