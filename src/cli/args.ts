@@ -3,7 +3,26 @@ import { parseArgs } from "node:util";
 import { InputError, unknownWithSuggestion } from "../core/errors.js";
 import type { Command, ParsedArgs } from "./command.js";
 
-export function parseCommandArgs(command: Command, argv: string[]): ParsedArgs {
+/**
+ * Join "--name -3" into "--name=-3" for string options whose value is a negative number (or a
+ * complex number such as "-10+1i"), which node's parser would otherwise take for an option.
+ */
+function joinNegativeValues(command: Command, argv: string[]): string[] {
+  const stringOptions = new Set(command.options.filter((o) => o.type === "string").map((o) => `--${o.name}`));
+  const out: string[] = [];
+  for (let k = 0; k < argv.length; k++) {
+    const token = argv[k];
+    const next = argv[k + 1];
+    if (stringOptions.has(token) && next !== undefined && /^-(\d|\.\d)/.test(next)) {
+      out.push(`${token}=${next}`);
+      k++;
+    } else out.push(token);
+  }
+  return out;
+}
+
+export function parseCommandArgs(command: Command, rawArgv: string[]): ParsedArgs {
+  const argv = joinNegativeValues(command, rawArgv);
   const options: Record<string, { type: "string" | "boolean"; short?: string; multiple?: boolean }> = {
     help: { type: "boolean", short: "h" },
   };
