@@ -35,6 +35,9 @@ export function newCellReduction(): CellReduction {
   };
 }
 
+/** Values within this relative distance of 1 count as 1 (rounding, not a requirement for ε < 1). */
+export const ROUNDING_TOLERANCE = 1e-9;
+
 /** Relative size of xz, yz below which a tensor counts as block-diagonal (plane ⟂ z). */
 const COUPLING_TOLERANCE = 1e-9;
 
@@ -126,7 +129,7 @@ export function reductionKernel(settings: ReductionSettings) {
         out.epsMin = qMin; out.epsMax = qMax;
       }
     }
-    if (out.epsMin < 1) flags |= FLAG_EPS_BELOW_ONE;
+    if (out.epsMin < 1 - ROUNDING_TOLERANCE) flags |= FLAG_EPS_BELOW_ONE;
     if (Math.abs(out.muMin - 1) > muTolerance || Math.abs(out.muMax - 1) > muTolerance) flags |= FLAG_MAGNETIC;
     out.flags = flags;
     return out;

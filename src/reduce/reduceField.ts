@@ -30,7 +30,9 @@ export interface ReduceOptions {
 
 /**
  * Check the options against the field and work out the settings, including the matched scheme's
- * boundary constant. Throws InputError for a polarization that does not fit the field's dimension,
+ * boundary constant. Polarization "3D" (no reduction: all twelve components) is accepted on any
+ * grid — a z = 0 slice of a 3D device is not z-invariant, so callers pick "3D" for it. Throws
+ * InputError for Ez/Hz on a 3D grid,
  * a scheme that does not apply to the polarization (the message lists the valid ones), a background
  * index that is not a positive number, or a matched scheme on a field with no outer boundary.
  */
@@ -39,9 +41,6 @@ export function reductionSettings(field: TensorField, options: ReduceOptions): R
   const wherePol = options.where?.polarization ?? "polarization";
   if (field.grid.dimension === 3 && pol !== "3D") {
     throw new InputError({ where: wherePol, message: `a 3D design has no polarization reduction (got '${pol}'); only scheme 'full' applies` });
-  }
-  if (field.grid.dimension === 2 && pol === "3D") {
-    throw new InputError({ where: wherePol, message: "a 2D design is reduced for polarization Ez or Hz" });
   }
   const scheme = resolveScheme(options.scheme, pol, options.where?.scheme ?? "reduction.scheme");
   const nb = options.backgroundIndex;

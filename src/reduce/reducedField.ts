@@ -6,7 +6,7 @@
 import type { ReductionSchemeName } from "./schemes/schemeNames.js";
 import type { Polarization } from "./polarization.js";
 
-/** Cell needs a permittivity below 1 (some kept ε principal value < 1). */
+/** Cell needs a permittivity below 1 (some kept ε principal value < 1 − 1e-9, ignoring rounding). */
 export const FLAG_EPS_BELOW_ONE = 1;
 /** Cell needs a magnetic response: some kept μ principal value differs from 1 by more than the tolerance. */
 export const FLAG_MAGNETIC = 2;

@@ -7,7 +7,7 @@ import type { TensorField } from "../field/tensorField.js";
 import { boundaryImpedance, type BoundaryImpedance } from "./boundaryImpedance.js";
 import type { Polarization } from "./polarization.js";
 import { reduceWithSettings, reductionSettings, type ReduceOptions } from "./reduceField.js";
-import { reductionKernel } from "./reduceCell.js";
+import { reductionKernel, ROUNDING_TOLERANCE } from "./reduceCell.js";
 import {
   FLAG_CAPPED, FLAG_EPS_BELOW_ONE, FLAG_MAGNETIC, FLAG_OUT_OF_PLANE, FLAG_UNDEFINED, type ReducedField,
 } from "./reducedField.js";
@@ -116,7 +116,7 @@ export function schemeSummary(reduced: ReducedField, field: TensorField, options
     if (f & FLAG_UNDEFINED) { undef++; if (undefinedList.length < NAMED_CELLS_LIMIT) undefinedList.push(named(field, c)); continue; }
     if (f & FLAG_EPS_BELOW_ONE) below++;
     if (f & FLAG_MAGNETIC) magnetic++;
-    if (reduced.epsMin[c] < epsFloor) belowFloor++;
+    if (reduced.epsMin[c] < epsFloor * (1 - ROUNDING_TOLERANCE)) belowFloor++;
     if (reduced.anisotropy[c] > maxAniso) maxAniso = reduced.anisotropy[c];
     if (reduced.droppedAnisotropy[c] > maxDropped) maxDropped = reduced.droppedAnisotropy[c];
     for (let k = 0; k < arrays.length; k++) {

@@ -205,8 +205,10 @@ describe("invalid combinations", () => {
   it("an unknown scheme suggests the nearest name", () => {
     expect(() => reduceField(cloak, { polarization: "Ez", scheme: "unit_mu", where: { scheme: "--scheme" } })).toThrow(/--scheme: unknown reduction scheme 'unit_mu'; did you mean unit-mu/);
   });
-  it("a 2D design refuses polarization 3D", () => {
-    expect(() => reduceField(cloak, { polarization: "3D", scheme: "full" })).toThrow(InputError);
+  it("polarization 3D on a 2D grid (a slice of a 3D device) keeps all twelve components", () => {
+    const red = reduceField(cloak, { polarization: "3D", scheme: "full" });
+    expect(red.componentNames.length).toBe(12);
+    expectClose(red.components.mu_xy, cloak.mu.xy, { rel: 1e-15, abs: 1e-300, label: "mu_xy" });
   });
   it("a background index must be positive", () => {
     expect(() => reduceField(cloak, { polarization: "Ez", scheme: "full", backgroundIndex: 0 })).toThrow(/positive background index/);

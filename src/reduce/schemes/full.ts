@@ -6,7 +6,7 @@ import type { ReductionScheme } from "./reductionScheme.js";
  */
 export const fullScheme: ReductionScheme = {
   name: "full",
-  summary: "every component the polarization sees, as the transform gives it (magnetic, anisotropic)",
+  summary: "components as the transform gives them: magnetic, anisotropic",
   polarizations: ["Ez", "Hz", "3D"],
   cellScale: () => 1,
   isotropize: false,

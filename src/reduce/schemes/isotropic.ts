@@ -11,7 +11,7 @@ import type { ReductionScheme } from "./reductionScheme.js";
  */
 export const isotropicScheme: ReductionScheme = {
   name: "isotropic",
-  summary: "one non-magnetic index per cell, n² = geometric mean; in-plane anisotropy dropped",
+  summary: "one index per cell (geometric mean), no μ; anisotropy dropped",
   polarizations: ["Ez", "Hz"],
   cellScale: (pol, lambdaMin, lambdaMax, s) => (pol === "Ez" ? 1 / Math.sqrt(lambdaMin * lambdaMax) : s),
   isotropize: true,

@@ -12,7 +12,7 @@ import { unitMuScheme } from "./unitMu.js";
  */
 export const matchedScheme: ReductionScheme = {
   name: "matched",
-  summary: "the reduced set times one constant that matches the outer boundary (uniform μ factor)",
+  summary: "reduced set times one constant that matches the outer edge",
   polarizations: ["Ez", "Hz"],
   cellScale: (pol, lambdaMin, lambdaMax, s, unitLarger) =>
     pol === "Ez"

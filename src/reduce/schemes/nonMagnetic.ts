@@ -8,7 +8,7 @@ import type { ReductionScheme } from "./reductionScheme.js";
  */
 export const nonMagneticScheme: ReductionScheme = {
   name: "non-magnetic",
-  summary: "Hz: μ_zz = 1 and ε_t × μ_zz; all-dielectric, may need ε < 1",
+  summary: "μ_zz = 1, in-plane ε × μ_zz: all-dielectric, may need ε < 1",
   polarizations: ["Hz"],
   cellScale: (_pol, _lambdaMin, _lambdaMax, s) => s,
   isotropize: false,

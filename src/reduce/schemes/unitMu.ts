@@ -8,7 +8,7 @@ import type { ReductionScheme } from "./reductionScheme.js";
  */
 export const unitMuScheme: ReductionScheme = {
   name: "unit-mu",
-  summary: "Ez: scale each cell so one principal μ is 1; one magnetic component left",
+  summary: "one principal μ set to 1 per cell, ε_zz scaled to match",
   polarizations: ["Ez"],
   cellScale: (_pol, lambdaMin, lambdaMax, _s, unitLarger) => 1 / (unitLarger ? lambdaMax : lambdaMin),
   isotropize: false,
