@@ -85,6 +85,8 @@ export function levelCandidates(target: number[], ctx: MatchContext): LevelSearc
           if (host.isFluid || (host.material.class === "gas" && !GAS_HOST_FAMILIES.has(family.id))) continue;
           for (const inc of dielectrics) {
             if (inc === host) continue;
+            // the process shapes the fabricated phase: it cannot be air (air rods in a host are holes)
+            if (family.fabricatedPhase === "inclusion" && inc.material.class === "gas") continue;
             // the pair's own bounds: every ordinary mix lies between its two phases
             const lo = Math.min(host.eps.re, inc.eps.re), hi = Math.max(host.eps.re, inc.eps.re);
             if (epsIdx.some((k) => target[k] < lo * (1 - ctx.tolerance) || target[k] > hi * (1 + ctx.tolerance))) { refuse(search, "target outside the bounds of the material pair"); continue; }

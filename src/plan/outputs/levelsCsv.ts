@@ -14,7 +14,7 @@ export const RUNNERS_UP_SHOWN = 3;
 /** "laminate PTFE/alumina-96 square f=0.312 err=0.4%" — one runner-up in one cell. */
 export function recipeLabel(r: Recipe): string {
   const mats = r.inclusion ? `${r.host}/${r.inclusion}` : r.host;
-  return `${r.family} ${mats} ${r.lattice} f=${fmt(r.fillFraction, 3)} err=${fmt(r.relError * 100, 2)}%`;
+  return `${r.family} ${mats} ${r.lattice} f=${fmt(r.fillFraction, 3)} err=${r.relError < 1e-8 ? 0 : fmt(r.relError * 100, 2)}%`;
 }
 
 /** The whole levels.csv text (small: one row per level). */

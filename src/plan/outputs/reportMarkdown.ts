@@ -16,7 +16,8 @@ function si(x: number, unit: string): string {
 }
 
 function pct(x: number | null): string {
-  return x === null || !Number.isFinite(x) ? "—" : `${fmt(x * 100, 3)} %`;
+  if (x === null || !Number.isFinite(x)) return "—";
+  return Math.abs(x) < 1e-8 ? "0 %" : `${fmt(x * 100, 3)} %`;
 }
 
 function regionList(ids: number[]): string {
