@@ -96,8 +96,7 @@ export const command: Command = {
     "along an axis with factor N) or --aspect M (spheroid axis/equatorial ratio, field along the axis).",
     "Also printed: Wiener and Hashin–Shtrikman bounds at that fill, and the relative spread between",
     "Maxwell Garnett and Bruggeman there (large spread: verify with a full-wave unit-cell simulation).",
-    "Exit 2 when the target cannot be reached with this pair and rule. A negative value must be",
-    "joined to its option: --inclusion=-10+1i.",
+    "Exit 2 when the target cannot be reached with this pair and rule.",
   ].join("\n"),
   options: [
     { name: "rule", type: "string", valueName: "RULE", description: "mixing rule" },
