@@ -1,6 +1,6 @@
 /**
  * Compact numbers for terminal tables: 3 significant digits, exponent form outside [1e-3, 1e4),
- * "–" for NaN, "∞" for Infinity. Example: formatNumber(0.0029137) → "2.91e-3"; formatNumber(3.4306) → "3.43".
+ * "–" for NaN, "∞" for Infinity. Example: formatNumber(0.00029137) → "2.91e-4"; formatNumber(3.4306) → "3.43".
  */
 export function formatNumber(v: number, digits = 3): string {
   if (Number.isNaN(v)) return "–";
