@@ -26,7 +26,7 @@ function axis(min: number, max: number, centre: number, pitch: number): { first:
 }
 
 /**
- * Build the device grid. `contains` is called once per lattice point (twice: count, then fill).
+ * Build the device grid. `contains` is called once per lattice point.
  * Throws InputError at `where` when the lattice would be too large.
  */
 export function buildDeviceGrid(bounds: Bounds3, contains: (x: number, y: number, z: number) => boolean, req: GridRequest): DeviceGrid {
@@ -45,12 +45,14 @@ export function buildDeviceGrid(bounds: Bounds3, contains: (x: number, y: number
     });
   }
   const x0 = ox + ax.first * p, y0 = oy + ay.first * p, z0 = req.dimension === 3 ? oz + az.first * p : 0;
+  // one scan: remember the flat lattice index of every cell inside, then fill the grid
+  const inside = new Int32Array(total);
   let count = 0;
-  for (let k = 0; k < az.n; k++) {
+  for (let k = 0, flat = 0; k < az.n; k++) {
     const z = z0 + k * p;
     for (let j = 0; j < ay.n; j++) {
       const y = y0 + j * p;
-      for (let i = 0; i < ax.n; i++) if (contains(x0 + i * p, y, z)) count++;
+      for (let i = 0; i < ax.n; i++, flat++) if (contains(x0 + i * p, y, z)) inside[count++] = flat;
     }
   }
   const grid: DeviceGrid = {
@@ -62,19 +64,13 @@ export function buildDeviceGrid(bounds: Bounds3, contains: (x: number, y: number
     i: new Int32Array(count), j: new Int32Array(count), k: new Int32Array(count),
     xM: new Float64Array(count), yM: new Float64Array(count), zM: new Float64Array(count),
   };
-  let c = 0;
-  for (let k = 0; k < az.n; k++) {
-    const z = z0 + k * p;
-    for (let j = 0; j < ay.n; j++) {
-      const y = y0 + j * p;
-      for (let i = 0; i < ax.n; i++) {
-        const x = x0 + i * p;
-        if (!contains(x, y, z)) continue;
-        grid.i[c] = i; grid.j[c] = j; grid.k[c] = k;
-        grid.xM[c] = x; grid.yM[c] = y; grid.zM[c] = z;
-        c++;
-      }
-    }
+  const plane = ax.n * ay.n;
+  for (let c = 0; c < count; c++) {
+    const flat = inside[c];
+    const k = Math.floor(flat / plane), rest = flat - k * plane;
+    const j = Math.floor(rest / ax.n), i = rest - j * ax.n;
+    grid.i[c] = i; grid.j[c] = j; grid.k[c] = k;
+    grid.xM[c] = x0 + i * p; grid.yM[c] = y0 + j * p; grid.zM[c] = z0 + k * p;
   }
   return grid;
 }

@@ -76,6 +76,10 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   const bad: BadCell[] = [];
   let badCount = 0;
   const { xM, yM, zM } = grid;
+  // hoisted array references: the hot loop touches only locals
+  const { xx: exx, yy: eyy, zz: ezz, xy: exy, xz: exz, yz: eyz } = eps;
+  const { xx: mxx, yy: myy, zz: mzz, xy: mxy, xz: mxz, yz: myz } = mu;
+  const [ep0, ep1, ep2] = epsPrincipal, [mp0, mp1, mp2] = muPrincipal;
   for (let c = 0; c < n; c++) {
     let x = xM[c], y = yM[c], z = zM[c];
     let flagged = 0;
@@ -110,10 +114,10 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
       if (capPrincipal(te, ve, cap)) flagged = 1;
       if (capPrincipal(tm, vm, cap)) flagged = 1;
     }
-    eps.xx[c] = te[0]; eps.yy[c] = te[1]; eps.zz[c] = te[2]; eps.xy[c] = te[3]; eps.xz[c] = te[4]; eps.yz[c] = te[5];
-    mu.xx[c] = tm[0]; mu.yy[c] = tm[1]; mu.zz[c] = tm[2]; mu.xy[c] = tm[3]; mu.xz[c] = tm[4]; mu.yz[c] = tm[5];
-    epsPrincipal[0][c] = ve[0]; epsPrincipal[1][c] = ve[1]; epsPrincipal[2][c] = ve[2];
-    muPrincipal[0][c] = vm[0]; muPrincipal[1][c] = vm[1]; muPrincipal[2][c] = vm[2];
+    exx[c] = te[0]; eyy[c] = te[1]; ezz[c] = te[2]; exy[c] = te[3]; exz[c] = te[4]; eyz[c] = te[5];
+    mxx[c] = tm[0]; myy[c] = tm[1]; mzz[c] = tm[2]; mxy[c] = tm[3]; mxz[c] = tm[4]; myz[c] = tm[5];
+    ep0[c] = ve[0]; ep1[c] = ve[1]; ep2[c] = ve[2];
+    mp0[c] = vm[0]; mp1[c] = vm[1]; mp2[c] = vm[2];
     epsAnisotropy[c] = ve[2] / ve[0];
     muAnisotropy[c] = vm[2] / vm[0];
     capped[c] = flagged;
