@@ -71,6 +71,11 @@ export async function writePlanOutputs(plan: Plan, dir: string, options: WriteOp
   const tag = `${process.pid}.${randomBytes(4).toString("hex")}`;
   const finals = PLAN_OUTPUT_FILES.map((name) => join(folder, name));
   const temps = PLAN_OUTPUT_FILES.map((name) => join(folder, `.${name}.${tag}.tmp`));
+  // a final name taken by a folder would fail the renames half-way: refuse before writing anything
+  for (const f of finals) {
+    const st = await fs.stat(f).catch(() => null);
+    if (st && !st.isFile()) throw new Error(`cannot write ${f}: a folder or special file has that name`);
+  }
   try {
     if (signal?.aborted) throw abortError();
     await streamTo(temps[0], (write) => emitBuildList(plan, write), signal);

@@ -1,0 +1,48 @@
+import { describe, it, expect } from "vitest";
+import { mkdtemp, readFile, writeFile } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import { join, resolve } from "node:path";
+import { runCli, EXIT_INPUT, EXIT_OK } from "../../src/cli/run.js";
+import { bufferIo } from "../../src/cli/cliIo.js";
+
+const DEMO = "tests/plan/golden/small-bend.json";
+
+describe("cellwright plan", () => {
+  it("--json prints exactly one JSON object with the summary fields", async () => {
+    const out = await mkdtemp(join(tmpdir(), "cw-cli-"));
+    const io = bufferIo();
+    expect(await runCli(["plan", DEMO, "--out", out, "--json"], io)).toBe(EXIT_OK);
+    const lines = io.out().trim().split("\n");
+    expect(lines.length).toBe(1);
+    const s = JSON.parse(lines[0]);
+    for (const k of ["design", "cells", "levels", "regions", "flags", "maxRelError", "medianRelError", "lossDb", "boundaryReflection", "minBandwidth", "materials", "outputs"]) expect(s).toHaveProperty(k);
+    expect(s.outputs.length).toBe(5);
+    expect(JSON.parse(await readFile(join(out, "summary.json"), "utf8"))).toEqual(s);
+  }, 30_000);
+
+  it("--levels and --tolerance override the design", async () => {
+    const out = await mkdtemp(join(tmpdir(), "cw-cli-"));
+    const io = bufferIo();
+    await runCli(["plan", DEMO, "--out", out, "--json", "--levels", "2", "--tolerance", "0.2"], io);
+    const s = JSON.parse(io.out());
+    expect(s.levels).toBeLessThanOrEqual(2);
+    expect(s.tolerance).toBe(0.2);
+  }, 30_000);
+
+  it("--session takes the design and overrides from a session file", async () => {
+    const dir = await mkdtemp(join(tmpdir(), "cw-cli-"));
+    const session = join(dir, "session.json");
+    await writeFile(session, JSON.stringify({ cellwrightSession: 1, design: resolve(DEMO), overrides: { levels: 3 } }));
+    const io = bufferIo();
+    expect(await runCli(["plan", "--session", session, "--out", join(dir, "out"), "--json"], io)).toBe(EXIT_OK);
+    expect(JSON.parse(io.out()).levels).toBeLessThanOrEqual(3);
+  }, 30_000);
+
+  it("rejects a bad tolerance and a missing design", async () => {
+    const io = bufferIo();
+    expect(await runCli(["plan", DEMO, "--tolerance", "2"], io)).toBe(EXIT_INPUT);
+    expect(io.err()).toContain("--tolerance");
+    const io2 = bufferIo();
+    expect(await runCli(["plan"], io2)).toBe(EXIT_INPUT);
+  });
+});

@@ -1,0 +1,90 @@
+import { describe, it, expect } from "vitest";
+import { mkdtemp, readdir, writeFile, readFile } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { runCli, EXIT_INPUT, EXIT_NOT_BUILDABLE } from "../../src/cli/run.js";
+import { bufferIo } from "../../src/cli/cliIo.js";
+import { loadDesign } from "../../src/io/design/loadDesign.js";
+import { loadFieldForDesign } from "../../src/io/fieldCsv.js";
+import { loadMaterialCatalog } from "../../src/io/materialCatalog.js";
+import { loadProcessCatalog } from "../../src/io/processCatalog.js";
+import { planFromField } from "../../src/plan/runPlan.js";
+import { writePlanOutputs } from "../../src/io/planOutputs.js";
+
+async function designFile(dir: string, body: object): Promise<string> {
+  const p = join(dir, "design.json");
+  await writeFile(p, JSON.stringify(body));
+  return p;
+}
+
+const bend = {
+  name: "bad-input check",
+  frequency: "2.5 GHz",
+  transform: { kind: "beam-bend", innerRadius: "60 mm", outerRadius: "80 mm", angle: "90 deg", referenceRadius: "80 mm" },
+  grid: { pitch: "6 mm" },
+  polarization: "Ez",
+  reduction: { scheme: "isotropic", backgroundIndex: 1.2 },
+};
+
+describe("plan with bad or impossible input", () => {
+  it("still writes a complete report when no recipe is feasible anywhere (exit 2)", async () => {
+    const dir = await mkdtemp(join(tmpdir(), "cw-bad-"));
+    // PTFE (ε' 2.05) with air cannot reach ε ≥ 2.05·1.05 … the targets here are 1.49–1.88, so
+    // ask for a pair that brackets none of them: alumina (9.4) and titania (100)
+    const p = await designFile(dir, { ...bend, realization: { materials: ["alumina-96", "titania"], families: ["rods-in-host"] } });
+    const out = join(dir, "out");
+    const io = bufferIo();
+    expect(await runCli(["plan", p, "--out", out], io)).toBe(EXIT_NOT_BUILDABLE);
+    expect((await readdir(out)).sort()).toEqual(["build-list.csv", "levels.csv", "maps.svg", "report.md", "summary.json"]);
+    const report = await readFile(join(out, "report.md"), "utf8");
+    expect(report).toContain("Not buildable as asked");
+    expect(report).toContain("| norecipe |");
+    const summary = JSON.parse(await readFile(join(out, "summary.json"), "utf8"));
+    expect(summary.flags.norecipe).toBe(summary.cells);
+    expect(summary.buildable).toBe(false);
+  }, 30_000);
+
+  it("refuses an empty device region (exit 1, nothing written)", async () => {
+    const dir = await mkdtemp(join(tmpdir(), "cw-bad-"));
+    // a 0.2 mm thin shell sampled every 10 mm: no cell centre falls inside it
+    const p = await designFile(dir, { ...bend, transform: { kind: "radial-cloak", innerRadius: "20.05 mm", outerRadius: "20.25 mm", profile: "linear" }, grid: { pitch: "10 mm" } });
+    const out = join(dir, "out");
+    const io = bufferIo();
+    expect(await runCli(["plan", p, "--out", out], io)).toBe(EXIT_INPUT);
+    expect(io.err()).toMatch(/cell/);
+    await expect(readdir(out)).rejects.toThrow();
+  }, 30_000);
+
+  it("leaves no partial output when interrupted", async () => {
+    const dir = await mkdtemp(join(tmpdir(), "cw-bad-"));
+    const p = await designFile(dir, { ...bend, realization: { materials: ["photopolymer-resin", "air"], families: ["strut-lattice"] } });
+    const design = await loadDesign(p);
+    const plan = planFromField(design, await loadFieldForDesign(design), { materials: await loadMaterialCatalog(), processes: await loadProcessCatalog() });
+    const out = join(dir, "out");
+    const controller = new AbortController();
+    const pending = writePlanOutputs(plan, out, { signal: controller.signal });
+    controller.abort();
+    await expect(pending).rejects.toThrow(/interrupted/);
+    expect(await readdir(out)).toEqual([]);
+    // and a plan whose data break half-way through the build list
+    const broken = { ...plan, flags: new Proxy(plan.flags, { get: (t, k) => (k === "40" ? (() => { throw new Error("disk gone"); })() : Reflect.get(t, k)) }) };
+    await expect(writePlanOutputs(broken as typeof plan, out)).rejects.toThrow();
+    expect(await readdir(out)).toEqual([]);
+  }, 30_000);
+
+  it("rejects unknown realization keys with a suggestion", async () => {
+    const dir = await mkdtemp(join(tmpdir(), "cw-bad-"));
+    const p = await designFile(dir, { ...bend, realization: { levles: 4 } });
+    const io = bufferIo();
+    expect(await runCli(["plan", p, "--out", join(dir, "out")], io)).toBe(EXIT_INPUT);
+    expect(io.err()).toContain("did you mean levels");
+  });
+
+  it("rejects unknown material ids with a suggestion", async () => {
+    const dir = await mkdtemp(join(tmpdir(), "cw-bad-"));
+    const p = await designFile(dir, { ...bend, realization: { materials: ["ptfee"] } });
+    const io = bufferIo();
+    expect(await runCli(["plan", p, "--out", join(dir, "out")], io)).toBe(EXIT_INPUT);
+    expect(io.err()).toMatch(/unknown material 'ptfee'; did you mean .*ptfe/);
+  });
+});
