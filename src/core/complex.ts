@@ -37,13 +37,22 @@ export function cDiv(a: Complex, b: Complex): Complex {
   return { re: (a.re * r + a.im) / d, im: (a.im * r - a.re) / d };
 }
 
-/** Principal square root (Re ≥ 0; for a negative real argument the root is +i·sqrt). */
+/**
+ * Principal square root (Re ≥ 0; for a negative real argument the root is +i·sqrt).
+ * Cancellation-free: the larger of |Re|, |Im| of the root is computed from (|z| ± Re z)/2 without
+ * subtraction, the other as Im z / (2·that), so nearly real arguments (tan δ ~ 1e-6) keep their
+ * small part to full precision.
+ */
 export function cSqrt(a: Complex): Complex {
   const m = cAbs(a);
   if (m === 0) return { re: 0, im: 0 };
-  const re = Math.sqrt((m + a.re) / 2);
-  const im = Math.sqrt(Math.max(0, (m - a.re) / 2));
-  return { re, im: a.im < 0 ? -im : im };
+  if (a.re >= 0) {
+    const re = Math.sqrt((m + a.re) / 2);
+    return { re, im: a.im / (2 * re) };
+  }
+  const imAbs = Math.sqrt((m - a.re) / 2);
+  const im = a.im < 0 ? -imAbs : imAbs;
+  return { re: a.im / (2 * im), im };
 }
 
 /**
