@@ -11,7 +11,7 @@ export const COMMANDS: Record<string, { summary: string; load: () => Promise<Com
   mix: { summary: "effective permittivity of a two-phase mixture, or the fill fraction for a target", load: () => import("./mix.js").then((m) => m.command) },
   cell: { summary: "design one unit cell: dimensions, effective ε or μ, process and homogenization checks", load: () => import("./cell.js").then((m) => m.command) },
   plan: { summary: "plan a device: levels, recipes, flags, build list, report and maps", load: () => import("./plan.js").then((m) => m.command) },
-  reduce: { summary: "compare ways to simplify the tensors for one polarization, or give one scheme per cell", load: () => import("./reduce.js").then((m) => m.command) },
+  reduce: { summary: "compare tensor simplifications per polarization, or apply one per cell", load: () => import("./reduce.js").then((m) => m.command) },
   start: { summary: "plan a built-in demo design and show where the outputs are", load: () => import("./start.js").then((m) => m.command) },
   session: { summary: "interactive session: compare schemes, explore maps, tune levels and export (needs a terminal)", load: () => import("./session.js").then((m) => m.command) },
 };
