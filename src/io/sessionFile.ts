@@ -12,8 +12,8 @@
  *   "view": { "screen": "map", "mapQuantity": "relError", "cursorI": 12, "cursorJ": 7 }
  * }
  * ```
- * `design` is stored relative to the session file's folder (so the folder can move with its
- * design) and returned absolute. `overrides` holds only the settings the designer changed;
+ * `design` is stored relative to the session file's folder when the design sits in it or one level
+ * up (so the pair can move together), else absolute; it is returned absolute. `overrides` holds only the settings the designer changed;
  * anything absent comes from the design file. `view` (optional) is where the designer was looking;
  * the command line ignores it.
  */
@@ -151,8 +151,9 @@ const KEY_ORDER: (keyof PlanOverrides)[] = [
 /** The JSON text of a session file written at `path` (design path made relative to its folder). */
 export function sessionFileText(path: string, contents: SessionFileContents): string {
   const folder = dirname(resolve(path));
+  // relative when the design sits in or near the folder (at most one level up), else absolute
   let design = relative(folder, resolve(contents.designPath));
-  if (design === "") design = resolve(contents.designPath);
+  if (design === "" || isAbsolute(design) || design.startsWith(`..${sep}..${sep}`)) design = resolve(contents.designPath);
   design = design.split(sep).join("/");
   const overrides: Record<string, unknown> = {};
   for (const k of KEY_ORDER) {

@@ -6,7 +6,6 @@
 import { Box, Text, useApp, useInput, useStdout } from "ink";
 import { useEffect, useReducer, useRef, useState } from "react";
 import type { Plan, PlanOverrides, PlanSettings, PlanStage } from "../plan/planTypes.js";
-import { legendOf } from "./state/heatMap.js";
 import { commandForKey, keyName, type KeyLike, type KeyScope } from "./state/keyBindings.js";
 import { findQuantity } from "./state/mapQuantities.js";
 import { sessionReducer } from "./state/sessionReducer.js";
@@ -17,7 +16,7 @@ import { packLegend } from "./components/HeatMap.js";
 import { ConfirmQuit, HelpOverlay, Notice, PickerOverlay } from "./components/Overlays.js";
 import { FlagsScreen } from "./screens/FlagsScreen.js";
 import { LevelsScreen, levelListRows } from "./screens/LevelsScreen.js";
-import { MapScreen, recordWidth } from "./screens/MapScreen.js";
+import { legendFor, MapScreen, recordWidth } from "./screens/MapScreen.js";
 import { ReductionScreen } from "./screens/ReductionScreen.js";
 
 /** What the session asks of the world; the command wires the real planner, tests wire fakes. */
@@ -72,9 +71,9 @@ function useTerminalSize(fixed?: { columns: number; rows: number }): { columns: 
   return size;
 }
 
-// two header lines, a rule, two footer lines, and one spare row: a frame as tall as the terminal
+// three header lines, a rule, two footer lines, and one spare row: a frame as tall as the terminal
 // makes ink clear the whole screen on every update
-const CHROME_ROWS = 6;
+const CHROME_ROWS = 7;
 
 export function SessionApp({ initial, services, inputActive, size, onExit }: SessionAppProps) {
   const [state, dispatch] = useReducer(sessionReducer, initial);
@@ -177,8 +176,8 @@ export function SessionApp({ initial, services, inputActive, size, onExit }: Ses
   }, [state.saveWanted, services]);
 
   // the map's drawing area follows the terminal size and the legend's height
-  const mapWidth = Math.max(10, width - recordWidth(width) - 2);
-  const legendRows = state.plan ? packLegend(legendOf(findQuantity(state.plan, state.mapQuantity).scale, true), mapWidth).length : 2;
+  const mapWidth = Math.max(10, width - recordWidth(width, state.plan?.grid.nx ?? 0) - 2);
+  const legendRows = state.plan ? packLegend(legendFor(findQuantity(state.plan, state.mapQuantity), true, mapWidth), mapWidth).length : 2;
   const mapHeight = Math.max(3, bodyHeight - 2 - legendRows);
   const listRows = state.screen === "levels" ? levelListRows(bodyHeight) : Math.max(3, bodyHeight - 3);
   useEffect(() => {

@@ -65,3 +65,14 @@ describe("session file", () => {
     expect(await readdir(dir)).toEqual([]);
   });
 });
+
+describe("session file design path", () => {
+  it("is stored absolute when the design is far from the session file", async () => {
+    const dir = await tempDir();
+    const path = join(dir, "a", "b", "c", "session.json");
+    const design = join(dir, "designs", "x.json");
+    await saveSessionFile(path, { designPath: design, overrides: {} });
+    expect(JSON.parse(await readFile(path, "utf8")).design).toBe(design);
+    expect((await loadSessionFile(path)).designPath).toBe(design);
+  });
+});

@@ -29,15 +29,13 @@ const SHORT: Partial<Record<string, string>> = {
 
 /** The short key hints for a scope chain, from the one key table. */
 export function footerHints(scopes: KeyScope[]): string {
-  const out: string[] = [];
-  for (const scope of scopes) {
-    for (const b of KEY_BINDINGS) {
-      if (b.scope !== scope || !b.label) continue;
-      const word = SHORT[b.command];
-      if (!word) continue;
-      out.push(`${b.label} ${word}`);
-    }
-  }
+  const hints = (scope: KeyScope, pick: (c: string) => boolean): string[] =>
+    KEY_BINDINGS.filter((b) => b.scope === scope && b.label && SHORT[b.command] && pick(b.command)).map((b) => `${b.label} ${SHORT[b.command]}`);
+  const [own, ...rest] = scopes;
+  // the screen's own keys, then help and quit (so a narrow terminal still shows them), then the rest
+  const out = hints(own, () => true);
+  for (const scope of rest) out.push(...hints(scope, (c) => c === "help" || c === "quit"));
+  for (const scope of rest) out.push(...hints(scope, (c) => c !== "help" && c !== "quit"));
   return out.join("  ");
 }
 

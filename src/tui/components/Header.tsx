@@ -17,7 +17,7 @@ export function settingsLine(state: SessionState): string {
     `process ${s.process ?? "none"}`,
   ];
   if (s.materials) parts.push(`${s.materials.length} materials`);
-  if (s.families) parts.push(`${s.families.length} families`);
+  if (s.families) parts.push(`${s.families.length} famil${s.families.length === 1 ? "y" : "ies"}`);
   return parts.join(" · ");
 }
 
@@ -27,10 +27,10 @@ export function ProgressLine({ state, width }: { state: SessionState; width: num
     if (state.planError) return <Text color={THEME.error}>plan failed</Text>;
     return <Text color={THEME.ok}>plan up to date</Text>;
   }
-  const barWidth = Math.max(4, Math.min(12, width - 30));
+  const barWidth = width >= 100 ? 12 : 6;
   const filled = Math.round(Math.max(0, Math.min(1, c.fraction)) * barWidth);
   return (
-    <Text color={THEME.warn}>
+    <Text color={THEME.warn} wrap="truncate-start">
       {STAGE_WORDS[c.stage] ?? c.stage} {"█".repeat(filled)}
       {"░".repeat(barWidth - filled)} {Math.round(c.fraction * 100)} %
     </Text>
@@ -45,13 +45,14 @@ export function Header({ state, width }: { state: SessionState; width: number })
       <Box>
         <Box flexGrow={1} flexShrink={1}>
           <Text wrap="truncate-end">
-            <Text bold color={THEME.accent}>cellwright</Text> <Text bold>{name}</Text> <Text color={THEME.dim}>│</Text> {settingsLine(state)}
+            <Text bold color={THEME.accent}>cellwright</Text> <Text bold>{name}</Text>
           </Text>
         </Box>
         {unsaved ? <Text color={THEME.warn}> ● unsaved</Text> : null}
       </Box>
+      <Text wrap="truncate-end" color={THEME.pick}>{settingsLine(state)}</Text>
       <Box>
-        <Box flexGrow={1}>
+        <Box flexGrow={1} flexShrink={0}>
           {SCREENS.map((sc) => (
             <Text key={sc.id} inverse={state.screen === sc.id} bold={state.screen === sc.id}>
               {` ${sc.key} ${sc.title} `}

@@ -23,7 +23,7 @@ export function packLegend(entries: LegendEntry[], width: number): LegendEntry[]
   const lines: LegendEntry[][] = [[]];
   let used = 0;
   for (const e of entries) {
-    const w = [...e.label].length + 4;
+    const w = [...e.label].length + 4; // "g label  "
     if (used > 0 && used + w > width) {
       lines.push([]);
       used = 0;
@@ -38,10 +38,10 @@ export function Legend({ entries, width }: { entries: LegendEntry[]; width: numb
   return (
     <Box flexDirection="column">
       {packLegend(entries, width).map((line, r) => (
-        <Text key={r}>
+        <Text key={r} wrap="truncate-end">
           {line.map((e, k) => (
             <Text key={k}>
-              <Text color={e.colour ?? undefined} bold>{e.glyph.repeat(2)}</Text> {e.label}{"  "}
+              <Text color={e.colour ?? undefined} bold>{e.glyph}</Text> {e.label}{"  "}
             </Text>
           ))}
         </Text>

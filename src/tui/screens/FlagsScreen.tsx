@@ -8,17 +8,21 @@ import { scrollStart } from "../state/scrollWindow.js";
 import type { SessionState } from "../state/sessionState.js";
 import { THEME, fit } from "../theme.js";
 
+function flagTitle(n: number): string {
+  return `Flagged cells by region (${n} flag${n === 1 ? "" : "s"} occur${n === 1 ? "s" : ""}; Enter shows one on the map)`;
+}
+
 export function FlagsScreen({ state, width, height }: { state: SessionState; width: number; height: number }) {
   const plan = state.plan;
   if (!plan) return <Text color={THEME.dim}>waiting for the first plan…</Text>;
   const rows = flagRegionRows(plan);
   if (rows.length === 0) return <Text color={THEME.ok}>no cell carries a flag</Text>;
-  const listRows = Math.max(3, height - 3);
+  const listRows = Math.max(3, height - 2);
   const start = scrollStart(state.flagCursor, rows.length, listRows);
   const current = rows[state.flagCursor];
   return (
     <Box flexDirection="column" height={height}>
-      <Text bold>{`Flagged cells by region (${rows.filter((r) => r.region === null).length} flags occur)`}</Text>
+      <Text bold>{flagTitle(rows.filter((r) => r.region === null).length)}</Text>
       {rows.slice(start, start + listRows).map((r, k) => {
         const here = start + k === state.flagCursor;
         const text =

@@ -12,7 +12,7 @@ import { THEME, fit } from "../theme.js";
 
 /** Rows the list part takes at a given body height (the detail gets the rest). */
 export function levelListRows(height: number): number {
-  return Math.max(3, Math.floor((height - 3) / 2));
+  return Math.max(3, Math.floor((height - 4) / 2));
 }
 
 export function LevelsScreen({ state, width, height }: { state: SessionState; width: number; height: number }) {
@@ -22,30 +22,31 @@ export function LevelsScreen({ state, width, height }: { state: SessionState; wi
   const listRows = levelListRows(height);
   const start = scrollStart(state.levelCursor, rows.length, listRows);
   const targetW = Math.max(12, Math.min(24, 7 * plan.components.length + 2));
-  const recipeW = Math.max(10, width - 4 - 6 - targetW - 8 - 4 - 2);
+  const recipeW = Math.max(10, width - 4 - 6 - targetW - 10 - 4 - 1);
   const detail = levelDetail(plan, state.levelCursor);
-  const detailRows = Math.max(1, height - listRows - 3);
+  // summary, column titles, list, pager line, blank line, detail: exactly `height` rows
+  const detailRows = Math.max(1, height - listRows - 4);
   const f = plan.figures;
   return (
-    <Box flexDirection="column" height={height}>
+    <Box flexDirection="column" height={height} flexShrink={0}>
       <Text wrap="truncate-end">
         <Text bold>{`${plan.levels.length} levels, ${plan.regions.length} regions, ${plan.grid.count} cells`}</Text>
         <Text color={THEME.dim}>{`  largest error ${formatPercent(f.maxRelError)}, median ${formatPercent(f.medianRelError)}`}</Text>
         {plan.buildable ? <Text color={THEME.ok}>  buildable</Text> : <Text color={THEME.warn}>  some levels have no recipe</Text>}
       </Text>
       <Text color={THEME.dim}>
-        {`${fit("lvl", 4)}${fit("cells", 6)}${fit(`target ${plan.components.map((c) => prettyComponent(c.name)).join(" ")}`, targetW)}${fit("error", 8)}${fit("alt", 4)}recipe`}
+        {`${fit("lvl", 4)}${fit("cells", 6)}${fit(`target ${plan.components.map((c) => prettyComponent(c.name)).join(" ")}`, targetW)}${fit("error", 10)}${fit("alt", 4)}recipe`}
       </Text>
       {rows.slice(start, start + listRows).map((r, k) => {
         const here = start + k === state.levelCursor;
         return (
           <Text key={r.index} inverse={here} color={r.buildable ? undefined : THEME.warn}>
-            {`${fit(String(r.index), 4)}${fit(String(r.cells), 6)}${fit(r.target, targetW)}${fit(r.error, 8)}${fit(String(r.runnersUp), 4)}${fit(r.recipe, recipeW)}`}
+            {`${fit(String(r.index), 4)}${fit(String(r.cells), 6)}${fit(r.target, targetW)}${fit(r.error, 10)}${fit(String(r.runnersUp), 4)}${fit(r.recipe, recipeW)}`}
           </Text>
         );
       })}
-      {rows.length > listRows ? <Text color={THEME.dim}>{`rows ${start + 1}–${Math.min(rows.length, start + listRows)} of ${rows.length}`}</Text> : null}
-      <Box flexDirection="column" marginTop={1}>
+      <Text color={THEME.dim}>{rows.length > listRows ? `rows ${start + 1}–${Math.min(rows.length, start + listRows)} of ${rows.length} (PgUp/PgDn)` : " "}</Text>
+      <Box flexDirection="column" marginTop={1} flexShrink={0}>
         {detail.slice(0, detailRows).map((line, k) => (
           <Text key={k} wrap="truncate-end" bold={k === 0}>{line}</Text>
         ))}

@@ -13,7 +13,10 @@ export function ReductionScreen({ state, width, height }: { state: SessionState;
   if (!table || !settings) return <Text color={THEME.dim}>comparing the schemes…</Text>;
   const stale = table.polarization !== settings.polarization;
   const nameW = 14;
-  const colW = Math.max(9, Math.min(14, Math.floor((width - nameW - 4) / table.columns.length)));
+  const colW = Math.min(
+    Math.max(8, Math.floor((width - nameW - 2) / table.columns.length)),
+    Math.max(...table.columns.map((c) => c.length), ...table.rows.flatMap((r) => r.cells.map((c) => c.length))) + 2,
+  );
   const current = table.rows[state.schemeCursor];
   const notesRoom = Math.max(0, height - table.rows.length - 6);
   return (
@@ -39,7 +42,7 @@ export function ReductionScreen({ state, width, height }: { state: SessionState;
           </Text>
         ) : null}
         {table.notes.slice(0, notesRoom).map((n, k) => (
-          <Text key={k} color={THEME.dim} wrap="truncate-end">{n}</Text>
+          <Text key={k} color={THEME.dim} wrap="wrap">{n}</Text>
         ))}
       </Box>
     </Box>

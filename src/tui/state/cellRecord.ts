@@ -18,12 +18,13 @@ export function cellRecord(plan: Plan, c: number): CellRecordLine[] {
   const g = plan.grid;
   const lvl = plan.levels[plan.level[c]];
   const lines: CellRecordLine[] = [
-    { label: "cell", value: `#${c + 1} at lattice (${g.i[c]}, ${g.j[c]})` },
+    { label: "cell", value: `#${c + 1}, lattice (${g.i[c]}, ${g.j[c]})` },
     { label: "position", value: `x ${formatLength(g.xM[c])}, y ${formatLength(g.yM[c])}` },
   ];
+  lines.push({ label: "", value: lvl?.recipe ? "target → built" : "target" });
   plan.components.forEach((comp, k) => {
-    const achieved = lvl?.recipe ? ` → built ${formatValue(lvl.recipe.achieved[k])}` : "";
-    lines.push({ label: prettyComponent(comp.name), value: `target ${formatValue(plan.targets[k][c])}${achieved}` });
+    const built = lvl?.recipe ? ` → ${formatValue(lvl.recipe.achieved[k])}` : "";
+    lines.push({ label: prettyComponent(comp.name), value: `${formatValue(plan.targets[k][c])}${built}` });
   });
   lines.push({ label: "axis", value: `${formatValue((plan.axisAngleRad[c] * 180) / Math.PI)}° from x` });
   if (lvl) {
@@ -36,10 +37,8 @@ export function cellRecord(plan: Plan, c: number): CellRecordLine[] {
       lines.push({ label: "recipe", value: `none: ${lvl.reasons[0] ?? "nothing reaches the target"}`, warn: true });
     }
   }
-  lines.push({
-    label: "error",
-    value: `built ${formatPercent(plan.relError[c])}, level ${formatPercent(plan.quantizationError[c])}`,
-  });
+  lines.push({ label: "built err", value: `${formatPercent(plan.relError[c])} vs target`, warn: !Number.isFinite(plan.relError[c]) });
+  lines.push({ label: "level err", value: `${formatPercent(plan.quantizationError[c])} vs target` });
   const names = flagNames(plan.flags[c]);
   lines.push({ label: "flags", value: names.length ? names.join(", ") : "none", warn: names.length > 0 });
   return lines;

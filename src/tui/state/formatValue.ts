@@ -27,7 +27,9 @@ export function formatLength(m: number): string {
 /** A fraction shown as a percentage. Example: formatPercent(0.0312) → "3.12 %" */
 export function formatPercent(f: number): string {
   if (!Number.isFinite(f)) return "—";
-  return `${formatValue(f * 100)} %`;
+  const pct = f * 100;
+  if (pct !== 0 && Math.abs(pct) < 0.001) return pct > 0 ? "<0.001 %" : ">−0.001 %";
+  return `${formatValue(pct)} %`;
 }
 
 /** A frequency shown in Hz, kHz, MHz, GHz or THz. Example: formatFrequency(1.05e10) → "10.5 GHz" */

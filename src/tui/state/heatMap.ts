@@ -73,6 +73,8 @@ export interface HeatMapView {
   legend: LegendEntry[];
   /** map cell under the cursor (column, row from the top), or null */
   cursorCell: { col: number; row: number } | null;
+  /** some device cell has no value (the legend then lists the missing glyph) */
+  hasMissing: boolean;
 }
 
 /** The lattice a map is drawn on: the device grid's shape and each device cell's indices. */
@@ -151,21 +153,29 @@ function categoryColour(scale: Extract<MapScale, { kind: "categorical" }>, k: nu
   return CATEGORY_COLOURS[k % CATEGORY_COLOURS.length];
 }
 
+export interface LegendOptions {
+  missingLabel?: string;
+  /** number format of the value labels (default: three significant digits) */
+  format?: (v: number) => string;
+  /** label each mark with its lower edge only ("· 0.1  : 0.2 …"), the last with its full range */
+  compact?: boolean;
+}
+
 /** The legend of a scale: every glyph with its colour and the values or category it stands for. */
-export function legendOf(scale: MapScale, hasMissing: boolean, missingLabel = "no value"): LegendEntry[] {
+export function legendOf(scale: MapScale, hasMissing: boolean, options: LegendOptions = {}): LegendEntry[] {
+  const fmt = options.format ?? ((v: number) => formatValue(v));
   const out: LegendEntry[] = [];
   if (scale.kind === "continuous") {
-    for (let b = 0; b < VALUE_GLYPHS.length; b++) {
-      out.push({
-        glyph: VALUE_GLYPHS[b],
-        colour: VALUE_COLOURS[b],
-        label: `${formatValue(binEdge(scale, b))} – ${formatValue(binEdge(scale, b + 1))}`,
-      });
+    const last = VALUE_GLYPHS.length - 1;
+    for (let b = 0; b <= last; b++) {
+      const lo = fmt(binEdge(scale, b));
+      const hi = fmt(binEdge(scale, b + 1));
+      out.push({ glyph: VALUE_GLYPHS[b], colour: VALUE_COLOURS[b], label: options.compact && b < last ? lo : `${lo} – ${hi}` });
     }
   } else {
     scale.labels.forEach((label, k) => out.push({ glyph: categoryGlyph(scale, k), colour: categoryColour(scale, k), label }));
   }
-  if (hasMissing) out.push({ glyph: MISSING_GLYPH, colour: MISSING_COLOUR, label: missingLabel });
+  if (hasMissing) out.push({ glyph: MISSING_GLYPH, colour: MISSING_COLOUR, label: options.missingLabel ?? "no value" });
   return out;
 }
 
@@ -259,7 +269,7 @@ export function renderHeatMap(
     }
     outRows.push(runs);
   }
-  return { layout, rows: outRows, legend: legendOf(scale, hasMissing, missingLabel), cursorCell };
+  return { layout, rows: outRows, legend: legendOf(scale, hasMissing, { missingLabel }), cursorCell, hasMissing };
 }
 
 /** The plain text of a rendered map (no colour), one line per row: what a colour-blind reader sees. */

@@ -5,6 +5,7 @@
  */
 import { FLAGS } from "../../plan/flags.js";
 import type { Plan } from "../../plan/planTypes.js";
+import { formatPercent, formatValue } from "./formatValue.js";
 import { CATEGORY_GLYPHS, continuousScaleOf, type BlockSummary, type MapScale } from "./heatMap.js";
 
 export interface MapQuantity {
@@ -15,6 +16,8 @@ export interface MapQuantity {
   scale: MapScale;
   summary: BlockSummary;
   missingLabel: string;
+  /** how values print in the legend and status line */
+  format: (v: number) => string;
 }
 
 /** "eps_z" → "ε_z", "mu_1" → "μ_1" for display. */
@@ -32,16 +35,18 @@ export function mapQuantities(plan: Plan): MapQuantity[] {
   const out: MapQuantity[] = [];
   out.push({
     id: "relError",
-    label: "error of the built cell against its target",
+    label: "error: built vs cell target",
     values: plan.relError,
     scale: continuousScaleOf(plan.relError),
     summary: "max",
     missingLabel: "no recipe",
+    format: formatPercent,
   });
   const levelCount = plan.levels.length;
   out.push({
     id: "level",
     label: "level (recipe number)",
+    format: (v) => String(Math.round(v) + 1),
     values: plan.level,
     scale:
       levelCount <= CATEGORY_GLYPHS.length
@@ -59,6 +64,7 @@ export function mapQuantities(plan: Plan): MapQuantity[] {
       scale: continuousScaleOf(plan.targets[k]),
       summary: "mean",
       missingLabel: "no value",
+      format: (v) => formatValue(v),
     });
     const achieved = new Float64Array(n);
     for (let c = 0; c < n; c++) {
@@ -67,20 +73,22 @@ export function mapQuantities(plan: Plan): MapQuantity[] {
     }
     out.push({
       id: `achieved:${comp.name}`,
-      label: `achieved ${pretty} (recipe of the cell's level)`,
+      label: `built ${pretty} (recipe of the cell's level)`,
       values: achieved,
       scale: continuousScaleOf(achieved),
       summary: "mean",
       missingLabel: "no recipe",
+      format: (v) => formatValue(v),
     });
   });
   out.push({
     id: "quantizationError",
-    label: "error of the level against the cell's target",
+    label: "error: level vs cell target",
     values: plan.quantizationError,
     scale: continuousScaleOf(plan.quantizationError),
     summary: "max",
     missingLabel: "no value",
+    format: formatPercent,
   });
   FLAGS.forEach((flag, k) => {
     const bit = 1 << k;
@@ -100,6 +108,7 @@ export function mapQuantities(plan: Plan): MapQuantity[] {
       scale: { kind: "categorical", labels: ["not flagged", flag.name], glyphs: ["·", "!"], colours: ["#6c7280", "#ff5f5f"] },
       summary: "max",
       missingLabel: "no value",
+      format: (v) => (v > 0 ? "flagged" : "not flagged"),
     });
   });
   cache.set(plan, out);

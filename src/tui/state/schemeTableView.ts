@@ -11,7 +11,7 @@ import type { SchemeTableView } from "./sessionState.js";
 export const SCHEME_COLUMNS = ["ε<1 cells", "μ≠1 cells", "max aniso", "edge R", "min n_b"] as const;
 
 function cellsText(count: number, fraction: number): string {
-  return count === 0 ? "0" : `${count} (${formatPercent(fraction)})`;
+  return count === 0 ? "0" : `${count} ${formatPercent(fraction).replace(" ", "")}`;
 }
 
 /** Table rows for the summaries of one polarization, with notes on skipped schemes. */
@@ -32,9 +32,10 @@ export function schemeTableView(
     ],
   }));
   const notes = [
-    "ε<1, μ≠1: cells that need them (no plain dielectric mix gives either); max aniso: largest/smallest",
-    "in-plane principal value; edge R: worst normal-incidence power reflection at the outer boundary;",
-    "min n_b: smallest background index that lifts every needed ε to 1 or more.",
+    "ε<1 / μ≠1 cells: cells needing them (no plain dielectric mix gives either)",
+    "max aniso: largest / smallest in-plane principal value over the cells",
+    "edge R: worst normal-incidence power reflection at the outer boundary",
+    "min n_b: smallest background index lifting every needed ε to 1 or more",
   ];
   for (const s of skipped) notes.push(`${s.scheme} left out: ${s.reason}`);
   return { polarization, columns: [...SCHEME_COLUMNS], rows, notes };

@@ -11,7 +11,7 @@ import { helpSections, SCREENS, type CommandId } from "./keyBindings.js";
 import { mapQuantities, findQuantity, largestValueCell } from "./mapQuantities.js";
 import { levelCentreCell } from "./levelViews.js";
 import { flagRegionRows } from "./flagRegions.js";
-import { formatLength, formatPercent, formatValue } from "./formatValue.js";
+import { formatLength, formatPercent } from "./formatValue.js";
 import { effectiveSettings, hasUnsavedChanges, type PickOption, type SchemeTableView, type SessionState } from "./sessionState.js";
 import { pickerCommand } from "./pickerReducer.js";
 import { changeChoices } from "./changeChoices.js";
@@ -82,7 +82,7 @@ function mapCommand(state: SessionState, command: CommandId): SessionState {
     const q = findQuantity(plan, state.mapQuantity);
     const c = largestValueCell(q.values);
     if (c < 0) return { ...state, status: "no cell has a value of this quantity" };
-    return { ...state, cursor: { i: g.i[c], j: g.j[c] }, status: `largest ${q.label.split(":")[0]}: ${formatValue(q.values[c])} at x ${formatLength(g.xM[c])}, y ${formatLength(g.yM[c])}` };
+    return { ...state, cursor: { i: g.i[c], j: g.j[c] }, status: `largest ${q.label.split(":")[0]}: ${q.format(q.values[c])} at x ${formatLength(g.xM[c])}, y ${formatLength(g.yM[c])}` };
   }
   const layout = chooseLayout(g.nx, g.ny, state.mapArea.width, state.mapArea.height);
   const d = { up: [0, -1], down: [0, 1], left: [-1, 0], right: [1, 0] }[command as "up" | "down" | "left" | "right"];
@@ -226,10 +226,22 @@ function commandReducer(state: SessionState, command: CommandId): SessionState {
   return globalCommand(cleared, command);
 }
 
-function centreCursor(plan: Plan, cursor: { i: number; j: number }): { i: number; j: number } {
+/** A resumed cursor if it is on the lattice, else the device cell nearest the lattice's centre. */
+function startCursor(plan: Plan, cursor: { i: number; j: number }, resumed: boolean): { i: number; j: number } {
   const g = plan.grid;
-  if (cursor.i >= 0 && cursor.j >= 0 && cursor.i < g.nx && cursor.j < g.ny && !(cursor.i === 0 && cursor.j === 0)) return cursor;
-  return { i: Math.floor(g.nx / 2), j: Math.floor(g.ny / 2) };
+  if (resumed && cursor.i >= 0 && cursor.j >= 0 && cursor.i < g.nx && cursor.j < g.ny) return cursor;
+  const ci = (g.nx - 1) / 2;
+  const cj = (g.ny - 1) / 2;
+  let best = 0;
+  let bestD = Infinity;
+  for (let c = 0; c < g.count; c++) {
+    const d = (g.i[c] - ci) ** 2 + (g.j[c] - cj) ** 2;
+    if (d < bestD) {
+      bestD = d;
+      best = c;
+    }
+  }
+  return g.count > 0 ? { i: g.i[best], j: g.j[best] } : { i: 0, j: 0 };
 }
 
 /** The session's reducer. */
@@ -254,7 +266,7 @@ export function sessionReducer(state: SessionState, action: SessionAction): Sess
         planSeq: action.seq,
         planError: null,
         computing: action.seq === state.planWanted ? null : state.computing,
-        cursor: first ? centreCursor(plan, state.cursor) : state.cursor,
+        cursor: first ? startCursor(plan, state.cursor, state.cursorResumed) : state.cursor,
         levelCursor: clamp(state.levelCursor, 0, Math.max(0, plan.levels.length - 1)),
         flagCursor: clamp(state.flagCursor, 0, Math.max(0, flagRegionRows(plan).length - 1)),
       };

@@ -70,6 +70,8 @@ export interface SessionState {
   schemeCursor: number;
   mapQuantity: string;
   cursor: { i: number; j: number };
+  /** the cursor came from a saved session (kept on the first plan) */
+  cursorResumed: boolean;
   /** characters available for the heat map (set by the shell from the terminal size) */
   mapArea: { width: number; height: number };
   levelCursor: number;
@@ -124,8 +126,9 @@ export function initialSessionState(init: InitialSession): SessionState {
     overlay: null,
     status: null,
     schemeCursor: 0,
-    mapQuantity: init.view?.mapQuantity ?? "relError",
+    mapQuantity: init.view?.mapQuantity ?? "level",
     cursor: { i: init.view?.cursorI ?? 0, j: init.view?.cursorJ ?? 0 },
+    cursorResumed: init.view?.cursorI !== undefined && init.view?.cursorJ !== undefined,
     mapArea: init.mapArea ?? { width: 40, height: 12 },
     levelCursor: 0,
     flagCursor: 0,

@@ -81,6 +81,8 @@ describe("scale and bins", () => {
     expect(legend[0].label).toBe("0 – 1.00");
     expect(legend[7].label).toBe("7.00 – 8.00");
     expect(legend[8].label).toBe("no value");
+    const compact = legendOf({ kind: "continuous", min: 0, max: 8, log: false }, false, { compact: true, format: (v) => v.toFixed(1) });
+    expect(compact.map((e) => e.label)).toEqual(["0.0", "1.0", "2.0", "3.0", "4.0", "5.0", "6.0", "7.0 – 8.0"]);
   });
 });
 

@@ -50,7 +50,8 @@ describe("session reducer", () => {
     expect(s0.computing).not.toBeNull();
     const s = ready();
     expect(s.computing).toBeNull();
-    expect(s.cursor).toEqual({ i: 4, j: 2 });
+    // lattice centre (3.5, 2): the first of the two nearest device cells
+    expect(s.cursor).toEqual({ i: 3, j: 2 });
     expect(planIsStale(s)).toBe(false);
     expect(hasUnsavedChanges(s)).toBe(false);
   });
@@ -127,11 +128,11 @@ describe("session reducer", () => {
 
   it("cycles map quantities and finds the largest value", () => {
     let s = run(ready(), "screenMap");
-    expect(s.mapQuantity).toBe("relError");
-    s = run(s, "nextQuantity");
     expect(s.mapQuantity).toBe("level");
-    s = run(s, "prevQuantity", "prevQuantity");
-    expect(s.mapQuantity).toBe("flag:norecipe");
+    s = run(s, "prevQuantity");
+    expect(s.mapQuantity).toBe("relError");
+    s = run(s, "prevQuantity");
+    expect(s.mapQuantity).toBe("flag:norecipe"); // wraps to the last quantity
     s = run(s, "nextQuantity", "nextQuantity", "nextQuantity");
     expect(s.mapQuantity).toBe("target:eps_z");
     s = run(s, "worstCell");
