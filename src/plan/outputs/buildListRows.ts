@@ -58,7 +58,7 @@ function levelTexts(plan: Plan): { achieved: string[]; recipe: string[] } {
 export async function emitBuildList(
   plan: Plan,
   emit: (chunk: string) => Promise<void> | void,
-  chunkRows = 4096,
+  chunkRows = 2048,
 ): Promise<void> {
   const g = plan.grid;
   const three = g.dimension === 3;
@@ -71,24 +71,41 @@ export async function emitBuildList(
   const m = plan.components.length;
   const noAchieved = ",".repeat(m);
   const noRecipe = ",".repeat(5 + dimensionColumns(plan).length + 1);
-  const lines: string[] = [];
+  // repeated values (constant components, isotropic axes, neighbouring cells) reuse their text
+  const lastV = new Float64Array(m + 3).fill(NaN);
+  const lastS: string[] = new Array(m + 3).fill("");
+  const num = (col: number, v: number, digits: number): string => {
+    if (v === lastV[col]) return lastS[col];
+    const t = fmt(v, digits);
+    lastV[col] = v;
+    lastS[col] = t;
+    return t;
+  };
+  const is = Array.from({ length: g.nx }, (_, i) => String(i));
+  const js = Array.from({ length: g.ny }, (_, j) => String(j));
+  const ks = Array.from({ length: g.nz }, (_, k) => String(k));
+  const degPerRad = 180 / Math.PI;
+  let chunk = "";
+  let rows = 0;
   for (let c = 0; c < g.count; c++) {
     const lv = plan.level[c];
-    let row = `${c + 1},${g.i[c]},${g.j[c]},`;
-    if (three) row += `${g.k[c]},`;
-    row += `${xs[g.i[c]]},${ys[g.j[c]]},`;
+    const gi = g.i[c], gj = g.j[c];
+    let row = `${c + 1},${is[gi]},${js[gj]},`;
+    if (three) row += `${ks[g.k[c]]},`;
+    row += `${xs[gi]},${ys[gj]},`;
     if (three) row += `${zs[g.k[c]]},`;
-    row += `${fmt((plan.axisAngleRad[c] * 180) / Math.PI, 4)},${plan.region[c] + 1},${lv >= 0 ? lv + 1 : ""}`;
-    for (let k = 0; k < m; k++) row += `,${fmt(plan.targets[k][c])}`;
+    row += `${num(0, plan.axisAngleRad[c] * degPerRad, 4)},${plan.region[c] + 1},${lv >= 0 ? lv + 1 : ""}`;
+    for (let k = 0; k < m; k++) row += `,${num(3 + k, plan.targets[k][c], 6)}`;
     row += lv >= 0 ? achieved[lv] : noAchieved;
-    row += `,${fmt(plan.relError[c], 4)},${fmt(plan.quantizationError[c], 4)}`;
+    row += `,${num(1, plan.relError[c], 4)},${num(2, plan.quantizationError[c], 4)}`;
     row += lv >= 0 ? recipe[lv] : noRecipe;
     row += `,${flagList(plan.flags[c])}\n`;
-    lines.push(row);
-    if (lines.length === chunkRows) {
-      await emit(lines.join(""));
-      lines.length = 0;
+    chunk += row;
+    if (++rows === chunkRows) {
+      await emit(chunk);
+      chunk = "";
+      rows = 0;
     }
   }
-  if (lines.length) await emit(lines.join(""));
+  if (chunk) await emit(chunk);
 }

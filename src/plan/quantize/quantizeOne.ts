@@ -40,24 +40,57 @@ export function distinctSample(values: Float64Array, limit: number): Float64Arra
   return out;
 }
 
-/** Cluster one component into exactly min(k, distinct values) groups. */
-export function quantizeOneWithK(values: Float64Array, k: number): Quantized {
-  const n = values.length;
+/** The clustering sample of one component: thinned distinct values, log-scaled when all positive. */
+export interface OneSample {
+  positive: boolean;
+  /** sorted, scaled sample */
+  scaled: number[];
+}
+
+export function oneSample(values: Float64Array): OneSample {
   const sample = distinctSample(values, SAMPLE_LIMIT);
   let positive = true;
   for (let s = 0; s < sample.length; s++) if (!(sample[s] > 0)) { positive = false; break; }
-  const scaled = Array.from(sample, (v) => (positive ? Math.log(v) : v));
-  const groups = ckmeans(scaled, Math.max(1, Math.min(k, sample.length)));
-  // boundaries between consecutive groups, in the scaled space
+  return { positive, scaled: Array.from(sample, (v) => (positive ? Math.log(v) : v)) };
+}
+
+/** ckmeans groups of the sample, as boundaries between consecutive groups (scaled space). */
+export function sampleBounds(sample: OneSample, k: number): number[] {
+  const groups = ckmeans(sample.scaled, Math.max(1, Math.min(k, sample.scaled.length)));
   const bounds: number[] = [];
-  for (let g = 0; g + 1 < groups.length; g++) {
-    const a = groups[g][groups[g].length - 1];
-    const b = groups[g + 1][0];
-    bounds.push(0.5 * (a + b));
+  for (let g = 0; g + 1 < groups.length; g++) bounds.push(0.5 * (groups[g][groups[g].length - 1] + groups[g + 1][0]));
+  return bounds;
+}
+
+/**
+ * Largest relative error of the sample's own points against minimax centres of `bounds`' groups:
+ * a cheap estimate used to choose k (the exact per-cell error comes from `assignOne`).
+ */
+export function sampleError(sample: OneSample, bounds: number[]): number {
+  let worst = 0, start = 0;
+  const xs = sample.scaled;
+  const value = (x: number): number => (sample.positive ? Math.exp(x) : x);
+  for (let g = 0; g <= bounds.length; g++) {
+    let end = start;
+    while (end < xs.length && (g === bounds.length || xs[end] < bounds[g])) end++;
+    if (end > start) {
+      const lo = value(xs[start]), hi = value(xs[end - 1]);
+      const c = minimaxCentre(lo, hi);
+      worst = Math.max(worst, relErr(c, lo), relErr(c, hi));
+    }
+    start = end;
   }
+  return worst;
+}
+
+/** Assign every cell to its group by the boundaries, then centre each group on its actual range. */
+export function assignOne(values: Float64Array, sample: OneSample, bounds: number[]): Quantized {
+  const n = values.length;
+  const groups = bounds.length + 1;
   const level = new Int32Array(n);
-  const lo = new Float64Array(groups.length).fill(Infinity);
-  const hi = new Float64Array(groups.length).fill(-Infinity);
+  const lo = new Float64Array(groups).fill(Infinity);
+  const hi = new Float64Array(groups).fill(-Infinity);
+  const positive = sample.positive;
   for (let c = 0; c < n; c++) {
     const v = values[c];
     const x = positive ? Math.log(v) : v;
@@ -72,6 +105,12 @@ export function quantizeOneWithK(values: Float64Array, k: number): Quantized {
     if (v > hi[a]) hi[a] = v;
   }
   return finish(values, level, lo, hi);
+}
+
+/** Cluster one component into exactly min(k, distinct values) groups. */
+export function quantizeOneWithK(values: Float64Array, k: number): Quantized {
+  const sample = oneSample(values);
+  return assignOne(values, sample, sampleBounds(sample, k));
 }
 
 function finish(values: Float64Array, level: Int32Array, lo: Float64Array, hi: Float64Array): Quantized {

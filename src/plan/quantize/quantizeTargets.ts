@@ -3,7 +3,7 @@
  * (quantizeOne.ts), greedy tolerance-driven splitting for two or three (quantizeMany.ts).
  * Components that are the same in every cell are not clustered; they keep their one value.
  */
-import { quantizeOneWithK, type Quantized } from "./quantizeOne.js";
+import { assignOne, oneSample, sampleBounds, sampleError, type Quantized } from "./quantizeOne.js";
 import { quantizeMany } from "./quantizeMany.js";
 import { relErr, REL_FLOOR } from "./relativeError.js";
 
@@ -39,8 +39,10 @@ export function isConstant(v: Float64Array): boolean {
 
 /**
  * Quantize the targets (one Float64Array per component). With one varying component the number of
- * levels is the smallest k ≤ limit whose ckmeans partition meets `goal`, found by binary search on k
- * (the largest error of the optimal 1D partition falls as k grows, up to ties); with two or three
+ * levels is the smallest k ≤ limit whose ckmeans partition of the sample meets `goal`, found by
+ * binary search on k (the largest error of the optimal 1D partition falls as k grows, up to ties);
+ * the error then reported is exact, per cell (with a thinned sample it may exceed the goal
+ * slightly). With two or three
  * the splitting stops at the goal by itself.
  */
 export function quantizeTargets(targets: Float64Array[], opts: QuantizeOptions): QuantizedTargets {
@@ -56,20 +58,23 @@ export function quantizeTargets(targets: Float64Array[], opts: QuantizeOptions):
     method = "none (every cell has the same target)";
   } else if (varying.length === 1) {
     const v = targets[varying[0]];
-    let best = quantizeOneWithK(v, 1);
-    if (best.maxError > opts.goal && limit > 1) {
+    // choose k on the sample (cheap), then assign every cell once
+    const sample = oneSample(v);
+    let bounds = sampleBounds(sample, 1);
+    if (sampleError(sample, bounds) > opts.goal && limit > 1) {
       // smallest k in [2, limit] that meets the goal; the limit itself when none does
-      best = quantizeOneWithK(v, limit);
-      if (best.maxError <= opts.goal) {
+      bounds = sampleBounds(sample, limit);
+      if (sampleError(sample, bounds) <= opts.goal) {
         let lo = 2, hi = limit;
         while (lo < hi) {
           const mid = (lo + hi) >> 1;
-          const r = quantizeOneWithK(v, mid);
-          if (r.maxError <= opts.goal) { best = r; hi = mid; }
+          const b = sampleBounds(sample, mid);
+          if (sampleError(sample, b) <= opts.goal) { bounds = b; hi = mid; }
           else lo = mid + 1;
         }
       }
     }
+    const best = assignOne(v, sample, bounds);
     q = best;
     method = "ckmeans (optimal 1D k-means, log scale for positive targets)";
   } else {
