@@ -115,6 +115,7 @@ export interface PlanLevel {
 export interface PlanRegion {
   /** 1-based */
   index: number;
+  /** level of the region, 1-based like `index` */
   level: number;
   cellCount: number;
   /** lattice-index bounding box */

@@ -87,7 +87,7 @@ export function flagRegionRows(plan: Plan): FlagRegionRow[] {
     order.sort((a, b) => n[b] - n[a] || a - b);
     for (const r of order) {
       const reg = plan.regions[r];
-      rows.push({ flag: flag.name, meaning: flag.meaning, region: reg.index, level: reg.level + 1, cells: n[r], where: where(r), jumpCell: best[r] });
+      rows.push({ flag: flag.name, meaning: flag.meaning, region: reg.index, level: reg.level /* Region.level is already 1-based */, cells: n[r], where: where(r), jumpCell: best[r] });
     }
   });
   cache.set(plan, rows);

@@ -79,7 +79,7 @@ export function syntheticPlan(settings: Partial<PlanSettings> = {}): Plan {
     { index: 3, target: [3.7, 0.85], cellCount: 0, maxQuantizationError: 0.01, recipe: null, runnersUp: [], reasons: ["no allowed pair reaches ε 3.7"], flags: FLAG_BIT.norecipe },
   ];
   for (let c = 0; c < count; c++) levels[level[c]].cellCount++;
-  const regions = levels.map((l, k) => ({ index: k + 1, level: k, cellCount: l.cellCount, iMin: k * 3, iMax: Math.min(nx - 1, k * 3 + 2), jMin: 0, jMax: ny - 1 }));
+  const regions = levels.map((l, k) => ({ index: k + 1, level: k + 1, cellCount: l.cellCount, iMin: k * 3, iMax: Math.min(nx - 1, k * 3 + 2), jMin: 0, jMax: ny - 1 }));
   return {
     design: { name: "synthetic bend", notes: "", sourcePath: "/tmp/synthetic.json", frequencyHz: 1e10, wavelengthM: 0.0299792458, transform: "synthetic" },
     settings: { ...SYNTHETIC_SETTINGS, ...settings },
