@@ -48,7 +48,11 @@ export function Header({ state, width }: { state: SessionState; width: number })
             <Text bold color={THEME.accent}>cellwright</Text> <Text bold>{name}</Text>
           </Text>
         </Box>
-        {unsaved ? <Text color={THEME.warn}> ● unsaved</Text> : null}
+        {unsaved ? (
+          <Box flexShrink={0} marginLeft={1}>
+            <Text color={THEME.warn} wrap="truncate">● unsaved</Text>
+          </Box>
+        ) : null}
       </Box>
       <Text wrap="truncate-end" color={THEME.pick}>{settingsLine(state)}</Text>
       <Box>
