@@ -1,18 +1,21 @@
 /**
  * designCell for the resonant families. Wire medium: wire radius for the target ε along the wires
  * (or the given fill), plasma-frequency estimates, damping, the band within tolerance and the
- * passivity bound. Split ring: ring sizes for the target μ (or the given sizes), resonance, loss,
- * band and passivity bound with μ∞ = 1 − F. Called through designCell.
+ * passivity bound. Split ring: ring sizes for the target μ (or the given sizes) in the ring style
+ * asked for or defaulted (printed on a board/laminate host or with PCB etching, split cylinders in
+ * air; see defaultRingStyle), resonance, loss, band and passivity bound with μ∞ = 1 − F; printed
+ * rings are kept at the process's minimum feature and gap. Called through designCell.
  */
 import { type Complex, ONE, cMul } from "../core/complex.js";
 import { ProgrammerError } from "../core/errors.js";
 import { getMixingRule } from "../media/mixing/registry.js";
 import type { CellFamily } from "./cellFamily.js";
 import { homogenizationFor, homogenizationNote, matchError, processCheckFor, shapedPhases, toleranceAbs } from "./cellChecks.js";
-import type { CellDesign, CellDesignRequest, RingReport, WireReport } from "./cellDesignTypes.js";
+import type { CellDesign, CellDesignRequest, RingReport, SplitRingSizes, WireReport } from "./cellDesignTypes.js";
 import { passivityBandwidthBound } from "./passivity.js";
 import { EPS0 } from "./physicalConstants.js";
-import { designSplitRing, splitRingBandwidth, splitRingResponse, type SplitRingGeometry, type SplitRingResponse } from "./splitRing.js";
+import { printedMeanRadiusM, printedOuterRadiusM } from "./printedRing.js";
+import { defaultRingStyle, designSplitRing, splitRingBandwidth, splitRingResponse, type SplitRingGeometry, type SplitRingResponse } from "./splitRing.js";
 import { MIN_RADIUS_RATIO, bandwidthWithinTolerance, radiusForTarget, wireMediumResponse } from "./wireMedium.js";
 
 const DEFAULT_TOLERANCE = 0.05;
@@ -131,19 +134,28 @@ function designRingCell(req: CellDesignRequest, family: CellFamily): CellDesign 
   const target = { ...(req.target ?? {}) };
   const sizes = { ...(req.splitRing ?? {}) };
   if (req.fill !== undefined && sizes.ringRadiusM === undefined) sizes.ringRadiusM = a * Math.sqrt(req.fill / Math.PI);
+  const style = sizes.ringStyle ?? defaultRingStyle({ hostClass: host.class, processId: req.process?.id, hostEpsRe: host.eps.re });
+  const printed = style === "printed";
   const reasons: string[] = [];
   const notes: string[] = [];
   let geometry: SplitRingGeometry | null;
   let resp: SplitRingResponse | null;
-  if (sizes.ringGapM !== undefined) {
-    geometry = { pitchM: a, ringRadiusM: sizes.ringRadiusM ?? 0.3 * a, ringWidthM: sizes.ringWidthM ?? a / 20, ringGapM: sizes.ringGapM, stackSpacingM: sizes.stackSpacingM, metalThicknessM: sizes.metalThicknessM };
-    resp = splitRingResponse(geometry, sigma, frequencyHz, host.eps.re);
-    if (!Number.isFinite(resp.resonanceHz)) reasons.push(`ring gap ${geometry.ringGapM} m is not below twice the ring width: outside the split-ring model`);
+  // split cylinders: a given gap means evaluate; printed: evaluate when nothing is left to solve
+  const evaluate = printed ? target.mu === undefined || (sizes.ringGapM !== undefined && sizes.ringRadiusM !== undefined) : sizes.ringGapM !== undefined;
+  if (evaluate) {
+    geometry = printed ? printedGeometry(req, sizes) : { ringStyle: "split-cylinder", pitchM: a, ringRadiusM: sizes.ringRadiusM ?? 0.3 * a, ringWidthM: sizes.ringWidthM ?? a / 20, ringGapM: sizes.ringGapM!, stackSpacingM: sizes.stackSpacingM, metalThicknessM: sizes.metalThicknessM };
+    resp = splitRingResponse(geometry, sigma, frequencyHz, host.eps);
+    if (!Number.isFinite(resp.resonanceHz)) reasons.push(printed ? "strips too wide for their radius: outside the printed-ring model" : `ring gap ${geometry.ringGapM} m is not below twice the ring width: outside the split-ring model`);
   } else if (target.mu !== undefined) {
-    const d = designSplitRing({ pitchM: a, frequencyHz, targetMu: target.mu, conductivitySPerM: sigma, hostEpsRe: host.eps.re, ...sizes });
+    const d = designSplitRing({
+      pitchM: a, frequencyHz, targetMu: target.mu, conductivitySPerM: sigma, hostEpsRe: host.eps.re, hostEpsIm: host.eps.im, ringStyle: style,
+      ...(req.process ? { minFeatureM: req.process.minFeatureM, minGapM: req.process.minGapM } : {}),
+      ...sizes,
+    });
     geometry = d.geometry;
     resp = d.response;
     reasons.push(...d.reasons);
+    notes.push(...(d.notes ?? []));
   } else throw new ProgrammerError("designCell: split-ring needs target.mu or the ring gap", req);
 
   if (!geometry || !resp) {
@@ -161,7 +173,13 @@ function designRingCell(req: CellDesignRequest, family: CellFamily): CellDesign 
   const { ringRadiusM: r, ringWidthM: c, ringGapM: d } = geometry;
   const wall = a - 2 * (r + 2 * c + d);
   if (wall <= 0 && !reasons.some((x) => x.includes("do not fit"))) reasons.push(`rings (outer radius ${fmt(r + 2 * c + d)} m) do not fit a ${a} m cell`);
-  notes.push(`Im μ = ${fmt(resp.mu.im)} at the design frequency (loss from the metal's conductivity)`);
+  const w = 2 * Math.PI * frequencyHz;
+  notes.push(`Im μ = ${fmt(resp.mu.im)} at the design frequency (loss from the metal's conductivity${printed && host.eps.im > 0 ? " and the board" : ""}; Q = ω0/Γ = ${fmt((2 * Math.PI * resp.resonanceHz) / resp.gammaRadPerS)})`);
+  if (resp.circuit) {
+    const k = resp.circuit;
+    notes.push(`printed edge-coupled rings (Marqués 2002, Baena 2005 circuit): L = ${fmt(k.inductanceH * 1e9)} nH, C = C0/4 = ${fmt(k.capacitanceF * 1e15)} fF, ε_eff = ${fmt(k.effectivePermittivity)}, F = ${fmt(resp.fill)}; coupling between neighbouring rings is neglected`);
+    if (resp.gammaRadPerS > 0.1 * w) notes.push(`strong damping (Γ/ω = ${fmt(resp.gammaRadPerS / w)})`);
+  }
   const report: RingReport = {
     kind: "split-ring",
     geometry,
@@ -173,16 +191,38 @@ function designRingCell(req: CellDesignRequest, family: CellFamily): CellDesign 
     band,
     passivity: passivityBandwidthBound(bandTarget, tolAbs, resp.muHighFrequency),
   };
+  const dimensions: Record<string, number> = printed
+    ? {
+      ringRadiusM: r, meanRadiusM: printedMeanRadiusM(geometry), outerRadiusM: printedOuterRadiusM(geometry), ringWidthM: c, ringGapM: d,
+      splitGapM: geometry.splitGapM ?? d, stackSpacingM: geometry.stackSpacingM ?? a,
+      ...(geometry.boardThicknessM !== undefined ? { boardThicknessM: geometry.boardThicknessM } : {}),
+      ...(geometry.metalThicknessM !== undefined ? { metalThicknessM: geometry.metalThicknessM } : {}),
+    }
+    : { ringRadiusM: r, ringWidthM: c, ringGapM: d, stackSpacingM: geometry.stackSpacingM ?? a };
+  const smallestGap = Math.min(d, printed ? geometry.splitGapM ?? d : Infinity, wall > 0 ? wall : Infinity);
   return finish(req, family, {
     fill: resp.fill,
-    dimensions: { ringRadiusM: r, ringWidthM: c, ringGapM: d, stackSpacingM: geometry.stackSpacingM ?? a },
+    dimensions,
     achieved: { parallel: host.eps, perpendicular: host.eps, mu: resp.mu },
     rules: { parallel: "host", perpendicular: "host" },
     target,
     relError,
-    feature: { featureM: c, gapM: Math.max(0, Math.min(d, wall)) },
+    feature: { featureM: c, gapM: Math.max(0, Math.min(d, smallestGap)) },
     resonance: report,
     reasons,
     notes,
   }, [host.eps, cMul(host.eps, resp.mu)]);
+}
+
+/** Printed rings evaluated as given: defaults as in solvePrintedRing, radius the largest that fits. */
+function printedGeometry(req: CellDesignRequest, sizes: SplitRingSizes): SplitRingGeometry {
+  const a = req.pitchM;
+  const c = sizes.ringWidthM ?? Math.max(req.process?.minFeatureM ?? 0, a / 25);
+  const d = sizes.ringGapM ?? Math.max(req.process?.minGapM ?? 0, a / 25);
+  const wall = Math.max(req.process?.minGapM ?? 0, a / 25);
+  const g: SplitRingGeometry = { ringStyle: "printed", pitchM: a, ringRadiusM: sizes.ringRadiusM ?? (a - wall) / 2 - 2 * c - d, ringWidthM: c, ringGapM: d, splitGapM: sizes.splitGapM ?? Math.max(req.process?.minGapM ?? 0, d) };
+  if (sizes.stackSpacingM !== undefined) g.stackSpacingM = sizes.stackSpacingM;
+  if (sizes.metalThicknessM !== undefined) g.metalThicknessM = sizes.metalThicknessM;
+  if (sizes.boardThicknessM !== undefined) g.boardThicknessM = sizes.boardThicknessM;
+  return g;
 }

@@ -1,5 +1,11 @@
 /**
- * Split-ring resonator: a stack (spacing l) of double split rings — inner radius r, ring width c,
+ * Split-ring resonators in two styles (RingStyle):
+ * - "printed": edge-coupled rings etched on a board, the quasi-static LC circuit of printedRing.ts
+ *   (Marqués et al. 2002; Baena et al. 2005) — the realistic model for PCB rings;
+ * - "split-cylinder": Pendry's stacked double split cylinders, below.
+ * Both give the same Lorentz form; they differ in how ω0, F and Γ follow from the sizes.
+ *
+ * Split cylinders: a stack (spacing l) of double split rings — inner radius r, ring width c,
  * radial gap d between the two rings — on a cubic lattice of pitch a. For a magnetic field along
  * the ring axis it gives a Lorentz permeability
  *   μ(ω) = 1 − Fω²/(ω² − ω0² + iΓω),   F = πr²/a²                       (exp(−iωt); Im μ ≥ 0)
@@ -15,6 +21,7 @@
  */
 import type { Complex } from "../core/complex.js";
 import { C0, MU0 } from "./physicalConstants.js";
+import { printedMeanRadiusM, printedRingCircuit, printedRingDampingRadPerS, solvePrintedRing, type PrintedRingCircuit } from "./printedRing.js";
 import { skinDepthM, stripEffectiveThicknessM } from "./skinDepth.js";
 import { toleranceBand, type ToleranceBand } from "./toleranceBand.js";
 
@@ -22,19 +29,40 @@ const TWO_PI = 2 * Math.PI;
 /** Narrowest gap treated as makeable at all, 1 nm (common practice: below a few atomic layers). */
 export const MIN_BUILDABLE_GAP_M = 1e-9;
 
+export type RingStyle = "printed" | "split-cylinder";
+export const RING_STYLES: readonly RingStyle[] = ["printed", "split-cylinder"];
+
+/**
+ * The default style: printed when the process is PCB etching or the host is a laminate (board),
+ * and also for any other solid host (rings in a solid are etched on boards of it; when only ε' is
+ * known, ε' > 1 counts as solid) — ours; split cylinders for rings in air or another gas.
+ */
+export function defaultRingStyle(ctx: { hostClass?: string; processId?: string; hostEpsRe?: number }): RingStyle {
+  if (ctx.processId === "pcb-etching" || ctx.hostClass === "laminate") return "printed";
+  if (ctx.hostClass === "gas" || ctx.hostClass === "liquid") return "split-cylinder";
+  if (ctx.hostClass !== undefined) return "printed";
+  return (ctx.hostEpsRe ?? 1) > 1 ? "printed" : "split-cylinder";
+}
+
 export interface SplitRingGeometry {
+  /** model of the rings (absent: split-cylinder) */
+  ringStyle?: RingStyle;
   /** cell side a, m */
   pitchM: number;
-  /** inner ring radius r, m */
+  /** inner ring radius r (printed: inner radius of the inner ring), m */
   ringRadiusM: number;
   /** ring (strip) width c, m */
   ringWidthM: number;
-  /** radial gap d between the two rings, m */
+  /** radial gap d between the two rings (printed: strip separation), m */
   ringGapM: number;
-  /** spacing l of the rings along their axis, m (default: the pitch) */
+  /** spacing l of the rings along their axis (printed: board spacing), m (default: the pitch) */
   stackSpacingM?: number;
   /** metal thickness, m (default: thick compared with the skin depth) */
   metalThicknessM?: number;
+  /** printed: width of the cut in each ring, m (does not enter the circuit model) */
+  splitGapM?: number;
+  /** printed: board thickness, m (default: thick board, ε_eff = (ε+1)/2) */
+  boardThicknessM?: number;
 }
 
 /** F = πr²/a², the fraction of the cell the ring encloses (Pendry et al. 1999). */
@@ -97,6 +125,7 @@ export function resonanceForTargetMu(targetMu: number, frequencyHz: number, fill
 }
 
 export interface SplitRingResponse {
+  /** Lorentz strength F (split cylinders: the area fraction πr²/a²; printed: μ₀π²r0⁴/(a²lL_s)) */
   fill: number;
   resonanceHz: number;
   /** Re μ = 0 (lossless) at f0/sqrt(1 − F), Hz; NaN when F ≥ 1 */
@@ -105,12 +134,33 @@ export interface SplitRingResponse {
   gammaRadPerS: number;
   skinDepthM: number;
   mu: Complex;
+  ringStyle?: RingStyle;
+  /** printed: the LC circuit (inductance, capacitance, ε_eff) */
+  circuit?: PrintedRingCircuit;
 }
 
-/** μ at the design frequency for rings of geometry g (resonance from the geometry unless given). */
-export function splitRingResponse(g: SplitRingGeometry, conductivitySPerM: number, frequencyHz: number, hostEpsRe = 1, resonanceHz?: number): SplitRingResponse {
+const asComplex = (e: number | Complex): Complex => (typeof e === "number" ? { re: e, im: 0 } : e);
+
+/**
+ * μ at the design frequency for rings of geometry g (resonance from the geometry unless given).
+ * hostEps: the host's (split cylinders) or board's (printed) relative permittivity; its imaginary
+ * part adds the board's loss to the printed ring's damping.
+ */
+export function splitRingResponse(g: SplitRingGeometry, conductivitySPerM: number, frequencyHz: number, hostEps: number | Complex = 1, resonanceHz?: number): SplitRingResponse {
+  const eps = asComplex(hostEps);
+  const skin = conductivitySPerM === Infinity ? 0 : skinDepthM(conductivitySPerM, frequencyHz);
+  if (g.ringStyle === "printed") {
+    const circuit = printedRingCircuit(g, eps.re);
+    const fill = circuit.strength;
+    const f0 = resonanceHz ?? circuit.resonanceHz;
+    const gamma = printedRingDampingRadPerS(g, circuit, conductivitySPerM, frequencyHz, eps.im);
+    return {
+      fill, resonanceHz: f0, magneticPlasmaHz: fill < 1 ? f0 / Math.sqrt(1 - fill) : NaN, muHighFrequency: 1 - fill,
+      gammaRadPerS: gamma, skinDepthM: skin, mu: lorentzMu(fill, f0, gamma, frequencyHz), ringStyle: "printed", circuit,
+    };
+  }
   const fill = splitRingFill(g.ringRadiusM, g.pitchM);
-  const f0 = resonanceHz ?? splitRingResonanceHz(g, hostEpsRe);
+  const f0 = resonanceHz ?? splitRingResonanceHz(g, eps.re);
   const gamma = splitRingDampingRadPerS(g, conductivitySPerM, frequencyHz);
   return {
     fill,
@@ -118,8 +168,9 @@ export function splitRingResponse(g: SplitRingGeometry, conductivitySPerM: numbe
     magneticPlasmaHz: fill < 1 ? f0 / Math.sqrt(1 - fill) : NaN,
     muHighFrequency: 1 - fill,
     gammaRadPerS: gamma,
-    skinDepthM: conductivitySPerM === Infinity ? 0 : skinDepthM(conductivitySPerM, frequencyHz),
+    skinDepthM: skin,
     mu: lorentzMu(fill, f0, gamma, frequencyHz),
+    ringStyle: "split-cylinder",
   };
 }
 
@@ -128,16 +179,39 @@ export function splitRingBandwidth(r: SplitRingResponse, frequencyHz: number, ta
   return toleranceBand((f) => lorentzMu(r.fill, r.resonanceHz, r.gammaRadPerS, f).re, frequencyHz, targetMu, toleranceAbs);
 }
 
+/** Area enclosed by the rings over the cell face: πr²/a² (split cylinders), πr0²/a² with the mean radius (printed). */
+export function splitRingAreaFraction(g: SplitRingGeometry): number {
+  const r = g.ringStyle === "printed" ? printedMeanRadiusM(g) : g.ringRadiusM;
+  return splitRingFill(r, g.pitchM);
+}
+
 export interface SplitRingDesignInput {
   pitchM: number;
   frequencyHz: number;
   targetMu: number;
   conductivitySPerM: number;
   hostEpsRe?: number;
-  /** ring radius; default: the largest ring whose outer edge stays at 0.45a with d ≈ c (ours), shrunk to F = (1 − μ')/2 when that F is too large */
+  /** host or board loss, Im ε (printed rings: adds the board's loss to the damping) */
+  hostEpsIm?: number;
+  /** model; default from defaultRingStyle(hostClass, processId, hostEpsRe) */
+  ringStyle?: RingStyle;
+  /** host material class (laminate, ceramic, gas…), for the default style */
+  hostClass?: string;
+  /** process id, for the default style (pcb-etching → printed) */
+  processId?: string;
+  /** process limits: printed strips, separations and walls are kept at or above them */
+  minFeatureM?: number;
+  minGapM?: number;
+  /** ring radius (printed: inner radius; the separation is then solved); split cylinders: default the largest ring whose outer edge stays at 0.45a with d ≈ c (ours), shrunk to F = (1 − μ')/2 when that F is too large */
   ringRadiusM?: number;
-  /** strip width; default a/20 (ours) */
+  /** strip width; default a/20 (split cylinders), max(minimum feature, a/25) (printed) (ours) */
   ringWidthM?: number;
+  /** printed only: strip separation held fixed (default max(minimum gap, a/25), ours) */
+  ringGapM?: number;
+  /** printed only: width of the cut in each ring (default the separation) */
+  splitGapM?: number;
+  /** printed only: board thickness (default: thick board) */
+  boardThicknessM?: number;
   stackSpacingM?: number;
   metalThicknessM?: number;
 }
@@ -145,16 +219,42 @@ export interface SplitRingDesignInput {
 export interface SplitRingDesign {
   geometry: SplitRingGeometry | null;
   response: SplitRingResponse | null;
-  /** why no geometry was found, or what to watch */
+  /** why no geometry was found, or why the one found is not buildable */
   reasons: string[];
+  /** what to watch (model validity), not a failure */
+  notes?: string[];
 }
 
+/** The style designSplitRing uses for this input. */
+export const ringStyleFor = (input: SplitRingDesignInput): RingStyle =>
+  input.ringStyle ?? defaultRingStyle({ hostClass: input.hostClass, processId: input.processId, hostEpsRe: input.hostEpsRe });
+
 /**
- * Ring geometry for a target μ' at the design frequency: choose r (hence F), put the lossless
- * resonance where μ'(f) = target, then pick the inter-ring gap d that tunes the rings there.
- * The achieved μ includes the metal loss, so Re μ differs slightly from the target.
+ * Ring geometry for a target μ' at the design frequency, in the style of ringStyleFor(input).
+ * Printed: strip width and separation held at makeable sizes, the ring radius (or, when the
+ * radius is given, the separation) solved so that Re μ (loss included) meets the target — see
+ * solvePrintedRing. Split cylinders: choose r (hence F), put the lossless resonance where
+ * μ'(f) = target, then pick the inter-ring gap d that tunes the rings there; the achieved μ
+ * includes the metal loss, so Re μ differs slightly from the target.
  */
 export function designSplitRing(input: SplitRingDesignInput): SplitRingDesign {
+  if (ringStyleFor(input) === "printed") return designPrinted(input);
+  return designSplitCylinder(input);
+}
+
+function designPrinted(input: SplitRingDesignInput): SplitRingDesign {
+  const eps: Complex = { re: input.hostEpsRe ?? 1, im: input.hostEpsIm ?? 0 };
+  const sol = solvePrintedRing(
+    { ...input, epsSub: eps.re },
+    (g, epsSub) => splitRingResponse({ ...g, ringStyle: "printed" }, input.conductivitySPerM, input.frequencyHz, { re: epsSub, im: eps.im }).mu,
+  );
+  if (!sol.geometry) return { geometry: null, response: null, reasons: sol.reasons, notes: sol.notes };
+  const geometry: SplitRingGeometry = { ringStyle: "printed", ...sol.geometry };
+  for (const k of Object.keys(geometry) as (keyof SplitRingGeometry)[]) if (geometry[k] === undefined) delete geometry[k];
+  return { geometry, response: splitRingResponse(geometry, input.conductivitySPerM, input.frequencyHz, eps), reasons: [], notes: sol.notes };
+}
+
+function designSplitCylinder(input: SplitRingDesignInput): SplitRingDesign {
   const { pitchM: a, frequencyHz, targetMu, conductivitySPerM } = input;
   const eh = input.hostEpsRe ?? 1;
   const c = input.ringWidthM ?? a / 20;
@@ -167,10 +267,10 @@ export function designSplitRing(input: SplitRingDesignInput): SplitRingDesign {
   const fill = splitRingFill(r, a);
   const choice = resonanceForTargetMu(targetMu, frequencyHz, fill);
   if (!Number.isFinite(choice.resonanceHz)) return { geometry: null, response: null, reasons: [choice.reason ?? "target out of reach"] };
-  const base = { pitchM: a, ringRadiusM: r, ringWidthM: c, stackSpacingM: input.stackSpacingM, metalThicknessM: input.metalThicknessM };
+  const base = { ringStyle: "split-cylinder" as const, pitchM: a, ringRadiusM: r, ringWidthM: c, stackSpacingM: input.stackSpacingM, metalThicknessM: input.metalThicknessM };
   const d = ringGapForResonance(base, choice.resonanceHz, eh);
   const geometry: SplitRingGeometry = { ...base, ringGapM: d };
-  if (d < MIN_BUILDABLE_GAP_M) reasons.push(`the rings need a gap of ${d.toPrecision(3)} m between them to resonate at ${(choice.resonanceHz / 1e9).toPrecision(4)} GHz: below 1 nm, nothing makes it (use larger rings, closer stacking or a denser host)`);
+  if (d < MIN_BUILDABLE_GAP_M) reasons.push(`the rings need a gap of ${d.toPrecision(3)} m between them to resonate at ${(choice.resonanceHz / 1e9).toPrecision(4)} GHz: below 1 nm, nothing makes it (use larger rings, closer stacking, a denser host, or printed rings on a board)`);
   if (d > c) reasons.push(`ring gap ${d.toPrecision(3)} m exceeds the ring width: outside the narrow-gap capacitance model`);
   if (r + 2 * c + d > a / 2) reasons.push(`rings (outer radius ${(r + 2 * c + d).toPrecision(3)} m) do not fit a ${a} m cell`);
   const response = splitRingResponse(geometry, conductivitySPerM, frequencyHz, eh, choice.resonanceHz);

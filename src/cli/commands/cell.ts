@@ -10,6 +10,7 @@ import { designCell, DEFAULT_TOLERANCE } from "../../cells/designCell.js";
 import { formatCellDesign } from "../../cells/formatCellDesign.js";
 import { parseLattice } from "../../cells/lattice.js";
 import { CELL_FAMILIES, getCellFamily } from "../../cells/registry.js";
+import { RING_STYLES, type RingStyle } from "../../cells/splitRing.js";
 import { findMaterial, loadMaterialCatalog } from "../../io/materialCatalog.js";
 import { findProcess, loadProcessCatalog } from "../../io/processCatalog.js";
 import { parseQuantity } from "../../io/quantity.js";
@@ -53,6 +54,11 @@ export const command: Command = {
     "wire-medium: --radius R and/or --target EPS (ε along the wires), --metal ID (default copper), --host ID (default air).",
     "split-ring: --target MU (μ along the ring axis) or --ring-gap D, with optional --ring-radius, --ring-width,",
     "  --stack-spacing, --thickness; --metal ID (default copper), --host ID (default air).",
+    "  --ring-style printed: edge-coupled rings etched on a board (the host is the board); the ring radius is",
+    "  solved with strip width and separation at the process minimum (or --ring-width, --ring-gap); with",
+    "  --ring-radius the separation is solved; --split-gap, --board-thickness. --ring-style split-cylinder:",
+    "  stacked double split cylinders. Default: printed for a laminate or solid host or --process pcb-etching,",
+    "  split-cylinder in air.",
     "Tolerance: |achieved − target| ≤ T·max(|target|, 1). Exit 2 when the cell is not buildable as asked.",
   ].join("\n"),
   options: [
@@ -74,6 +80,9 @@ export const command: Command = {
     { name: "ring-gap", type: "string", valueName: "D", description: "gap between the two rings (split-ring; else designed)" },
     { name: "stack-spacing", type: "string", valueName: "L", description: "ring spacing along the axis (split-ring; default the pitch)" },
     { name: "thickness", type: "string", valueName: "T", description: "metal thickness (split-ring; default thick vs the skin depth)" },
+    { name: "ring-style", type: "string", valueName: "S", description: "printed or split-cylinder (split-ring; default from host and process)" },
+    { name: "split-gap", type: "string", valueName: "G", description: "width of the cut in each printed ring (split-ring)" },
+    { name: "board-thickness", type: "string", valueName: "H", description: "board thickness under printed rings (split-ring; default thick)" },
     { name: "json", type: "boolean", description: "print one JSON object on stdout" },
   ],
   maxPositionals: 1,
@@ -89,7 +98,7 @@ export const command: Command = {
     need("frequency", "the design frequency, e.g. '10 GHz'");
     const fillText = stringOption(args, "fill");
     const targetText = stringOption(args, "target");
-    const ringOnly = ["ring-radius", "ring-width", "ring-gap", "stack-spacing", "thickness"];
+    const ringOnly = ["ring-radius", "ring-width", "ring-gap", "stack-spacing", "thickness", "ring-style", "split-gap", "board-thickness"];
     for (const o of ringOnly) if (family.id !== "split-ring" && stringOption(args, o) !== undefined) issues.push({ where: `--${o}`, message: "only for the split-ring family" });
     if (family.id !== "wire-medium" && stringOption(args, "radius") !== undefined) issues.push({ where: "--radius", message: "only for the wire-medium family" });
     if (!family.resonant) {
@@ -101,6 +110,10 @@ export const command: Command = {
       issues.push({ where: "cell", message: "wire-medium needs --radius R, --fill F or --target EPS" });
     } else if (family.id === "split-ring" && targetText === undefined && stringOption(args, "ring-gap") === undefined) {
       issues.push({ where: "cell", message: "split-ring needs --target MU or --ring-gap D" });
+    }
+    const styleText = stringOption(args, "ring-style");
+    if (family.id === "split-ring" && styleText !== undefined && !(RING_STYLES as readonly string[]).includes(styleText)) {
+      issues.push({ where: "--ring-style", message: `expected ${RING_STYLES.join(" or ")}, got '${styleText}'` });
     }
     if (issues.length) throw new InputError(issues);
 
@@ -140,11 +153,13 @@ export const command: Command = {
     if (!(tolerance > 0)) throw new InputError({ where: "--tolerance", message: `expected a tolerance > 0, got '${tolText}'` });
     const heightM = await positiveLength(args, "height");
     const splitRing: SplitRingSizes = {};
-    const sizeKeys: [string, keyof SplitRingSizes][] = [["ring-radius", "ringRadiusM"], ["ring-width", "ringWidthM"], ["ring-gap", "ringGapM"], ["stack-spacing", "stackSpacingM"], ["thickness", "metalThicknessM"]];
+    type SizeKey = Exclude<keyof SplitRingSizes, "ringStyle">;
+    const sizeKeys: [string, SizeKey][] = [["ring-radius", "ringRadiusM"], ["ring-width", "ringWidthM"], ["ring-gap", "ringGapM"], ["stack-spacing", "stackSpacingM"], ["thickness", "metalThicknessM"], ["split-gap", "splitGapM"], ["board-thickness", "boardThicknessM"]];
     for (const [flag, key] of sizeKeys) {
       const v = await positiveLength(args, flag);
       if (v !== undefined) splitRing[key] = v;
     }
+    if (styleText !== undefined) splitRing.ringStyle = styleText as RingStyle;
 
     const processId = stringOption(args, "process");
     const process = processId === undefined ? undefined : findProcess(await loadProcessCatalog(), processId, "--process");

@@ -1,0 +1,298 @@
+/**
+ * Printed (PCB-etched) edge-coupled split-ring resonator: two concentric copper strips of width c,
+ * separated by d, each split once on opposite sides, etched on one face of a dielectric board.
+ * Quasi-static LC circuit (Marqués, Medina, Rafii-El-Idrissi, "Role of bianisotropy in negative
+ * permeability and left-handed metamaterials", Phys. Rev. B 65, 144440 (2002); Baena et al.,
+ * "Equivalent-circuit models for split-ring resonators and complementary split-ring resonators
+ * coupled to planar transmission lines", IEEE Trans. Microw. Theory Tech. 53, 1451 (2005)):
+ *   ω0 = 1/sqrt(L_s C_s),   C_s = C0/4,   C0 = 2π r0 C_pul,   r0 = r_in + c + d/2 (mean radius)
+ * C0 is the whole capacitance between the rings; the splits cut it into two halves C0/2 in series.
+ * C_pul is the per-unit-length capacitance of two coplanar strips (below); L_s the inductance of
+ * one ring of radius r0 and width c. The splits' own (gap) capacitance is neglected (the model's
+ * assumption; fair when the split is no narrower than d and c, d ≪ r0).
+ *
+ * Geometry convention, shared with the split-cylinder style: ringRadiusM is the inner radius of the
+ * inner ring, the outer ring's outer radius is r_in + 2c + d, ringGapM is the strip separation d.
+ */
+import { ellipticKRatio } from "../core/ellipticK.js";
+import { EPS0, MU0 } from "./physicalConstants.js";
+import { skinDepthM, stripEffectiveThicknessM } from "./skinDepth.js";
+
+const TWO_PI = 2 * Math.PI;
+
+export interface PrintedRingGeometry {
+  /** cell side a (in the board plane), m */
+  pitchM: number;
+  /** inner radius of the inner ring, m */
+  ringRadiusM: number;
+  /** strip width c of each ring, m */
+  ringWidthM: number;
+  /** separation d between the two strips, m */
+  ringGapM: number;
+  /** spacing l of the boards (ring planes), m (default: the pitch) */
+  stackSpacingM?: number;
+  /** copper thickness, m (default: thick compared with the skin depth) */
+  metalThicknessM?: number;
+  /** board thickness, m (default: a thick board, ε_eff = (ε+1)/2) */
+  boardThicknessM?: number;
+}
+
+/** r0 = r_in + c + d/2, the mean radius (middle of the slot between the rings), m. */
+export const printedMeanRadiusM = (g: PrintedRingGeometry): number => g.ringRadiusM + g.ringWidthM + 0.5 * g.ringGapM;
+/** r_in + 2c + d, the outer radius of the outer ring, m. */
+export const printedOuterRadiusM = (g: PrintedRingGeometry): number => g.ringRadiusM + 2 * g.ringWidthM + g.ringGapM;
+
+/**
+ * Per-unit-length capacitance (F/m) of two coplanar strips of width w separated by s:
+ *   C_pul = ε₀ ε_eff K(k')/K(k),   k = s/(s + 2w)
+ * (Gupta, Garg, Bahl, Bhartia, "Microstrip Lines and Slotlines", 2nd ed. 1996, ch. 7, coplanar
+ * strips by conformal mapping; zero-thickness strips). Narrow gap: ≈ ε₀ε_eff(2/π)ln(4(s+2w)/s).
+ * Example: w = s·(√2 − 1)/2… i.e. k = 1/√2 gives exactly ε₀ε_eff.
+ */
+export function coplanarStripsCapacitancePerM(stripWidthM: number, separationM: number, epsEff: number): number {
+  const k = separationM / (separationM + 2 * stripWidthM);
+  return EPS0 * epsEff * ellipticKRatio(k);
+}
+
+/**
+ * Filling factor q of coplanar strips on one face of a board, ε_eff = 1 + q(ε_sub − 1).
+ * Thick board (h omitted or ∞): q = 1/2, half the field in the board — the common-practice value.
+ * Board of thickness h (Gupta et al. 1996, ch. 7, coplanar strips on a finite substrate — from memory):
+ *   q = ½ · K(k₁)K(k')/(K(k₁')K(k)),   k₁ = sinh(πs/4h)/sinh(π(s + 2w)/4h)
+ * which tends to ½ as h → ∞ and to 0 as h → 0.
+ */
+export function coplanarStripsFillingFactor(stripWidthM: number, separationM: number, boardThicknessM?: number): number {
+  if (boardThicknessM === undefined || boardThicknessM === Infinity) return 0.5;
+  const k = separationM / (separationM + 2 * stripWidthM);
+  const x = Math.PI / (4 * boardThicknessM);
+  // k₁ = sinh(xs)/sinh(x(s+2w)); for large arguments use the exponential form to avoid overflow
+  const a = x * separationM, b = x * (separationM + 2 * stripWidthM);
+  const k1 = b > 300 ? Math.exp(a - b) * (1 - Math.exp(-2 * a)) / (1 - Math.exp(-2 * b)) : Math.sinh(a) / Math.sinh(b);
+  return (0.5 * ellipticKRatio(k)) / ellipticKRatio(k1);
+}
+
+/** ε_eff = 1 + q(ε_sub − 1) of coplanar strips on a board (see coplanarStripsFillingFactor). */
+export function coplanarStripsEffectivePermittivity(epsSub: number, stripWidthM: number, separationM: number, boardThicknessM?: number): number {
+  return 1 + coplanarStripsFillingFactor(stripWidthM, separationM, boardThicknessM) * (epsSub - 1);
+}
+
+/**
+ * Inductance (H) of one flat ring of mean radius r0 and strip width c:
+ *   L = μ₀ r0 (ln(8r0/b) − 2),   b = c/4
+ * The first part is the high-frequency (surface-current) inductance of a circular loop of round
+ * wire of radius b (Grover, "Inductance Calculations", 1946; Terman, "Radio Engineers' Handbook",
+ * 1943 — from memory); b = c/4 is the equivalent radius of a thin flat strip of width c (the
+ * logarithmic capacity of a segment is a quarter of its length: Pólya & Szegő, 1951 — from
+ * memory). Valid for c ≪ r0; NaN when ln(32r0/c) ≤ 2 (a strip too wide for a ring).
+ */
+export function ringInductanceH(meanRadiusM: number, stripWidthM: number): number {
+  const lg = Math.log((32 * meanRadiusM) / stripWidthM) - 2;
+  return lg > 0 ? MU0 * meanRadiusM * lg : NaN;
+}
+
+export interface PrintedRingCircuit {
+  meanRadiusM: number;
+  /** ε_eff of the strip pair */
+  effectivePermittivity: number;
+  /** C_pul, F/m */
+  capacitancePerLengthFPerM: number;
+  /** C_s = C0/4 = π r0 C_pul / 2, F */
+  capacitanceF: number;
+  /** L_s, H */
+  inductanceH: number;
+  /** f0 = 1/(2π sqrt(L_s C_s)), Hz */
+  resonanceHz: number;
+  /** Lorentz strength F = μ₀π²r0⁴/(a² l L_s) (see printedRingStrength) */
+  strength: number;
+}
+
+/**
+ * Magnetic strength F of a lattice of rings (one per a × a × l cell), the F in
+ * μ = 1 − Fω²/(ω² − ω0² + iΓω):  F = μ₀ π² r0⁴ / (a² l L_s).
+ * From the ring's magnetic polarizability α = μ₀²π²r0⁴/L_s · ω²/(ω0² − ω²) (Marqués et al. 2002,
+ * eq. for α_zz^mm — form from memory) times the ring density 1/(a²l), without the local-field
+ * correction. For a tight stack (L_s → μ₀πr0²/l, a solenoid) it becomes Pendry's area fraction
+ * πr0²/a² (Pendry et al. 1999); isolated printed rings have a larger L_s and so a smaller F.
+ */
+export function printedRingStrength(meanRadiusM: number, pitchM: number, stackSpacingM: number, inductanceH: number): number {
+  return (MU0 * Math.PI * Math.PI * meanRadiusM ** 4) / (pitchM * pitchM * stackSpacingM * inductanceH);
+}
+
+/** The LC circuit of a printed ring on a board of relative permittivity epsSub (real part). */
+export function printedRingCircuit(g: PrintedRingGeometry, epsSub: number): PrintedRingCircuit {
+  const r0 = printedMeanRadiusM(g);
+  const epsEff = coplanarStripsEffectivePermittivity(epsSub, g.ringWidthM, g.ringGapM, g.boardThicknessM);
+  const cPul = coplanarStripsCapacitancePerM(g.ringWidthM, g.ringGapM, epsEff);
+  const cs = (TWO_PI * r0 * cPul) / 4;
+  const l = ringInductanceH(r0, g.ringWidthM);
+  return {
+    meanRadiusM: r0,
+    effectivePermittivity: epsEff,
+    capacitancePerLengthFPerM: cPul,
+    capacitanceF: cs,
+    inductanceH: l,
+    resonanceHz: 1 / (TWO_PI * Math.sqrt(l * cs)),
+    strength: printedRingStrength(r0, g.pitchM, g.stackSpacingM ?? g.pitchM, l),
+  };
+}
+
+/**
+ * Ring resistance (Ω) seen by the circulating current: R = (2/3)·2πr0/(σ c t_eff).
+ * Each ring carries a current that falls linearly from I to 0 towards its split while the other
+ * ring carries the rest (Marqués et al. 2002, the model's current distribution), so the mean of
+ * I₁² + I₂² is (2/3)I² (derived). t_eff: the copper thickness capped at two skin depths (both
+ * faces; common practice). Current crowding at the strip edges is ignored (underestimates R).
+ */
+export function printedRingResistanceOhm(g: PrintedRingGeometry, conductivitySPerM: number, frequencyHz: number): number {
+  if (conductivitySPerM === Infinity) return 0;
+  const tEff = stripEffectiveThicknessM(g.metalThicknessM, skinDepthM(conductivitySPerM, frequencyHz));
+  return ((2 / 3) * TWO_PI * printedMeanRadiusM(g)) / (conductivitySPerM * g.ringWidthM * tEff);
+}
+
+/**
+ * Damping Γ (rad/s) of the Lorentz form: Γ = R/L_s + ω0·tanδ_eff.
+ * Metal: series resistance over inductance. Board: a lossy capacitor has Q = 1/tanδ at resonance,
+ * which adds ω0 tanδ_eff (series-RLC algebra); tanδ_eff = q ε''_sub / ε_eff with q the filling
+ * factor (only the board share of the field is lossy). Evaluated at the design frequency and
+ * held fixed over the band (the copper's √f change is neglected).
+ */
+export function printedRingDampingRadPerS(g: PrintedRingGeometry, circuit: PrintedRingCircuit, conductivitySPerM: number, frequencyHz: number, epsSubIm = 0): number {
+  const metal = printedRingResistanceOhm(g, conductivitySPerM, frequencyHz) / circuit.inductanceH;
+  const q = coplanarStripsFillingFactor(g.ringWidthM, g.ringGapM, g.boardThicknessM);
+  const tanEff = Math.max(0, (q * epsSubIm) / circuit.effectivePermittivity);
+  return metal + TWO_PI * circuit.resonanceHz * tanEff;
+}
+
+/** What solvePrintedRing needs: the cell, the sizes held fixed, and the process limits. */
+export interface PrintedRingSpec {
+  pitchM: number;
+  frequencyHz: number;
+  targetMu: number;
+  /** board ε' (the ring's capacitance) */
+  epsSub: number;
+  /** strip width c (default: max(process minimum feature, a/25), ours) */
+  ringWidthM?: number;
+  /** strip separation d: held fixed when given, else max(process minimum gap, a/25) (ours) — or solved when ringRadiusM is given */
+  ringGapM?: number;
+  /** inner radius: when given, the separation d is solved instead of the radius */
+  ringRadiusM?: number;
+  splitGapM?: number;
+  stackSpacingM?: number;
+  metalThicknessM?: number;
+  boardThicknessM?: number;
+  minFeatureM?: number;
+  minGapM?: number;
+}
+
+export interface PrintedRingSolution {
+  geometry: (PrintedRingGeometry & { splitGapM: number }) | null;
+  /** why there is none */
+  reasons: string[];
+  /** what to watch */
+  notes: string[];
+}
+
+const SCAN_POINTS = 240;
+
+/** Sizes held fixed and the range of the free one (inner radius, or separation when the radius is given). */
+function layout(s: PrintedRingSpec) {
+  const a = s.pitchM;
+  const c = s.ringWidthM ?? Math.max(s.minFeatureM ?? 0, a / 25);
+  const wall = Math.max(s.minGapM ?? 0, a / 25);
+  const room = (a - wall) / 2; // outer radius allowed
+  const minOpen = Math.max(s.minGapM ?? 0, c);
+  const fixed = { pitchM: a, ringWidthM: c, stackSpacingM: s.stackSpacingM, metalThicknessM: s.metalThicknessM, boardThicknessM: s.boardThicknessM };
+  const split = (d: number) => s.splitGapM ?? Math.max(s.minGapM ?? 0, d);
+  if (s.ringRadiusM === undefined) {
+    const d = s.ringGapM ?? Math.max(s.minGapM ?? 0, a / 25);
+    return { free: "ring radius" as const, c, d, wall, lo: minOpen, hi: room - 2 * c - d, build: (r: number) => ({ ...fixed, ringRadiusM: r, ringGapM: d, splitGapM: split(d) }) };
+  }
+  const r = s.ringRadiusM;
+  return { free: "strip separation" as const, c, d: NaN, wall, lo: Math.max(s.minGapM ?? 0, c / 100), hi: room - 2 * c - r, build: (d: number) => ({ ...fixed, ringRadiusM: r, ringGapM: d, splitGapM: split(d) }) };
+}
+
+/**
+ * Printed-ring sizes whose Re μ (from `reMuAt`, loss included) equals the target at the design
+ * frequency. One size is free — the inner radius (default) or, when the radius is given, the strip
+ * separation — and is scanned over everything that fits the cell with a wall ≥ max(minimum gap,
+ * a/25) to the neighbours; every crossing is refined by bisection and the one with the least Im μ
+ * (farthest from the resonance: least loss, widest band) is kept. When none exists the reason
+ * says how far off the best ring is and what pitch or board permittivity would reach the target.
+ */
+export function solvePrintedRing(spec: PrintedRingSpec, muAt: (g: PrintedRingGeometry, epsSub: number) => { re: number; im: number }, diagnose = true): PrintedRingSolution {
+  const L = layout(spec);
+  const mm = (m: number) => `${Number((m * 1e3).toPrecision(3))} mm`;
+  if (!(L.hi > L.lo)) {
+    return { geometry: null, reasons: [`printed rings with ${mm(L.c)} strips do not fit a ${mm(spec.pitchM)} cell with a ${mm(L.wall)} wall to the next ring`], notes: [] };
+  }
+  const err = (x: number) => muAt(L.build(x), spec.epsSub).re - spec.targetMu;
+  const xs: number[] = [];
+  const ratio = L.hi / L.lo;
+  for (let i = 0; i <= SCAN_POINTS; i++) xs.push(L.lo * ratio ** (i / SCAN_POINTS));
+  const es = xs.map(err);
+  let best: { x: number; im: number } | null = null;
+  for (let i = 0; i < SCAN_POINTS; i++) {
+    if (!(es[i] * es[i + 1] <= 0) || !Number.isFinite(es[i] + es[i + 1])) continue;
+    let lo = xs[i], hi = xs[i + 1], elo = es[i];
+    for (let k = 0; k < 80 && hi - lo > 1e-14 * hi; k++) {
+      const m = 0.5 * (lo + hi);
+      const em = err(m);
+      if (em * elo <= 0) hi = m;
+      else { lo = m; elo = em; }
+    }
+    const x = 0.5 * (lo + hi);
+    const im = muAt(L.build(x), spec.epsSub).im;
+    if (!best || im < best.im) best = { x, im };
+  }
+  if (best) {
+    const g = L.build(best.x);
+    const notes: string[] = [];
+    const r0 = printedMeanRadiusM(g);
+    if ((2 * g.ringWidthM + g.ringGapM) / r0 > 0.5) notes.push(`strips and separation (${mm(2 * g.ringWidthM + g.ringGapM)}) are not small against the mean radius ${mm(r0)}: the thin-ring circuit model is approximate`);
+    return { geometry: g, reasons: [], notes };
+  }
+  return { geometry: null, reasons: [diagnose ? explainMiss(spec, L, muAt) : "no printed ring reaches the target"], notes: [] };
+}
+
+/** The reason for a miss: the best ring's resonance against the one needed, and what would reach it. */
+function explainMiss(spec: PrintedRingSpec, L: ReturnType<typeof layout>, muAt: (g: PrintedRingGeometry, epsSub: number) => { re: number; im: number }): string {
+  const mm = (m: number) => `${Number((m * 1e3).toPrecision(3))} mm`;
+  const ghz = (hz: number) => `${Number((hz / 1e9).toPrecision(3))} GHz`;
+  const t = spec.targetMu;
+  // the lowest resonance: the largest ring (radius free) or the narrowest separation (separation free)
+  const g = L.build(L.free === "ring radius" ? L.hi : L.lo);
+  const k = printedRingCircuit(g, spec.epsSub);
+  const sizes = `${mm(g.ringWidthM)} strips ${mm(g.ringGapM)} apart on a board of ε' = ${Number(spec.epsSub.toPrecision(3))}`;
+  const ring = `the ${L.free === "ring radius" ? "largest printed ring that fits" : "printed ring of this radius with the narrowest separation"} (outer radius ${mm(printedOuterRadiusM(g))}, ${sizes}) in a ${mm(spec.pitchM)} cell`;
+  if (t < 1 && t >= 1 - k.strength) return `${ring} gives at most 1 − F = ${Number((1 - k.strength).toPrecision(3))} above its resonance; μ' = ${t} lies between that and 1`;
+  if (t < 1) {
+    const needHz = spec.frequencyHz * Math.sqrt(1 - k.strength / (1 - t));
+    if (k.resonanceHz > needHz) {
+      const fixedSizes = { ...spec, ringWidthM: L.c, ...(L.free === "ring radius" ? { ringGapM: L.d } : {}), minGapM: L.wall };
+      const works = (over: Partial<PrintedRingSpec>) => solvePrintedRing({ ...fixedSizes, ...over }, muAt, false).geometry !== null;
+      const pitch = smallestPassing((p) => works({ pitchM: p, minGapM: L.wall }), spec.pitchM, 8 * spec.pitchM);
+      const eps = smallestPassing((e) => works({ epsSub: e }), spec.epsSub, 100);
+      const fixes = [
+        ...(Number.isFinite(pitch) ? [`a pitch of at least ${mm(pitch)}`] : []),
+        ...(Number.isFinite(eps) ? [`a board of ε' ≥ ${Number(eps.toPrecision(3))}`] : []),
+        "finer strips and separation than the process allows",
+      ];
+      return `${ring} resonates at ${ghz(k.resonanceHz)}; μ' = ${t} at ${ghz(spec.frequencyHz)} needs its resonance at or below ${ghz(needHz)} (the rings are too small to be tuned that low: ${fixes.join(", or ")})`;
+    }
+  }
+  const m = muAt(g, spec.epsSub);
+  return `no printed ring between these sizes gives μ' = ${t} (${ring} gives μ' = ${Number(m.re.toPrecision(3))}, resonance ${ghz(k.resonanceHz)})`;
+}
+
+/** Smallest x in [lo, hi] for which ok(x) holds (ok assumed monotone); NaN when ok(hi) fails. */
+function smallestPassing(ok: (x: number) => boolean, lo: number, hi: number): number {
+  if (!ok(hi)) return NaN;
+  if (ok(lo)) return lo;
+  let a = lo, b = hi;
+  for (let k = 0; k < 40 && b - a > 1e-4 * b; k++) {
+    const m = 0.5 * (a + b);
+    if (ok(m)) b = m;
+    else a = m;
+  }
+  return b;
+}
