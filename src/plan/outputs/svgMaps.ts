@@ -39,6 +39,11 @@ export function rampColour(t: number): string {
   return `#${c.map((v) => v.toString(16).padStart(2, "0")).join("")}`;
 }
 
+/** `text` cut to at most `max` characters, with an ellipsis when cut. */
+function clip(text: string, max: number): string {
+  return text.length <= max ? text : `${text.slice(0, Math.max(1, max - 1))}…`;
+}
+
 function esc(text: string): string {
   return text.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;");
 }
@@ -61,6 +66,9 @@ function raster(plan: Plan, colourOf: (cell: number) => number): { w: number; h:
 
 function rects(r: { w: number; h: number; data: Int32Array }, palette: string[], x0: number, y0: number): string {
   const s = MAP_PX / Math.max(r.w, r.h);
+  // Edges snapped to whole pixels, each rectangle ending where the next begins: fractional
+  // sizes leave hairline seams between rows when the picture is rasterized.
+  const edge = (k: number): number => Math.round(k * s);
   const out: string[] = [];
   for (let y = 0; y < r.h; y++) {
     let x = 0;
@@ -69,7 +77,7 @@ function rects(r: { w: number; h: number; data: Int32Array }, palette: string[],
       let e = x + 1;
       while (e < r.w && r.data[y * r.w + e] === v) e++;
       if (v >= 0) {
-        out.push(`<rect x="${fmt(x0 + x * s, 5)}" y="${fmt(y0 + y * s, 5)}" width="${fmt((e - x) * s, 5)}" height="${fmt(s, 5)}" fill="${palette[v]}"/>`);
+        out.push(`<rect x="${x0 + edge(x)}" y="${y0 + edge(y)}" width="${edge(e) - edge(x)}" height="${edge(y + 1) - edge(y)}" fill="${palette[v]}"/>`);
       }
       x = e;
     }
@@ -90,7 +98,7 @@ export function mapsSvg(plan: Plan): string {
     for (let k = 0; k < FLAG_ORDER.length; k++) if (m & FLAG_BIT[FLAG_ORDER[k].name]) return k;
     return FLAG_ORDER.length;
   });
-  const pad = 20, top = 50, legendTop = top + MAP_PX + 24;
+  const pad = 20, top = 60, legendTop = top + MAP_PX + 24;
   const left2 = pad * 3 + MAP_PX;
   const first = plan.components.findIndex((c) => !c.constant);
   const comp = first >= 0 ? plan.components[first] : plan.components[0];
@@ -119,7 +127,9 @@ export function mapsSvg(plan: Plan): string {
   return [
     `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}" font-family="sans-serif" font-size="11">`,
     `<rect width="${width}" height="${height}" fill="#ffffff"/>`,
-    `<text x="${pad}" y="20" font-size="14" font-weight="bold">${esc(plan.design.name)} — ${plan.grid.count} cells, ${nLevels} levels, ${plan.regions.length} regions</text>`,
+    // Title on two lines so a long design name never runs past the picture's right edge.
+    `<text x="${pad}" y="18" font-size="14" font-weight="bold">${esc(clip(plan.design.name, Math.floor((width - 2 * pad) / 8.5)))}</text>`,
+    `<text x="${pad}" y="34">${plan.grid.count} cells, ${nLevels} levels, ${plan.regions.length} regions</text>`,
     `<text x="${pad}" y="${top - 8}">level map (colour: level, ordered by ${esc(comp?.name ?? "target")})</text>`,
     `<text x="${left2}" y="${top - 8}">flag map (colour: most severe flag)</text>`,
     `<rect x="${pad}" y="${top}" width="${MAP_PX}" height="${MAP_PX}" fill="none" stroke="#999999"/>`,
