@@ -84,7 +84,11 @@ export function planFromField(
     scheme: settings.scheme,
     unitAxis: settings.unitAxis,
     backgroundIndex: settings.backgroundIndex === 1 && !design.reduction?.backgroundIndex ? undefined : settings.backgroundIndex,
-    where: { polarization: `${design.sourcePath}: $.polarization`, scheme: `${design.sourcePath}: $.reduction.scheme` },
+    // name the place the choice came from: an override (command line, session) or the design file
+    where: {
+      polarization: overrides.polarization !== undefined ? "polarization (override)" : `${design.sourcePath}: $.polarization`,
+      scheme: overrides.scheme !== undefined ? "scheme (override)" : `${design.sourcePath}: $.reduction.scheme`,
+    },
   });
   const ez = settings.polarization === "Ez";
   const outName = ez ? "eps_zz" : "mu_zz";
