@@ -14,7 +14,7 @@ import { homogenizationFor, homogenizationNote, matchError, processCheckFor, sha
 import type { CellDesign, CellDesignRequest, RingReport, SplitRingSizes, WireReport } from "./cellDesignTypes.js";
 import { passivityBandwidthBound } from "./passivity.js";
 import { EPS0 } from "./physicalConstants.js";
-import { printedMeanRadiusM, printedOuterRadiusM } from "./printedRing.js";
+import { printedDefaultSizeM, printedMeanRadiusM, printedOuterRadiusM } from "./printedRing.js";
 import { defaultRingStyle, designSplitRing, splitRingBandwidth, splitRingResponse, type SplitRingGeometry, type SplitRingResponse } from "./splitRing.js";
 import { MIN_RADIUS_RATIO, bandwidthWithinTolerance, radiusForTarget, wireMediumResponse } from "./wireMedium.js";
 
@@ -161,7 +161,7 @@ function designRingCell(req: CellDesignRequest, family: CellFamily): CellDesign 
   if (!geometry || !resp) {
     return finish(req, family, {
       fill: null, dimensions: {}, achieved: { parallel: host.eps, perpendicular: host.eps, mu: { re: NaN, im: NaN } },
-      rules: { parallel: "host", perpendicular: "host" }, target, relError: { max: Infinity },
+      rules: { parallel: "host", perpendicular: "host" }, target, relError: { ...(target.mu !== undefined ? { mu: Infinity } : {}), max: Infinity },
       feature: { featureM: NaN, gapM: NaN }, reasons, notes,
     }, [host.eps]);
   }
@@ -217,9 +217,9 @@ function designRingCell(req: CellDesignRequest, family: CellFamily): CellDesign 
 /** Printed rings evaluated as given: defaults as in solvePrintedRing, radius the largest that fits. */
 function printedGeometry(req: CellDesignRequest, sizes: SplitRingSizes): SplitRingGeometry {
   const a = req.pitchM;
-  const c = sizes.ringWidthM ?? Math.max(req.process?.minFeatureM ?? 0, a / 25);
-  const d = sizes.ringGapM ?? Math.max(req.process?.minGapM ?? 0, a / 25);
-  const wall = Math.max(req.process?.minGapM ?? 0, a / 25);
+  const c = sizes.ringWidthM ?? printedDefaultSizeM(a, req.process?.minFeatureM);
+  const d = sizes.ringGapM ?? printedDefaultSizeM(a, req.process?.minGapM);
+  const wall = printedDefaultSizeM(a, req.process?.minGapM);
   const g: SplitRingGeometry = { ringStyle: "printed", pitchM: a, ringRadiusM: sizes.ringRadiusM ?? (a - wall) / 2 - 2 * c - d, ringWidthM: c, ringGapM: d, splitGapM: sizes.splitGapM ?? Math.max(req.process?.minGapM ?? 0, d) };
   if (sizes.stackSpacingM !== undefined) g.stackSpacingM = sizes.stackSpacingM;
   if (sizes.metalThicknessM !== undefined) g.metalThicknessM = sizes.metalThicknessM;

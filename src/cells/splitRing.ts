@@ -204,9 +204,9 @@ export interface SplitRingDesignInput {
   minGapM?: number;
   /** ring radius (printed: inner radius; the separation is then solved); split cylinders: default the largest ring whose outer edge stays at 0.45a with d ≈ c (ours), shrunk to F = (1 − μ')/2 when that F is too large */
   ringRadiusM?: number;
-  /** strip width; default a/20 (split cylinders), max(minimum feature, a/25) (printed) (ours) */
+  /** strip width; default a/20 (split cylinders), printedDefaultSizeM (printed) (ours) */
   ringWidthM?: number;
-  /** printed only: strip separation held fixed (default max(minimum gap, a/25), ours) */
+  /** printed only: strip separation held fixed (default printedDefaultSizeM) */
   ringGapM?: number;
   /** printed only: width of the cut in each ring (default the separation) */
   splitGapM?: number;
