@@ -1,0 +1,41 @@
+/**
+ * What the FDFD solver simulates: a 2D scene of one polarization — a uniform background and, inside
+ * a bounding box, a medium given point by point (possibly with perfectly conducting parts).
+ *
+ * For polarization Ez the unknown u = E_z and the medium acts through b = ε_zz (out of plane) and
+ * the in-plane tensor T = μ_t; for Hz, u = H_z, b = μ_zz and T = ε_t. Both obey
+ * ∇·(A ∇u) + k0² b u = 0 with A = T / det T (design brief §2; for diagonal T, A = diag(1/T_yy, 1/T_xx)).
+ */
+export type ScenePolarization = "Ez" | "Hz";
+
+/** sample() result: the point is background, a medium, or a perfect electric conductor. */
+export const SAMPLE_BACKGROUND = 0;
+export const SAMPLE_MEDIUM = 1;
+export const SAMPLE_PEC = 2;
+
+/** Offsets into the sample buffer (length SAMPLE_LENGTH): complex b, T_xx, T_yy, T_xy as re, im pairs. */
+export const S_B = 0, S_TXX = 2, S_TYY = 4, S_TXY = 6, SAMPLE_LENGTH = 8;
+
+export interface Scene {
+  polarization: ScenePolarization;
+  /** relative permittivity and permeability of the (lossless, isotropic) background */
+  background: { eps: number; mu: number };
+  /** box outside which everything is background, metres */
+  bounds: { minX: number; maxX: number; minY: number; maxY: number };
+  /**
+   * Material at a point: writes b, T_xx, T_yy, T_xy (re, im pairs) into out for SAMPLE_MEDIUM and
+   * returns the kind; for SAMPLE_BACKGROUND and SAMPLE_PEC out is left alone.
+   */
+  sample(xM: number, yM: number, out: Float64Array): number;
+}
+
+/** b and the in-plane tensor of the background as the polarization sees it: Ez (ε, μ), Hz (μ, ε). */
+export function backgroundCoefficients(scene: Pick<Scene, "polarization" | "background">): { b: number; t: number } {
+  const { eps, mu } = scene.background;
+  return scene.polarization === "Ez" ? { b: eps, t: mu } : { b: mu, t: eps };
+}
+
+/** A scene with no scatterer at all. */
+export function emptyScene(polarization: ScenePolarization, background: { eps: number; mu: number }): Scene {
+  return { polarization, background, bounds: { minX: 0, maxX: 0, minY: 0, maxY: 0 }, sample: () => SAMPLE_BACKGROUND };
+}
