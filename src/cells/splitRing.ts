@@ -21,7 +21,8 @@
  */
 import type { Complex } from "../core/complex.js";
 import { C0, MU0 } from "./physicalConstants.js";
-import { printedMeanRadiusM, printedRingCircuit, printedRingDampingRadPerS, solvePrintedRing, type PrintedRingCircuit } from "./printedRing.js";
+import { printedMeanRadiusM, printedRingCircuit, printedRingDampingRadPerS, type PrintedRingCircuit } from "./printedRing.js";
+import { solvePrintedRing } from "./printedRingDesign.js";
 import { skinDepthM, stripEffectiveThicknessM } from "./skinDepth.js";
 import { toleranceBand, type ToleranceBand } from "./toleranceBand.js";
 
@@ -233,7 +234,7 @@ export const ringStyleFor = (input: SplitRingDesignInput): RingStyle =>
  * Ring geometry for a target μ' at the design frequency, in the style of ringStyleFor(input).
  * Printed: strip width and separation held at makeable sizes, the ring radius (or, when the
  * radius is given, the separation) solved so that Re μ (loss included) meets the target — see
- * solvePrintedRing. Split cylinders: choose r (hence F), put the lossless resonance where
+ * solvePrintedRing (printedRingDesign.ts). Split cylinders: choose r (hence F), put the lossless resonance where
  * μ'(f) = target, then pick the inter-ring gap d that tunes the rings there; the achieved μ
  * includes the metal loss, so Re μ differs slightly from the target.
  */
