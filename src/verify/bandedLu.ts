@@ -76,9 +76,10 @@ export function factorBanded(m: BandMatrix, onProgress?: (fraction: number) => v
       if (ar === 0 && ai === 0) continue;
       const lr = ar * ipr - ai * ipi, li = ar * ipi + ai * ipr;
       re[e] = lr; im[e] = li;
-      for (let c = k + 1; c <= last; c++) {
-        const ur = re[kRow + c], ui = im[kRow + c];
-        const o = rRow + c;
+      // row r −= l · row k over columns k+1 … last (contiguous in both rows)
+      const end = kRow + last + 1;
+      for (let kk = kRow + k + 1, o = rRow + k + 1; kk < end; kk++, o++) {
+        const ur = re[kk], ui = im[kk];
         re[o] -= lr * ur - li * ui;
         im[o] -= lr * ui + li * ur;
       }

@@ -9,7 +9,7 @@
  */
 import { InputError } from "../core/errors.js";
 import { assembleOperator, nodeOrder } from "./assemble.js";
-import { factorBanded, solveFactored } from "./bandedLu.js";
+import { factorSymBanded, solveSymFactored } from "./bandedLdlt.js";
 import type { FdfdGrid } from "./fdfdGrid.js";
 import { gridCoefficients, type GridCoefficients } from "./gridCoefficients.js";
 import { pmlStretch, type PmlStretch } from "./pml.js";
@@ -29,15 +29,16 @@ export interface LinearSolution {
  */
 export function solveLinear(g: FdfdGrid, c: GridCoefficients, stretch: PmlStretch | null, k0: number, fRe: Float64Array, fIm: Float64Array, holdZero: Uint8Array | null, onProgress?: (fraction: number) => void): LinearSolution {
   const order = nodeOrder(g);
-  const m = assembleOperator(g, c, stretch, k0, order, holdZero);
-  const lu = factorBanded(m, onProgress);
+  const n = g.nx * g.ny;
+  const f2Re = fRe.slice(), f2Im = fIm.slice();
+  const m = assembleOperator(g, c, stretch, k0, order, holdZero, f2Re, f2Im);
+  const lu = factorSymBanded(m, onProgress);
   if (!lu.ok) {
     throw new InputError({ where: "verify solver", message: `the field equations are singular at unknown ${lu.badRow} (zero pivot); try another resolution or margin` });
   }
-  const n = g.nx * g.ny;
   const bRe = new Float64Array(n), bIm = new Float64Array(n);
-  for (let id = 0; id < n; id++) { bRe[order.row[id]] = fRe[id]; bIm[order.row[id]] = fIm[id]; }
-  solveFactored(m, bRe, bIm);
+  for (let id = 0; id < n; id++) { bRe[order.row[id]] = f2Re[id]; bIm[order.row[id]] = f2Im[id]; }
+  solveSymFactored(m, bRe, bIm);
   const re = new Float64Array(n), im = new Float64Array(n);
   for (let id = 0; id < n; id++) { re[id] = bRe[order.row[id]]; im[id] = bIm[order.row[id]]; }
   return { re, im, pivotRatio: lu.pivotRatio };

@@ -14,4 +14,5 @@ export const COMMANDS: Record<string, { summary: string; load: () => Promise<Com
   reduce: { summary: "compare tensor simplifications per polarization, or apply one per cell", load: () => import("./reduce.js").then((m) => m.command) },
   start: { summary: "plan a built-in demo design and show where the outputs are", load: () => import("./start.js").then((m) => m.command) },
   session: { summary: "interactive session: compare schemes, explore maps, tune levels and export (needs a terminal)", load: () => import("./session.js").then((m) => m.command) },
+  verify: { summary: "2D full-wave check: ideal vs reduced vs realized material maps under a plane wave", load: () => import("./verify.js").then((m) => m.command) },
 };

@@ -1,0 +1,70 @@
+/**
+ * A device's material as the FDFD check sees it: per device cell, the out-of-plane constant b and
+ * the in-plane tensor T (Ez: ε_zz and μ_xx, μ_yy, μ_xy; Hz: μ_zz and ε_xx, ε_yy, ε_xy), real parts,
+ * plus which cells had no value (those are filled with the background and counted).
+ * Built from a reduced field (ideal = scheme `full`, reduced = the chosen scheme) or from a plan's
+ * achieved per-cell values (realized).
+ */
+import type { Plan } from "../plan/planTypes.js";
+import type { ReducedField } from "../reduce/reducedField.js";
+
+export interface MaterialMap {
+  b: Float64Array;
+  txx: Float64Array;
+  tyy: Float64Array;
+  txy: Float64Array;
+  /** cells that carry no value and were set to the background */
+  missing: number;
+}
+
+/** The map of a reduced field (Ez or Hz). Undefined cells (NaN components) become background (b_bg, t_bg). */
+export function mapFromReduced(reduced: ReducedField, background: { b: number; t: number }): MaterialMap {
+  const ez = reduced.polarization === "Ez";
+  const comp = reduced.components;
+  const src = ez ? [comp.eps_zz, comp.mu_xx, comp.mu_yy, comp.mu_xy] : [comp.mu_zz, comp.eps_xx, comp.eps_yy, comp.eps_xy];
+  if (src.some((a) => a === undefined)) throw new RangeError(`mapFromReduced: expected a ${reduced.polarization} reduction`);
+  const n = reduced.count;
+  const m: MaterialMap = { b: new Float64Array(n), txx: new Float64Array(n), tyy: new Float64Array(n), txy: new Float64Array(n), missing: 0 };
+  for (let c = 0; c < n; c++) {
+    const ok = Number.isFinite(src[0][c]) && Number.isFinite(src[1][c]) && Number.isFinite(src[2][c]) && Number.isFinite(src[3][c]);
+    if (!ok) { m.b[c] = background.b; m.txx[c] = background.t; m.tyy[c] = background.t; m.txy[c] = 0; m.missing++; continue; }
+    m.b[c] = src[0][c]; m.txx[c] = src[1][c]; m.tyy[c] = src[2][c]; m.txy[c] = src[3][c];
+  }
+  return m;
+}
+
+/**
+ * The realized map of a plan: each cell takes its level's recipe's achieved values — out-of-plane
+ * value, smaller and larger in-plane principal values — with the larger one along the cell's
+ * principal axis (angle θ from x): T = λ1 I + (λ2 − λ1) e eᵀ, e = (cos θ, sin θ). Cells whose level
+ * has no recipe are set to the background (nothing can be built there) and counted.
+ */
+export function mapFromPlan(plan: Plan, background: { b: number; t: number }): MaterialMap {
+  const n = plan.grid.count;
+  const m: MaterialMap = { b: new Float64Array(n), txx: new Float64Array(n), tyy: new Float64Array(n), txy: new Float64Array(n), missing: 0 };
+  for (let c = 0; c < n; c++) {
+    const l = plan.level[c];
+    const recipe = l >= 0 ? plan.levels[l]?.recipe ?? null : null;
+    if (!recipe) { m.b[c] = background.b; m.txx[c] = background.t; m.tyy[c] = background.t; m.txy[c] = 0; m.missing++; continue; }
+    const [z, l1, l2] = recipe.achieved;
+    const th = plan.axisAngleRad[c];
+    const co = Math.cos(th), si = Math.sin(th), d = l2 - l1;
+    m.b[c] = z;
+    m.txx[c] = l1 + d * co * co;
+    m.tyy[c] = l1 + d * si * si;
+    m.txy[c] = d * co * si;
+  }
+  return m;
+}
+
+/** Largest local index over the map: max over cells of sqrt(|b| · largest |principal value of T|). */
+export function largestIndex(m: MaterialMap): number {
+  let best = 0;
+  for (let c = 0; c < m.b.length; c++) {
+    const a = m.txx[c], d = m.tyy[c], x = m.txy[c];
+    const lam = Math.abs((a + d) / 2) + Math.sqrt(((a - d) / 2) ** 2 + x * x);
+    const n = Math.sqrt(Math.abs(m.b[c]) * lam);
+    if (n > best) best = n;
+  }
+  return best;
+}
