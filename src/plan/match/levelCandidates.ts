@@ -202,39 +202,79 @@ function mixed(
   });
 }
 
-/** Split rings in a host: μ along the ring axis from the ring design, ε from the host. */
+/**
+ * Split rings printed on boards of `host` standing in air (when a gas is allowed; otherwise the
+ * board fills the cell), one board per cell row, the ring axis
+ * along the magnetic component's principal direction (so the boards lie across it). The field
+ * components the polarization needs in ε all lie in the board plane (Ez: ε_z with the ring axis in
+ * the plane; Hz: the in-plane ε with the ring axis along z), so the cell's ε is the parallel
+ * (Wiener) mix of board and air, and the board thickness t = f·a is chosen to match the ε target:
+ * f = (ε_t − 1)/(ε_board − 1), kept between the process's smallest feature and the whole cell
+ * (Wiener 1912; exact for a laminate). The rings' own electric response is neglected (stated in
+ * the report's assumptions). μ along the ring axis comes from designSplitRing (printed rings on
+ * that board, sized within the process limits).
+ */
 function splitRing(
   s: LevelSearch, target: number[], ctx: MatchContext, family: CellFamily, lattice: Lattice,
   host: EvaluatedMaterial, metal: EvaluatedMaterial, mk: number, epsIdx: number[],
 ): void {
   const comps = ctx.components;
+  const a = ctx.pitchM;
   const sigma = metal.material.conductivitySPerM ?? 2 * Math.PI * ctx.frequencyHz * 8.8541878128e-12 * metal.eps.im;
-  const design = designSplitRing({ pitchM: ctx.pitchM, frequencyHz: ctx.frequencyHz, targetMu: target[mk], conductivitySPerM: sigma, hostEpsRe: host.eps.re });
+  // board fill from the ε target(s): geometric mean when two in-plane values are asked for
+  const epsTarget = epsIdx.length ? Math.exp(epsIdx.reduce((acc, k) => acc + Math.log(Math.max(target[k], 1e-6)), 0) / epsIdx.length) : host.eps.re;
+  // boards stand in the allowed gas (air) when there is one; otherwise the board fills the cell
+  const gas = ctx.materials.find((m) => m.material.class === "gas");
+  const around = gas ? gas.eps : null;
+  const minBoardM = Math.max(ctx.process?.minFeatureM ?? 0, a / 50);
+  const boardFill = around && host.eps.re > around.re
+    ? Math.min(1, Math.max(minBoardM / a, (epsTarget - around.re) / (host.eps.re - around.re)))
+    : 1;
+  const boardThicknessM = boardFill * a;
+  const cellEps: Complex = around
+    ? { re: boardFill * host.eps.re + (1 - boardFill) * around.re, im: boardFill * host.eps.im + (1 - boardFill) * around.im }
+    : host.eps;
+  const design = designSplitRing({
+    pitchM: a,
+    frequencyHz: ctx.frequencyHz,
+    targetMu: target[mk],
+    conductivitySPerM: sigma,
+    hostEpsRe: host.eps.re,
+    hostEpsIm: host.eps.im,
+    hostClass: host.material.class,
+    processId: ctx.process?.id,
+    minFeatureM: ctx.process?.minFeatureM,
+    minGapM: ctx.process?.minGapM,
+    boardThicknessM: boardFill < 1 ? boardThicknessM : undefined,
+  });
   if (!design.geometry || !design.response) { refuse(s, design.reasons[0] ?? "no split-ring geometry reaches the target"); return; }
   const g = design.geometry;
   const r = design.response;
-  const achievedC: Complex[] = comps.map((c, k) => (c.kind === "eps" ? host.eps : k === mk ? r.mu : complex(1)));
+  const achievedC: Complex[] = comps.map((c, k) => (c.kind === "eps" ? cellEps : k === mk ? r.mu : complex(1)));
   let err = 0;
   for (let c = 0; c < comps.length; c++) err = Math.max(err, relErr(achievedC[c].re, target[c]));
-  const wall = Math.max(0, ctx.pitchM - 2 * (g.ringRadiusM + 2 * g.ringWidthM + g.ringGapM));
-  const featureM = g.ringWidthM;
-  const gapM = Math.min(g.ringGapM, wall > 0 ? wall : Infinity);
+  const outerRadiusM = g.ringRadiusM + 2 * g.ringWidthM + g.ringGapM; // inner radius + two strips + their separation
+  const wall = Math.max(0, a - 2 * outerRadiusM);
+  const featureM = Math.min(g.ringWidthM, boardThicknessM);
+  const gapM = Math.min(g.ringGapM, wall > 0 ? wall : Infinity, boardFill < 1 ? a - boardThicknessM : Infinity);
   const proc = processReasons(ctx, family, host, metal, featureM, gapM);
   if (proc.length) { refuse(s, `below the process limit: ${proc[0]}`); return; }
   const h = homogenization(ctx, [host.eps]);
   if (h.status === "refuse") { refuse(s, "cell coarser than λ/4 in its densest material"); return; }
   const band = splitRingBandwidth(r, ctx.frequencyHz, target[mk], ctx.tolerance * Math.max(Math.abs(target[mk]), 0.01));
-  const epsDom = epsIdx.length ? achievedC[epsIdx[0]] : host.eps;
+  const epsDom = epsIdx.length ? achievedC[epsIdx[0]] : cellEps;
+  const dims: Record<string, number> = { ringRadiusM: g.ringRadiusM, ringWidthM: g.ringWidthM, ringGapM: g.ringGapM, boardThicknessM };
+  if (g.splitGapM !== undefined) dims.splitGapM = g.splitGapM;
   s.candidates.push({
     family: family.id,
     host: host.material.id,
     inclusion: metal.material.id,
     lattice,
     fillFraction: r.fill,
-    dimensions: dimensionsToColumns({ ringRadiusM: g.ringRadiusM, ringWidthM: g.ringWidthM, ringGapM: g.ringGapM }),
-    achieved: achievedC.map((a) => a.re),
+    dimensions: dimensionsToColumns(dims),
+    achieved: achievedC.map((x) => x.re),
     relError: err,
-    lossTangent: Math.max(host.value.lossTangent, r.mu.re !== 0 ? Math.abs(r.mu.im / r.mu.re) : Infinity),
+    lossTangent: Math.max(cellEps.re !== 0 ? Math.abs(cellEps.im / cellEps.re) : 0, r.mu.re !== 0 ? Math.abs(r.mu.im / r.mu.re) : Infinity),
     indexIm: indexIm(epsDom, r.mu),
     spread: 0,
     bandwidth: band.fractional,
