@@ -110,6 +110,9 @@ export function reportMarkdown(plan: Plan): string {
     "- Each cell is replaced by a uniform effective medium computed with quasi-static mixing rules (Maxwell Garnett, Bruggeman, Wiener laminate bounds). These hold when the cell is much smaller than the wavelength inside it; the plan flags cells coarser than λ/10 in their densest material and refuses cells coarser than λ/4.",
     "- Where Maxwell Garnett and Bruggeman disagree by more than the tolerance, the value is uncertain: verify such cells with a full-wave unit-cell simulation before building.",
     "- Resonant cells (wire media, split rings) follow simple analytic models; their bandwidth and loss are estimates to be confirmed by measurement or simulation.",
+    ...(plan.levels.some((l) => l.recipe?.family === "split-ring")
+      ? ["- Split-ring cells are printed rings (edge-coupled, quasi-static LC model) on boards standing in air, the boards across the ring axis; the cell's permittivity is the board/air laminate and the rings' own electric response is neglected. Neighbouring rings' coupling is not modelled."]
+      : []),
     "- Cells are matched level by level: every cell of a level gets the same recipe, so its error is the quantization error plus the recipe's error.",
     "- The loss figure sums k₀·Im n along straight lattice rows and columns; it ignores reflections and scattering.",
   );
