@@ -13,6 +13,7 @@ import type { Candidate, LevelSearch } from "./match/levelCandidates.js";
 import type { EvaluatedMaterial } from "./match/matchContext.js";
 import type { PlanLevel, PlanSettings, TargetComponent } from "./planTypes.js";
 import { relErr, REL_FLOOR } from "./quantize/relativeError.js";
+import { ROUNDING_TOLERANCE } from "../reduce/reduceCell.js";
 
 export interface FlagInput {
   reduced: ReducedField;
@@ -73,7 +74,7 @@ export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Fl
     if (l < 0 || rf & inp.undefinedFlag) { flags[c] = f | F_NORECIPE; continue; }
     for (const k of epsIdx) {
       const v = targets[k][c];
-      if (v < 1) f |= F_SUBUNITY;
+      if (v < 1 - ROUNDING_TOLERANCE) f |= F_SUBUNITY; // same rounding allowance as the reduction's own count
       if (v < epsLo * (1 - tol) || v > epsHi * (1 + tol)) f |= F_UNREACHABLE;
     }
     for (const k of muIdx) if (relErr(1, targets[k][c]) > tol) f |= F_MAGNETIC;
