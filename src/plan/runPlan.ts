@@ -83,11 +83,12 @@ export function planFromField(
     polarization: settings.polarization,
     scheme: settings.scheme,
     unitAxis: settings.unitAxis,
-    backgroundIndex: settings.backgroundIndex === 1 && !design.reduction?.backgroundIndex ? undefined : settings.backgroundIndex,
+    backgroundIndex: settings.backgroundIndex === 1 ? undefined : settings.backgroundIndex,
     // name the place the choice came from: an override (command line, session) or the design file
     where: {
       polarization: overrides.polarization !== undefined ? "polarization (override)" : `${design.sourcePath}: $.polarization`,
       scheme: overrides.scheme !== undefined ? "scheme (override)" : `${design.sourcePath}: $.reduction.scheme`,
+      backgroundIndex: overrides.backgroundIndex !== undefined ? "background index (override)" : `${design.sourcePath}: $.reduction.backgroundIndex`,
     },
   });
   const ez = settings.polarization === "Ez";

@@ -20,6 +20,25 @@ describe("cellwright plan", () => {
     expect(JSON.parse(await readFile(join(out, "summary.json"), "utf8"))).toEqual(s);
   }, 30_000);
 
+  it("--background-index takes the concentrator out of ε < 1 (the way out its report names)", async () => {
+    // The concentrator demo needs ε below 1 as designed; the reduction reports the smallest
+    // background index that lifts every ε to the floor (n_b = sqrt(floor / min ε)). Planning with
+    // that index must leave no cell flagged subunity.
+    const demo = "demo-designs/plan-concentrator-subunity.json";
+    const r = bufferIo();
+    await runCli(["reduce", demo, "--scheme", "non-magnetic", "--eps-floor", "1", "--json"], r);
+    const nb = JSON.parse(r.out()).minBackgroundIndex as number;
+    expect(nb).toBeGreaterThan(1);
+    const before = bufferIo(), after = bufferIo();
+    await runCli(["plan", demo, "--out", await mkdtemp(join(tmpdir(), "cw-cli-")), "--json"], before);
+    await runCli(["plan", demo, "--out", await mkdtemp(join(tmpdir(), "cw-cli-")), "--json", "--background-index", String(nb)], after);
+    expect(JSON.parse(before.out()).flags.subunity).toBeGreaterThan(0);
+    expect(JSON.parse(after.out()).flags.subunity ?? 0).toBe(0);
+    const bad = bufferIo();
+    expect(await runCli(["plan", demo, "--background-index", "0.5"], bad)).toBe(EXIT_INPUT);
+    expect(bad.err()).toContain("--background-index");
+  }, 60_000);
+
   it("--levels and --tolerance override the design", async () => {
     const out = await mkdtemp(join(tmpdir(), "cw-cli-"));
     const io = bufferIo();

@@ -48,6 +48,12 @@ export function optionOverrides(args: ParsedArgs): PlanOverrides {
     if (!(names as readonly string[]).includes(scheme)) throw new InputError({ where: "--scheme", message: `expected one of ${names.join(", ")}, got '${scheme}'` });
     o.scheme = scheme as (typeof names)[number];
   }
+  const nb = stringOption(args, "background-index");
+  if (nb !== undefined) {
+    const v = Number(nb);
+    if (!(Number.isFinite(v) && v >= 1)) throw new InputError({ where: "--background-index", message: `expected an index of 1 or more, got '${nb}'` });
+    o.backgroundIndex = v;
+  }
   return o;
 }
 
@@ -98,7 +104,7 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
 export const command: Command = {
   name: "plan",
   summary: "plan a device: levels, recipes, flags, build list, report and maps",
-  usage: "plan <design.json> [--out DIR] [--json] [--session FILE] [--levels N] [--tolerance T] [--polarization Ez|Hz] [--scheme NAME]",
+  usage: "plan <design.json> [--out DIR] [--json] [--session FILE] [--levels N] [--tolerance T] [--polarization Ez|Hz] [--scheme NAME] [--background-index N]",
   details: [
     "Reduces the design's field, quantizes the targets into levels, groups cells into regions, finds",
     "a recipe per level and writes build-list.csv, levels.csv, report.md, maps.svg and summary.json.",
@@ -112,6 +118,7 @@ export const command: Command = {
     { name: "tolerance", type: "string", valueName: "T", description: "largest relative error accepted, e.g. 0.03 (overrides the design)" },
     { name: "polarization", type: "string", valueName: "Ez|Hz", description: "polarization the device serves (overrides the design)" },
     { name: "scheme", type: "string", valueName: "NAME", description: "reduction scheme: full, unit-mu, non-magnetic, isotropic, matched" },
+    { name: "background-index", type: "string", valueName: "N", description: "embed the device in a dielectric of index N (overrides the design)" },
   ],
   async run(args: ParsedArgs, io: CliIo): Promise<number> {
     const sessionPath = stringOption(args, "session");
