@@ -60,7 +60,7 @@ export function fieldSvg(g: FdfdGrid, panels: FieldPanel[], mask: Uint8Array, op
     for (const m of means) for (let k = 0; k < m.out.length; k++) if (!m.dev[k]) vmax = Math.max(vmax, m.out[k]);
     vmax = Math.min(vmax || 1, 3);
   }
-  const width = panels.length * panelW + (panels.length + 1) * gap;
+  const width = Math.max(panels.length * panelW + (panels.length + 1) * gap, Math.ceil((options.title?.length ?? 0) * 7.2) + 2 * gap);
   const height = top + panelH + bottom;
   const parts: string[] = [
     `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}" font-family="sans-serif" font-size="12">`,

@@ -17,6 +17,7 @@ import { gridForWindow, type FdfdGrid } from "./fdfdGrid.js";
 import { largestIndex, type MaterialMap } from "./materialMap.js";
 import { crossSections, fluxBox, observationMask, relativeDifference } from "./metrics.js";
 import type { ScenePolarization } from "./scene.js";
+import { formatLength } from "./formatQuantity.js";
 import { solveScene, type SceneSolution } from "./solve.js";
 
 const C0 = 299_792_458;
@@ -120,7 +121,7 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   if (resolution < requested) notes.push(`resolution lowered from ${requested} to ${resolution} points per wavelength to fit the solver's limits`);
   // average several design cells into one grid step when the grid is coarser than the lattice
   const subsamples = Math.min(6, Math.max(3, Math.ceil((2 * g.h) / grid.pitchM)));
-  if (g.h > grid.pitchM) notes.push(`grid step ${(g.h * 1e3).toPrecision(3)} mm is coarser than the cell pitch ${(grid.pitchM * 1e3).toPrecision(3)} mm: cells are averaged (${subsamples}×${subsamples} samples per step)`);
+  if (g.h > grid.pitchM) notes.push(`grid step ${formatLength(g.h)} is coarser than the cell pitch ${formatLength(grid.pitchM)}: cells are averaged (${subsamples}×${subsamples} samples per step)`);
   const k0 = (2 * Math.PI * frequencyHz) / C0;
   const runs: { name: CaseName | "bare"; sol: SceneSolution; missing: number }[] = [];
   const total = cases.length + (hidden ? 1 : 0);

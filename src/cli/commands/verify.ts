@@ -17,6 +17,7 @@ import { planFromField } from "../../plan/runPlan.js";
 import { reduceField } from "../../reduce/reduceField.js";
 import type { HiddenDisk } from "../../verify/deviceScene.js";
 import { fieldSvg } from "../../verify/fieldSvg.js";
+import { formatFrequency, formatLength } from "../../verify/formatQuantity.js";
 import { mapFromPlan, mapFromReduced } from "../../verify/materialMap.js";
 import { DEFAULT_RESOLUTION, verifyDevice, type VerifyResult } from "../../verify/verifyDevice.js";
 import { flagOption, stringOption } from "../args.js";
@@ -69,10 +70,10 @@ export function verifyTable(design: string, scheme: string, r: VerifyResult): st
   const line = (cells: string[]): string => "  " + cells.map((c, k) => (k === 0 ? c.padEnd(widths[k]) : c.padStart(widths[k]))).join("  ");
   return [
     design,
-    `  ${r.polarization}, scheme ${scheme}, ${(r.frequencyHz / 1e9).toPrecision(4)} GHz; grid ${r.grid.nx} × ${r.grid.ny} nodes, step ${(r.grid.h * 1e3).toPrecision(3)} mm (${r.resolution} points per wavelength at index ${r.densestIndex.toPrecision(3)})`,
+    `  ${r.polarization}, scheme ${scheme}, ${formatFrequency(r.frequencyHz)}; grid ${r.grid.nx} × ${r.grid.ny} nodes, step ${formatLength(r.grid.h)} (${r.resolution} points per wavelength at index ${Number(r.densestIndex.toPrecision(3))})`,
     line(head),
     ...rows.map(line),
-    `  σ: scattering width; width = device extent across the beam (${(r.deviceWidthM * 1e3).toPrecision(3)} mm)`,
+    `  σ: scattering width; width = device extent across the beam (${formatLength(r.deviceWidthM)})`,
     ...r.notes.map((n) => `  note: ${n}`),
   ].join("\n") + "\n";
 }

@@ -1,0 +1,99 @@
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import { bandIndex, factorBanded, newBandMatrix, solveFactored } from "../../src/verify/bandedLu.js";
+import { factorSymBanded, newSymBandMatrix, solveSymFactored, symIndex } from "../../src/verify/bandedLdlt.js";
+import { expectClose } from "../helpers/close.js";
+
+/** Dense complex Gaussian elimination with partial pivoting (the textbook algorithm; Golub & Van Loan 2013, Alg. 3.4.1). */
+function denseSolve(aRe: number[][], aIm: number[][], bRe: number[], bIm: number[]): [number[], number[]] {
+  const n = bRe.length;
+  const Ar = aRe.map((r) => r.slice()), Ai = aIm.map((r) => r.slice()), xr = bRe.slice(), xi = bIm.slice();
+  for (let k = 0; k < n; k++) {
+    let p = k;
+    for (let r = k + 1; r < n; r++) if (Math.hypot(Ar[r][k], Ai[r][k]) > Math.hypot(Ar[p][k], Ai[p][k])) p = r;
+    [Ar[k], Ar[p]] = [Ar[p], Ar[k]]; [Ai[k], Ai[p]] = [Ai[p], Ai[k]]; [xr[k], xr[p]] = [xr[p], xr[k]]; [xi[k], xi[p]] = [xi[p], xi[k]];
+    const d2 = Ar[k][k] ** 2 + Ai[k][k] ** 2;
+    for (let r = k + 1; r < n; r++) {
+      const lr = (Ar[r][k] * Ar[k][k] + Ai[r][k] * Ai[k][k]) / d2, li = (Ai[r][k] * Ar[k][k] - Ar[r][k] * Ai[k][k]) / d2;
+      for (let c = k; c < n; c++) { Ar[r][c] -= lr * Ar[k][c] - li * Ai[k][c]; Ai[r][c] -= lr * Ai[k][c] + li * Ar[k][c]; }
+      xr[r] -= lr * xr[k] - li * xi[k]; xi[r] -= lr * xi[k] + li * xr[k];
+    }
+  }
+  for (let r = n - 1; r >= 0; r--) {
+    let sr = xr[r], si = xi[r];
+    for (let c = r + 1; c < n; c++) { sr -= Ar[r][c] * xr[c] - Ai[r][c] * xi[c]; si -= Ar[r][c] * xi[c] + Ai[r][c] * xr[c]; }
+    const d2 = Ar[r][r] ** 2 + Ai[r][r] ** 2;
+    xr[r] = (sr * Ar[r][r] + si * Ai[r][r]) / d2; xi[r] = (si * Ar[r][r] - sr * Ai[r][r]) / d2;
+  }
+  return [xr, xi];
+}
+
+const N = 14, W = 3;
+/** A banded, diagonally weighted complex matrix (so LU without pivoting is stable), optionally symmetric. */
+const bandedEntries = fc.array(fc.double({ min: -1, max: 1, noNaN: true }), { minLength: 2 * N * (2 * W + 1) + 2 * N, maxLength: 2 * N * (2 * W + 1) + 2 * N });
+
+function build(vals: number[], symmetric: boolean): { re: number[][]; im: number[][]; b: [number[], number[]] } {
+  const re = Array.from({ length: N }, () => new Array(N).fill(0)), im = Array.from({ length: N }, () => new Array(N).fill(0));
+  let q = 0;
+  for (let r = 0; r < N; r++) {
+    for (let c = Math.max(0, r - W); c <= Math.min(N - 1, r + W); c++) {
+      const vr = vals[q++], vi = vals[q++];
+      if (symmetric && c < r) continue;
+      re[r][c] = vr; im[r][c] = vi;
+      if (symmetric) { re[c][r] = vr; im[c][r] = vi; }
+    }
+    re[r][r] += 6; // keep it away from singular; the imaginary parts keep it indefinite-complex
+  }
+  const b: [number[], number[]] = [vals.slice(q, q + N), vals.slice(q + N, q + 2 * N)];
+  return { re, im, b };
+}
+
+describe("banded LU and LDLᵀ", () => {
+  it("banded LU matches a dense pivoted solve", () => {
+    fc.assert(fc.property(bandedEntries, (vals) => {
+      const { re, im, b } = build(vals, false);
+      const m = newBandMatrix(N, W);
+      for (let r = 0; r < N; r++) for (let c = Math.max(0, r - W); c <= Math.min(N - 1, r + W); c++) { m.re[bandIndex(m, r, c)] = re[r][c]; m.im[bandIndex(m, r, c)] = im[r][c]; }
+      expect(factorBanded(m).ok).toBe(true);
+      const xr = Float64Array.from(b[0]), xi = Float64Array.from(b[1]);
+      solveFactored(m, xr, xi);
+      const [er, ei] = denseSolve(re, im, b[0], b[1]);
+      expectClose(xr, er, { abs: 1e-11, rel: 1e-10, label: "re" });
+      expectClose(xi, ei, { abs: 1e-11, rel: 1e-10, label: "im" });
+    }), { seed: 42, numRuns: 200 });
+  });
+
+  it("symmetric LDLᵀ matches a dense pivoted solve on complex symmetric matrices", () => {
+    fc.assert(fc.property(bandedEntries, (vals) => {
+      const { re, im, b } = build(vals, true);
+      const m = newSymBandMatrix(N, W);
+      for (let r = 0; r < N; r++) for (let c = Math.max(0, r - W); c <= r; c++) { m.re[symIndex(m, r, c)] = re[r][c]; m.im[symIndex(m, r, c)] = im[r][c]; }
+      expect(factorSymBanded(m).ok).toBe(true);
+      const xr = Float64Array.from(b[0]), xi = Float64Array.from(b[1]);
+      solveSymFactored(m, xr, xi);
+      const [er, ei] = denseSolve(re, im, b[0], b[1]);
+      expectClose(xr, er, { abs: 1e-11, rel: 1e-10, label: "re" });
+      expectClose(xi, ei, { abs: 1e-11, rel: 1e-10, label: "im" });
+    }), { seed: 42, numRuns: 200 });
+  });
+
+  it("reports a zero pivot instead of dividing by it", () => {
+    const m = newSymBandMatrix(3, 1);
+    m.re[symIndex(m, 1, 1)] = 1; m.re[symIndex(m, 2, 2)] = 1; // (0,0) = 0
+    const r = factorSymBanded(m);
+    expect(r.ok).toBe(false);
+    expect(r.badRow).toBe(0);
+    const g = newBandMatrix(2, 1);
+    g.re[bandIndex(g, 1, 1)] = 1;
+    expect(factorBanded(g)).toMatchObject({ ok: false, badRow: 0 });
+  });
+
+  it("1 × 1 system", () => {
+    const m = newSymBandMatrix(1, 0);
+    m.re[0] = 0; m.im[0] = 2;
+    factorSymBanded(m);
+    const xr = Float64Array.of(4), xi = Float64Array.of(0);
+    solveSymFactored(m, xr, xi);
+    expectClose([xr[0], xi[0]], [0, -2], { abs: 1e-15, label: "4 / 2i" });
+  });
+});
