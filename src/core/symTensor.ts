@@ -23,6 +23,22 @@ export function allocSymField(count: number): SymTensorField {
   };
 }
 
+/**
+ * A field for a tensor that is block diagonal in (xy | z) everywhere (2D devices): xz and yz are
+ * one shared array of zeros. Read-only use only for those two components.
+ */
+export function allocPlanarSymField(count: number): SymTensorField {
+  const zero = new Float64Array(count);
+  return {
+    xx: new Float64Array(count),
+    yy: new Float64Array(count),
+    zz: new Float64Array(count),
+    xy: new Float64Array(count),
+    xz: zero,
+    yz: zero,
+  };
+}
+
 /** Copy cell `index` of a field into a packed Float64Array(6) `out`; returns `out`. */
 export function readSym(out: Float64Array, field: SymTensorField, index: number): Float64Array {
   out[XX] = field.xx[index];

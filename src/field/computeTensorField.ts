@@ -8,7 +8,7 @@
  * Source: Pendry, Schurig, Smith, Science 312, 1780 (2006).
  */
 import { InputError, ProgrammerError } from "../core/errors.js";
-import { allocSymField } from "../core/symTensor.js";
+import { allocSymField, allocPlanarSymField } from "../core/symTensor.js";
 import type { TensorField, PointEvaluator } from "./tensorField.js";
 import type { FieldDesign } from "./transformSpec.js";
 import type { Transform } from "./transforms/transform.js";
@@ -61,11 +61,17 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   if (spec.kind === "expression") checkExpressionDerivatives(spec, grid, `${file}: $.transform.virtual`);
 
   const epsB = design.background.eps, muB = design.background.mu, ratio = muB / epsB;
-  const eps = allocSymField(n), mu = allocSymField(n);
+  // Memory (and page faults) dominate at 1e6 cells, so arrays that must be equal are shared:
+  // μ' = (μ_b/ε_b)·ε', hence with μ_b = ε_b every μ array is the ε array; a 2D map (invariant
+  // along z) has ε'_xz = ε'_yz = 0, one zero array serves both. Fields are read-only downstream.
+  const sameMaterial = ratio === 1;
+  const planar = transform.dimension === 2;
+  const eps = planar ? allocPlanarSymField(n) : allocSymField(n);
+  const mu = sameMaterial ? eps : planar ? allocPlanarSymField(n) : allocSymField(n);
   const detJ = new Float64Array(n);
   const epsPrincipal: [Float64Array, Float64Array, Float64Array] = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
-  const muPrincipal: [Float64Array, Float64Array, Float64Array] = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
-  const epsAnisotropy = new Float64Array(n), muAnisotropy = new Float64Array(n);
+  const muPrincipal: [Float64Array, Float64Array, Float64Array] = sameMaterial ? epsPrincipal : [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
+  const epsAnisotropy = new Float64Array(n), muAnisotropy = sameMaterial ? epsAnisotropy : new Float64Array(n);
   const capped = new Uint8Array(n);
   const cap = spec.cap ?? null;
   const offset = "innerOffsetM" in spec && spec.innerOffsetM !== undefined && spec.innerOffsetM > 0 && transform.clampToInnerOffset
@@ -114,12 +120,16 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
       if (capPrincipal(te, ve, cap)) flagged = 1;
       if (capPrincipal(tm, vm, cap)) flagged = 1;
     }
-    exx[c] = te[0]; eyy[c] = te[1]; ezz[c] = te[2]; exy[c] = te[3]; exz[c] = te[4]; eyz[c] = te[5];
-    mxx[c] = tm[0]; myy[c] = tm[1]; mzz[c] = tm[2]; mxy[c] = tm[3]; mxz[c] = tm[4]; myz[c] = tm[5];
+    exx[c] = te[0]; eyy[c] = te[1]; ezz[c] = te[2]; exy[c] = te[3];
+    if (!planar) { exz[c] = te[4]; eyz[c] = te[5]; }
     ep0[c] = ve[0]; ep1[c] = ve[1]; ep2[c] = ve[2];
-    mp0[c] = vm[0]; mp1[c] = vm[1]; mp2[c] = vm[2];
     epsAnisotropy[c] = ve[2] / ve[0];
-    muAnisotropy[c] = vm[2] / vm[0];
+    if (!sameMaterial) {
+      mxx[c] = tm[0]; myy[c] = tm[1]; mzz[c] = tm[2]; mxy[c] = tm[3];
+      if (!planar) { mxz[c] = tm[4]; myz[c] = tm[5]; }
+      mp0[c] = vm[0]; mp1[c] = vm[1]; mp2[c] = vm[2];
+      muAnisotropy[c] = vm[2] / vm[0];
+    }
     capped[c] = flagged;
   }
   if (badCount > 0) {

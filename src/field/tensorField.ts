@@ -20,6 +20,10 @@ export interface BoundarySamples {
  */
 export type PointEvaluator = (xM: number, yM: number, zM: number, epsOut: Float64Array, muOut: Float64Array) => number;
 
+/**
+ * Treat every array of a TensorField as read-only: the engine shares arrays that must be equal
+ * (μ' with ε' when μ_b = ε_b; the zero xz/yz components of a 2D device).
+ */
 export interface TensorField {
   /** transform kind, or "imported" */
   source: string;

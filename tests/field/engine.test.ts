@@ -149,3 +149,19 @@ describe("device grid", () => {
     expect(() => computeTensorField(d)).toThrow(/c\.json: \$\.grid: no cell centre/);
   });
 });
+
+describe("shared arrays (memory at 1e6 cells)", () => {
+  it("a 2D map in vacuum shares μ' with ε' (μ' = (μ_b/ε_b) ε') and one zero array for xz, yz", async () => {
+    const d = await parseDesign({ name: "t", frequency: "10 GHz", transform: { kind: "radial-cloak", innerRadius: "20 mm", outerRadius: "50 mm" }, grid: { pitch: "5 mm" } }, "t.json");
+    const f = computeTensorField(d);
+    expect(f.mu).toBe(f.eps);
+    expect(f.eps.xz).toBe(f.eps.yz);
+    expect(f.eps.xz.every((v) => v === 0)).toBe(true);
+    // a magnetic background keeps separate μ arrays, scaled by μ_b/ε_b
+    const d2 = await parseDesign({ name: "t", frequency: "10 GHz", background: { eps: 2, mu: 3 }, transform: { kind: "radial-cloak", innerRadius: "20 mm", outerRadius: "50 mm" }, grid: { pitch: "5 mm" } }, "t.json");
+    const f2 = computeTensorField(d2);
+    expect(f2.mu.xx).not.toBe(f2.eps.xx);
+    const every7 = (a: Float64Array) => Array.from(a).filter((_, c) => c % 7 === 0);
+    expectClose(every7(f2.mu.xx), every7(f2.eps.xx).map((v) => 1.5 * v), { rel: 1e-12, label: "μ'_xx = 1.5 ε'_xx" });
+  });
+});
