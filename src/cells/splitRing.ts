@@ -215,6 +215,11 @@ export interface SplitRingDesignInput {
   boardThicknessM?: number;
   stackSpacingM?: number;
   metalThicknessM?: number;
+  /**
+   * printed only: when no ring reaches the target, work out what would (pitch, board ε) for the
+   * reason — costs tens of milliseconds; callers searching many hosts pass false (default true)
+   */
+  diagnose?: boolean;
 }
 
 export interface SplitRingDesign {
@@ -248,6 +253,7 @@ function designPrinted(input: SplitRingDesignInput): SplitRingDesign {
   const sol = solvePrintedRing(
     { ...input, epsSub: eps.re },
     (g, epsSub) => splitRingResponse({ ...g, ringStyle: "printed" }, input.conductivitySPerM, input.frequencyHz, { re: epsSub, im: eps.im }).mu,
+    input.diagnose ?? true,
   );
   if (!sol.geometry) return { geometry: null, response: null, reasons: sol.reasons, notes: sol.notes };
   const geometry: SplitRingGeometry = { ringStyle: "printed", ...sol.geometry };

@@ -140,6 +140,7 @@ export function planFromField(
     frequencyHz: f,
     tolerance: settings.tolerance,
     materials,
+    materialsChosen: settings.materials !== null,
     families,
     lattice: settings.lattice,
     process: settings.process === null ? null : catalogs.processes.find((p) => p.id === settings.process)!,

@@ -32,6 +32,7 @@ function ctx(over: Partial<MatchContext> & { materialIds: string[]; familyIds: s
     frequencyHz: 10e9,
     tolerance: 0.05,
     materials: evaluateMaterials(materials, materialIds, 10e9),
+    materialsChosen: true,
     families: CELL_FAMILIES.filter((f) => familyIds.includes(f.id)),
     lattice: "square",
     process: null,
@@ -71,6 +72,20 @@ describe("recipe choice", () => {
     const ok = levelCandidates([3, 1, 1], coarse).candidates;
     expect(ok.length).toBeGreaterThan(0);
     for (const r of ok) expect(r.featureM).toBeGreaterThanOrEqual(Math.min(mill.minFeatureM, mill.minGapM));
+  });
+
+  it("prints split rings on boards: with the whole catalog allowed, only laminates host them", () => {
+    // μ_r = 0.2 at 8.5 GHz in 2.5 mm cells (a reduced-cloak value, Schurig et al. 2006); ε_z = 2.94
+    const base = { familyIds: ["split-ring"], lattice: null, pitchM: 2.5e-3, frequencyHz: 8.5e9 } as const;
+    const any = ctx({ ...base, materialIds: ["alumina-96", "ptfe-ceramic-10", "copper", "air"], materialsChosen: false });
+    const hosts = new Set(levelCandidates([2.94, 0.2, 1], any).candidates.map((r) => r.host));
+    expect([...hosts]).toEqual(["ptfe-ceramic-10"]);
+    const noBoard = levelCandidates([2.94, 0.2, 1], ctx({ ...base, materialIds: ["alumina-96", "copper", "air"], materialsChosen: false }));
+    expect(noBoard.candidates.length).toBe(0);
+    expect([...noBoard.refusals.keys()].some((r) => r.includes("board"))).toBe(true);
+    // a design that names a ceramic gets rings printed on it
+    const named = ctx({ ...base, materialIds: ["alumina-96", "copper", "air"], materialsChosen: true });
+    expect(levelCandidates([2.94, 0.2, 1], named).candidates.map((r) => r.host)).toContain("alumina-96");
   });
 
   it("uses resonant families only where needed", () => {

@@ -69,7 +69,14 @@ export function levelCandidates(target: number[], ctx: MatchContext): LevelSearc
     if (family.id === "split-ring") {
       if (magneticIdx.length === 0) continue; // resonant: only where needed
       if (magneticIdx.length > 1) { refuse(search, "split rings give μ ≠ 1 along one axis only; two magnetic components are asked for"); continue; }
-      for (const lattice of lattices) for (const host of solids) for (const metal of metals) splitRing(search, target, ctx, family, lattice, host, metal, magneticIdx[0], epsIdx);
+      // Printed rings go on boards: unless the design names its materials, only laminates host them.
+      const boards = ctx.materialsChosen ? solids : solids.filter((m) => m.material.class === "laminate");
+      if (boards.length === 0) { refuse(search, "split rings need a board (a laminate) to be printed on"); continue; }
+      let first = true; // explain a miss in numbers once per level (it costs a search of its own)
+      for (const lattice of lattices) for (const host of boards) for (const metal of metals) {
+        splitRing(search, target, ctx, family, lattice, host, metal, magneticIdx[0], epsIdx, first);
+        first = false;
+      }
       continue;
     }
     if (magneticIdx.length > 0) { refuse(search, `${family.id} cannot give μ ≠ 1`); continue; }
@@ -216,7 +223,7 @@ function mixed(
  */
 function splitRing(
   s: LevelSearch, target: number[], ctx: MatchContext, family: CellFamily, lattice: Lattice,
-  host: EvaluatedMaterial, metal: EvaluatedMaterial, mk: number, epsIdx: number[],
+  host: EvaluatedMaterial, metal: EvaluatedMaterial, mk: number, epsIdx: number[], diagnose: boolean,
 ): void {
   const comps = ctx.components;
   const a = ctx.pitchM;
@@ -246,6 +253,7 @@ function splitRing(
     minFeatureM: ctx.process?.minFeatureM,
     minGapM: ctx.process?.minGapM,
     boardThicknessM: boardFill < 1 ? boardThicknessM : undefined,
+    diagnose,
   });
   if (!design.geometry || !design.response) { refuse(s, design.reasons[0] ?? "no split-ring geometry reaches the target"); return; }
   const g = design.geometry;

@@ -22,6 +22,8 @@ export interface MatchContext {
   frequencyHz: number;
   tolerance: number;
   materials: EvaluatedMaterial[];
+  /** true when the design (or an override) names the allowed materials; false: the whole catalog */
+  materialsChosen: boolean;
   families: CellFamily[];
   /** required lattice, or null for any the family supports */
   lattice: Lattice | null;
