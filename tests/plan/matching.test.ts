@@ -76,7 +76,7 @@ describe("recipe choice", () => {
 
   it("prints split rings on boards: with the whole catalog allowed, only laminates host them", () => {
     // μ_r = 0.2 at 8.5 GHz in 2.5 mm cells (a reduced-cloak value, Schurig et al. 2006); ε_z = 2.94
-    const base = { familyIds: ["split-ring"], lattice: null, pitchM: 2.5e-3, frequencyHz: 8.5e9 } as const;
+    const base = { familyIds: ["split-ring"], lattice: null, pitchM: 2.5e-3, frequencyHz: 8.5e9 };
     const any = ctx({ ...base, materialIds: ["alumina-96", "ptfe-ceramic-10", "copper", "air"], materialsChosen: false });
     const hosts = new Set(levelCandidates([2.94, 0.2, 1], any).candidates.map((r) => r.host));
     expect([...hosts]).toEqual(["ptfe-ceramic-10"]);
