@@ -147,5 +147,6 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     capValue: cap,
     outerBoundary: transform.sampleOuterBoundary(BOUNDARY_SAMPLES),
     evaluateAt: pointEvaluator(transform, epsB, muB),
+    volumeDevice: transform.dimension === 3,
   };
 }

@@ -46,6 +46,8 @@ export interface TensorField {
   capValue: number | null;
   /** samples of the device's outer boundary (null when unknown, e.g. imported fields) */
   outerBoundary: BoundarySamples | null;
+  /** true when the transform is a volume (3D) device, even if only its z = 0 slice was gridded */
+  volumeDevice?: boolean;
   /** exact evaluation at any point (null for imported fields) */
   evaluateAt: PointEvaluator | null;
 }

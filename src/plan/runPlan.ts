@@ -3,6 +3,7 @@
  * flags → device-level figures. Pure (no files, no clock); the command line and the interactive
  * session both call `planFromField`.
  */
+import { isVolumeDevice } from "../field/isVolumeDevice.js";
 import { InputError, unknownWithSuggestion, type InputIssue } from "../core/errors.js";
 import { sym2MajorAngle } from "../core/eigen.js";
 import { CELL_FAMILIES } from "../cells/registry.js";
@@ -73,7 +74,8 @@ export function planFromField(
   checkIds(design, settings, catalogs);
   const grid = field.grid;
   if (grid.count === 0) throw new InputError({ where: `${design.sourcePath}: $.transform`, message: "the device region holds no cell of the grid; check the region and the pitch" });
-  if (grid.dimension === 3) throw new InputError({ where: `${design.sourcePath}: $.grid`, message: "the planner builds 2D devices (invariant along z); plan a 2D slice instead" });
+  if (grid.dimension === 3) throw new InputError({ where: `${design.sourcePath}: $.grid`, message: "the planner builds 2D devices (invariant along z); a 3D grid cannot be planned" });
+  if (isVolumeDevice(field)) throw new InputError({ where: `${design.sourcePath}: $.transform`, message: `the planner builds 2D devices (invariant along z); a ${design.transform.kind} is a 3D device, and its z = 0 slice is not invariant along z` });
   const n = grid.count;
   const f = design.frequencyHz;
 

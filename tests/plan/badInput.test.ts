@@ -27,6 +27,18 @@ const bend = {
 };
 
 describe("plan with bad or impossible input", () => {
+  it("refuses a 3D device, even its z = 0 slice (not invariant along z), and writes nothing", async () => {
+    const dir = await mkdtemp(join(tmpdir(), "cw-bad-"));
+    const out = join(dir, "out");
+    for (const grid of [{ pitch: "5 mm" }, { pitch: "2.5 mm", slice: true }]) {
+      const p = await designFile(dir, { name: "sphere", frequency: "8 GHz", transform: { kind: "spherical-cloak", innerRadius: "15 mm", outerRadius: "35 mm" }, grid });
+      const io = bufferIo();
+      expect(await runCli(["plan", p, "--out", out], io)).toBe(EXIT_INPUT);
+      expect(io.err()).toContain("2D devices");
+      await expect(readdir(out)).rejects.toThrow();
+    }
+  });
+
   it("still writes a complete report when no recipe is feasible anywhere (exit 2)", async () => {
     const dir = await mkdtemp(join(tmpdir(), "cw-bad-"));
     // PTFE (ε' 2.05) with air cannot reach ε ≥ 2.05·1.05 … the targets here are 1.49–1.88, so

@@ -3,10 +3,10 @@
  * [--at X,Y] [--out reduced.csv] [--json]`: compare the ways of simplifying a design's tensors for
  * one polarization, or give one scheme's per-cell values.
  */
+import { isVolumeDevice } from "../../field/isVolumeDevice.js";
 import { resolve } from "node:path";
 import { InputError } from "../../core/errors.js";
 import type { TensorField } from "../../field/tensorField.js";
-import { makeTransform } from "../../field/transforms/registry.js";
 import type { Design } from "../../io/design/designSchema.js";
 import { loadDesign } from "../../io/design/loadDesign.js";
 import { loadFieldForDesign } from "../../io/fieldCsv.js";
@@ -44,10 +44,6 @@ async function parsePoint(text: string): Promise<number[]> {
 }
 
 /** A design is three-dimensional when its grid is, or its transform is (a z = 0 slice of a sphere is not z-invariant). */
-function isThreeDimensional(design: Design, field: TensorField): boolean {
-  if (field.grid.dimension === 3) return true;
-  return design.transform.kind !== "imported" && makeTransform(design.transform).dimension === 3;
-}
 
 /** Lowest ε' among the design's chosen materials at its frequency (ε' > 0), or null. */
 async function materialsFloor(design: Design): Promise<{ eps: number; id: string } | null> {
@@ -181,7 +177,7 @@ export const command: Command = {
     const field = await loadFieldForDesign(design);
     const file = design.sourcePath;
     const spec = design.reduction;
-    const three = isThreeDimensional(design, field);
+    const three = isVolumeDevice(field);
 
     let polarization: Polarization;
     let wherePol: string;

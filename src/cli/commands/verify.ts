@@ -4,9 +4,9 @@
  * plane wave along +x with the FDFD solver of src/verify; prints scattering widths and field errors,
  * and with --out writes an SVG of |field| for the cases.
  */
+import { isVolumeDevice } from "../../field/isVolumeDevice.js";
 import { resolve } from "node:path";
 import { InputError } from "../../core/errors.js";
-import { makeTransform } from "../../field/transforms/registry.js";
 import { writeFileAtomic } from "../../io/atomicWrite.js";
 import { loadDesign } from "../../io/design/loadDesign.js";
 import { loadFieldForDesign } from "../../io/fieldCsv.js";
@@ -108,7 +108,7 @@ export const command: Command = {
     const marginM = marginText === undefined ? undefined : await parseQuantity(marginText, "length", "--margin");
     const design = await loadDesign(designPath, io.cwd);
     const field = await loadFieldForDesign(design);
-    const is3d = field.grid.dimension === 3 || (design.transform.kind !== "imported" && makeTransform(design.transform).dimension === 3);
+    const is3d = isVolumeDevice(field);
     if (is3d) throw new InputError({ where: `${design.sourcePath}: $.transform`, message: "the full-wave check is two-dimensional (devices invariant along z); a 3D design cannot be verified" });
     const progress = (text: string): void => io.stderr(`… ${text}\n`);
     progress("plan (for the realized map)");
