@@ -51,6 +51,19 @@ describe("cellwright session without a terminal", () => {
   });
 });
 
+describe("a session on a design with mistakes", () => {
+  it("reports every mistake before the screen opens, exit 1, as plan would", async () => {
+    const dir = await mkdtemp(join(tmpdir(), "cw-sess-bad-"));
+    const bad = join(dir, "bad.json");
+    await (await import("node:fs/promises")).writeFile(bad, JSON.stringify({ name: "x", frequency: "10 mm", transform: { kind: "rotator", innerRadius: "1 mm" }, grid: { pitch: "1 mm" } }));
+    const io = { ...bufferIo(dir), isTTY: true };
+    const code = await runCli(["session", bad, "--out", join(dir, "out")], io);
+    expect(code).toBe(1);
+    expect(io.err()).toContain("$.frequency");
+    expect(io.err()).toContain("$.transform.outerRadius");
+  });
+});
+
 describe("where a session starts", () => {
   it("opens the built-in demo when no design is given", async () => {
     const dir = await mkdtemp(join(tmpdir(), "cw-sess-"));

@@ -8,6 +8,7 @@ import { existsSync } from "node:fs";
 import { join, resolve } from "node:path";
 import { InputError } from "../../core/errors.js";
 import { loadSessionFile, SESSION_FILE_NAME, type SessionView } from "../../io/sessionFile.js";
+import { loadDesign } from "../../io/design/loadDesign.js";
 import type { PlanOverrides } from "../../plan/planTypes.js";
 import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
@@ -99,6 +100,8 @@ export const command: Command = {
     }
     const start = await sessionStart(args, io);
     if (!existsSync(start.designPath)) throw new InputError({ where: start.designPath, message: "design file not found" });
+    // A design with mistakes is reported in full before the screen opens, as `plan` would.
+    await loadDesign(start.designPath, io.cwd);
     const { runSession } = await import("../../tui/runSession.js");
     const { unsaved } = await runSession({ ...start, cwd: io.cwd });
     io.stderr(
