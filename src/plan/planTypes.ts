@@ -71,6 +71,12 @@ export interface Recipe {
   /** inclusion material id ("" for families of one material, e.g. holes-in-slab uses air) */
   inclusion: string;
   lattice: LatticeName;
+  /**
+   * Which way the recipe points, for anisotropic families: the axis of rods, holes, wires and
+   * split rings, or a laminate's layer normal — "z", or the in-plane principal axis "1" (smaller
+   * target) or "2" (larger target, at axis_deg from +x). null for isotropic families.
+   */
+  orientation: "z" | "1" | "2" | null;
   fillFraction: number;
   /** named dimensions with their unit in the key: { radius_m: 0.0012, wall_m: 0.0003 } */
   dimensions: Record<string, number>;

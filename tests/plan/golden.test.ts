@@ -28,7 +28,7 @@ describe("golden build list of a small design", () => {
     const header = golden.split("\n")[0];
     expect(header).toBe(
       "cell,i,j,x_m,y_m,axis_deg,region,level,target_eps_z,target_mu_1,target_mu_2,achieved_eps_z,achieved_mu_1,achieved_mu_2," +
-        "rel_error,quantization_error,family,host,inclusion,lattice,fill_fraction,width_m,loss_tangent,flags",
+        "rel_error,quantization_error,family,host,inclusion,lattice,orientation,fill_fraction,width_m,loss_tangent,flags",
     );
     expect(text).toBe(golden);
     const rows: Record<string, string>[] = parse(golden, { columns: true });

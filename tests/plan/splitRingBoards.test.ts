@@ -48,6 +48,8 @@ describe("split rings on boards in air (mast cloak demo)", () => {
       const t = Number(l.target_mu_1), got = Number(l.achieved_mu_1);
       expect(Math.abs(got - t) / Math.max(Math.abs(t), 0.01), `level ${l.level} μ_1`).toBeLessThanOrEqual(demo.realization.tolerance);
       expect(Number(l.achieved_mu_2)).toBe(1);
+      // the ring axis lies along the magnetic component: μ_1, the smaller in-plane principal value (μ_r)
+      expect(l.orientation).toBe("along_1");
       // the process limit (PCB etching, 0.1 mm) is respected by every printed size
       for (const k of ["ring_width_m", "ring_gap_m", "board_thickness_m"]) expect(Number(l[k]), k).toBeGreaterThanOrEqual(0.1e-3 * (1 - 1e-9));
       expect(Number(l.bandwidth)).toBeGreaterThan(0);

@@ -23,7 +23,6 @@ import { mixingSpread } from "./mixingSpread.js";
 export interface Candidate extends Recipe {
   /** "ok" or "warn" (λ/10 … λ/4) */
   homogenization: "ok" | "warn";
-  orientation: Direction;
 }
 
 export interface LevelSearch {
@@ -205,7 +204,7 @@ function mixed(
     score: 0,
     notes: [],
     homogenization: h.status,
-    orientation: o,
+    orientation: family.isotropic ? null : o,
   });
 }
 

@@ -4,9 +4,10 @@
  * whole text in memory.
  *
  * Columns: cell, i, j, [k,] x_m, y_m, [z_m,] axis_deg, region, level, target_<c>…, achieved_<c>…,
- * rel_error, quantization_error, family, host, inclusion, lattice, fill_fraction, <dimension>_m…,
+ * rel_error, quantization_error, family, host, inclusion, lattice, orientation, fill_fraction, <dimension>_m…,
  * loss_tangent, flags. Per-level columns (recipe, achieved values) are formatted once per level.
  */
+import { orientationCode } from "./orientationText.js";
 import type { Plan } from "../planTypes.js";
 import { flagList } from "../flags.js";
 import { csvField, fmt } from "./csvText.js";
@@ -24,7 +25,7 @@ export function buildListHeader(plan: Plan): string {
   const cols = ["cell", "i", "j", ...(three ? ["k"] : []), "x_m", "y_m", ...(three ? ["z_m"] : []), "axis_deg", "region", "level"];
   for (const c of plan.components) cols.push(`target_${c.name}`);
   for (const c of plan.components) cols.push(`achieved_${c.name}`);
-  cols.push("rel_error", "quantization_error", "family", "host", "inclusion", "lattice", "fill_fraction");
+  cols.push("rel_error", "quantization_error", "family", "host", "inclusion", "lattice", "orientation", "fill_fraction");
   cols.push(...dimensionColumns(plan));
   cols.push("loss_tangent", "flags");
   return cols.join(",");
@@ -39,13 +40,13 @@ function levelTexts(plan: Plan): { achieved: string[]; recipe: string[] } {
     const r = lv.recipe;
     achieved.push(plan.components.map((_, c) => `,${r ? fmt(r.achieved[c]) : ""}`).join(""));
     if (r) {
-      const parts = [r.family, r.host, r.inclusion, r.lattice].map(csvField);
+      const parts = [r.family, r.host, r.inclusion, r.lattice, orientationCode(r)].map(csvField);
       parts.push(fmt(r.fillFraction));
       for (const d of dims) parts.push(d in r.dimensions ? fmt(r.dimensions[d]) : "");
       parts.push(fmt(r.lossTangent, 4));
       recipe.push(`,${parts.join(",")}`);
     } else {
-      recipe.push(",".repeat(5 + dims.length + 1));
+      recipe.push(",".repeat(6 + dims.length + 1));
     }
   }
   return { achieved, recipe };

@@ -1,9 +1,10 @@
 /**
  * levels.csv: one row per level with its target, its recipe and up to three runners-up.
  * Columns: level, cells, regions, target_<c>…, max_quantization_error, family, host, inclusion,
- * lattice, fill_fraction, achieved_<c>…, rel_error, <dimension>_m…, loss_tangent, mg_bruggeman_spread,
+ * lattice, orientation, fill_fraction, achieved_<c>…, rel_error, <dimension>_m…, loss_tangent, mg_bruggeman_spread,
  * bandwidth, smallest_feature_m, flags, reasons, runner_up_1, runner_up_2, runner_up_3.
  */
+import { orientationCode } from "./orientationText.js";
 import type { Plan, Recipe } from "../planTypes.js";
 import { flagList } from "../flags.js";
 import { csvField, fmt } from "./csvText.js";
@@ -14,7 +15,8 @@ export const RUNNERS_UP_SHOWN = 3;
 /** "laminate PTFE/alumina-96 square f=0.312 err=0.4%" — one runner-up in one cell. */
 export function recipeLabel(r: Recipe): string {
   const mats = r.inclusion ? `${r.host}/${r.inclusion}` : r.host;
-  return `${r.family} ${mats} ${r.lattice} f=${fmt(r.fillFraction, 3)} err=${r.relError < 1e-8 ? 0 : fmt(r.relError * 100, 2)}%`;
+  const along = r.orientation === null ? "" : ` along ${r.orientation}`;
+  return `${r.family} ${mats} ${r.lattice}${along} f=${fmt(r.fillFraction, 3)} err=${r.relError < 1e-8 ? 0 : fmt(r.relError * 100, 2)}%`;
 }
 
 /** The whole levels.csv text (small: one row per level). */
@@ -24,7 +26,7 @@ export function levelsCsvText(plan: Plan): string {
   const header = [
     "level", "cells", "regions",
     ...comps.map((c) => `target_${c}`),
-    "max_quantization_error", "family", "host", "inclusion", "lattice", "fill_fraction",
+    "max_quantization_error", "family", "host", "inclusion", "lattice", "orientation", "fill_fraction",
     ...comps.map((c) => `achieved_${c}`),
     "rel_error", ...dims, "loss_tangent", "mg_bruggeman_spread", "bandwidth", "smallest_feature_m",
     "flags", "reasons",
@@ -39,13 +41,13 @@ export function levelsCsvText(plan: Plan): string {
     row.push(...lv.target.map((t) => fmt(t)));
     row.push(fmt(lv.maxQuantizationError, 4));
     if (r) {
-      row.push(csvField(r.family), csvField(r.host), csvField(r.inclusion), r.lattice, fmt(r.fillFraction));
+      row.push(csvField(r.family), csvField(r.host), csvField(r.inclusion), r.lattice, orientationCode(r), fmt(r.fillFraction));
       row.push(...r.achieved.map((a) => fmt(a)));
       row.push(fmt(r.relError, 4));
       for (const d of dims) row.push(d in r.dimensions ? fmt(r.dimensions[d]) : "");
       row.push(fmt(r.lossTangent, 4), fmt(r.spread, 4), r.bandwidth === null ? "" : fmt(r.bandwidth, 4), fmt(r.featureM, 4));
     } else {
-      row.push("", "", "", "", "", ...comps.map(() => ""), "", ...dims.map(() => ""), "", "", "", "");
+      row.push("", "", "", "", "", "", ...comps.map(() => ""), "", ...dims.map(() => ""), "", "", "", "");
     }
     row.push(flagList(lv.flags), csvField(lv.reasons.join("; ")));
     for (let k = 0; k < RUNNERS_UP_SHOWN; k++) row.push(lv.runnersUp[k] ? csvField(recipeLabel(lv.runnersUp[k])) : "");

@@ -74,7 +74,11 @@ export function reportMarkdown(plan: Plan): string {
     const flags = FLAGS.filter((_, k) => lv.flags & (1 << k)).map((x) => x.name).join(", ");
     L.push(`| ${lv.index} | ${lv.cellCount} | ${lv.target.map((t) => fmt(t, 4)).join(" | ")} | ${r ? recipeLabel(r) : `none: ${lv.reasons.slice(0, 2).join("; ")}`} | ${r ? pct(r.relError) : "—"} | ${flags || "—"} |`);
   }
-  L.push("", "Runners-up for each level are in levels.csv.", "");
+  L.push("", "Runners-up for each level are in levels.csv.");
+  if (plan.levels.some((l) => l.recipe && l.recipe.orientation !== null)) {
+    L.push("\"along z / 1 / 2\" is the direction of the rods, holes, wires or ring axis, or of a laminate's layer normal: z, or in-plane axis 2 (the larger target value, at the build list's axis_deg from +x) or axis 1 (perpendicular to it).");
+  }
+  L.push("");
   L.push("## Flags", "");
   const present = FLAGS.filter((x) => (f.flagCounts[x.name] ?? 0) > 0);
   if (present.length === 0) L.push("No cell carries a flag.");

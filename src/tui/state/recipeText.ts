@@ -4,6 +4,7 @@
  */
 import type { Recipe } from "../../plan/planTypes.js";
 import { formatLength, formatPercent, formatValue } from "./formatValue.js";
+import { orientationPhrase } from "../../plan/outputs/orientationText.js";
 
 /** "radius_m" → "radius". */
 export function dimensionName(key: string): string {
@@ -26,6 +27,8 @@ export function recipeHeadline(r: Recipe): string {
 /** Several lines describing a recipe fully. */
 export function recipeLines(r: Recipe, componentNames: string[]): string[] {
   const lines = [recipeHeadline(r)];
+  const along = orientationPhrase(r);
+  if (along) lines.push(`orientation: ${along}`);
   const dims = dimensionsText(r.dimensions);
   if (dims) lines.push(`dimensions: ${dims}`);
   lines.push(`achieved: ${componentNames.map((n, k) => `${n} ${formatValue(r.achieved[k])}`).join(", ")}`);

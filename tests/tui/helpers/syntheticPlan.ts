@@ -28,6 +28,7 @@ function recipe(fill: number, achieved: number[], relError: number): Recipe {
     family: "rods-in-host",
     host: "ptfe",
     inclusion: "alumina-96",
+    orientation: "z",
     lattice: "square",
     fillFraction: fill,
     dimensions: { radius_m: 0.001 * fill, wall_m: 0.0005 },
