@@ -151,7 +151,8 @@ export const MIN_RADIUS_RATIO = 1e-7;
 /**
  * Wire radius whose Re ε at the design frequency equals targetEps (< Re ε_h). Bisection in ln r
  * over [1e-7·a, a/2): Re ε falls monotonically as the wires thicken (ωp rises, γ falls).
- * Example: radiusForTarget(0.5, 5e-3, 10e9, {re:1,im:0}, Infinity).radiusM ≈ 1.2e-6 (lossless).
+ * Example: radiusForTarget(0.5, 5e-3, 10e9, {re:1,im:0}, Infinity).radiusM ≈ 1.3e-8 (lossless:
+ * ε = 0.5 needs f_p = 7.07 GHz, and with the thick-wire form that is a 13 nm wire in 5 mm cells).
  */
 export function radiusForTarget(targetEps: number, pitchM: number, frequencyHz: number, hostEps: Complex, conductivitySPerM: number): RadiusResult {
   const reEps = (r: number): number => wireMediumResponse({ pitchM, radiusM: r, frequencyHz, hostEps, conductivitySPerM }).eps.re;

@@ -8,7 +8,7 @@
 import { cAbs, cSub, type Complex } from "../../core/complex.js";
 import { getMixingRule } from "../../media/mixing/registry.js";
 
-/** |ε_MG − ε_Br| / |ε_rule| for `rule` at `fill`; 0 for rules with no counterpart. */
+/** |ε_MG − ε_Br| / |ε_Br| for `rule` at `fill`; 0 for rules with no counterpart. */
 export function mixingSpread(rule: string, dimension: 2 | 3, host: Complex, inclusion: Complex, fill: number): number {
   let other: string | null = null;
   if (rule.startsWith("mg-")) other = dimension === 2 ? "bruggeman-2d" : "bruggeman-3d";
@@ -16,6 +16,8 @@ export function mixingSpread(rule: string, dimension: 2 | 3, host: Complex, incl
   if (other === null) return 0;
   const a = getMixingRule(rule).forward(host, inclusion, fill);
   const b = getMixingRule(other).forward(host, inclusion, fill);
-  const s = cAbs(cSub(a, b)) / Math.max(cAbs(a), 1e-12);
+  // relative to the Bruggeman value, the same measure as media/uncertainty.ts (mix, cell)
+  const br = rule.startsWith("bruggeman-") ? a : b;
+  const s = cAbs(cSub(a, b)) / Math.max(cAbs(br), 1e-12);
   return Number.isFinite(s) ? s : 0;
 }
