@@ -53,7 +53,7 @@ export function formatCellDesign(d: CellDesign): string[] {
     const b = r.band;
     const band = b.fractional > 0 ? `${pct(b.fractional)} (${formatFrequency(b.loHz)}${b.openBelow ? " or below" : ""} – ${formatFrequency(b.hiHz)}${b.openAbove ? " or above" : ""})` : "none (the design point is outside the tolerance)";
     out.push(`band in tolerance ${band}`);
-    out.push(`passivity bound   ${r.passivity ? `${pct(r.passivity.strong)} (strong), ${pct(r.passivity.weak)} (weak)` : "none (target not below the high-frequency limit)"}`);
+    out.push(`passivity bound   ${r.passivity ? `${pct(r.passivity.strong)} (strong), ${pct(r.passivity.weak)} (weak); lossless-window bounds, a lossy medium can exceed them` : "none (target not below the high-frequency limit)"}`);
   }
   out.push(`result            ${d.valid ? "valid" : "NOT buildable as asked"}`);
   for (const x of d.reasons) out.push(`  - ${x}`);

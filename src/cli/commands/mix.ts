@@ -184,7 +184,9 @@ export const command: Command = {
     const boundsApply = realBoundsApply(host.value, inclusion.value);
     const wiener = reachable && boundsApply ? wienerBounds(h, i, usedFill) : ([NaN, NaN] as [number, number]);
     const hs = reachable && boundsApply ? hashinShtrikmanBounds(h, i, usedFill, dimension) : ([NaN, NaN] as [number, number]);
-    const spread = reachable ? mgBruggemanSpread(host.value, inclusion.value, usedFill, dimension) : NaN;
+    // Laminates (parallel, series) are exact for layered cells (Wiener 1912): no model spread.
+    const exact = rule.id === "parallel" || rule.id === "series";
+    const spread = !reachable ? NaN : exact ? 0 : mgBruggemanSpread(host.value, inclusion.value, usedFill, dimension);
     if (!reachable) io.stderr(`error: --target: ${inverse?.reason ?? "unreachable"}\n`);
     else if (inverse && !inverse.converged) io.stderr(`warning: --target: ${inverse.reason ?? "the iteration did not converge"}\n`);
 
@@ -238,9 +240,11 @@ export const command: Command = {
     }
     if (boundsApply) {
       lines.push(`  Wiener     ${fmt(wiener[0])} – ${fmt(wiener[1])} (any geometry at this fill)`);
-      lines.push(`  HS ${dimension}D      ${fmt(hs[0])} – ${fmt(hs[1])} (isotropic mixtures at this fill)`);
+      lines.push(`  HS ${dimension}D      ${fmt(hs[0])} – ${fmt(hs[1])} (isotropic mixtures at this fill${rule.id === "parallel" || rule.id === "series" || rule.id === "mg-ellipsoid" ? "; this rule is anisotropic and may lie outside" : ""})`);
     } else lines.push("  bounds     not applicable (a lossy or negative phase)");
-    lines.push(`  MG vs Br   ${fmt(spread * 100)} % relative spread at this fill${spread > tolerance ? " — uncertain: verify with a full-wave unit-cell simulation" : ""}`);
+    lines.push(exact
+      ? "  MG vs Br   not applicable: a laminate is exact for layered cells (Wiener)"
+      : `  MG vs Br   ${fmt(spread * 100)} % relative spread at this fill${spread > tolerance ? " — uncertain: verify with a full-wave unit-cell simulation" : ""}`);
     io.stdout(lines.join("\n") + "\n");
     return EXIT_OK;
   },
