@@ -33,7 +33,27 @@ function mainHelp(): string {
   ].join("\n");
 }
 
+/** File-system errors that come from where the user asked us to read or write, not from a bug. */
+const USER_FS_CODES: Record<string, string> = {
+  ENOENT: "no such file or folder",
+  EEXIST: "a file is in the way of a folder",
+  EISDIR: "is a folder, expected a file",
+  ENOTDIR: "a part of the path is a file, not a folder",
+  EACCES: "permission denied",
+  EPERM: "operation not permitted",
+  EROFS: "read-only file system",
+  ENOSPC: "no space left on the device",
+};
+
 export function reportError(err: unknown, io: CliIo): number {
+  const code = (err as NodeJS.ErrnoException)?.code;
+  if (code && code in USER_FS_CODES && typeof (err as NodeJS.ErrnoException).path === "string") {
+    // a failed rename names the temporary file in `path` and the user's target in `dest`
+    const e = err as NodeJS.ErrnoException & { dest?: string };
+    const path = typeof e.dest === "string" ? e.dest : (e.path as string);
+    io.stderr(`error: ${path}: cannot read or write here: ${USER_FS_CODES[code]}\n`);
+    return EXIT_INPUT;
+  }
   if (err instanceof InputError) {
     for (const i of err.issues) io.stderr(`error: ${i.where}: ${i.message}\n`);
     return EXIT_INPUT;

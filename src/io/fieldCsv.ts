@@ -8,6 +8,7 @@
  * are kept when present. Numbers are written in JavaScript's shortest round-trip form.
  */
 import { createReadStream } from "node:fs";
+import { stat } from "node:fs/promises";
 import { relative, isAbsolute } from "node:path";
 import { parse } from "csv-parse";
 import { InputError, unknownWithSuggestion } from "../core/errors.js";
@@ -93,9 +94,13 @@ export interface ReadFieldOptions {
  */
 export async function readFieldCsv(path: string, options: ReadFieldOptions = {}): Promise<TensorField> {
   const label = options.label ?? path;
-  const parser = createReadStream(path).pipe(
+  const source = createReadStream(path);
+  const parser = source.pipe(
     parse({ info: true, relax_column_count: true, skip_empty_lines: true, trim: true, comment: "#", comment_no_infix: true }),
   );
+  // pipe() does not forward read errors: hand them to the parser so the loop below rejects
+  source.on("error", (err: NodeJS.ErrnoException) =>
+    parser.destroy(new InputError({ where: label, message: `cannot read the file (${err.code ?? err.message})` })));
   let header: string[] | null = null;
   let want: { name: string; index: number; optional: boolean }[] = [];
   let cols: Column[] = [];
@@ -198,6 +203,14 @@ function displayPath(file: string): string {
  */
 export async function loadFieldForDesign(design: FieldDesign): Promise<TensorField> {
   if (design.transform.kind !== "imported") return computeTensorField(design);
+  // a missing or unreadable file is the user's mistake, named at the design key that points to it
+  try {
+    const st = await stat(design.transform.file);
+    if (!st.isFile()) throw new InputError({ where: `${design.sourcePath}: $.transform.file`, message: `expected a CSV file, got a folder: ${design.transform.file}` });
+  } catch (err) {
+    if (err instanceof InputError) throw err;
+    throw new InputError({ where: `${design.sourcePath}: $.transform.file`, message: `cannot read the imported field CSV ${design.transform.file} (${(err as NodeJS.ErrnoException).code ?? "error"})` });
+  }
   const field = await readFieldCsv(design.transform.file, {
     label: displayPath(design.transform.file),
     expectedPitchM: design.grid.pitchM,
