@@ -17,6 +17,8 @@ export interface FieldSummary {
   mu: ComponentRange;
   maxAnisotropy: { eps: number; mu: number };
   cellsWithPrincipalBelowOne: { eps: number; mu: number };
+  /** cells whose smallest principal value is ≤ 0 (not a passive transformation medium; imported fields only) */
+  cellsNotPositiveDefinite: { eps: number; mu: number };
   capped: number;
   capValue: number | null;
 }
@@ -32,10 +34,17 @@ function range(field: SymTensorField): ComponentRange {
   return { min, max };
 }
 
-function maxOf(a: Float64Array): number {
+/** Largest anisotropy over the cells whose smallest principal value is positive (elsewhere it is undefined). */
+function maxAnisotropyOf(ratio: Float64Array, smallest: Float64Array): number {
   let m = -Infinity;
-  for (let k = 0; k < a.length; k++) if (a[k] > m) m = a[k];
+  for (let k = 0; k < ratio.length; k++) if (smallest[k] > 0 && ratio[k] > m) m = ratio[k];
   return m;
+}
+
+function countAtMostZero(a: Float64Array): number {
+  let n = 0;
+  for (let k = 0; k < a.length; k++) if (!(a[k] > 0)) n++;
+  return n;
 }
 
 function countBelow(a: Float64Array, limit: number): number {
@@ -51,10 +60,17 @@ export function summarizeField(field: TensorField): FieldSummary {
     cells: field.grid.count,
     eps: range(field.eps),
     mu: range(field.mu),
-    maxAnisotropy: { eps: maxOf(field.epsAnisotropy), mu: maxOf(field.muAnisotropy) },
+    maxAnisotropy: {
+      eps: maxAnisotropyOf(field.epsAnisotropy, field.epsPrincipal[0]),
+      mu: maxAnisotropyOf(field.muAnisotropy, field.muPrincipal[0]),
+    },
     cellsWithPrincipalBelowOne: {
       eps: countBelow(field.epsPrincipal[0], 1 - BELOW_ONE_TOLERANCE),
       mu: countBelow(field.muPrincipal[0], 1 - BELOW_ONE_TOLERANCE),
+    },
+    cellsNotPositiveDefinite: {
+      eps: countAtMostZero(field.epsPrincipal[0]),
+      mu: countAtMostZero(field.muPrincipal[0]),
     },
     capped,
     capValue: field.capValue,

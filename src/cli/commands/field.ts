@@ -16,7 +16,7 @@ import type { Command, ParsedArgs } from "../command.js";
 import type { CliIo } from "../cliIo.js";
 import { flagOption, stringOption } from "../args.js";
 
-const g = (v: number): string => (Number.isFinite(v) ? String(Number(v.toPrecision(5))) : String(v));
+const g = (v: number): string => (Number.isFinite(v) ? String(Number(v.toPrecision(5))) : "—");
 
 /** "45 mm,20 mm" → [x, y(, z)] in metres. */
 async function parsePoint(text: string): Promise<number[]> {
@@ -57,6 +57,8 @@ function humanSummary(design: Design, field: TensorField, s: FieldSummary, outPa
   lines.push("");
   lines.push(`  largest anisotropy (max/min principal value): eps ${g(s.maxAnisotropy.eps)}, mu ${g(s.maxAnisotropy.mu)}`);
   lines.push(`  cells with a principal value below 1: eps ${s.cellsWithPrincipalBelowOne.eps}, mu ${s.cellsWithPrincipalBelowOne.mu}`);
+  const npd = s.cellsNotPositiveDefinite;
+  if (npd.eps + npd.mu > 0) lines.push(`  cells not positive definite (a principal value ≤ 0): eps ${npd.eps}, mu ${npd.mu}; their anisotropy is undefined and left out`);
   const t = design.transform;
   const offset = "innerOffsetM" in t && t.innerOffsetM ? `inner offset ${g(t.innerOffsetM * 1000)} mm` : "";
   const cap = s.capValue !== null ? `cap ${g(s.capValue)} on the largest principal value` : "";
@@ -127,10 +129,14 @@ export const command: Command = {
     }
     if (out) await writeFieldCsv(resolve(io.cwd, out), field);
     const s = summarizeField(field);
+    const npd = s.cellsNotPositiveDefinite;
+    if (npd.eps + npd.mu > 0) {
+      io.stderr(`warning: ${design.sourcePath}: ${npd.eps} cells with ε and ${npd.mu} with μ not positive definite (a principal value ≤ 0): not a passive transformation medium\n`);
+    }
     if (json) {
       io.stdout(JSON.stringify({
         cells: s.cells, eps: s.eps, mu: s.mu, maxAnisotropy: s.maxAnisotropy,
-        cellsWithPrincipalBelowOne: s.cellsWithPrincipalBelowOne, capped: s.capped, capValue: s.capValue,
+        cellsWithPrincipalBelowOne: s.cellsWithPrincipalBelowOne, cellsNotPositiveDefinite: npd, capped: s.capped, capValue: s.capValue,
       }) + "\n");
     } else {
       io.stdout(humanSummary(design, field, s, out));

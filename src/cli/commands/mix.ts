@@ -160,6 +160,9 @@ export const command: Command = {
     if (fill !== undefined) {
       usedFill = fill;
       eps = rule.forward(host.value, inclusion.value, fill, params);
+      if (!Number.isFinite(eps.re) || !Number.isFinite(eps.im)) {
+        throw new InputError({ where: "--rule", message: `${rule.id} gives no finite effective permittivity for these phases at fill ${fill} (a phase of ε = 0 in series, or a pole of the rule); expected phases away from that` });
+      }
     } else {
       const t = target as Complex;
       const r = rule.inverse(host.value, inclusion.value, t.re, params);
