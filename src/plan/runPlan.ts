@@ -89,7 +89,11 @@ export function planFromField(
     // name the place the choice came from: an override (command line, session) or the design file
     where: {
       polarization: overrides.polarization !== undefined ? "polarization (override)" : `${design.sourcePath}: $.polarization`,
-      scheme: overrides.scheme !== undefined ? "scheme (override)" : `${design.sourcePath}: $.reduction.scheme`,
+      scheme: overrides.scheme !== undefined
+        ? "scheme (override)"
+        : overrides.polarization !== undefined
+          ? `polarization (override ${overrides.polarization}) with ${design.sourcePath}: $.reduction.scheme; choose a scheme for ${overrides.polarization} too`
+          : `${design.sourcePath}: $.reduction.scheme`,
       backgroundIndex: overrides.backgroundIndex !== undefined ? "background index (override)" : `${design.sourcePath}: $.reduction.backgroundIndex`,
     },
   });

@@ -211,3 +211,14 @@ describe("reduce on an imported field", () => {
     expectClose(j.schemes[0].ranges.eps_yy, [1.0625, 1.0625], { rel: 1e-12, label: "eps_yy" });
   });
 });
+
+describe("reduce with --polarization switching away from the design's scheme", () => {
+  it("shows the other polarization's table, with no starred row (the design's unit-mu serves Ez only)", async () => {
+    const r = await run([join(process.cwd(), "demo-designs/plan-microwave-mast-cloak.json"), "--polarization", "Hz", "--json"]);
+    expect(r.code, r.err).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.polarization).toBe("Hz");
+    expect(j.chosen).toBeNull();
+    expect(j.schemes.map((s: { scheme: string }) => s.scheme)).toContain("non-magnetic");
+  });
+});

@@ -215,7 +215,10 @@ export const command: Command = {
         backgroundIndex: nbFromFlag !== undefined ? "--background-index" : `${file}: $.reduction.backgroundIndex`,
       },
     };
-    const designScheme = spec?.scheme;
+    // The design's own scheme counts only where it serves the polarization in use: with
+    // --polarization switching to the other one, the comparison table simply has no starred row.
+    const designSchemeFits = spec?.scheme !== undefined && schemesFor(polarization).some((x) => x.name === spec.scheme);
+    const designScheme = polFlag !== undefined && !designSchemeFits ? undefined : spec?.scheme;
     const single = schemeFlag ?? (out !== undefined || point !== undefined ? designScheme : undefined);
 
     if (point !== undefined) {
