@@ -65,7 +65,7 @@ export function humanSummary(plan: Plan, outputs: string[]): string {
   const lines = [
     `${s.design}`,
     `  ${s.cells} cells, ${s.levels} levels, ${s.regions} regions (${s.polarization}, ${s.scheme}, tolerance ${pct(s.tolerance)})`,
-    `  error: largest ${pct(s.maxRelError)}, median ${pct(s.medianRelError)}; loss ${Number(s.lossDb.toPrecision(3))} dB; boundary reflection ${pct(s.boundaryReflection)}`,
+    `  error${(s.flags.norecipe ?? 0) > 0 ? " (cells with a recipe)" : ""}: largest ${pct(s.maxRelError)}, median ${pct(s.medianRelError)}; loss ${Number(s.lossDb.toPrecision(3))} dB; boundary reflection ${pct(s.boundaryReflection)}`,
     `  flags: ${flagged || "none"}`,
     `  materials: ${s.materials.join(", ") || "none"}`,
     s.buildable ? "  every cell has a recipe" : `  NOT BUILDABLE AS ASKED: ${s.flags.norecipe} cells have no recipe (see report.md)`,

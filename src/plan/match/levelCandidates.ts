@@ -102,7 +102,29 @@ export function levelCandidates(target: number[], ctx: MatchContext): LevelSearc
       }
     }
   }
-  return search;
+  return dropFarOff(search, ctx.tolerance);
+}
+
+/**
+ * A recipe that misses the level's target by more than FAR_OFF_FACTOR × the tolerance does not
+ * "reach the target": it is refused (the level then carries `norecipe` and says how close the best
+ * one came) instead of being built with a huge error. Between 1× and FAR_OFF_FACTOR× the recipe is
+ * kept and its cells are flagged `inexact`. The factor is our choice (common practice is to accept
+ * a near miss for a first build and to refuse a gross one).
+ */
+export const FAR_OFF_FACTOR = 4;
+
+function dropFarOff(search: LevelSearch, tolerance: number): LevelSearch {
+  const limit = FAR_OFF_FACTOR * tolerance;
+  const kept = search.candidates.filter((c) => c.relError <= limit);
+  if (kept.length === search.candidates.length) return search;
+  const best = Math.min(...search.candidates.map((c) => c.relError));
+  const dropped = search.candidates.length - kept.length;
+  search.refusals.set(
+    `the closest recipe misses the target by ${Number((best * 100).toPrecision(3))} % (refused beyond ${FAR_OFF_FACTOR}× the tolerance)`,
+    dropped,
+  );
+  return { candidates: kept, refusals: search.refusals };
 }
 
 /** Check the process on the fabricated phase(s); returns reasons (empty when fine). */

@@ -88,7 +88,8 @@ export function reportMarkdown(plan: Plan): string {
   }
   L.push("");
   L.push("## Device-level figures", "");
-  L.push(`- relative error of achieved vs target: largest ${pct(f.maxRelError)}, median ${pct(f.medianRelError)} (tolerance ${pct(s.tolerance)})`);
+  const without = f.flagCounts.norecipe ?? 0;
+  L.push(`- relative error of achieved vs target${without > 0 ? `, over the ${plan.grid.count - without} cells with a recipe` : ""}: largest ${pct(f.maxRelError)}, median ${pct(f.medianRelError)} (tolerance ${pct(s.tolerance)})`);
   L.push(`- loss: ${fmt(f.lossDb, 3)} dB along the worst straight row or column of cells (${si(f.lossPathM, "m")} long), ∫ k₀·Im n ds${f.lossBudgetDb === null ? " (no budget set)" : `; budget ${fmt(f.lossBudgetDb, 3)} dB: ${f.lossWithinBudget ? "met" : "**exceeded**"}`}`);
   L.push(`- narrowest bandwidth of a resonant level: ${f.minBandwidth === null ? "no resonant cells" : pct(f.minBandwidth)}${f.bandwidthRequired === null ? "" : `; required ${pct(f.bandwidthRequired)}: ${f.bandwidthMet === false ? "**not met**" : "met"}`}`);
   L.push(`- smallest feature used: ${f.smallestFeatureM === null ? "—" : si(f.smallestFeatureM, "m")}; process limit: ${f.processMinFeatureM === null ? "no process given" : si(f.processMinFeatureM, "m")}`);
