@@ -88,6 +88,24 @@ describe("recipe choice", () => {
     expect(levelCandidates([2.94, 0.2, 1], named).candidates.map((r) => r.host)).toContain("alumina-96");
   });
 
+  it("refuses a recipe that misses the target by more than 4× the tolerance, saying how close it came", () => {
+    // Hz in-plane ε of 1.2 and 8 with alumina (9.4, Riddle-class ceramic row) and air: a laminate
+    // gives ε_∥ = fε_a + (1 − f) and ε_⊥ = 1/(f/ε_a + (1 − f)) (Wiener 1912); ε_∥ = 8 needs
+    // f = 0.83, and then ε_⊥ ≈ 3.9 — far from 1.2, so nothing reaches this target.
+    const HZ: TargetComponent[] = [
+      { name: "mu_z", kind: "mu", axis: "z", constant: true },
+      { name: "eps_1", kind: "eps", axis: "1", constant: false },
+      { name: "eps_2", kind: "eps", axis: "2", constant: false },
+    ];
+    const c = ctx({ materialIds: ["alumina-96", "air"], familyIds: ["laminate", "rods-in-host", "holes-in-slab"], components: HZ, polarization: "Hz", lattice: null, pitchM: 1e-3 });
+    const s = levelCandidates([1, 1.2, 8], c);
+    expect(s.candidates.length).toBe(0);
+    expect([...s.refusals.keys()].some((r) => r.startsWith("the closest recipe misses the target by"))).toBe(true);
+    // a near target (within the tolerance) is still matched
+    const near = levelCandidates([1, 1.2, 1.25], c);
+    expect(near.candidates.some((r) => r.relError <= 0.05)).toBe(true);
+  });
+
   it("uses resonant families only where needed", () => {
     const c = ctx({ materialIds: ["ptfe", "copper"], familyIds: ["wire-medium", "split-ring"], lattice: null });
     expect(levelCandidates([1.5, 1, 1], c).candidates.length).toBe(0);
