@@ -4,7 +4,7 @@
  *
  * Exit codes: 0 success; 1 bad input (message on stderr, no output written); 2 computed but the
  * result is not buildable as asked (e.g. `plan` found cells with no recipe; outputs are complete);
- * 3 internal error (a bug: please report).
+ * 3 internal error (a bug: please report); 130 interrupted while writing (nothing written).
  */
 import { InputError } from "../core/errors.js";
 import { unknownWithSuggestion } from "../core/errors.js";
@@ -16,6 +16,8 @@ export const EXIT_OK = 0;
 export const EXIT_INPUT = 1;
 export const EXIT_NOT_BUILDABLE = 2;
 export const EXIT_INTERNAL = 3;
+/** stopped by Ctrl+C or SIGTERM while writing; nothing was written (shell convention 128 + 2) */
+export const EXIT_INTERRUPTED = 130;
 
 function mainHelp(): string {
   const names = Object.keys(COMMANDS);

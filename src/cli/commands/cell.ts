@@ -46,7 +46,7 @@ const json = (x: unknown): string => JSON.stringify(x, (_k, v) => (typeof v === 
 export const command: Command = {
   name: "cell",
   summary: "design one unit cell: dimensions, effective ε or μ, process and homogenization checks",
-  usage: "cell <family> --pitch P [--lattice square|hex|cubic] --frequency F --host ID --inclusion ID (--fill F | --target EPS) [--axis parallel|perpendicular] [--process ID] [--json]",
+  usage: "cell <family> --pitch P [--lattice square|hex|cubic] --frequency F --host ID --inclusion ID (--fill F | --target EPS) [--axis parallel|perpendicular] [--tolerance T] [--process ID] [--height H] [--json] (resonant families: see below)",
   details: [
     `families: ${CELL_FAMILIES.map((f) => f.id).join(", ")}.`,
     "parallel = field along the rods, holes or wires (in the layer planes of a laminate); perpendicular = across.",
@@ -90,6 +90,10 @@ export const command: Command = {
     const familyId = args.positionals[0];
     if (familyId === undefined) throw new InputError({ where: "cell", message: `expected a family: ${CELL_FAMILIES.map((f) => f.id).join(", ")}` });
     const family = getCellFamily(familyId, "family");
+    const axisGiven = stringOption(args, "axis");
+    if (axisGiven !== undefined && axisGiven !== "parallel" && axisGiven !== "perpendicular") {
+      throw new InputError({ where: "--axis", message: `expected parallel or perpendicular, got '${axisGiven}'` });
+    }
     const issues: InputIssue[] = [];
     const need = (name: string, what: string) => {
       if (stringOption(args, name) === undefined) issues.push({ where: `--${name}`, message: `expected ${what}` });

@@ -86,7 +86,7 @@ const complexJson = (c: Complex) => ({ re: finiteOrNull(c.re), im: finiteOrNull(
 export const command: Command = {
   name: "mix",
   summary: "effective permittivity of a two-phase mixture, or the fill fraction that gives a target",
-  usage: "mix --rule RULE --host EPS --inclusion EPS (--fill F | --target EPS) [--depolarization N | --aspect M] [--frequency F] [--json]",
+  usage: "mix --rule RULE --host EPS --inclusion EPS (--fill F | --target EPS) [--depolarization N | --aspect M] [--frequency F | --wavelength L] [--tolerance T] [--json]",
   details: [
     `RULE is one of ${MIXING_RULE_IDS.join(", ")}.`,
     "EPS is a real or complex relative permittivity ('4', '-10+1i'; exp(-iωt), so +i is loss) or a",

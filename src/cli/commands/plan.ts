@@ -17,7 +17,7 @@ import type { Plan, PlanOverrides } from "../../plan/planTypes.js";
 import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
-import { EXIT_INPUT, EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
+import { EXIT_INPUT, EXIT_INTERRUPTED, EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
 import { resolve } from "node:path";
 
 export const DEFAULT_OUT_DIR = "cellwright-out";
@@ -85,16 +85,19 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
   });
   for (const w of plan.warnings) io.stderr(`warning: ${w}\n`);
   const controller = new AbortController();
+  // Ctrl+C or a polite kill while writing: stop, remove the temporary files, write nothing.
   const onSigint = (): void => controller.abort();
   process.once("SIGINT", onSigint);
+  process.once("SIGTERM", onSigint);
   let outputs: string[];
   try {
     outputs = await writePlanOutputs(plan, resolve(io.cwd, outDir), { signal: controller.signal });
   } catch (err) {
-    if ((err as Error).name === "AbortError") { io.stderr("interrupted; no output was written\n"); return EXIT_INPUT; }
+    if ((err as Error).name === "AbortError") { io.stderr("interrupted; no output was written\n"); return EXIT_INTERRUPTED; }
     throw err;
   } finally {
     process.off("SIGINT", onSigint);
+    process.off("SIGTERM", onSigint);
   }
   if (json) io.stdout(`${JSON.stringify(planSummary(plan, outputs))}\n`);
   else io.stdout(humanSummary(plan, outputs));
@@ -127,6 +130,9 @@ export const command: Command = {
     if (sessionPath !== undefined) {
       const session = await loadSessionFile(resolve(io.cwd, sessionPath));
       overrides = { ...session.overrides };
+      if (designPath !== undefined && resolve(io.cwd, designPath) !== resolve(session.designPath)) {
+        throw new InputError({ where: sessionPath, message: `this session file is for ${session.designPath}, not ${designPath}; give one of them` });
+      }
       designPath ??= session.designPath;
     }
     if (designPath === undefined) throw new InputError({ where: "plan", message: "expected a design file (or --session FILE)" });
