@@ -1,4 +1,5 @@
 /** The full record of one device cell, as the Map screen shows it beside the cursor. */
+import { orientationPhrase } from "../../plan/outputs/orientationText.js";
 import { flagNames, FLAGS } from "../../plan/flags.js";
 import type { Plan } from "../../plan/planTypes.js";
 import { formatLength, formatPercent, formatValue } from "./formatValue.js";
@@ -31,6 +32,13 @@ export function cellRecord(plan: Plan, c: number): CellRecordLine[] {
     lines.push({ label: "level", value: `${lvl.index} of ${plan.levels.length}, region ${plan.regions[plan.region[c]]?.index ?? "—"}` });
     if (lvl.recipe) {
       lines.push({ label: "recipe", value: recipeHeadline(lvl.recipe) });
+      const o = lvl.recipe.orientation;
+      if (o !== null) {
+        // the recipe's own axis for this cell: z, or an in-plane angle from +x
+        const deg = (plan.axisAngleRad[c] * 180) / Math.PI + (o === "1" ? 90 : 0);
+        const where = o === "z" ? "z" : `${formatValue(((deg + 90) % 180 + 180) % 180 - 90)}° from x`;
+        lines.push({ label: "points", value: `${orientationPhrase(lvl.recipe).replace(/ along .*$/, "")} along ${where}` });
+      }
       const dims = dimensionsText(lvl.recipe.dimensions);
       if (dims) lines.push({ label: "dimensions", value: dims });
     } else {
