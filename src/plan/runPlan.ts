@@ -42,9 +42,13 @@ export interface PlanDesign extends SettingsSource {
 const C0 = 299_792_458;
 
 /** Check ids in the settings against the catalogs; all problems at once. */
-function checkIds(design: PlanDesign, s: ReturnType<typeof resolveSettings>, catalogs: PlanCatalogs): void {
+function checkIds(design: PlanDesign, s: ReturnType<typeof resolveSettings>, catalogs: PlanCatalogs, overrides: PlanOverrides): void {
   const issues: InputIssue[] = [];
-  const at = (path: string): string => `${design.sourcePath}: $.realization.${path}`;
+  // name the place the value came from: an override (session file, command line) or the design
+  const at = (path: string): string => {
+    const key = path.replace(/\[.*$/, "") as keyof PlanOverrides;
+    return overrides[key] !== undefined ? `${path} (override)` : `${design.sourcePath}: $.realization.${path}`;
+  };
   const matIds = catalogs.materials.map((m) => m.id);
   (s.materials ?? []).forEach((id, k) => {
     if (!matIds.includes(id)) issues.push({ where: at(`materials[${k}]`), message: unknownWithSuggestion("material", id, matIds) });
@@ -71,7 +75,7 @@ export function planFromField(
   onProgress?: PlanProgress,
 ): Plan {
   const settings = resolveSettings(design, overrides);
-  checkIds(design, settings, catalogs);
+  checkIds(design, settings, catalogs, overrides);
   const grid = field.grid;
   if (grid.count === 0) throw new InputError({ where: `${design.sourcePath}: $.transform`, message: "the device region holds no cell of the grid; check the region and the pitch" });
   if (grid.dimension === 3) throw new InputError({ where: `${design.sourcePath}: $.grid`, message: "the planner builds 2D devices (invariant along z); a 3D grid cannot be planned" });

@@ -65,3 +65,18 @@ describe("cellwright plan", () => {
     expect(await runCli(["plan"], io2)).toBe(EXIT_INPUT);
   });
 });
+
+describe("plan --session mistakes are named in the session file", () => {
+  it("an unknown material among the session's overrides, and a session of another design", async () => {
+    const dir = await mkdtemp(join(tmpdir(), "cw-sess-"));
+    const session = join(dir, "s.json");
+    await writeFile(session, JSON.stringify({ cellwrightSession: 1, design: resolve(DEMO), overrides: { materials: ["photopolymer-resin", "plaa"] } }));
+    const io = bufferIo();
+    expect(await runCli(["plan", "--session", session, "--out", join(dir, "out")], io)).toBe(EXIT_INPUT);
+    expect(io.err()).toContain(`${session}: $.overrides.materials[1]`);
+    expect(io.err()).toContain("did you mean");
+    const other = bufferIo();
+    expect(await runCli(["plan", "demo-designs/plan-silicon-chip-bend.json", "--session", session, "--out", join(dir, "out")], other)).toBe(EXIT_INPUT);
+    expect(other.err()).toContain("this session file is for");
+  }, 30_000);
+});

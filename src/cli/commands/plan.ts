@@ -136,7 +136,21 @@ export const command: Command = {
       designPath ??= session.designPath;
     }
     if (designPath === undefined) throw new InputError({ where: "plan", message: "expected a design file (or --session FILE)" });
-    overrides = { ...overrides, ...optionOverrides(args) };
-    return runPlanCommand(designPath, overrides, stringOption(args, "out") ?? DEFAULT_OUT_DIR, flagOption(args, "json"), io);
+    const fromOptions = optionOverrides(args);
+    const fromSession = overrides;
+    overrides = { ...overrides, ...fromOptions };
+    try {
+      return await runPlanCommand(designPath, overrides, stringOption(args, "out") ?? DEFAULT_OUT_DIR, flagOption(args, "json"), io);
+    } catch (err) {
+      // an override that came from the session file is named there ("s.json: $.overrides.materials[1]")
+      if (!(err instanceof InputError) || sessionPath === undefined) throw err;
+      throw new InputError(err.issues.map((i) => {
+        const m = /^(([a-zA-Z]+)\S*) \(override\)$/.exec(i.where);
+        const key = m?.[2] as keyof PlanOverrides | undefined;
+        return m && key && fromSession[key] !== undefined && fromOptions[key] === undefined
+          ? { where: `${sessionPath}: $.overrides.${m[1]}`, message: i.message }
+          : i;
+      }));
+    }
   },
 };
