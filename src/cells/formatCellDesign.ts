@@ -1,26 +1,16 @@
 /** Human-readable lines for a cell design (pure; the command line prints them). */
 import { type Complex, formatComplex } from "../core/complex.js";
 import type { CellDesign } from "./cellDesignTypes.js";
+import { formatFrequency as formatFrequencyCore, formatLength as formatLengthCore } from "../core/formatQuantity.js";
 
 /** Non-finite values (no answer) print as "—", never as NaN or Infinity. */
 const g = (x: number, d = 4): string => (Number.isFinite(x) ? Number(x.toPrecision(d)).toString() : "—");
 
-/** Length in a readable unit: "1.2 mm", "350 nm". */
-export function formatLength(m: number): string {
-  if (!Number.isFinite(m)) return "—";
-  if (m === 0) return "0";
-  const a = Math.abs(m);
-  const [s, u] = a >= 1 ? [1, "m"] : a >= 1e-3 ? [1e3, "mm"] : a >= 1e-6 ? [1e6, "µm"] : a >= 1e-9 ? [1e9, "nm"] : [1e12, "pm"];
-  return `${g(m * s)} ${u}`;
-}
+/** Length in a readable unit, 4 significant digits: "1.2 mm", "350 nm". */
+export const formatLength = (m: number): string => formatLengthCore(m, (v) => g(v));
 
-/** Frequency in a readable unit: "8.2 GHz". */
-export function formatFrequency(hz: number): string {
-  if (!Number.isFinite(hz)) return "—";
-  const units: [number, string][] = [[1e12, "THz"], [1e9, "GHz"], [1e6, "MHz"], [1e3, "kHz"]];
-  for (const [s, u] of units) if (Math.abs(hz) >= s) return `${g(hz / s)} ${u}`;
-  return `${g(hz)} Hz`;
-}
+/** Frequency in a readable unit, 4 significant digits: "8.2 GHz". */
+export const formatFrequency = (hz: number): string => formatFrequencyCore(hz, (v) => g(v));
 
 const c = (z: Complex): string => (Number.isFinite(z.re) && Number.isFinite(z.im) ? formatComplex(z, 5) : "—");
 const pct = (x: number): string => `${g(100 * x, 3)} %`;

@@ -1,0 +1,29 @@
+/**
+ * Lengths and frequencies for people: the most readable unit (m, mm, µm, nm, pm; Hz … THz) and a
+ * short number. One implementation for the whole tool; callers choose how the number is written
+ * (significant digits, or the session's aligned style). Non-finite values (no answer) print as "—".
+ */
+
+/** `digits` significant digits, trailing zeros dropped. Example: significant(0.012345, 3) → "0.0123" */
+export function significant(v: number, digits = 3): string {
+  return Number.isFinite(v) ? Number(v.toPrecision(digits)).toString() : "—";
+}
+
+const LENGTH_UNITS: [number, string][] = [[1, "m"], [1e-3, "mm"], [1e-6, "µm"], [1e-9, "nm"]];
+const FREQUENCY_UNITS: [number, string][] = [[1e12, "THz"], [1e9, "GHz"], [1e6, "MHz"], [1e3, "kHz"]];
+
+/** Example: formatLength(0.0012) → "1.2 mm"; formatLength(3.9e-8) → "39 nm"; formatLength(2e-13) → "0.2 pm" */
+export function formatLength(m: number, number: (v: number) => string = (v) => significant(v, 3)): string {
+  if (!Number.isFinite(m)) return "—";
+  const a = Math.abs(m);
+  if (a === 0) return "0 m";
+  for (const [scale, unit] of LENGTH_UNITS) if (a >= scale) return `${number(m / scale)} ${unit}`;
+  return `${number(m * 1e12)} pm`;
+}
+
+/** Example: formatFrequency(1.05e10) → "10.5 GHz"; formatFrequency(1.934e14) → "193 THz" */
+export function formatFrequency(hz: number, number: (v: number) => string = (v) => significant(v, 3)): string {
+  if (!Number.isFinite(hz)) return "—";
+  for (const [scale, unit] of FREQUENCY_UNITS) if (Math.abs(hz) >= scale) return `${number(hz / scale)} ${unit}`;
+  return `${number(hz)} Hz`;
+}

@@ -1,0 +1,27 @@
+/** One formatter for lengths and frequencies: unit choice, digits, and no NaN/Infinity (identities, SI prefixes). */
+import { describe, it, expect } from "vitest";
+import { formatFrequency, formatLength, significant } from "../../src/core/formatQuantity.js";
+
+describe("formatQuantity", () => {
+  it("picks the readable SI unit", () => {
+    expect(formatLength(0.0012)).toBe("1.2 mm");
+    expect(formatLength(3.9e-8)).toBe("39 nm");
+    expect(formatLength(2.5)).toBe("2.5 m");
+    expect(formatLength(-1.5e-6)).toBe("-1.5 µm");
+    expect(formatLength(2e-13)).toBe("0.2 pm");
+    expect(formatFrequency(1.05e10)).toBe("10.5 GHz");
+    expect(formatFrequency(1.934e14)).toBe("193 THz");
+    expect(formatFrequency(50)).toBe("50 Hz");
+  });
+  it("takes the caller's number style and never prints NaN or Infinity", () => {
+    expect(formatLength(0.0012, (v) => v.toPrecision(3))).toBe("1.20 mm");
+    expect(significant(0.012345, 3)).toBe("0.0123");
+    for (const bad of [NaN, Infinity, -Infinity]) {
+      expect(formatLength(bad)).toBe("—");
+      expect(formatFrequency(bad)).toBe("—");
+      expect(significant(bad)).toBe("—");
+    }
+    expect(formatLength(0)).toBe("0 m");
+    expect(formatLength(-0)).toBe("0 m");
+  });
+});
