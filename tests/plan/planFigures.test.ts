@@ -1,0 +1,48 @@
+/**
+ * The loss figure: attenuation along the worst straight line of cells. For a low-loss dielectric
+ * the plane-wave attenuation is α = k·tanδ/2 with k = k0·sqrt(ε') (Pozar, "Microwave Engineering",
+ * 4th ed., §1.3, low-loss dielectrics), i.e. Im n = sqrt(ε')·tanδ/2, and the power in dB falls by
+ * 20·log10(e)·α·L.
+ */
+import { describe, it, expect } from "vitest";
+import { worstStraightPath, DB_PER_NEPER } from "../../src/plan/planFigures.js";
+import type { DeviceGrid } from "../../src/field/deviceGrid.js";
+import { refractiveIndex } from "../../src/core/complex.js";
+import { expectClose } from "../helpers/close.js";
+
+/** An L-shaped device on a 12 × 5 lattice: the bottom row is 12 cells long, the rest 3 cells. */
+function lShape(pitchM: number): DeviceGrid {
+  const cells: [number, number][] = [];
+  for (let j = 0; j < 5; j++) for (let i = 0; i < 12; i++) if (j === 0 || i < 3) cells.push([i, j]);
+  const n = cells.length;
+  return {
+    dimension: 2, pitchM, nx: 12, ny: 5, nz: 1, originXM: 0, originYM: 0, originZM: 0, count: n,
+    i: Int32Array.from(cells.map((c) => c[0])), j: Int32Array.from(cells.map((c) => c[1])), k: new Int32Array(n),
+    xM: Float64Array.from(cells.map((c) => c[0] * pitchM)), yM: Float64Array.from(cells.map((c) => c[1] * pitchM)), zM: new Float64Array(n),
+  };
+}
+
+describe("worstStraightPath", () => {
+  it("gives Pozar's low-loss attenuation along the longest row of a uniform PTFE device", () => {
+    const pitchM = 2e-3, f = 10e9, k0 = (2 * Math.PI * f) / 299_792_458;
+    const epsR = 2.05, tanD = 2e-4; // PTFE at 10 GHz (Riddle, Baker-Jarvis, Krupka 2003)
+    const grid = lShape(pitchM);
+    const imN = refractiveIndex({ re: epsR, im: epsR * tanD }).im;
+    expectClose(imN, (Math.sqrt(epsR) * tanD) / 2, { rel: 1e-6, label: "Im n vs low-loss form" });
+    const path = worstStraightPath(grid, new Float64Array(grid.count).fill(imN), k0);
+    const lengthM = 12 * pitchM;
+    expectClose(path.lengthM, lengthM, { rel: 1e-12, label: "longest row" });
+    expect(path.direction).toEqual([1, 0]);
+    const alpha = (k0 * Math.sqrt(epsR) * tanD) / 2; // Np/m, Pozar §1.3
+    expectClose(path.lossDb, DB_PER_NEPER * alpha * lengthM, { rel: 1e-6, label: "loss dB" });
+    expectClose(DB_PER_NEPER, 8.685889638, { rel: 1e-9, label: "dB per neper" }); // 20·log10(e)
+  });
+  it("a lossless device has no loss and a lossier column wins over a longer row", () => {
+    const grid = lShape(1e-3);
+    expect(worstStraightPath(grid, new Float64Array(grid.count), 200).lossDb).toBe(0);
+    const imN = Float64Array.from({ length: grid.count }, (_, c) => (grid.i[c] === 0 ? 1e-2 : 1e-4));
+    const p = worstStraightPath(grid, imN, 200);
+    expect(p.direction).toEqual([0, 1]);
+    expectClose(p.lossDb, DB_PER_NEPER * 200 * 5 * 1e-2 * 1e-3, { rel: 1e-12, label: "column loss" });
+  });
+});
