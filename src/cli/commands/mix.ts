@@ -189,7 +189,7 @@ export const command: Command = {
     const hs = reachable && boundsApply ? hashinShtrikmanBounds(h, i, usedFill, dimension) : ([NaN, NaN] as [number, number]);
     // Laminates (parallel, series) are exact for layered cells (Wiener 1912): no model spread.
     const exact = rule.id === "parallel" || rule.id === "series";
-    const spread = !reachable ? NaN : exact ? 0 : mgBruggemanSpread(host.value, inclusion.value, usedFill, dimension);
+    const spread = !reachable ? NaN : exact ? 0 : mgBruggemanSpread(host.value, inclusion.value, usedFill, dimension, rule.id === "mg-ellipsoid" ? params.depolarization : undefined);
     if (!reachable) io.stderr(`error: --target: ${inverse?.reason ?? "unreachable"}\n`);
     else if (inverse && !inverse.converged) io.stderr(`warning: --target: ${inverse.reason ?? "the iteration did not converge"}\n`);
 

@@ -35,9 +35,27 @@ export function stableSqrt(z: Complex): Complex {
  * Example: bruggemanForward({re:1,im:0},{re:4,im:0},0.5,2) → {re: 2, im: 0} (= sqrt(1·4)).
  */
 export function bruggemanForward(host: Complex, inclusion: Complex, fill: number, dimension: 2 | 3): Complex {
+  return bruggemanAligned(host, inclusion, fill, 1 / dimension);
+}
+
+/**
+ * Bruggeman for aligned ellipsoidal grains of both phases with depolarization factor N along the
+ * field (Polder, van Santen, Physica 12, 257 (1946); Sihvola 1999, ch. 9):
+ * f(ε_i − ε)/(ε + N(ε_i − ε)) + (1 − f)(ε_h − ε)/(ε + N(ε_h − ε)) = 0, which is the d-dimensional
+ * rule with d − 1 replaced by k = (1 − N)/N (N = 1/3: spheres, 1/2: cylinders across the field).
+ * The limits N → 0 and N → 1 are the parallel and series means (laminates, exact).
+ */
+export function bruggemanAligned(host: Complex, inclusion: Complex, fill: number, depolarization: number): Complex {
   if (fill === 0) return { re: host.re, im: host.im };
   if (fill === 1) return { re: inclusion.re, im: inclusion.im };
-  const k = dimension - 1;
+  const N = depolarization;
+  if (N <= 1e-12) return cAdd(cScale(inclusion, fill), cScale(host, 1 - fill));
+  if (N >= 1 - 1e-12) {
+    // series: 1/ε = f/ε_i + (1 − f)/ε_h
+    const inv = cAdd(cScale(cDivOne(inclusion), fill), cScale(cDivOne(host), 1 - fill));
+    return cDivOne(inv);
+  }
+  const k = (1 - N) / N;
   const b = cAdd(
     cScale(cSub(cScale(inclusion, k), host), fill),
     cScale(cSub(cScale(host, k), inclusion), 1 - fill),
@@ -56,6 +74,11 @@ export function bruggemanForward(host: Complex, inclusion: Complex, fill: number
   const d1 = Math.hypot(r1.re - mean.re, r1.im - mean.im);
   const d2 = Math.hypot(r2.re - mean.re, r2.im - mean.im);
   return d1 <= d2 ? r1 : r2;
+}
+
+function cDivOne(z: Complex): Complex {
+  const d = z.re * z.re + z.im * z.im;
+  return { re: z.re / d, im: -z.im / d };
 }
 
 /**
