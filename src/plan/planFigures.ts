@@ -60,6 +60,20 @@ export function finiteMedian(values: Float64Array): number {
  * 3D: m³), from each level's recipe: inclusion volume fill·cell, host (1 − fill)·cell. Gases are
  * left out (nothing to buy).
  */
+/** Copper of printed boards, 35 µm ("1 oz"; common practice), for the metal volume of printed rings. */
+export const PRINTED_METAL_THICKNESS_M = 35e-6;
+
+/**
+ * Volume fractions of a printed split-ring cell (pitch a): the board, t/a; the metal, two strips of
+ * width w, mean radii r + w/2 and r + 1.5w + d, thickness 35 µm, one ring per cubic cell:
+ * 2π(2r + 2w + d)·w·t_cu / a³. null for other recipes (their fill fraction is the inclusion's).
+ */
+function splitRingFractions(dims: Record<string, number>, a: number): { board: number; metal: number } | null {
+  const r = dims.ring_radius_m, w = dims.ring_width_m, d = dims.ring_gap_m, t = dims.board_thickness_m;
+  if (![r, w, d, t].every((v) => Number.isFinite(v))) return null;
+  return { board: t / a, metal: (2 * Math.PI * (2 * r + 2 * w + d) * w * PRINTED_METAL_THICKNESS_M) / (a * a * a) };
+}
+
 export function billOfMaterials(levels: PlanLevel[], cellSize: number, dimension: 2 | 3, isGas: (id: string) => boolean): BillOfMaterialsRow[] {
   const rows = new Map<string, BillOfMaterialsRow>();
   const add = (id: string, cells: number, volume: number): void => {
@@ -73,8 +87,11 @@ export function billOfMaterials(levels: PlanLevel[], cellSize: number, dimension
   for (const lv of levels) {
     const r = lv.recipe;
     if (!r) continue;
-    add(r.host, lv.cellCount, (1 - r.fillFraction) * cell * lv.cellCount);
-    add(r.inclusion, lv.cellCount, r.fillFraction * cell * lv.cellCount);
+    const ring = splitRingFractions(r.dimensions, cellSize);
+    const hostFraction = ring ? ring.board : 1 - r.fillFraction;
+    const inclusionFraction = ring ? ring.metal : r.fillFraction;
+    add(r.host, lv.cellCount, hostFraction * cell * lv.cellCount);
+    add(r.inclusion, lv.cellCount, inclusionFraction * cell * lv.cellCount);
   }
   return [...rows.values()].sort((a, b) => b.volume - a.volume || a.material.localeCompare(b.material));
 }

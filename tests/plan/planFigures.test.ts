@@ -46,3 +46,20 @@ describe("worstStraightPath", () => {
     expectClose(p.lossDb, DB_PER_NEPER * 200 * 5 * 1e-2 * 1e-3, { rel: 1e-12, label: "column loss" });
   });
 });
+
+describe("billOfMaterials", () => {
+  it("counts a printed split-ring cell's board and copper from its dimensions, not the ring's area fraction", async () => {
+    const { billOfMaterials, PRINTED_METAL_THICKNESS_M } = await import("../../src/plan/planFigures.js");
+    const a = 2.5e-3;
+    const dims = { ring_radius_m: 0.7e-3, ring_width_m: 0.1e-3, ring_gap_m: 0.1e-3, board_thickness_m: 0.5e-3, split_gap_m: 0.1e-3 };
+    const recipe = { family: "split-ring", host: "ptfe-ceramic-10", inclusion: "copper", lattice: "cubic", orientation: "1", fillFraction: 0.11, dimensions: dims } as never;
+    const rows = billOfMaterials([{ recipe, cellCount: 10 } as never], a, 2, (id) => id === "air");
+    const board = rows.find((r) => r.material === "ptfe-ceramic-10")!;
+    const copper = rows.find((r) => r.material === "copper")!;
+    // 2D: cross-section per metre of height; the board is a slab t thick across the cell
+    expectClose(board.volume, 10 * 0.5e-3 * a, { rel: 1e-12, label: "board" });
+    // two strips, mean radii r + w/2 and r + 1.5w + d: length 2π(2r + 2w + d), one ring per a of height
+    const perRing = 2 * Math.PI * (2 * 0.7e-3 + 2 * 0.1e-3 + 0.1e-3) * 0.1e-3 * PRINTED_METAL_THICKNESS_M;
+    expectClose(copper.volume, (10 * perRing) / a, { rel: 1e-12, label: "copper" });
+  });
+});
