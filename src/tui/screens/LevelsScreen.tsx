@@ -31,7 +31,7 @@ export function LevelsScreen({ state, width, height }: { state: SessionState; wi
     <Box flexDirection="column" height={height} flexShrink={0}>
       <Text wrap="truncate-end">
         <Text bold>{`${plan.levels.length} levels, ${plan.regions.length} regions, ${plan.grid.count} cells`}</Text>
-        <Text color={THEME.dim}>{`  largest error ${formatPercent(f.maxRelError)}, median ${formatPercent(f.medianRelError)}`}</Text>
+        <Text color={THEME.dim}>{`  largest error ${formatPercent(f.maxRelError)}, median ${formatPercent(f.medianRelError)}${plan.buildable ? "" : " (cells with a recipe)"}`}</Text>
         {plan.buildable ? <Text color={THEME.ok}>  buildable</Text> : <Text color={THEME.warn}>  some levels have no recipe</Text>}
       </Text>
       <Text color={THEME.dim}>
