@@ -21,7 +21,7 @@
  */
 import type { Complex } from "../core/complex.js";
 import { C0, MU0 } from "./physicalConstants.js";
-import { printedMeanRadiusM, printedRingCircuit, printedRingDampingRadPerS, type PrintedRingCircuit } from "./printedRing.js";
+import { printedMeanRadiusM, printedRingCircuit, printedRingDampingRadPerS, type PrintedRingCircuit, type PrintedRingGeometry } from "./printedRing.js";
 import { solvePrintedRing } from "./printedRingDesign.js";
 import { skinDepthM, stripEffectiveThicknessM } from "./skinDepth.js";
 import { toleranceBand, type ToleranceBand } from "./toleranceBand.js";
@@ -45,25 +45,16 @@ export function defaultRingStyle(ctx: { hostClass?: string; processId?: string; 
   return (ctx.hostEpsRe ?? 1) > 1 ? "printed" : "split-cylinder";
 }
 
-export interface SplitRingGeometry {
+/**
+ * Ring geometry for both styles: the printed ring's fields (printedRing.ts; for split cylinders
+ * ringRadiusM is the inner ring radius r and ringGapM the radial gap d between the two rings,
+ * stackSpacingM the spacing along the axis) plus the style and the printed cut.
+ */
+export interface SplitRingGeometry extends PrintedRingGeometry {
   /** model of the rings (absent: split-cylinder) */
   ringStyle?: RingStyle;
-  /** cell side a, m */
-  pitchM: number;
-  /** inner ring radius r (printed: inner radius of the inner ring), m */
-  ringRadiusM: number;
-  /** ring (strip) width c, m */
-  ringWidthM: number;
-  /** radial gap d between the two rings (printed: strip separation), m */
-  ringGapM: number;
-  /** spacing l of the rings along their axis (printed: board spacing), m (default: the pitch) */
-  stackSpacingM?: number;
-  /** metal thickness, m (default: thick compared with the skin depth) */
-  metalThicknessM?: number;
   /** printed: width of the cut in each ring, m (does not enter the circuit model) */
   splitGapM?: number;
-  /** printed: board thickness, m (default: thick board, ε_eff = (ε+1)/2) */
-  boardThicknessM?: number;
 }
 
 /** F = πr²/a², the fraction of the cell the ring encloses (Pendry et al. 1999). */

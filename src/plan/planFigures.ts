@@ -1,6 +1,7 @@
 /** Device-level figures of a plan: loss along straight paths, errors, bill of materials. */
 import type { DeviceGrid } from "../field/deviceGrid.js";
 import type { BillOfMaterialsRow, PlanLevel } from "./planTypes.js";
+import { printedMeanRadiusM } from "../cells/printedRing.js";
 
 /** 20·log10(e): nepers of field amplitude to decibels. */
 export const DB_PER_NEPER = 20 / Math.LN10;
@@ -71,7 +72,9 @@ export const PRINTED_METAL_THICKNESS_M = 35e-6;
 function splitRingFractions(dims: Record<string, number>, a: number): { board: number; metal: number } | null {
   const r = dims.ring_radius_m, w = dims.ring_width_m, d = dims.ring_gap_m, t = dims.board_thickness_m;
   if (![r, w, d, t].every((v) => Number.isFinite(v))) return null;
-  return { board: t / a, metal: (2 * Math.PI * (2 * r + 2 * w + d) * w * PRINTED_METAL_THICKNESS_M) / (a * a * a) };
+  const meanM = printedMeanRadiusM({ pitchM: a, ringRadiusM: r, ringWidthM: w, ringGapM: d });
+  // two strips whose mean radii are meanM ∓ (w + d)/2: total length 2·2π·meanM
+  return { board: t / a, metal: (4 * Math.PI * meanM * w * PRINTED_METAL_THICKNESS_M) / (a * a * a) };
 }
 
 export function billOfMaterials(levels: PlanLevel[], cellSize: number, dimension: 2 | 3, isGas: (id: string) => boolean): BillOfMaterialsRow[] {

@@ -13,6 +13,7 @@ import type { Lattice } from "../../cells/lattice.js";
 import { checkProcess } from "../../cells/process.js";
 import { homogenizationCheck } from "../../cells/homogenization.js";
 import { designSplitRing, splitRingBandwidth } from "../../cells/splitRing.js";
+import { printedOuterRadiusM } from "../../cells/printedRing.js";
 import { bandwidthWithinTolerance } from "../../cells/wireMedium.js";
 import { relErr } from "../quantize/relativeError.js";
 import type { Recipe } from "../planTypes.js";
@@ -282,7 +283,7 @@ function splitRing(
   const achievedC: Complex[] = comps.map((c, k) => (c.kind === "eps" ? cellEps : k === mk ? r.mu : complex(1)));
   let err = 0;
   for (let c = 0; c < comps.length; c++) err = Math.max(err, relErr(achievedC[c].re, target[c]));
-  const outerRadiusM = g.ringRadiusM + 2 * g.ringWidthM + g.ringGapM; // inner radius + two strips + their separation
+  const outerRadiusM = printedOuterRadiusM(g);
   const wall = Math.max(0, a - 2 * outerRadiusM);
   const featureM = Math.min(g.ringWidthM, boardThicknessM);
   const gapM = Math.min(g.ringGapM, wall > 0 ? wall : Infinity, boardFill < 1 ? a - boardThicknessM : Infinity);
