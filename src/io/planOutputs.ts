@@ -30,13 +30,13 @@ function abortError(): Error {
 /** Stream `produce`'s chunks into `path`, honouring back-pressure and the abort signal. */
 async function streamTo(
   path: string,
-  produce: (write: (chunk: string) => Promise<void>) => Promise<void>,
+  produce: (write: (chunk: Uint8Array) => Promise<void>) => Promise<void>,
   signal?: AbortSignal,
 ): Promise<void> {
-  const stream = createWriteStream(path, { encoding: "utf8" });
+  const stream = createWriteStream(path);
   let failure: Error | null = null;
   stream.on("error", (e) => { failure = e; });
-  const write = async (chunk: string): Promise<void> => {
+  const write = async (chunk: Uint8Array): Promise<void> => {
     if (signal?.aborted) throw abortError();
     if (failure) throw failure;
     if (!stream.write(chunk)) {
