@@ -62,7 +62,7 @@ export const BUILD_LIST_CHUNK_BYTES = 1 << 20;
  * UTF-8 encoded.
  */
 class RowBytes {
-  buf = new Uint8Array(BUILD_LIST_CHUNK_BYTES + 65536);
+  buf: Uint8Array = new Uint8Array(BUILD_LIST_CHUNK_BYTES + 65536);
   at = 0;
   private encoder: InstanceType<typeof TextEncoder> | null = null;
 
@@ -110,25 +110,42 @@ class RowBytes {
     this.buf = next;
   }
 
-  /** The bytes so far (a copy: the caller may hold it while the next chunk is made), then empty. */
+  /**
+   * The bytes so far, then empty, writing on into the other of two buffers: the caller may hold
+   * the returned view until its emit promise settles (while the next chunk is made), and the
+   * buffers are reused instead of touching fresh memory for every chunk.
+   */
   take(): Uint8Array {
-    const out = this.buf.slice(0, this.at);
+    const out = this.buf.subarray(0, this.at);
+    const other = this.spare;
+    this.spare = this.buf;
+    this.buf = other ?? new Uint8Array(this.spare.length);
     this.at = 0;
     return out;
   }
+
+  private spare: Uint8Array | null = null;
 }
 
 const COMMA = 44, NEWLINE = 10;
 
 /**
  * Calls `emit` with successive chunks of the build list as UTF-8 bytes (whole rows, about
- * `BUILD_LIST_CHUNK_BYTES` each, the header first); awaits `emit` so a stream's back-pressure is
- * respected.
+ * `BUILD_LIST_CHUNK_BYTES` each, the header first). A chunk's bytes stay valid until the promise
+ * `emit` returned for it settles (it should settle once the bytes are written); the next chunk is
+ * made meanwhile, and the one after waits for it (back-pressure).
  */
 export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Promise<void> | void): Promise<void> {
   const g = plan.grid;
   const three = g.dimension === 3;
   const out = new RowBytes();
+  let inFlight: Promise<void> | undefined;
+  const flush = async (): Promise<void> => {
+    const sent = Promise.resolve(emit(out.take()));
+    sent.catch(() => undefined); // a failure is thrown where it is awaited, below or at the end
+    await inFlight; // the buffer now being filled was the one of the chunk before
+    inFlight = sent;
+  };
   out.text(`${buildListHeader(plan)}\n`);
   // positions depend on one lattice index each: format them once per index
   const xs = Array.from({ length: g.nx }, (_, i) => fmt(g.originXM + i * g.pitchM, 8));
@@ -169,7 +186,8 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
     out.text(lv >= 0 ? recipe[lv] : noRecipe);
     out.byte(COMMA); out.text(flagList(plan.flags[c]));
     out.byte(NEWLINE);
-    if (out.at >= BUILD_LIST_CHUNK_BYTES) await emit(out.take());
+    if (out.at >= BUILD_LIST_CHUNK_BYTES) await flush();
   }
-  if (out.at > 0) await emit(out.take());
+  if (out.at > 0) await flush();
+  await inFlight;
 }
