@@ -92,11 +92,17 @@ class RowBytes {
       buf[this.at++] = 48 + v;
       return;
     }
-    let digits = 0;
-    for (let t = v; t > 0; t = Math.floor(t / 10)) digits++;
-    let at = this.at + digits;
+    if (v > 0x7fffffff) {
+      this.text(String(v));
+      return;
+    }
+    let at = this.at + (v < 100 ? 2 : v < 1e3 ? 3 : v < 1e4 ? 4 : v < 1e5 ? 5 : v < 1e6 ? 6 : v < 1e7 ? 7 : v < 1e8 ? 8 : v < 1e9 ? 9 : 10);
     this.at = at;
-    for (let t = v; t > 0; t = Math.floor(t / 10)) buf[--at] = 48 + (t % 10);
+    for (let t = v | 0; t > 0; ) {
+      const q = (t / 10) | 0;
+      buf[--at] = 48 + t - q * 10;
+      t = q;
+    }
   }
 
   byte(b: number): void {
