@@ -42,14 +42,14 @@ export interface CrossSections {
   /** absorption width, metres (negative means net gain inside the contour) */
   absorptionM: number;
   extinctionM: number;
-  /** incident flux per face, for reference: sin(k̃h) */
+  /** incident flux per face, for reference: sin(k̃h) along x */
   incidentPerFace: number;
 }
 
 /** Scattering, absorption and extinction widths from the flux through `box` (see file comment). */
 export function crossSections(sol: SceneSolution, box: NodeBox): CrossSections {
   const g = sol.grid;
-  const perFace = Math.sin(sol.kGrid * g.h);
+  const perFace = sol.incidentIntensityPerM * g.h;
   const toM = g.h / perFace;
   const scat = boxFlux(g, box, sol.scatteredRe, sol.scatteredIm) * toM;
   const abs = -boxFlux(g, box, sol.totalRe, sol.totalIm) * toM;
