@@ -6,7 +6,8 @@
  *
  * Sub-pixel averaging (Farjadpour et al., Opt. Lett. 31, 2972 (2006); Kottke, Farjadpour & Johnson,
  * Phys. Rev. E 77, 036611 (2008), eqs. 4–6 in 2D). Every location averages s × s samples over the
- * h × h box around it:
+ * h × h box around it (s = 4, raised to FINE_SAMPLES = 10 where the samples differ, so the fill of
+ * a box cut by an interface is known to about 1 %):
  *  - b (the field along z is tangential to every in-plane interface): arithmetic mean;
  *  - T (in-plane tensor): in the frame (n, t) of the local interface normal n, the Kottke map
  *    τ(T) = [−1/T_nn, T_nt/T_nn, T_tt − T_nt²/T_nn] is averaged and inverted, i.e. the normal
@@ -46,6 +47,8 @@ export interface GridCoefficients {
 
 /** Smallest cut fraction θ of an Ez link (a node closer to the surface is treated as at 1 % of h). */
 export const MIN_CUT_FRACTION = 0.01;
+/** Samples per side where a box straddles an interface (the coarse layout found a difference). */
+const FINE_SAMPLES = 10;
 /** Samples per side of the Hz open-area estimate of a node cut by a conductor. */
 const AREA_SAMPLES = 16;
 
@@ -68,23 +71,45 @@ export function backgroundGridCoefficients(g: FdfdGrid, scene: Pick<Scene, "pola
  * keeps its scratch arrays and writes into `avg` (bRe, bIm, axxRe, axxIm, ayyRe, ayyIm, axyRe, axyIm).
  * Returns the number of open (not conductor) samples, −1 when every sample is background.
  */
-function boxSampler(scene: Scene, s: number) {
+function boxSampler(scene: Scene, sCoarse: number) {
   const { b: bBg, t: tBg } = backgroundCoefficients(scene);
   const buf = new Float64Array(SAMPLE_LENGTH);
-  const m = s * s;
-  const dx = new Float64Array(m), dy = new Float64Array(m);
-  const kind = new Uint8Array(m);
-  const v = new Float64Array(8 * m); // b, txx, tyy, txy (re, im) per sample
+  const sFine = Math.max(sCoarse, FINE_SAMPLES);
+  const mMax = sFine * sFine;
+  const dx = new Float64Array(mMax), dy = new Float64Array(mMax);
+  const kind = new Uint8Array(mMax);
+  const v = new Float64Array(8 * mMax); // b, txx, tyy, txy (re, im) per sample
   const avg = new Float64Array(8);
-  for (let p = 0; p < s; p++) for (let q = 0; q < s; q++) { dx[p + s * q] = (p + 0.5) / s - 0.5; dy[p + s * q] = (q + 0.5) / s - 0.5; }
+  let s = sCoarse, m = s * s;
+  const layout = (side: number): void => {
+    s = side; m = side * side;
+    for (let p = 0; p < s; p++) for (let q = 0; q < s; q++) { dx[p + s * q] = (p + 0.5) / s - 0.5; dy[p + s * q] = (q + 0.5) / s - 0.5; }
+  };
+  /** true when every sample of the current layout is the same (kind, and value unless the medium is smooth) */
+  const smooth = scene.smoothMedium === true;
+  const uniform = (): boolean => {
+    for (let k = 1; k < m; k++) {
+      if (kind[k] !== kind[0]) return false;
+      if (smooth) continue;
+      for (let q = 0; q < 8; q++) if (v[8 * k + q] !== v[q]) return false;
+    }
+    return true;
+  };
   function average(xc: number, yc: number, h: number): number {
-    let open = 0, medium = 0;
+    layout(sCoarse);
+    fill(xc, yc, h);
+    if (sFine > sCoarse && !uniform()) { layout(sFine); fill(xc, yc, h); }
+    return reduceSamples();
+  }
+  let open = 0, medium = 0;
+  function fill(xc: number, yc: number, h: number): void {
+    open = 0; medium = 0;
     for (let k = 0; k < m; k++) {
       const kd = scene.sample(xc + dx[k] * h, yc + dy[k] * h, buf);
       kind[k] = kd;
-      if (kd === SAMPLE_PEC) continue;
-      open++;
       const o = 8 * k;
+      if (kd === SAMPLE_PEC) { for (let q = 0; q < 8; q++) v[o + q] = 0; continue; }
+      open++;
       if (kd === SAMPLE_BACKGROUND) {
         v[o] = bBg; v[o + 1] = 0; v[o + 2] = tBg; v[o + 3] = 0; v[o + 4] = tBg; v[o + 5] = 0; v[o + 6] = 0; v[o + 7] = 0;
       } else {
@@ -95,6 +120,8 @@ function boxSampler(scene: Scene, s: number) {
         v[o + 6] = buf[S_TXY]; v[o + 7] = buf[S_TXY + 1];
       }
     }
+  }
+  function reduceSamples(): number {
     if (medium === 0) {
       avg[0] = bBg; avg[1] = 0; avg[2] = 1 / tBg; avg[3] = 0; avg[4] = 1 / tBg; avg[5] = 0; avg[6] = 0; avg[7] = 0;
       return open === m ? -1 : open;

@@ -35,6 +35,11 @@ export interface Scene {
    * calls PEC outside every listed shape are treated as whole cells (a staircase).
    */
   conductors?: readonly Conductor[];
+  /**
+   * true when the medium varies continuously wherever sample() returns SAMPLE_MEDIUM (a graded map):
+   * only changes of kind (medium, background, conductor) are interfaces that need fine sampling.
+   */
+  smoothMedium?: boolean;
 }
 
 /** b and the in-plane tensor of the background as the polarization sees it: Ez (ε, μ), Hz (μ, ε). */
