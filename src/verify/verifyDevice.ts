@@ -16,7 +16,7 @@
  * silently coarsened.
  */
 import { InputError } from "../core/errors.js";
-import { solveCost, MAX_BAND_MEGABYTES, MAX_FACTOR_WORK } from "./assemble.js";
+import { DEFAULT_SOLVER_BYTES, formatBytes, solveCost } from "./assemble.js";
 import { gridForWindow, inPml, type FdfdGrid } from "./fdfdGrid.js";
 import { gridWavenumberAt, type Illumination } from "./illumination.js";
 import { crossSections, farField, fluxBox, relativeDifference, type NodeBox } from "./metrics.js";
@@ -128,11 +128,13 @@ function ladderStart(accuracy: number): number {
   return Math.min(48, Math.max(8, Math.round(12 * Math.sqrt(DEFAULT_ACCURACY / accuracy))));
 }
 
-/** Whether grid g fits the solver; the figure over its limit when not. */
-export function gridFits(g: FdfdGrid): { ok: boolean; over: string } {
+/** Largest grid the ladder adds on its own to reach the accuracy (a requested grid may be larger, up to the memory limit). */
+export const MAX_AUTO_UNKNOWNS = 1.2e6;
+
+/** Whether grid g fits the solver's memory (assemble.ts); the figure over its limit when not. */
+export function gridFits(g: FdfdGrid, limitBytes = DEFAULT_SOLVER_BYTES): { ok: boolean; over: string } {
   const c = solveCost(g);
-  if (c.megabytes > MAX_BAND_MEGABYTES) return { ok: false, over: `${Math.round(c.megabytes)} MB of matrix storage (limit ${MAX_BAND_MEGABYTES} MB)` };
-  if (c.work > MAX_FACTOR_WORK) return { ok: false, over: `${(c.work / 1e9).toPrecision(3)}e9 factorization operations (limit ${(MAX_FACTOR_WORK / 1e9).toPrecision(3)}e9)` };
+  if (c.megabytes * 1e6 > limitBytes) return { ok: false, over: `about ${formatBytes(c.megabytes * 1e6)} for the direct solver (limit ${formatBytes(limitBytes)})` };
   return { ok: true, over: "" };
 }
 
@@ -192,7 +194,7 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   const refuse = (res: number, g: FdfdGrid, over: string): never => {
     throw new InputError({
       where: input.resolution !== undefined ? "--resolution" : "--accuracy",
-      message: `the grid for ${res} points per wavelength in the densest material (index ${nMax.toPrecision(3)}) is ${g.nx} × ${g.ny} nodes, step ${fmt(g.h)} m, which needs ${over}; ${largestFitting(makeGrid)}`,
+      message: `the grid for ${res} points per wavelength in the densest material (index ${nMax.toPrecision(3)}) is ${g.nx} × ${g.ny} nodes, step ${fmt(g.h)} m, which needs ${over}; ${largestFitting(makeGrid, res)}`,
     });
   };
   let wanted: number[];
@@ -254,7 +256,7 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
     const res = Math.round(rungs[rungs.length - 1].resolution * Math.SQRT2);
     if (res > MAX_RESOLUTION) break;
     const g = makeGrid(res);
-    if (!gridFits(g).ok) { notes.push(`a finer rung (${res} points per wavelength) would not fit the solver; the ladder stops at ${rungs[rungs.length - 1].resolution}`); break; }
+    if (!gridFits(g).ok || g.nx * g.ny > MAX_AUTO_UNKNOWNS) { notes.push(`a finer rung (${res} points per wavelength, ${g.nx} × ${g.ny} nodes) is beyond what the ladder adds on its own; it stops at ${rungs[rungs.length - 1].resolution}`); break; }
     const r = { resolution: res, g };
     rungs.push(r);
     total += live.length;
@@ -275,9 +277,12 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
 
 const fmt = (v: number): string => Number(v.toPrecision(3)).toString();
 
-function largestFitting(makeGrid: (res: number) => FdfdGrid): string {
-  for (let res = MAX_RESOLUTION; res >= MIN_RESOLUTION; res = Math.floor(res / 1.2)) {
-    if (gridFits(makeGrid(res)).ok) return `the largest resolution that fits is about ${res} points per wavelength (or give a smaller --margin)`;
+/** The largest resolution below `res` whose grid fits (memory grows about like N² log N in the resolution N, so start from that guess). */
+function largestFitting(makeGrid: (res: number) => FdfdGrid, res: number): string {
+  const need = solveCost(makeGrid(res)).megabytes * 1e6;
+  let r = Math.floor(res * Math.sqrt(DEFAULT_SOLVER_BYTES / need));
+  for (let tries = 0; tries < 12 && r >= MIN_RESOLUTION; tries++, r = Math.floor(r * 0.93)) {
+    if (gridFits(makeGrid(r)).ok) return `the largest resolution that fits is about ${r} points per wavelength (or give a smaller --margin)`;
   }
   return `even ${MIN_RESOLUTION} points per wavelength do not fit: the device is too large for the 2D check on this machine`;
 }
