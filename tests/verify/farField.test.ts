@@ -41,7 +41,9 @@ describe("far field", () => {
     expect(Math.abs(mean / flux - 1)).toBeLessThan(0.01);
   });
 
-  it("reciprocity: T(φ_out; φ_in) = T(φ_in + π; φ_out + π) for an asymmetric dielectric (to 1e-3 of the largest amplitude)", () => {
+  it("reciprocity: T(φ_out; φ_in) = T(φ_in + π; φ_out + π) for an asymmetric dielectric (to 5e-3 of the amplitude)", () => {
+    // the operator is symmetric, but the near-to-far sum is exact only to O((kh)²) ≈ 2.5e-2 here;
+    // 1.4e-3 was measured — a wrong angle or sign gives differences of order 1
     // an L-shaped block of ε = 3 off the origin: no symmetry that would make the check trivial
     const scene: Scene = {
       polarization: "Hz", background: { eps: 1, mu: 1 }, bounds: { minX: -0.25, maxX: 0.3, minY: -0.2, maxY: 0.3 },
@@ -63,6 +65,9 @@ describe("far field", () => {
     const t1 = at(pIn, pOut), t2 = at(pOut + Math.PI, pIn + Math.PI);
     const size = Math.max(Math.hypot(...t1), Math.hypot(...t2));
     expect(size).toBeGreaterThan(1e-3);
-    expect(Math.hypot(t1[0] - t2[0], t1[1] - t2[1]) / size).toBeLessThan(1e-3);
+    expect(Math.hypot(t1[0] - t2[0], t1[1] - t2[1]) / size).toBeLessThan(5e-3);
+    // and not trivially: the reverse pair differs from the forward one
+    const t3 = at(pOut, pIn);
+    expect(Math.hypot(t1[0] - t3[0], t1[1] - t3[1]) / size).toBeGreaterThan(0.05);
   });
 });
