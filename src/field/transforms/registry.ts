@@ -11,6 +11,7 @@ import { beamShifter } from "./beamShifter.js";
 import { beamBend } from "./beamBend.js";
 import { sphericalCloak } from "./sphericalCloak.js";
 import { expressionMap } from "./expressionMap.js";
+import { quasiConformal } from "./quasiConformal.js";
 import { ProgrammerError } from "../../core/errors.js";
 
 type Analytic = Exclude<TransformSpec, { kind: "imported" }>;
@@ -23,6 +24,7 @@ export const TRANSFORMS: { [K in Analytic["kind"]]: (spec: Extract<Analytic, { k
   "beam-bend": beamBend,
   "spherical-cloak": sphericalCloak,
   expression: expressionMap,
+  "quasi-conformal": quasiConformal,
 };
 
 /** All kinds a design may name, analytic ones first. */

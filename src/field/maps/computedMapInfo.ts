@@ -1,0 +1,33 @@
+/**
+ * What a computed map reports about itself (field --json's `map` object): the conformal module
+ * of the physical domain with its two-sided bracket, the virtual aspect it is mapped to, the
+ * residual anisotropy that the mismatch leaves, the solver grid and the linear-solve residual.
+ * Module and aspect are both height/width of the Dirichlet pair of the solve (the sides where the
+ * second virtual coordinate is fixed: bottom/top of a quadrilateral; inner/outer curve of a shell,
+ * where the "width" is the mean circumference between them).
+ */
+export interface ComputedMapInfo {
+  /** geometric mean of the bracket: lower bound 1/E(v̂), upper bound E(û) (Dirichlet's principle) */
+  conformalModule: number;
+  conformalModuleBounds: [number, number];
+  /** height/width of the virtual domain after any fit */
+  virtualAspect: number;
+  /** largest ratio of principal stretches σ₁/σ₂ of the map over the solver's cells */
+  maxAnisotropy: number;
+  /** area-weighted mean of σ₁/σ₂ */
+  meanAnisotropy: number;
+  /** solver grid lines [along the first coordinate, along the second] */
+  nodes: [number, number];
+  /** largest relative residual of the linear solves */
+  residual: number;
+  /** the virtual rectangle actually used (metres), for quadrilateral maps */
+  virtualRectangle?: { minM: [number, number]; maxM: [number, number] };
+}
+
+/** σ₁/σ₂ of a 2 × 2 matrix [[a, b], [c, d]] (≥ 1; Infinity when singular). */
+export function stretchRatio(a: number, b: number, c: number, d: number): number {
+  const f = a * a + b * b + c * c + d * d, det = Math.abs(a * d - b * c);
+  if (!(det > 0)) return Infinity;
+  const q = f / det; // = r + 1/r
+  return 0.5 * (q + Math.sqrt(Math.max(0, q * q - 4)));
+}
