@@ -182,3 +182,25 @@ function mapEvaluatorCells(m: StructuredMap): (out: Float64Array, i: number, j: 
     return det;
   };
 }
+
+/**
+ * Largest ‖K_fine − K_coarse‖_F / ‖K_fine‖_F over the fine map's cell centres (K = diag(scaleU,
+ * scaleV)·∂(û, v̂)/∂(x′, y′)), skipping centres the coarse map does not cover. For a second-order
+ * scheme a third of this estimates the fine map's own error (Richardson).
+ */
+export function jacobianDifference(fine: StructuredMap, coarse: MapEvaluator, scaleU: number, scaleV: number): number {
+  const ev = mapEvaluatorCells(fine);
+  const nu = fine.gx.nu, nv = fine.gx.nv;
+  const a = new Float64Array(7), b = new Float64Array(6);
+  let worst = 0;
+  for (let j = 0; j + 1 < nv; j++) {
+    for (let i = 0; i + 1 < nu; i++) {
+      ev(a, i, j, 0.5, 0.5);
+      if (!coarse.at(b, a[0], a[1])) continue;
+      const d = Math.hypot(scaleU * (a[2] - b[2]), scaleU * (a[3] - b[3]), scaleV * (a[4] - b[4]), scaleV * (a[5] - b[5]));
+      const n = Math.hypot(scaleU * a[2], scaleU * a[3], scaleV * a[4], scaleV * a[5]);
+      if (n > 0 && d / n > worst) worst = d / n;
+    }
+  }
+  return worst;
+}
