@@ -142,6 +142,7 @@ export type TransformSpec =
   | SphericalCloakSpec
   | ExpressionSpec
   | QuasiConformalSpec
+  | LaplaceShellSpec
   | ImportedSpec;
 
 export type TransformKind = TransformSpec["kind"];

@@ -30,6 +30,12 @@ const SPECS: TransformSpec[] = [
       right: { kind: "straight" }, top: { kind: "straight" }, left: { kind: "straight" },
     },
   },
+  {
+    // a concentrator between an ellipse and a circle, core magnified 1.5×
+    kind: "laplace-shell", center: [0.002, 0], innerScale: 1.5, nodes: [64, 11],
+    inner: { kind: "polar", text: "ellipse", r: (t) => (0.02 * 0.015) / Math.hypot(0.015 * Math.cos(t), 0.02 * Math.sin(t)) },
+    outer: { kind: "polar", text: "0.05", r: () => 0.05 },
+  },
   { kind: "expression", virtual: { x: "x + 0.2*y", y: "0.9*y + 0.1*x^2/0.05" }, region: { shape: "circle", centerM: [0, 0], radiusM: 0.03 }, compiled: linearMap },
 ];
 

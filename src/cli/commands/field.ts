@@ -43,6 +43,7 @@ function describeTransform(design: Design): string {
       const sides = (["bottom", "right", "top", "left"] as const).filter((n) => t.sides[n].kind !== "straight");
       return `quasi-conformal map of a rectangle, ${sides.length ? `${sides.join(", ")} side${sides.length > 1 ? "s" : ""} replaced` : "no side replaced"}${t.fit === "module" ? ", width fitted to the module" : ""}`;
     }
+    case "laplace-shell": return `laplace-shell ${t.innerScale === 0 ? "cloak" : `concentrator (inner scale ${g(t.innerScale)})`} between two curves around (${mm(t.center[0])}, ${mm(t.center[1])})`;
     case "imported": return `imported field`;
   }
 }
@@ -72,7 +73,9 @@ function humanSummary(design: Design, field: TensorField, s: FieldSummary, outPa
   if (field.map) {
     const m = field.map;
     lines.push(`  computed map: solver grid ${m.nodes[0]} × ${m.nodes[1]}, linear-solve residual ${m.residual.toExponential(1)}, Jacobian error ≈ ${g(m.jacobianErrorEstimate)} (relative, from a half-resolution solve)`);
-    lines.push(`  conformal module ${g(m.conformalModule)} (between ${g(m.conformalModuleBounds[0])} and ${g(m.conformalModuleBounds[1])}), virtual aspect ${g(m.virtualAspect)}`);
+    if (m.conformalModule !== null && m.conformalModuleBounds && m.virtualAspect !== null) {
+      lines.push(`  conformal module ${g(m.conformalModule)} (between ${g(m.conformalModuleBounds[0])} and ${g(m.conformalModuleBounds[1])}), virtual aspect ${g(m.virtualAspect)}`);
+    }
     lines.push(`  anisotropy of the map (ratio of principal stretches): max ${g(m.maxAnisotropy)}, mean ${g(m.meanAnisotropy)}`);
   }
   if (outPath) lines.push(`  wrote ${outPath}`);

@@ -3,15 +3,15 @@
  * of the physical domain with its two-sided bracket, the virtual aspect it is mapped to, the
  * residual anisotropy that the mismatch leaves, the solver grid and the linear-solve residual.
  * Module and aspect are both height/width of the Dirichlet pair of the solve (the sides where the
- * second virtual coordinate is fixed: bottom/top of a quadrilateral; inner/outer curve of a shell,
- * where the "width" is the mean circumference between them).
+ * second virtual coordinate is fixed: bottom/top of a quadrilateral; a shell (inner/outer curve)
+ * reports no module: null).
  */
 export interface ComputedMapInfo {
   /** geometric mean of the bracket: lower bound 1/E(v̂), upper bound E(û) (Dirichlet's principle) */
-  conformalModule: number;
-  conformalModuleBounds: [number, number];
-  /** height/width of the virtual domain after any fit */
-  virtualAspect: number;
+  conformalModule: number | null;
+  conformalModuleBounds: [number, number] | null;
+  /** height/width of the virtual domain after any fit (null for shells) */
+  virtualAspect: number | null;
   /** largest ratio of principal stretches σ₁/σ₂ of the map over the solver's cells */
   maxAnisotropy: number;
   /** area-weighted mean of σ₁/σ₂ */

@@ -26,6 +26,36 @@ const G = 1 / Math.sqrt(3);
 const GAUSS = [-G, G];
 const RA = [-1, 1, 1, -1], SA = [-1, -1, 1, 1];
 
+/**
+ * Element stiffness of one bilinear quad with corners (xs[k], ys[k]) counter-clockwise, 2 × 2 Gauss
+ * points, lower triangle into ke[4a + b]. False when a Gauss point has det ≤ 0 (a folded quad).
+ */
+export function q1Stiffness(xs: Float64Array, ys: Float64Array, ke: Float64Array): boolean {
+  ke.fill(0);
+  for (const gr of GAUSS) {
+    for (const gs of GAUSS) {
+      let j11 = 0, j12 = 0, j21 = 0, j22 = 0;
+      for (let a = 0; a < 4; a++) {
+        const dr = 0.25 * RA[a] * (1 + gs * SA[a]), ds = 0.25 * SA[a] * (1 + gr * RA[a]);
+        j11 += dr * xs[a]; j12 += dr * ys[a];
+        j21 += ds * xs[a]; j22 += ds * ys[a];
+      }
+      const det = j11 * j22 - j12 * j21;
+      if (!(det > 0)) return false;
+      for (let a = 0; a < 4; a++) {
+        const dra = 0.25 * RA[a] * (1 + gs * SA[a]), dsa = 0.25 * SA[a] * (1 + gr * RA[a]);
+        const gxa = (j22 * dra - j12 * dsa) / det, gya = (-j21 * dra + j11 * dsa) / det;
+        for (let b = 0; b <= a; b++) {
+          const drb = 0.25 * RA[b] * (1 + gs * SA[b]), dsb = 0.25 * SA[b] * (1 + gr * RA[b]);
+          const gxb = (j22 * drb - j12 * dsb) / det, gyb = (-j21 * drb + j11 * dsb) / det;
+          ke[4 * a + b] += (gxa * gxb + gya * gyb) * det;
+        }
+      }
+    }
+  }
+  return true;
+}
+
 /** Assemble the Q1 stiffness matrix. Returns null and the quad index when a Gauss point has det ≤ 0. */
 export function assembleLaplace(m: StructuredMesh): { assembly: LaplaceAssembly; badQuad: -1 } | { assembly: null; badQuad: number } {
   const { nu, nv, x, y } = m;
@@ -35,29 +65,12 @@ export function assembleLaplace(m: StructuredMesh): { assembly: LaplaceAssembly;
   const order = new Int32Array(n);
   for (let j = 0; j < nv; j++) for (let i = 0; i < nu; i++) order[j * nu + i] = alongV ? i * nv + j : j * nu + i;
   const band = allocBand(n, w);
-  const ke = new Float64Array(16), gx = new Float64Array(4), gy = new Float64Array(4), node = new Int32Array(4);
+  const ke = new Float64Array(16), xs = new Float64Array(4), ys = new Float64Array(4), node = new Int32Array(4);
   for (let j = 0; j + 1 < nv; j++) {
     for (let i = 0; i + 1 < nu; i++) {
       node[0] = j * nu + i; node[1] = node[0] + 1; node[2] = node[0] + nu + 1; node[3] = node[0] + nu;
-      ke.fill(0);
-      for (const gr of GAUSS) {
-        for (const gs of GAUSS) {
-          let j11 = 0, j12 = 0, j21 = 0, j22 = 0;
-          for (let a = 0; a < 4; a++) {
-            const dr = 0.25 * RA[a] * (1 + gs * SA[a]), ds = 0.25 * SA[a] * (1 + gr * RA[a]);
-            j11 += dr * x[node[a]]; j12 += dr * y[node[a]];
-            j21 += ds * x[node[a]]; j22 += ds * y[node[a]];
-          }
-          const det = j11 * j22 - j12 * j21;
-          if (!(det > 0)) return { assembly: null, badQuad: j * (nu - 1) + i };
-          for (let a = 0; a < 4; a++) {
-            const dr = 0.25 * RA[a] * (1 + gs * SA[a]), ds = 0.25 * SA[a] * (1 + gr * RA[a]);
-            gx[a] = (j22 * dr - j12 * ds) / det;
-            gy[a] = (-j21 * dr + j11 * ds) / det;
-          }
-          for (let a = 0; a < 4; a++) for (let b = 0; b <= a; b++) ke[4 * a + b] += (gx[a] * gx[b] + gy[a] * gy[b]) * det;
-        }
-      }
+      for (let a = 0; a < 4; a++) { xs[a] = x[node[a]]; ys[a] = y[node[a]]; }
+      if (!q1Stiffness(xs, ys, ke)) return { assembly: null, badQuad: j * (nu - 1) + i };
       for (let a = 0; a < 4; a++) for (let b = 0; b <= a; b++) addToBand(band, w, order[node[a]], order[node[b]], ke[4 * a + b]);
     }
   }

@@ -5,7 +5,8 @@
  * the design file.
  */
 import { InputError } from "../../core/errors.js";
-import type { QuasiConformalSpec, SideCurve, SideName } from "../../field/transformSpec.js";
+import type { ClosedCurve, LaplaceShellSpec, QuasiConformalSpec, SideCurve, SideName } from "../../field/transformSpec.js";
+import { radiusFunction, shellCurveIssues } from "../../field/maps/shellCurves.js";
 import { quadSideIssues } from "../../field/maps/quadSides.js";
 import { compileCurveExpression } from "../expressionMap.js";
 import { QUAD_SIDE_NAMES } from "./transformSchema.js";
@@ -74,5 +75,55 @@ export async function resolveQuasiConformal(t: ParsedQuasiConformal, pitchM: num
   if (t.cap !== undefined) spec.cap = t.cap;
   const issues = quadSideIssues(spec);
   if (issues.length) throw new InputError(issues.map((i) => ({ where: `${file}: $.transform.${i.path}`, message: i.message })));
+  return spec;
+}
+
+export interface ParsedLaplaceShell {
+  kind: "laplace-shell";
+  center: [number, number];
+  inner: { r?: string; points?: [number, number][] };
+  outer: { r?: string; points?: [number, number][] };
+  innerScale: number;
+  nodes?: [number, number];
+  innerOffset?: number;
+  cap?: number;
+}
+
+/**
+ * Default shell grid: half a pitch around the outer curve's circumference and across the mean
+ * thickness, within 32…1025 around and 9…201 across, coarsened until the band work (the seam
+ * doubles the bandwidth) stays near 4·10⁸.
+ */
+export function defaultShellNodes(circumferenceM: number, thicknessM: number, pitchM: number): [number, number] {
+  const h = pitchM / NODES_PER_PITCH;
+  let nt = Math.min(1025, Math.max(32, Math.round(circumferenceM / h)));
+  let nr = Math.min(201, Math.max(9, Math.round(thicknessM / h) + 1));
+  while (nt * nr * (2 * nr) ** 2 > DEFAULT_WORK_LIMIT && (nt > 32 || nr > 9)) {
+    nt = Math.max(32, Math.round(nt * 0.9)); nr = Math.max(9, Math.round(nr * 0.9));
+  }
+  return [nt, nr];
+}
+
+/** Compile the curves, check them, fill the default grid. Throws InputError naming the file and path. */
+export async function resolveLaplaceShell(t: ParsedLaplaceShell, pitchM: number, file: string): Promise<LaplaceShellSpec> {
+  const curve = async (c: ParsedLaplaceShell["inner"], name: string): Promise<ClosedCurve> =>
+    c.points ? { kind: "points", pointsM: c.points } : { kind: "polar", text: c.r!, r: await compileCurveExpression(c.r!, "theta", `${file}: $.transform.${name}.r`) };
+  const inner = await curve(t.inner, "inner"), outer = await curve(t.outer, "outer");
+  const issues = shellCurveIssues(inner, outer, t.center);
+  if (issues.length) throw new InputError(issues.map((i) => ({ where: `${file}: $.transform.${i.path}`, message: i.message })));
+  const fi = radiusFunction(inner, t.center[0], t.center[1]), fo = radiusFunction(outer, t.center[0], t.center[1]);
+  let circ = 0, thick = 0;
+  const rays = 256;
+  for (let k = 0; k < rays; k++) {
+    const th = (2 * Math.PI * k) / rays;
+    circ += (2 * Math.PI * fo(th)) / rays;
+    thick += (fo(th) - fi(th)) / rays;
+  }
+  const spec: LaplaceShellSpec = {
+    kind: "laplace-shell", center: t.center, inner, outer, innerScale: t.innerScale,
+    nodes: t.nodes ?? defaultShellNodes(circ, thick, pitchM),
+  };
+  if (t.innerOffset !== undefined) spec.innerOffsetM = t.innerOffset;
+  if (t.cap !== undefined) spec.cap = t.cap;
   return spec;
 }

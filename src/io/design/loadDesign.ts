@@ -11,7 +11,7 @@ import { InputError, unknownWithSuggestion, type InputIssue } from "../../core/e
 import { TRANSFORM_KINDS } from "../../field/transforms/registry.js";
 import type { TransformSpec } from "../../field/transformSpec.js";
 import { compileExpressionMap } from "../expressionMap.js";
-import { resolveQuasiConformal, type ParsedQuasiConformal } from "./computedMapSpecs.js";
+import { resolveQuasiConformal, resolveLaplaceShell, type ParsedQuasiConformal, type ParsedLaplaceShell } from "./computedMapSpecs.js";
 import { prepareQuantities } from "./quantitySchema.js";
 import { designSchema, DESIGN_KEYS, BACKGROUND_KEYS, type Design } from "./designSchema.js";
 import { TRANSFORM_KEYS } from "./transformSchema.js";
@@ -80,6 +80,7 @@ function knownKeys(json: unknown, path: readonly PropertyKey[]): string[] | null
     if (p === "transform.sides") return ["bottom", "right", "top", "left"];
     if (/^transform\.sides\.(bottom|right|top|left)$/.test(p)) return ["x", "y", "points"];
   }
+  if (kind === "laplace-shell" && /^transform\.(inner|outer)$/.test(p)) return ["r", "points"];
   if (p === "transform.virtual") return ["x", "y"];
   if (p === "transform.region") return [...REGION_SHAPES];
   if (p === "transform.region.circle") return ["center", "radius"];
@@ -146,6 +147,8 @@ export async function parseDesign(json: unknown, sourcePath: string, cwd: string
     transform = { ...d.transform, compiled };
   } else if (d.transform.kind === "quasi-conformal") {
     transform = await resolveQuasiConformal(d.transform as ParsedQuasiConformal, d.grid.pitchM, sourcePath);
+  } else if (d.transform.kind === "laplace-shell") {
+    transform = await resolveLaplaceShell(d.transform as ParsedLaplaceShell, d.grid.pitchM, sourcePath);
   } else if (d.transform.kind === "imported") {
     transform = { kind: "imported", file: resolve(cwd, dirname(sourcePath), d.transform.file) };
   } else {

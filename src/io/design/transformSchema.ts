@@ -162,10 +162,30 @@ const quasiConformal = z
     }
   });
 
+const closedCurve = z.object({ r: z.string().min(1).optional(), points: z.array(point2).min(3).optional() }).strict()
+  .refine((c) => (c.r === undefined) !== (c.points === undefined), { message: 'expected { "r": "<expression of theta>" } or { "points": [[x, y], …] }' });
+
+const laplaceShell = z
+  .object({
+    kind: z.literal("laplace-shell"),
+    center: point2.default([0, 0]),
+    inner: closedCurve,
+    outer: closedCurve,
+    innerScale: z.number().nonnegative().default(0),
+    nodes: z.tuple([z.number().int().min(8).max(4001), z.number().int().min(3).max(1001)]).optional(),
+    innerOffset,
+    cap,
+  })
+  .strict()
+  .superRefine((t, ctx) => {
+    if (t.innerScale > 0 && t.innerScale <= 1) issue(ctx, "innerScale", "expected 0 (a cloak) or more than 1 (a concentrator's magnification)");
+    if (t.innerOffset !== undefined && t.innerScale > 0) issue(ctx, "innerOffset", "only a cloak (innerScale 0) has a singular inner boundary");
+  });
+
 const imported = z.object({ kind: z.literal("imported"), file: z.string().min(1) }).strict();
 
 export const transformSchema = z.discriminatedUnion("kind", [
-  radialCloak, concentrator, rotator, beamShifter, beamBend, sphericalCloak, expression, quasiConformal, imported,
+  radialCloak, concentrator, rotator, beamShifter, beamBend, sphericalCloak, expression, quasiConformal, laplaceShell, imported,
 ]);
 
 /** JSON keys accepted by each kind, for "did you mean" messages. */
@@ -178,6 +198,7 @@ export const TRANSFORM_KEYS: Record<string, string[]> = {
   "spherical-cloak": ["kind", "innerRadius", "outerRadius", "center", "innerOffset", "cap"],
   expression: ["kind", "virtual", "region", "cap"],
   "quasi-conformal": ["kind", "virtual", "sides", "nodes", "cap"],
+  "laplace-shell": ["kind", "center", "inner", "outer", "innerScale", "nodes", "innerOffset", "cap"],
   imported: ["kind", "file"],
 };
 

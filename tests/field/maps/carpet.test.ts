@@ -28,7 +28,7 @@ describe("carpet maps", () => {
   it("a flat bump gives the identity: K = I, ε′ = μ′ = background everywhere", () => {
     const t = quasiConformal(carpet(0, 4));
     const m = t.computedMap!;
-    expectClose(m.conformalModule, H / W, { rel: 1e-12, label: "module of the rectangle" });
+    expectClose(m.conformalModule!, H / W, { rel: 1e-12, label: "module of the rectangle" });
     expectClose(m.maxAnisotropy, 1, { abs: 1e-9, label: "anisotropy" });
     const f = computeTensorField(design(carpet(0, 4), 2.25));
     for (let c = 0; c < f.grid.count; c++) {
@@ -45,7 +45,7 @@ describe("carpet maps", () => {
     // to a tenth of the error estimate, the max (found at the bump's ends, where its curvature jumps) within the map's own
     // Jacobian error estimate
     for (const m of a) {
-      const mismatch = m.virtualAspect / m.conformalModule;
+      const mismatch = m.virtualAspect! / m.conformalModule!;
       expectClose(m.maxAnisotropy, mismatch, { rel: m.jacobianErrorEstimate, label: "max anisotropy vs aspect/module" });
       expect(Math.abs(m.meanAnisotropy - mismatch)).toBeLessThan(0.1 * m.jacobianErrorEstimate * mismatch);
     }

@@ -78,7 +78,7 @@ describe("quasi-conformal: annular sector ↔ rectangle by the logarithm", () =>
   it("with the width fitted to the module the map is conformal: anisotropy 1 and index ∝ 1/r", () => {
     const t = quasiConformal(sector(65, "module"));
     const m = t.computedMap!;
-    expectClose(m.virtualAspect, m.conformalModule, { rel: 1e-12, label: "fitted aspect" });
+    expectClose(m.virtualAspect!, m.conformalModule!, { rel: 1e-12, label: "fitted aspect" });
     expect(m.maxAnisotropy).toBeLessThan(1 + 1e-3);
     // isotropic reduction: n² = det K (ε_b = μ_b = 1, E along z): n·r is constant (Leonhardt, Science 312, 1777 (2006))
     const k = new Float64Array(9);
