@@ -61,6 +61,13 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   if (spec.kind === "expression") checkExpressionDerivatives(spec, grid, `${file}: $.transform.virtual`);
 
   const epsB = design.background.eps, muB = design.background.mu, ratio = muB / epsB;
+  if (spec.cap !== undefined && spec.cap < Math.max(epsB, muB)) {
+    // far from the singular boundary the material is the background: such a cap would clip every cell
+    throw new InputError({
+      where: `${file}: $.transform.cap`,
+      message: `a cap of ${spec.cap} is below the background (ε_b = ${epsB}, μ_b = ${muB}) and would cap every cell; expected a largest allowed principal value above ${Math.max(epsB, muB)}, e.g. 10 to 100`,
+    });
+  }
   // Memory (and page faults) dominate at 1e6 cells, so arrays that must be equal are shared:
   // μ' = (μ_b/ε_b)·ε', hence with μ_b = ε_b every μ array is the ε array; a 2D map (invariant
   // along z) has ε'_xz = ε'_yz = 0, one zero array serves both. Fields are read-only downstream.
@@ -80,7 +87,7 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   const k = new Float64Array(9), s = new Float64Array(6), te = new Float64Array(6), tm = new Float64Array(6);
   const ve = new Float64Array(3), vm = new Float64Array(3), pt = new Float64Array(3);
   const bad: BadCell[] = [];
-  let badCount = 0;
+  let badCount = 0, overflowCount = 0, firstOverflow = -1;
   const { xM, yM, zM } = grid;
   // hoisted array references: the hot loop touches only locals
   const { xx: exx, yy: eyy, zz: ezz, xy: exy, xz: exz, yz: eyz } = eps;
@@ -115,6 +122,12 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     } else {
       principal3(ve, te);
     }
+    if (!(ve[2] < Infinity && ve[0] > -Infinity)) {
+      // a component beyond the double range (e.g. a shift of 1e300 m): no material to report
+      if (firstOverflow < 0) firstOverflow = c;
+      overflowCount++;
+      continue;
+    }
     vm[0] = ratio * ve[0]; vm[1] = ratio * ve[1]; vm[2] = ratio * ve[2];
     if (cap !== null) {
       if (capPrincipal(te, ve, cap)) flagged = 1;
@@ -136,6 +149,13 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     const where = spec.kind === "expression" ? `${file}: $.transform.virtual` : `${file}: $.transform`;
     const what = spec.kind === "expression" ? ` (x = '${spec.virtual.x}', y = '${spec.virtual.y}')` : "";
     throw new InputError({ where, message: describeBadCells(bad, badCount, grid, what, transform.clampToInnerOffset !== undefined) });
+  }
+  if (overflowCount > 0) {
+    const c = firstOverflow;
+    throw new InputError({
+      where: `${file}: $.transform`,
+      message: `the material overflows the number range in ${overflowCount} cell${overflowCount === 1 ? "" : "s"} (first at x = ${xM[c]} m, y = ${yM[c]} m); expected transform parameters of a buildable scale`,
+    });
   }
   return {
     source: spec.kind,

@@ -5,7 +5,8 @@
  *   eps_p1, eps_p2, eps_p3, mu_p1, mu_p2, mu_p3, eps_anisotropy, mu_anisotropy, det_j, capped
  * (k and z_m only for 3D grids). On import only x_m, y_m and the six eps components are required;
  * missing mu columns mean μ = 1; principal values and anisotropy are recomputed; det_j and capped
- * are kept when present. Numbers are written in JavaScript's shortest round-trip form.
+ * are kept when present. Numbers are written in JavaScript's shortest round-trip form; undefined
+ * values (anisotropy of a cell that is not positive definite) are left empty.
  */
 import { createReadStream } from "node:fs";
 import { stat } from "node:fs/promises";
@@ -30,7 +31,8 @@ export function fieldCsvColumns(dimension: 2 | 3): string[] {
   return [...pos, ...EPS_COLUMNS, ...MU_COLUMNS, ...DERIVED, "det_j", "capped"];
 }
 
-const num = (v: number): string => (Number.isNaN(v) ? "" : String(v));
+/** Undefined values (NaN, or the infinite anisotropy of a cell that is not positive definite) are empty. */
+const num = (v: number): string => (Number.isFinite(v) ? String(v) : "");
 
 /** Write the per-cell CSV atomically (nothing appears under `path` unless every row was written). */
 export async function writeFieldCsv(path: string, field: TensorField): Promise<void> {

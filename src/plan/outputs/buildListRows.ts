@@ -71,7 +71,8 @@ export async function emitBuildList(
   const { achieved, recipe } = levelTexts(plan);
   const m = plan.components.length;
   const noAchieved = ",".repeat(m);
-  const noRecipe = ",".repeat(5 + dimensionColumns(plan).length + 1);
+  // family, host, inclusion, lattice, orientation, fill_fraction, dimensions…, loss_tangent
+  const noRecipe = ",".repeat(6 + dimensionColumns(plan).length + 1);
   // repeated values (constant components, isotropic axes, neighbouring cells) reuse their text
   const lastV = new Float64Array(m + 3).fill(NaN);
   const lastS: string[] = new Array(m + 3).fill("");
