@@ -9,6 +9,7 @@
  * clamp(⌈λ_b/(2h)⌉, 10, 20) nodes. When that grid exceeds the solver's limits, N is lowered step by
  * step down to MIN_RESOLUTION (with a note); below that the check is refused with an InputError.
  */
+import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
 import { InputError } from "../core/errors.js";
 import type { DeviceGrid } from "../field/deviceGrid.js";
 import { MAX_BAND_MEGABYTES, MAX_FACTOR_WORK, solveCost } from "./assemble.js";
@@ -20,7 +21,6 @@ import type { ScenePolarization } from "./scene.js";
 import { formatLength } from "./formatQuantity.js";
 import { solveScene, type SceneSolution } from "./solve.js";
 
-const C0 = 299_792_458;
 export const DEFAULT_RESOLUTION = 12;
 export const MIN_RESOLUTION = 10;
 
