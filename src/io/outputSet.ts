@@ -2,9 +2,10 @@
  * An output set: several files written into one folder as ONE unit that a reader can verify, even
  * when the process is killed (SIGKILL, power loss) half-way.
  *
- * 1. Before anything is computed into the folder, `prepareOutputFolder` creates it, refuses a final
- *    name taken by a folder or special file (an input error naming it), and removes temporary files
- *    left by an earlier run that was killed (their names carry the dead process id).
+ * 1. Before anything is computed into the folder, `checkOutputFolder` refuses a path that cannot be
+ *    a folder and a final name taken by a folder or special file (an input error naming it), and
+ *    removes temporary files left by an earlier run that was killed (their names carry the dead
+ *    process id); the folder itself is created only when writing starts.
  * 2. Every file is streamed to a temporary name (`.<name>.cellwright-<pid>-<hex>.tmp`) while its
  *    size and CRC-32 are counted.
  * 3. The old manifest is removed, the files are renamed to their final names, and the manifest
@@ -53,6 +54,11 @@ const TEMP_PATTERN = /^\..+\.cellwright-(\d+)-[0-9a-f]+\.tmp$/;
 export interface WriteSetOptions {
   /** aborting stops the write and removes every temporary file */
   signal?: AbortSignal;
+  /**
+   * Called before each step: "write <name>", "switch" (old manifest removed), "rename <name>"
+   * (after that rename), "manifest" (set complete). For progress and for kill tests.
+   */
+  onStep?: (step: string) => void;
 }
 
 export function abortError(): Error {
@@ -72,16 +78,26 @@ function isAlive(pid: number): boolean {
 }
 
 /**
- * Create `folder`, refuse final names that are not files, and remove temporary files of killed
- * runs. Throws InputError naming the path for anything in the way. Returns the absolute folder.
+ * Check `dir` before anything is computed into it, without creating it (a later input error must
+ * leave nothing behind): a path that cannot be a folder, or a final name taken by a folder or
+ * special file, is an error naming the path; temporary files of killed runs are removed.
+ * Returns the absolute folder.
  */
-export async function prepareOutputFolder(dir: string, names: readonly string[]): Promise<string> {
+export async function checkOutputFolder(dir: string, names: readonly string[]): Promise<string> {
   const folder = resolve(dir);
-  await fs.mkdir(folder, { recursive: true });
+  let st;
+  try {
+    st = await fs.stat(folder);
+  } catch (err) {
+    // missing is fine (created when writing); ENAMETOOLONG, ELOOP, ENOTDIR … name the path
+    if ((err as NodeJS.ErrnoException).code === "ENOENT") return folder;
+    throw err;
+  }
+  if (!st.isDirectory()) throw new InputError({ where: folder, message: "is a file; expected an output folder" });
   for (const name of [...names, MANIFEST_NAME]) {
     const path = join(folder, name);
-    const st = await fs.lstat(path).catch(() => null);
-    if (st && !st.isFile()) {
+    const entry = await fs.lstat(path).catch(() => null);
+    if (entry && !entry.isFile()) {
       throw new InputError({ where: path, message: "a folder or special file has the name of an output; expected a file or nothing there" });
     }
   }
@@ -89,6 +105,13 @@ export async function prepareOutputFolder(dir: string, names: readonly string[])
     const m = TEMP_PATTERN.exec(entry);
     if (m && !isAlive(Number(m[1]))) await fs.rm(join(folder, entry), { force: true, recursive: true });
   }
+  return folder;
+}
+
+/** `checkOutputFolder`, then create the folder: just before writing. */
+export async function prepareOutputFolder(dir: string, names: readonly string[]): Promise<string> {
+  const folder = await checkOutputFolder(dir, names);
+  await fs.mkdir(folder, { recursive: true });
   return folder;
 }
 
@@ -130,7 +153,7 @@ async function streamTo(path: string, file: OutputFile, signal?: AbortSignal): P
  * paths of the files and of the manifest, in that order.
  */
 export async function writeOutputSet(folder: string, files: readonly OutputFile[], options: WriteSetOptions = {}): Promise<string[]> {
-  const { signal } = options;
+  const { signal, onStep } = options;
   const tag = `cellwright-${process.pid}-${randomBytes(4).toString("hex")}`;
   const finals = files.map((f) => join(folder, f.name));
   const temps = files.map((f) => join(folder, `.${f.name}.${tag}.tmp`));
@@ -140,6 +163,7 @@ export async function writeOutputSet(folder: string, files: readonly OutputFile[
     const entries: ManifestEntry[] = [];
     for (let k = 0; k < files.length; k++) {
       if (signal?.aborted) throw abortError();
+      onStep?.(`write ${files[k].name}`);
       entries.push(await streamTo(temps[k], files[k], signal));
     }
     const manifest: Manifest = { cellwrightOutputSet: 1, files: entries };
@@ -147,8 +171,13 @@ export async function writeOutputSet(folder: string, files: readonly OutputFile[
     if (signal?.aborted) throw abortError();
     // from here on the folder is a mixed set until the manifest is back
     await fs.rm(manifestPath, { force: true });
-    for (let k = 0; k < temps.length; k++) await fs.rename(temps[k], finals[k]);
+    onStep?.("switch");
+    for (let k = 0; k < temps.length; k++) {
+      await fs.rename(temps[k], finals[k]);
+      onStep?.(`rename ${files[k].name}`);
+    }
     await fs.rename(manifestTemp, manifestPath);
+    onStep?.("manifest");
   } catch (err) {
     await Promise.all([...temps, manifestTemp].map((t) => fs.rm(t, { force: true })));
     throw err;

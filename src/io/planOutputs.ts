@@ -11,7 +11,7 @@ import { levelsCsvText } from "../plan/outputs/levelsCsv.js";
 import { reportMarkdown } from "../plan/outputs/reportMarkdown.js";
 import { mapsSvg } from "../plan/outputs/svgMaps.js";
 import { planSummary } from "../plan/outputs/planSummary.js";
-import { MANIFEST_NAME, prepareOutputFolder, writeOutputSet, type OutputFile, type WriteSetOptions } from "./outputSet.js";
+import { MANIFEST_NAME, checkOutputFolder, prepareOutputFolder, writeOutputSet, type OutputFile, type WriteSetOptions } from "./outputSet.js";
 
 export type WriteOptions = WriteSetOptions;
 
@@ -35,11 +35,11 @@ export function planOutputNames(plan?: Plan): string[] {
 }
 
 /**
- * Check the output folder before planning: created if missing, names in the way refused (an input
+ * Check the output folder before planning (not created yet): names in the way refused (an input
  * error naming the path), temporary files of killed runs removed.
  */
 export async function preparePlanOutputs(dir: string): Promise<string> {
-  return prepareOutputFolder(dir, planOutputNames());
+  return checkOutputFolder(dir, planOutputNames());
 }
 
 /**
