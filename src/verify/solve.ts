@@ -8,8 +8,10 @@
  * homogeneous window scatters nothing. Ez nodes inside a perfect conductor are held at u_s = −u_inc.
  */
 import { InputError } from "../core/errors.js";
-import { assembleOperator, nodeOrder } from "./assemble.js";
-import { factorSymBanded, solveSymFactored } from "./bandedLdlt.js";
+import { gridOrdering } from "../numerics/gridNestedDissection.js";
+import { NumericalFailure } from "../numerics/numericalFailure.js";
+import { factorGridMatrix, solveWithFactor } from "../numerics/sparseLdltSolve.js";
+import { assembleSparseOperator, checkGridSize } from "./assemble.js";
 import type { FdfdGrid } from "./fdfdGrid.js";
 import { gridCoefficients, type GridCoefficients } from "./gridCoefficients.js";
 import { pmlStretch, type PmlStretch } from "./pml.js";
@@ -21,27 +23,30 @@ export interface LinearSolution {
   im: Float64Array;
   /** smallest |pivot| / largest |diagonal| of the factorization */
   pivotRatio: number;
+  /** ‖f − L u‖ / ‖f‖ of the returned solution (after iterative refinement, if any was needed) */
+  residual: number;
 }
 
 /**
- * Solve L_pml u = f on grid g (f indexed by node id). Nodes flagged in holdZero take u = f there.
- * Throws InputError when the factorization meets a zero pivot (the message names the node).
+ * Solve L_pml u = f on grid g (f indexed by node id) with the nested-dissection direct solver
+ * (src/numerics). Nodes flagged in holdZero take u = f there.
+ * Throws InputError when the grid exceeds the solver's memory (checkGridSize, `limitBytes`), and
+ * NumericalFailure when the factorization meets a zero pivot (the message names the node).
  */
-export function solveLinear(g: FdfdGrid, c: GridCoefficients, stretch: PmlStretch | null, k0: number, fRe: Float64Array, fIm: Float64Array, holdZero: Uint8Array | null, onProgress?: (fraction: number) => void): LinearSolution {
-  const order = nodeOrder(g);
-  const n = g.nx * g.ny;
+export function solveLinear(g: FdfdGrid, c: GridCoefficients, stretch: PmlStretch | null, k0: number, fRe: Float64Array, fIm: Float64Array, holdZero: Uint8Array | null, onProgress?: (fraction: number) => void, limitBytes?: number): LinearSolution {
+  checkGridSize(g, "verify grid", limitBytes);
   const f2Re = fRe.slice(), f2Im = fIm.slice();
-  const m = assembleOperator(g, c, stretch, k0, order, holdZero, f2Re, f2Im);
-  const lu = factorSymBanded(m, onProgress);
-  if (!lu.ok) {
-    throw new InputError({ where: "verify solver", message: `the field equations are singular at unknown ${lu.badRow} (zero pivot); try another resolution or margin` });
-  }
-  const bRe = new Float64Array(n), bIm = new Float64Array(n);
-  for (let id = 0; id < n; id++) { bRe[order.row[id]] = f2Re[id]; bIm[order.row[id]] = f2Im[id]; }
-  solveSymFactored(m, bRe, bIm);
-  const re = new Float64Array(n), im = new Float64Array(n);
-  for (let id = 0; id < n; id++) { re[id] = bRe[order.row[id]]; im[id] = bIm[order.row[id]]; }
-  return { re, im, pivotRatio: lu.pivotRatio };
+  const m = assembleSparseOperator(g, c, stretch, k0, holdZero, f2Re, f2Im);
+  const ord = gridOrdering(g.nx, g.ny);
+  const fac = factorGridMatrix(m, ord, onProgress);
+  const fail = (reason: string, id: number): NumericalFailure => {
+    const where = id >= 0 ? ` (node ${id % g.nx}, ${Math.floor(id / g.nx)})` : "";
+    return new NumericalFailure("verify solver", `${reason}${where}; the field equations have no reliable solution on this grid — try another resolution or margin`, id);
+  };
+  if (!fac.ok) throw fail(fac.reason, fac.badUnknown);
+  const sol = solveWithFactor(m, fac.factor, fac.pivotRatio, f2Re, f2Im);
+  if (!sol.ok) throw fail(sol.reason, sol.badUnknown);
+  return { re: sol.re, im: sol.im, pivotRatio: sol.pivotRatio, residual: sol.residual };
 }
 
 /** Grid wavenumber of a plane wave along x in the background: cos(k̃h) = 1 − (k0 n_b h)²/2. */
@@ -62,6 +67,8 @@ export interface SceneSolution {
   scatteredRe: Float64Array; scatteredIm: Float64Array;
   totalRe: Float64Array; totalIm: Float64Array;
   pivotRatio: number;
+  /** relative residual ‖f − L u‖ / ‖f‖ of the linear solve */
+  residual: number;
 }
 
 export interface SolveOptions {
@@ -114,5 +121,6 @@ export function solveScene(scene: Scene, g: FdfdGrid, k0: number, options: Solve
     scatteredRe: sol.re, scatteredIm: sol.im,
     totalRe: totRe, totalIm: totIm,
     pivotRatio: sol.pivotRatio,
+    residual: sol.residual,
   };
 }

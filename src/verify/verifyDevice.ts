@@ -6,13 +6,14 @@
  * Grid: step h = λ0 / (n_max · N) with N points per wavelength (`resolution`, default 12) in the
  * densest material of any case (n_max = max sqrt(|b| λ_max(T)) and the background index); window =
  * device box + margin (default half a background wavelength) each side, plus a PML of
- * clamp(⌈λ_b/(2h)⌉, 10, 20) nodes. When that grid exceeds the solver's limits, N is lowered step by
- * step down to MIN_RESOLUTION (with a note); below that the check is refused with an InputError.
+ * clamp(⌈λ_b/(2h)⌉, 10, 20) nodes. When that grid needs more memory than the direct solver may use
+ * (assemble.ts checkGridSize), the check is refused with an InputError that gives the estimate and
+ * the largest resolution that fits; the resolution is never lowered silently.
  */
 import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
 import { InputError } from "../core/errors.js";
 import type { DeviceGrid } from "../field/deviceGrid.js";
-import { MAX_BAND_MEGABYTES, MAX_FACTOR_WORK, solveCost } from "./assemble.js";
+import { checkGridSize, DEFAULT_SOLVER_BYTES, gridFits } from "./assemble.js";
 import { deviceBounds, deviceScene, type HiddenDisk } from "./deviceScene.js";
 import { gridForWindow, type FdfdGrid } from "./fdfdGrid.js";
 import { largestIndex, type MaterialMap } from "./materialMap.js";
@@ -83,20 +84,20 @@ export interface VerifyResult {
 }
 
 function chooseGrid(box: { minX: number; maxX: number; minY: number; maxY: number }, lambda0: number, nMax: number, nb: number, requested: number, marginM: number): { g: FdfdGrid; resolution: number } {
-  for (let res = requested; res >= MIN_RESOLUTION; res--) {
+  const gridAt = (res: number): FdfdGrid => {
     const h = lambda0 / (nMax * res);
     const pml = Math.min(20, Math.max(10, Math.ceil(lambda0 / nb / (2 * h))));
-    const g = gridForWindow({ minX: box.minX - marginM, maxX: box.maxX + marginM, minY: box.minY - marginM, maxY: box.maxY + marginM }, h, pml);
-    const c = solveCost(g);
-    if (c.megabytes <= MAX_BAND_MEGABYTES && c.work <= MAX_FACTOR_WORK) return { g, resolution: res };
-  }
-  const h = lambda0 / (nMax * MIN_RESOLUTION);
-  const g = gridForWindow({ minX: box.minX - marginM, maxX: box.maxX + marginM, minY: box.minY - marginM, maxY: box.maxY + marginM }, h, 10);
-  const c = solveCost(g);
-  throw new InputError({
-    where: "verify grid",
-    message: `the device is too large for the 2D check: at ${MIN_RESOLUTION} points per wavelength in its densest material (index ${nMax.toPrecision(3)}) the grid is ${g.nx} × ${g.ny} nodes (${Math.round(c.megabytes)} MB, ${(c.work / 1e9).toFixed(1)}e9 operations; limits ${MAX_BAND_MEGABYTES} MB, ${MAX_FACTOR_WORK / 1e9}e9); try a smaller --margin`,
-  });
+    return gridForWindow({ minX: box.minX - marginM, maxX: box.maxX + marginM, minY: box.minY - marginM, maxY: box.maxY + marginM }, h, pml);
+  };
+  const g = gridAt(requested);
+  if (gridFits(g)) return { g, resolution: requested };
+  // never lower the resolution silently: refuse, naming the largest one that fits
+  let fits = 0;
+  for (let res = requested - 1; res >= MIN_RESOLUTION && fits === 0; res--) if (gridFits(gridAt(res))) fits = res;
+  checkGridSize(g, "--resolution", DEFAULT_SOLVER_BYTES, fits > 0
+    ? `the largest resolution that fits is ${fits} points per wavelength (in the densest material, index ${nMax.toPrecision(3)})`
+    : `even ${MIN_RESOLUTION} points per wavelength does not fit (densest index ${nMax.toPrecision(3)}); try a smaller --margin`);
+  return { g, resolution: requested };
 }
 
 /** Run the check (see file comment). Throws InputError for a bad resolution or margin, or a grid too large. */
@@ -118,7 +119,6 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   }
   const { g, resolution } = chooseGrid(box, lambda0, nMax, nb, requested, marginM);
   const notes: string[] = [];
-  if (resolution < requested) notes.push(`resolution lowered from ${requested} to ${resolution} points per wavelength to fit the solver's limits`);
   // average several design cells into one grid step when the grid is coarser than the lattice
   const subsamples = Math.min(6, Math.max(3, Math.ceil((2 * g.h) / grid.pitchM)));
   if (g.h > grid.pitchM) notes.push(`grid step ${formatLength(g.h)} is coarser than the cell pitch ${formatLength(grid.pitchM)}: cells are averaged (${subsamples}×${subsamples} samples per step)`);

@@ -67,13 +67,17 @@ describe("verifyDevice", () => {
     const cases = [{ name: "ideal" as const, map: uniformMap(grid.count, 2, 1) }];
     const base = { grid, polarization: "Ez" as const, background: { eps: 1, mu: 1 }, frequencyHz: f, cases, hidden: null };
     expect(() => verifyDevice({ ...base, resolution: 6 })).toThrow(InputError);
-    const big = annulusGrid(lambda / 4, 0, 12 * lambda);
+    // 80 λ across at index 4 and 24 points per wavelength: about 7700² nodes, far beyond the default 8 GB;
+    // refused before anything is allocated, naming the estimate and the largest resolution that fits
+    const big = annulusGrid(lambda / 2, 0, 40 * lambda);
     try {
-      verifyDevice({ ...base, grid: big, cases: [{ name: "ideal", map: uniformMap(big.count, 4, 1) }] });
+      verifyDevice({ ...base, grid: big, resolution: 24, cases: [{ name: "ideal", map: uniformMap(big.count, 4, 1) }] });
       expect.unreachable("expected a refusal");
     } catch (e) {
       expect(e).toBeInstanceOf(InputError);
-      expect((e as InputError).issues[0].message).toMatch(/too large for the 2D check/);
+      const issue = (e as InputError).issues[0];
+      expect(issue.where).toBe("--resolution");
+      expect(issue.message).toMatch(/needs about [\d.]+ GB for the direct solver .* more than the 8\.0 GB allowed; the largest resolution that fits is 1\d points per wavelength/);
     }
   });
 });
