@@ -8,6 +8,7 @@
  * Source: Pendry, Schurig, Smith, Science 312, 1780 (2006).
  */
 import { InputError, ProgrammerError } from "../core/errors.js";
+import { cellBudgetProblem, type CellBudget } from "../core/memoryBudget.js";
 import { allocSymField, allocPlanarSymField } from "../core/symTensor.js";
 import type { TensorField, PointEvaluator } from "./tensorField.js";
 import type { FieldDesign } from "./transformSpec.js";
@@ -39,10 +40,11 @@ export function pointEvaluator(transform: Transform, epsB: number, muB: number):
 
 /**
  * Compute the tensor field of a design. For `imported` designs pass the field read by
- * io/fieldCsv.ts (it is returned as is). Throws InputError (where = "<file>: $.transform…") for
+ * io/fieldCsv.ts (it is returned as is). With a `budget`, a grid whose estimated memory exceeds
+ * it is refused at $.grid.pitch before the per-cell arrays are allocated. Throws InputError (where = "<file>: $.transform…") for
  * folding or undefined maps, and for grids with no cell inside the device.
  */
-export function computeTensorField(design: FieldDesign, importedField?: TensorField): TensorField {
+export function computeTensorField(design: FieldDesign, importedField?: TensorField, budget?: CellBudget): TensorField {
   const spec = design.transform;
   if (spec.kind === "imported") {
     if (!importedField) throw new ProgrammerError("imported designs need their field: use loadFieldForDesign");
@@ -55,6 +57,9 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     pitchM: design.grid.pitchM, origin: design.grid.origin, dimension, where: `${file}: $.grid.pitch`,
   });
   const n = grid.count;
+  // estimate before allocating the per-cell arrays: refuse what the machine cannot hold
+  const tooMany = budget ? cellBudgetProblem(n, design.grid.pitchM, dimension, budget) : null;
+  if (tooMany !== null) throw new InputError({ where: `${file}: $.grid.pitch`, message: tooMany });
   if (n === 0) {
     throw new InputError({ where: `${file}: $.grid`, message: "no cell centre lies inside the device; expected a pitch smaller than the device (or another origin)" });
   }
@@ -147,7 +152,8 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   }
   if (badCount > 0) {
     const where = spec.kind === "expression" ? `${file}: $.transform.virtual` : `${file}: $.transform`;
-    const what = spec.kind === "expression" ? ` (x = '${spec.virtual.x}', y = '${spec.virtual.y}')` : "";
+    const clip = (t: string): string => (t.length > 60 ? `${t.slice(0, 57)}…` : t);
+    const what = spec.kind === "expression" ? ` (x = '${clip(spec.virtual.x)}', y = '${clip(spec.virtual.y)}')` : "";
     throw new InputError({ where, message: describeBadCells(bad, badCount, grid, what, transform.clampToInnerOffset !== undefined) });
   }
   if (overflowCount > 0) {

@@ -20,6 +20,8 @@ import { inferGrid } from "../field/inferGrid.js";
 import { fieldFromArrays } from "../field/fieldFromArrays.js";
 import type { FieldDesign } from "../field/transformSpec.js";
 import { writeStreamAtomic } from "./atomicWrite.js";
+import { memoryBudget } from "./memoryLimit.js";
+import { cellBudgetProblem, type MemoryPurpose } from "../core/memoryBudget.js";
 
 const EPS_COLUMNS = SYM_COMPONENTS.map((c) => `eps_${c}`);
 const MU_COLUMNS = SYM_COMPONENTS.map((c) => `mu_${c}`);
@@ -203,8 +205,9 @@ function displayPath(file: string): string {
  * The field of any design: computed for built-in kinds and expression maps, streamed from the CSV
  * for `imported`. Commands call this.
  */
-export async function loadFieldForDesign(design: FieldDesign): Promise<TensorField> {
-  if (design.transform.kind !== "imported") return computeTensorField(design);
+export async function loadFieldForDesign(design: FieldDesign, purpose: MemoryPurpose = "plan"): Promise<TensorField> {
+  const budget = memoryBudget(purpose);
+  if (design.transform.kind !== "imported") return computeTensorField(design, undefined, budget);
   // a missing or unreadable file is the user's mistake, named at the design key that points to it
   try {
     const st = await stat(design.transform.file);
@@ -219,5 +222,7 @@ export async function loadFieldForDesign(design: FieldDesign): Promise<TensorFie
     pitchWhere: `${design.sourcePath}: $.grid.pitch`,
     background: design.background,
   });
+  const tooMany = cellBudgetProblem(field.grid.count, field.grid.pitchM, 2, budget);
+  if (tooMany !== null) throw new InputError({ where: `${design.sourcePath}: $.transform.file`, message: tooMany });
   return computeTensorField(design, field);
 }

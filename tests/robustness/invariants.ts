@@ -88,7 +88,8 @@ export function runProblems(r: RunResult, outDir: string | null, emptyBefore: bo
   if (![0, 1, 2].includes(r.code)) p.push(`exit code ${r.code}: ${r.err.slice(0, 300)}`);
   if (r.err.includes("internal error")) p.push(`internal error: ${r.err.slice(0, 300)}`);
   if (r.code === 1 && !errorNamesPlace(r.err)) p.push(`input error without a place: ${r.err.slice(0, 300)}`);
-  p.push(...textProblems("stdout", r.out), ...textProblems("stderr", r.err));
+  // an error may quote what the user wrote ("got 'NaN'"): quoted text on stderr is theirs
+  p.push(...textProblems("stdout", r.out), ...textProblems("stderr", r.err.replace(/'[^'\n]*'/g, "'…'")));
   if (outDir) {
     const files = listFiles(outDir);
     const temps = files.filter((f) => /\.tmp\b|\.partial|^\.cellwright-/.test(f.split("/").pop() ?? "") || f.includes("/.cellwright-"));

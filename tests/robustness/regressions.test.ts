@@ -157,3 +157,93 @@ describe("physically meaningless scales are refused with the figure", () => {
     expect(r.err).toContain("--pitch");
   });
 });
+
+describe("design files: clear messages at the right place", () => {
+  it("a stray character is reported at its line and column, a byte-order mark is accepted, no raw line breaks quoted", async () => {
+    const text = readFileSync(join(DEMO, "field-beam-bend.json"), "utf8").split("\n");
+    text[2] = `${text[2]}@`;
+    let r = await ok(["field", put("stray.json", text.join("\n"))]);
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(new RegExp(`stray\\.json:3:${text[2].length}: invalid JSON: expected a double-quoted key, got '@'`));
+    expect(r.err.trim().split("\n")).toHaveLength(1);
+    r = await ok(["field", put("bom.json", `\uFEFF${readFileSync(join(DEMO, "field-beam-bend.json"), "utf8")}`)]);
+    expect(r.code, r.err).toBe(0);
+    r = await ok(["field", put("bom2.json", `{\n  "name": "x",\uFEFF\n}`)]);
+    expect(r.err).toMatch(/bom2\.json:2:15: invalid JSON: expected a double-quoted key, got byte-order mark/);
+    r = await ok(["field", put("after.json", `{"name": "x"}\n}`)]);
+    expect(r.err).toMatch(/after\.json:2:1: invalid JSON: unexpected '\}' after the end of the JSON value/);
+  });
+
+  it("a non-string transform.kind is described, not echoed as [object Object]", async () => {
+    const d = demo("field-beam-bend.json");
+    d.transform.kind = { huge: "x".repeat(120_000) };
+    const r = await ok(["field", put("kindobj.json", d)]);
+    expect(r.code).toBe(1);
+    expect(r.err).toContain("$.transform.kind: expected a transform kind");
+    expect(r.err).toContain("got an object");
+    expect(r.err.length).toBeLessThan(400);
+  });
+
+  it("bare numbers are SI: the message says radians or metres", async () => {
+    const d = demo("field-beam-bend.json");
+    d.transform.angle = "90";
+    let r = await ok(["field", put("angle90.json", d)]);
+    expect(r.err).toContain("$.transform.angle");
+    expect(r.err).toContain("read as 90 rad (bare numbers are SI); write '90 deg' for degrees");
+    d.transform.angle = "90 deg";
+    d.transform.innerRadius = 60;
+    r = await ok(["field", put("inner60.json", d)]);
+    expect(r.err).toContain("$.transform.outerRadius: expected outerRadius > innerRadius");
+    expect(r.err).toContain("innerRadius 60 is a bare number, read as 60 m");
+  });
+
+  it("expressions too long or too deeply nested are refused with a short message", async () => {
+    const d = demo("field-expression.json");
+    for (const [name, x, expected] of [
+      ["deep", `${"(".repeat(500)}x${")".repeat(500)}`, "nested 500 deep; expected at most 60"],
+      ["deeper", `${"(".repeat(20_000)}x${")".repeat(20_000)}`, "40001 characters; expected at most 2000"],
+      ["long", Array(20_000).fill("x").join("+"), "39999 characters; expected at most 2000"],
+    ]) {
+      d.transform.virtual.x = x;
+      const r = await ok(["field", put(`${name}.json`, d)]);
+      expect(r.code).toBe(1);
+      expect(r.err).toContain("$.transform.virtual.x");
+      expect(r.err).toContain(expected);
+      expect(r.err).not.toContain("call stack");
+      expect(r.err.length).toBeLessThan(400);
+    }
+  });
+});
+
+describe("memory is estimated before allocating", () => {
+  it("a sparse imported lattice (one cell 100 m away) is refused naming that row", async () => {
+    const design = imported("far", [[0.001, 0.001, 2, 2, 2], [0.003, 0.001, 2, 2, 2], [100.001, 100.001, 2, 2, 2]]);
+    for (const cmd of ["reduce", "plan"]) {
+      const r = await ok(cmd === "plan" ? [cmd, design, "--out", join(dir, "far-out")] : [cmd, design], join(dir, "far-out"));
+      expect(r.code).toBe(1);
+      expect(r.err).toMatch(/far\.csv:4: the 3 cells span a lattice of 2\.50e\+9 positions .* lies 141 m from the middle/);
+    }
+  });
+
+  it("a pitch whose cells exceed the memory budget is refused with the estimate and a pitch that fits", async () => {
+    const d = demo("plan-mmwave-printed-bend.json");
+    d.grid.pitch = "0.05 mm"; // 8.8e5 cells: about 0.5 GB for plan
+    process.env.CELLWRIGHT_MEMORY_LIMIT = "100 MB";
+    try {
+      const r = await ok(["plan", put("fine.json", d), "--out", join(dir, "fine")], join(dir, "fine"));
+      expect(r.code).toBe(1);
+      expect(r.err).toMatch(/\$\.grid\.pitch: a pitch of 0\.00005 m gives 8\.80e\+5 cells; plan needs about 0\.49\d* GB .* more than 0\.0977 GB \(CELLWRIGHT_MEMORY_LIMIT\); expected a pitch of at least 0\.000\d+ m/);
+    } finally {
+      delete process.env.CELLWRIGHT_MEMORY_LIMIT;
+    }
+  });
+
+  it("a CSV with one point off the grid blames that point's line", async () => {
+    const cells = square(4, () => [2, 2, 2]);
+    cells[6][0] += 0.0003; // the 7th data row, line 8
+    const design = imported("offgrid", cells);
+    const r = await ok(["field", design]);
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/offgrid\.csv:8: x_m = 0\.0053 is off the square grid of pitch 0\.002 m/);
+  });
+});
