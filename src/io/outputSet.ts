@@ -115,27 +115,26 @@ export async function prepareOutputFolder(dir: string, names: readonly string[])
   return folder;
 }
 
-/** Stream chunks into `path` with back-pressure and the abort signal; returns size and CRC-32. */
+/**
+ * Stream chunks into `path` with the abort signal; returns size and CRC-32. Each chunk's promise
+ * settles once the stream is done with its bytes, so a producer may reuse its buffer, and the
+ * stream never holds more than the chunk in flight.
+ */
 async function streamTo(path: string, file: OutputFile, signal?: AbortSignal): Promise<ManifestEntry> {
-  const stream = createWriteStream(path);
+  const stream = createWriteStream(path, { highWaterMark: 1 << 20 });
   let failure: Error | null = null;
   stream.on("error", (e) => { failure = e; });
   let bytes = 0;
   let crc = 0;
-  const write = async (chunk: OutputChunk): Promise<void> => {
-    if (signal?.aborted) throw abortError();
-    if (failure) throw failure;
+  const write = (chunk: OutputChunk): Promise<void> => {
+    if (signal?.aborted) return Promise.reject(abortError());
+    if (failure) return Promise.reject(failure);
     const buf = typeof chunk === "string" ? Buffer.from(chunk, "utf8") : chunk;
     bytes += buf.length;
     crc = crc32(buf, crc);
-    if (!stream.write(buf)) {
-      await new Promise<void>((res, rej) => {
-        const onDrain = (): void => { stream.off("error", onErr); res(); };
-        const onErr = (e: Error): void => { stream.off("drain", onDrain); rej(e); };
-        stream.once("drain", onDrain);
-        stream.once("error", onErr);
-      });
-    }
+    return new Promise<void>((res, rej) => {
+      stream.write(buf, (err?: Error | null) => (err ? rej(err) : res()));
+    });
   };
   try {
     await file.produce(write);
