@@ -7,6 +7,7 @@
  * families are tried only where needed: wire media where a permittivity below 1 is asked for, split
  * rings where a permeability other than 1 is.
  */
+import { EPS0_F_PER_M } from "../../core/physicalConstants.js";
 import { complex, refractiveIndex, type Complex } from "../../core/complex.js";
 import type { CellFamily } from "../../cells/cellFamily.js";
 import type { Lattice } from "../../cells/lattice.js";
@@ -251,7 +252,7 @@ function splitRing(
 ): void {
   const comps = ctx.components;
   const a = ctx.pitchM;
-  const sigma = metal.material.conductivitySPerM ?? 2 * Math.PI * ctx.frequencyHz * 8.8541878128e-12 * metal.eps.im;
+  const sigma = metal.material.conductivitySPerM ?? 2 * Math.PI * ctx.frequencyHz * EPS0_F_PER_M * metal.eps.im;
   // board fill from the ε target(s): geometric mean when two in-plane values are asked for
   const epsTarget = epsIdx.length ? Math.exp(epsIdx.reduce((acc, k) => acc + Math.log(Math.max(target[k], 1e-6)), 0) / epsIdx.length) : host.eps.re;
   // boards stand in the allowed gas (air) when there is one; otherwise the board fills the cell
