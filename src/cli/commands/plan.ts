@@ -12,7 +12,10 @@ import { writePlanOutputs } from "../../io/planOutputs.js";
 import { loadProcessCatalog } from "../../io/processCatalog.js";
 import { loadSessionFile } from "../../io/sessionFile.js";
 import { planSummary } from "../../plan/outputs/planSummary.js";
-import { planFromField } from "../../plan/runPlan.js";
+import { planFromField, type PlanCatalogs } from "../../plan/runPlan.js";
+import { findRemedies, type RemedyResult } from "../../plan/remedies.js";
+import { computeTensorField } from "../../field/computeTensorField.js";
+import type { TensorField } from "../../field/tensorField.js";
 import type { Plan, PlanOverrides } from "../../plan/planTypes.js";
 import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
@@ -66,6 +69,9 @@ export function humanSummary(plan: Plan, outputs: string[]): string {
   const lines = [
     v.buildable ? `BUILDABLE: every cell has a recipe and every stated requirement is met` : `NOT BUILDABLE AS ASKED: ${v.missed.length} requirement${v.missed.length === 1 ? "" : "s"} missed`,
     ...v.missed.map((m) => `  missed ${m.what}: ${m.text}`),
+    ...(plan.remedies && plan.remedies.remedies.length
+      ? ["what would help (each tried by re-planning):", ...plan.remedies.remedies.map((r, k) => `  ${k + 1}. ${r.label}${r.buildable ? " — buildable" : ""}: ${r.changes}`)]
+      : plan.remedies ? [`what would help: none of ${plan.remedies.tried} changes tried improves the plan`] : []),
     `${s.design}`,
     `  ${s.cells} cells, ${s.levels} levels, ${s.regions} regions (${s.polarization}, ${s.scheme}, tolerance ${pct(s.tolerance)})`,
     `  error${(s.flags.norecipe ?? 0) > 0 ? " (cells with a recipe)" : ""}: largest ${pct(s.maxRelError)}, median ${pct(s.medianRelError)}; loss ${Number(s.lossDb.toPrecision(3))} dB; boundary reflection ${pct(s.boundaryReflection)}`,
@@ -77,6 +83,22 @@ export function humanSummary(plan: Plan, outputs: string[]): string {
   return lines.join("\n") + "\n";
 }
 
+/** Time budget of the remedy search, ms (each remedy is one re-plan; see plan/remedies.ts). */
+export const REMEDY_BUDGET_MS = 20_000;
+
+/** Try remedies by re-planning the same design (a new pitch recomputes the field, when it can). */
+export function searchRemedies(plan: Plan, design: Awaited<ReturnType<typeof loadDesign>>, field: TensorField, catalogs: PlanCatalogs, overrides: PlanOverrides): RemedyResult {
+  const start = Date.now();
+  return findRemedies(plan, (change) => {
+    let f = field;
+    if (change.pitchM !== null) {
+      if (design.transform.kind === "imported") return null; // an imported field has its own grid
+      f = computeTensorField({ ...design, grid: { ...design.grid, pitchM: change.pitchM } });
+    }
+    return planFromField(design, f, catalogs, { ...overrides, ...change.overrides });
+  }, () => Date.now() - start > REMEDY_BUDGET_MS);
+}
+
 /** Load, plan and write; shared by `plan` and `start`. Returns the exit code. */
 export async function runPlanCommand(designPath: string, overrides: PlanOverrides, outDir: string, json: boolean, io: CliIo): Promise<number> {
   const design = await loadDesign(designPath, io.cwd);
@@ -86,6 +108,10 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
     if (!json && stage !== lastStage) { io.stderr(`… ${stage}\n`); lastStage = stage; }
   });
   for (const w of plan.warnings) io.stderr(`warning: ${w}\n`);
+  if (!plan.verdict.buildable) {
+    if (!json) io.stderr("… trying remedies (re-planning)\n");
+    plan.remedies = searchRemedies(plan, design, field, { materials, processes }, overrides);
+  }
   const controller = new AbortController();
   // Ctrl+C or a polite kill while writing: stop, remove the temporary files, write nothing.
   const onSigint = (): void => controller.abort();
