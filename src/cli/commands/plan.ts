@@ -12,10 +12,8 @@ import { writePlanOutputs } from "../../io/planOutputs.js";
 import { loadProcessCatalog } from "../../io/processCatalog.js";
 import { loadSessionFile } from "../../io/sessionFile.js";
 import { planSummary } from "../../plan/outputs/planSummary.js";
-import { planFromField, type PlanCatalogs } from "../../plan/runPlan.js";
-import { findRemedies, type RemedyResult } from "../../plan/remedies.js";
-import { computeTensorField } from "../../field/computeTensorField.js";
-import type { TensorField } from "../../field/tensorField.js";
+import { planFromField } from "../../plan/runPlan.js";
+import { searchRemedies } from "../../io/planRemedies.js";
 import type { Plan, PlanOverrides } from "../../plan/planTypes.js";
 import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
@@ -81,22 +79,6 @@ export function humanSummary(plan: Plan, outputs: string[]): string {
     ...outputs.map((p) => `  ${p}`),
   ];
   return lines.join("\n") + "\n";
-}
-
-/** Time budget of the remedy search, ms (each remedy is one re-plan; see plan/remedies.ts). */
-export const REMEDY_BUDGET_MS = 20_000;
-
-/** Try remedies by re-planning the same design (a new pitch recomputes the field, when it can). */
-export function searchRemedies(plan: Plan, design: Awaited<ReturnType<typeof loadDesign>>, field: TensorField, catalogs: PlanCatalogs, overrides: PlanOverrides): RemedyResult {
-  const start = Date.now();
-  return findRemedies(plan, (change) => {
-    let f = field;
-    if (change.pitchM !== null) {
-      if (design.transform.kind === "imported") return null; // an imported field has its own grid
-      f = computeTensorField({ ...design, grid: { ...design.grid, pitchM: change.pitchM } });
-    }
-    return planFromField(design, f, catalogs, { ...overrides, ...change.overrides });
-  }, () => Date.now() - start > REMEDY_BUDGET_MS);
 }
 
 /** Load, plan and write; shared by `plan` and `start`. Returns the exit code. */
