@@ -5,6 +5,7 @@
  * both call `planFromField` (plan/runPlan.ts) and read these types.
  */
 import type { DeviceGrid } from "../field/deviceGrid.js";
+import type { RemedyResult } from "./remedies.js";
 
 export type Polarization = "Ez" | "Hz";
 export type SchemeName = "full" | "unit-mu" | "non-magnetic" | "isotropic" | "matched";
@@ -223,6 +224,10 @@ export interface Plan {
   buildable: boolean;
   /** requirements met or missed (plan/verdict.ts) */
   verdict: Verdict;
+  /** smallest background index that lifts every ε above the lowest allowed material (null: none needed or none helps) */
+  minBackgroundIndex: number | null;
+  /** remedies tried by re-planning (plan/remedies.ts); null until the shell has looked for them */
+  remedies: RemedyResult | null;
   /** warnings for the report and stderr */
   warnings: string[];
 }
@@ -260,6 +265,16 @@ export interface PlanSummary {
   outputs: string[];
   buildable: boolean;
   verdict: { buildable: boolean; missed: { what: RequirementName; value: number; limit: number }[] };
+  /** remedies tried by re-planning, best first (absent when not looked for) */
+  remedies?: {
+    label: string;
+    changes: string;
+    buildable: boolean;
+    overrides: PlanOverrides;
+    pitchM: number | null;
+    /** each changed requirement: its figure before and after (null: met) and its limit */
+    effects: { what: RequirementName; before: number | null; after: number | null; limit: number }[];
+  }[];
   polarization: Polarization;
   scheme: SchemeName;
   tolerance: number;

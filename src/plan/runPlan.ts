@@ -238,6 +238,8 @@ export function planFromField(
     figures,
     buildable: verdict.buildable,
     verdict,
+    minBackgroundIndex: summary.cellsEpsBelowFloor > 0 && Number.isFinite(summary.minBackgroundIndex) ? summary.minBackgroundIndex : null,
+    remedies: null,
     warnings,
   };
   onProgress?.("figures", 1);

@@ -10,6 +10,7 @@
 import { parentPort } from "node:worker_threads";
 import type { PlanOverrides } from "../plan/planTypes.js";
 import { loadPlanInputs, type PlanInputs } from "./planInputs.js";
+import { searchRemedies } from "../io/planRemedies.js";
 import { planFromField } from "../plan/runPlan.js";
 
 export type WorkerRequest = { type: "init"; designPath: string; cwd: string } | { type: "plan"; seq: number; overrides: PlanOverrides };
@@ -41,6 +42,8 @@ if (port) {
       const plan = planFromField(loaded.design, loaded.field, loaded.catalogs, job.overrides, (stage, fraction) => {
         port.postMessage({ type: "progress", seq: job.seq, stage, fraction });
       });
+      // remedies are tried here too (off the session's thread), so export writes what `plan` writes
+      if (!plan.verdict.buildable) plan.remedies = searchRemedies(plan, loaded.design, loaded.field, loaded.catalogs, job.overrides);
       port.postMessage({ type: "plan", seq: job.seq, plan });
     } catch (err) {
       port.postMessage({ type: "failed", seq: job.seq, error: errorData(err) });

@@ -10,6 +10,7 @@ import { Worker } from "node:worker_threads";
 import { CELL_FAMILIES } from "../cells/registry.js";
 import { InputError } from "../core/errors.js";
 import { writePlanOutputs } from "../io/planOutputs.js";
+import { searchRemedies } from "../io/planRemedies.js";
 import { saveSessionFile } from "../io/sessionFile.js";
 import type { Plan, PlanOverrides, PlanSettings, PlanStage } from "../plan/planTypes.js";
 import { resolveSettings } from "../plan/resolveSettings.js";
@@ -126,7 +127,9 @@ export function createSessionServices(opts: ServiceOptions): SessionServices & {
       if (worker) return worker.plan(overrides, onProgress);
       const { design, field, catalogs } = await load();
       await yieldToEventLoop();
-      return planFromField(design, field, catalogs, overrides, onProgress);
+      const plan = planFromField(design, field, catalogs, overrides, onProgress);
+      if (!plan.verdict.buildable) plan.remedies = searchRemedies(plan, design, field, catalogs, overrides);
+      return plan;
     },
 
     async schemes(settings) {

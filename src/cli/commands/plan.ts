@@ -14,6 +14,7 @@ import { loadProcessCatalog } from "../../io/processCatalog.js";
 import { loadSessionFile } from "../../io/sessionFile.js";
 import { planSummary } from "../../plan/outputs/planSummary.js";
 import { planFromField } from "../../plan/runPlan.js";
+import { searchRemedies } from "../../io/planRemedies.js";
 import type { Plan, PlanOverrides } from "../../plan/planTypes.js";
 import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
@@ -67,6 +68,9 @@ export function humanSummary(plan: Plan, outputs: string[]): string {
   const lines = [
     v.buildable ? `BUILDABLE: every cell has a recipe and every stated requirement is met` : `NOT BUILDABLE AS ASKED: ${v.missed.length} requirement${v.missed.length === 1 ? "" : "s"} missed`,
     ...v.missed.map((m) => `  missed ${m.what}: ${m.text}`),
+    ...(plan.remedies && plan.remedies.remedies.length
+      ? ["what would help (each tried by re-planning):", ...plan.remedies.remedies.map((r, k) => `  ${k + 1}. ${r.label}${r.buildable ? " — buildable" : ""}: ${r.changes}`)]
+      : plan.remedies ? [`what would help: none of ${plan.remedies.tried} changes tried improves the plan`] : []),
     `${s.design}`,
     `  ${s.cells} cells, ${s.levels} levels, ${s.regions} regions (${s.polarization}, ${s.scheme}, tolerance ${pct(s.tolerance)})`,
     `  error${(s.flags.norecipe ?? 0) > 0 ? " (cells with a recipe)" : ""}: largest ${pct(s.maxRelError)}, median ${pct(s.medianRelError)}; loss ${Number(s.lossDb.toPrecision(3))} dB; boundary reflection ${pct(s.boundaryReflection)}`,
@@ -89,6 +93,10 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
     if (!json && stage !== lastStage) { io.stderr(`… ${stage}\n`); lastStage = stage; }
   });
   for (const w of plan.warnings) io.stderr(`warning: ${w}\n`);
+  if (!plan.verdict.buildable) {
+    if (!json) io.stderr("… trying remedies (re-planning)\n");
+    plan.remedies = searchRemedies(plan, design, field, { materials, processes }, overrides);
+  }
   const controller = new AbortController();
   // Ctrl+C or a polite kill while writing: stop, remove the temporary files, write nothing.
   const onSigint = (): void => controller.abort();

@@ -20,6 +20,7 @@ export function planSummary(plan: Plan, outputs: string[]): PlanSummary {
     outputs,
     buildable: plan.buildable,
     verdict: { buildable: plan.verdict.buildable, missed: plan.verdict.missed.map(({ what, value, limit }) => ({ what, value, limit })) },
+    ...(plan.remedies ? { remedies: plan.remedies.remedies.map((r) => ({ label: r.label, changes: r.changes, buildable: r.buildable, overrides: r.overrides, pitchM: r.pitchM, effects: r.effects.map(({ what, before, after, limit }) => ({ what, before, after, limit })) })) } : {}),
     polarization: plan.settings.polarization,
     scheme: plan.settings.scheme,
     tolerance: plan.settings.tolerance,

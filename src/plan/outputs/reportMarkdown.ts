@@ -58,6 +58,16 @@ export function reportMarkdown(plan: Plan): string {
     for (const m of plan.verdict.missed) L.push(`| ${m.what} | ${fmt(m.value, 4)} | ${fmt(m.limit, 4)} | ${m.text} |`);
     L.push("");
   }
+  if (plan.remedies) {
+    L.push("### What would help", "");
+    if (plan.remedies.remedies.length === 0) {
+      L.push(`None of the ${plan.remedies.tried} changes tried by re-planning this design improves the verdict.`, "");
+    } else {
+      L.push(`Each change below was tried by re-planning this design (${plan.remedies.tried} tried; the best ${plan.remedies.remedies.length} shown, best first). Figures are before → after; "met" means the requirement is met.`, "");
+      plan.remedies.remedies.forEach((r, k) => L.push(`${k + 1}. **${r.label}**${r.buildable ? " (buildable as asked)" : ""}: ${r.changes}.`));
+      L.push("");
+    }
+  }
   L.push(`Checked: recipes for every cell; tolerance ${pct(s.tolerance)} on the largest error (quantization and loss included); ${s.lossBudgetDb === null ? "no loss budget stated" : `loss budget ${fmt(s.lossBudgetDb, 3)} dB`}; ${s.bandwidth === null ? "no bandwidth stated" : `bandwidth ${pct(s.bandwidth)}`}; anisotropy limit ${fmt(s.maxAnisotropy, 3)}; ${s.process === null ? "no process stated" : `process ${s.process} (smallest feature, level steps)`}.`, "");
   L.push("## Design", "");
   L.push(`- source: \`${d.sourcePath}\`, transform: ${d.transform}`);

@@ -4,7 +4,7 @@
  * level including its runners-up.
  */
 import { Box, Text } from "ink";
-import { levelDetail, levelRows } from "../state/levelViews.js";
+import { levelDetail, levelRows, verdictLines } from "../state/levelViews.js";
 import { prettyComponent } from "../state/mapQuantities.js";
 import { scrollStart } from "../state/scrollWindow.js";
 import { formatPercent } from "../state/formatValue.js";
@@ -23,26 +23,26 @@ export function LevelsScreen({ state, width, height }: { state: SessionState; wi
   const listRows = levelListRows(height);
   const start = scrollStart(state.levelCursor, rows.length, listRows);
   const targetW = Math.max(12, Math.min(24, 7 * plan.components.length + 2));
-  const recipeW = Math.max(10, width - 1 - 4 - 6 - targetW - 10 - 4 - 1);
-  const detail = levelDetail(plan, state.levelCursor);
+  const recipeW = Math.max(10, width - 1 - 4 - 6 - targetW - 10 - 10 - 4 - 1);
+  const detail = [...verdictLines(plan), ...levelDetail(plan, state.levelCursor)];
   // summary, column titles, list, pager line, blank line, detail: exactly `height` rows
   const detailRows = Math.max(1, height - listRows - 4);
   const f = plan.figures;
   return (
     <Box flexDirection="column" height={height} flexShrink={0}>
       <Text wrap="truncate-end">
+        {plan.verdict.buildable ? <Text color={THEME.ok}>buildable as asked  </Text> : <Text color={THEME.warn}>{`NOT buildable: missed ${plan.verdict.missed.map((m) => m.what).join(", ")}  `}</Text>}
         <Text bold>{`${plan.levels.length} levels, ${plan.regions.length} regions, ${plan.grid.count} cells`}</Text>
         <Text color={THEME.dim}>{`  largest error ${formatPercent(f.maxRelError)}, median ${formatPercent(f.medianRelError)}${plan.buildable ? "" : " (cells with a recipe)"}`}</Text>
-        {plan.buildable ? <Text color={THEME.ok}>  buildable</Text> : <Text color={THEME.warn}>  some levels have no recipe</Text>}
       </Text>
       <Text color={THEME.dim}>
-        {` ${fit("lvl", 4)}${fit("cells", 6)}${fit(`target ${plan.components.map((c) => prettyComponent(c.name)).join(" ")}`, targetW)}${fit("error", 10)}${fit("alt", 4)}recipe`}
+        {` ${fit("lvl", 4)}${fit("cells", 6)}${fit(`target ${plan.components.map((c) => prettyComponent(c.name)).join(" ")}`, targetW)}${fit("recipe err", 10)}${fit("quant err", 10)}${fit("alt", 4)}recipe`}
       </Text>
       {rows.slice(start, start + listRows).map((r, k) => {
         const here = start + k === state.levelCursor;
         return (
           <Text key={r.index} inverse={here} color={r.buildable ? undefined : THEME.warn}>
-            {`${here ? "›" : " "}${fit(String(r.index), 4)}${fit(String(r.cells), 6)}${fit(r.target, targetW)}${fit(r.error, 10)}${fit(String(r.runnersUp), 4)}${fit(r.recipe, recipeW)}`}
+            {`${here ? "›" : " "}${fit(String(r.index), 4)}${fit(String(r.cells), 6)}${fit(r.target, targetW)}${fit(r.error, 10)}${fit(r.quantization, 10)}${fit(String(r.runnersUp), 4)}${fit(r.recipe, recipeW)}`}
           </Text>
         );
       })}

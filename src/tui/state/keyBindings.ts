@@ -32,6 +32,7 @@ export type CommandId =
   | "levelsUp"
   | "levelsDown"
   | "levelsAuto"
+  | "applyRemedy"
   | "toleranceTighter"
   | "toleranceLooser"
   | "pickMaterials"
@@ -105,6 +106,7 @@ export const KEY_BINDINGS: readonly KeyBinding[] = [
   { keys: ["pageup"], label: "PgUp / PgDn", does: "page through the levels", scope: "levels", command: "pageUp" },
   { keys: ["pagedown"], label: "", does: "", scope: "levels", command: "pageDown" },
   { keys: ["enter"], label: "Enter", does: "show the selected level on the map", scope: "levels", command: "choose" },
+  { keys: ["w"], label: "w", does: "apply the best remedy of \"what would help\" (tried by re-planning)", scope: "levels", command: "applyRemedy" },
   // flags
   { keys: ["up"], label: "↑ / ↓", does: "select a flagged region", scope: "flags", command: "up" },
   { keys: ["down"], label: "", does: "", scope: "flags", command: "down" },

@@ -12,8 +12,10 @@ export interface LevelRow {
   /** target of each component, formatted */
   target: string;
   recipe: string;
-  /** error of the recipe against the level's target */
+  /** error of the recipe against the level's target (complex: its loss counts) */
   error: string;
+  /** largest quantization error of the level's cells (level target against cell target) */
+  quantization: string;
   runnersUp: number;
   flags: string;
   buildable: boolean;
@@ -36,6 +38,7 @@ export function levelRows(plan: Plan): LevelRow[] {
     target: l.target.map((v) => formatValue(v)).join(" "),
     recipe: l.recipe ? recipeHeadline(l.recipe) : `no recipe: ${l.reasons[0] ?? "nothing reaches the target"}`,
     error: l.recipe ? formatPercent(l.recipe.relError) : "—",
+    quantization: formatPercent(l.maxQuantizationError),
     runnersUp: l.runnersUp.length,
     flags: flagNames(l.flags).join(" "),
     buildable: l.recipe !== null,
@@ -94,4 +97,22 @@ export function levelCentreCell(plan: Plan, levelIndex0: number): number {
     }
   }
   return best;
+}
+
+/**
+ * The verdict's missed requirements and the "what would help" panel (remedies tried by
+ * re-planning, best first), as lines for the Levels screen; empty when the plan is buildable.
+ */
+export function verdictLines(plan: Plan): string[] {
+  if (plan.verdict.buildable) return [];
+  const out = plan.verdict.missed.map((m) => `missed ${m.what}: ${m.text}`);
+  const r = plan.remedies;
+  if (r === null) out.push("what would help: not searched yet");
+  else if (r.remedies.length === 0) out.push(`what would help: none of ${r.tried} changes tried improves the plan`);
+  else {
+    out.push(`what would help (tried by re-planning; ${r.tried} tried):`);
+    r.remedies.forEach((x, k) => out.push(`  ${k + 1}. ${x.label}${x.buildable ? " (buildable)" : ""}: ${x.changes}`));
+  }
+  out.push("");
+  return out;
 }

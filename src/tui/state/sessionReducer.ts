@@ -189,6 +189,12 @@ function globalCommand(state: SessionState, command: CommandId): SessionState {
     }
     case "levelsAuto":
       return changeChoices(state, { levels: null }, "levels: as few as the tolerance allows");
+    case "applyRemedy": {
+      // the best remedy the session can apply (a new pitch is a change of the design's grid)
+      const r = state.plan?.remedies?.remedies.find((x) => x.pitchM === null);
+      if (!r) return { ...state, status: state.plan?.verdict.buildable ? "the plan is buildable as asked: nothing to remedy" : "no remedy the session can apply (none tried helps, or only a new pitch does: change grid.pitch in the design)" };
+      return changeChoices(state, r.overrides, `applied: ${r.label}`);
+    }
     case "toleranceTighter":
     case "toleranceLooser": {
       const t = s.tolerance;

@@ -123,6 +123,8 @@ export function syntheticPlan(settings: Partial<PlanSettings> = {}): Plan {
     },
     buildable: false,
     verdict: { buildable: false, missed: [{ what: "recipes", value: 8, limit: 0, text: "8 of 38 cells have no recipe" }] },
+    minBackgroundIndex: null,
+    remedies: null,
     warnings: [],
   };
 }

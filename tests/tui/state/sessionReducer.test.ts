@@ -217,3 +217,30 @@ describe("session reducer", () => {
     }
   });
 });
+
+describe("what would help", () => {
+  it("w on the Levels screen applies the best remedy the session can (not a new pitch), and says so when none", () => {
+    expect(commandForKey("w", null, "levels")).toBe("applyRemedy");
+    const plan = syntheticPlan();
+    const effects = [{ what: "recipes" as const, before: 8, after: null, limit: 0, met: true }];
+    plan.remedies = {
+      tried: 4,
+      remedies: [
+        { label: "coarser pitch (3 mm)", overrides: {}, pitchM: 0.003, buildable: true, effects, missedAfter: [], changes: "recipes: 8 → met" },
+        { label: "allow every catalog material", overrides: { materials: null }, pitchM: null, buildable: true, effects, missedAfter: [], changes: "recipes: 8 → met" },
+      ],
+    };
+    const s0 = initialSessionState({ designPath: "/d/bend.json", outDir: "/d/out", sessionPath: "/d/out/session.json", mapArea: { width: 60, height: 10 } });
+    let s = run(s0, { type: "designLoaded", base: { ...SYNTHETIC_SETTINGS, materials: ["ptfe"] }, options: OPTIONS }, { type: "planReady", seq: 1, plan });
+    s = run(s, "screenLevels", "applyRemedy");
+    expect(s.overrides.materials).toBeNull();
+    expect(s.planWanted).toBe(2);
+    expect(s.status).toContain("allow every catalog material");
+    // a plan without remedies: the state is unchanged but for the status line
+    const none = run(ready(), "screenLevels");
+    const after = run(none, "applyRemedy");
+    expect(after.overrides).toEqual(none.overrides);
+    expect(after.planWanted).toBe(none.planWanted);
+    expect(after.status).toContain("no remedy");
+  });
+});

@@ -1,0 +1,212 @@
+/**
+ * "What would help": remedies for a plan that misses a requirement, each TRIED by re-planning the
+ * same design before it is offered. A remedy is a change of the plan's settings (another
+ * background index, allowing a family or every material, more or fewer levels, another scheme or
+ * polarization) or of the pitch; it is kept only when the re-planned verdict is better than the
+ * current one (betterThan: requirement by requirement in PRIORITY order, cells without a recipe
+ * first), and it is printed with what it changes, requirement by requirement, worse ones included
+ * ("recipes: 2640 → 641 cells without recipe; tolerance: met → 18.6 %"). The best MAX_SHOWN are
+ * returned, ranked the same way. Nothing untried is ever returned.
+ *
+ * Pure: the caller supplies `replan` (settings overrides and an optional pitch → a new Plan, or
+ * null when that change cannot be planned, e.g. a new pitch for an imported field). Cost: one plan
+ * per candidate, at most MAX_TRIES candidates (about as long as MAX_TRIES plans of the design).
+ */
+import { CELL_FAMILIES } from "../cells/registry.js";
+import { REDUCTION_SCHEMES } from "../reduce/schemes/registry.js";
+import { REDUCTION_SCHEME_NAMES } from "../reduce/schemes/schemeNames.js";
+import { MAX_LEVELS, type MissedRequirement, type Plan, type PlanOverrides, type RequirementName, type SchemeName } from "./planTypes.js";
+import { missSeverity } from "./verdict.js";
+
+/** Largest number of re-plans one call may run. */
+export const MAX_TRIES = 10;
+/** Remedies offered. */
+export const MAX_SHOWN = 3;
+
+/** A change to try. */
+export interface RemedyChange {
+  /** what the change is, for people: "allow the split-ring family" */
+  label: string;
+  /** settings to override (merged over the plan's current overrides) */
+  overrides: PlanOverrides;
+  /** a new pitch, metres (null: keep) */
+  pitchM: number | null;
+}
+
+/** One requirement before and after a remedy. */
+export interface RemedyEffect {
+  what: RequirementName;
+  before: number | null;
+  after: number | null;
+  limit: number;
+  met: boolean;
+}
+
+/** A remedy that was tried and improves the verdict. */
+export interface Remedy extends RemedyChange {
+  /** buildable after the change */
+  buildable: boolean;
+  /** requirements missed before or after, with their figures before and after */
+  effects: RemedyEffect[];
+  /** requirements still missed after the change */
+  missedAfter: MissedRequirement[];
+  /** "recipes 432 → 0 (met); loss 6.02 → 2.1 dB (met)" */
+  changes: string;
+}
+
+export interface RemedyResult {
+  remedies: Remedy[];
+  /** how many changes were tried by re-planning */
+  tried: number;
+}
+
+export type Replan = (change: RemedyChange) => Plan | null;
+
+/** Candidate changes for a plan's misses, most promising first (at most MAX_TRIES). */
+export function candidateChanges(plan: Plan): RemedyChange[] {
+  const s = plan.settings;
+  const missed = new Set(plan.verdict.missed.map((m) => m.what));
+  const out: RemedyChange[] = [];
+  const counts = plan.figures.flagCounts;
+  const subunity = (counts.subunity ?? 0) > 0 || (counts.unreachable ?? 0) > 0;
+  const magnetic = (counts.magnetic ?? 0) > 0;
+  if (missed.has("recipes") || missed.has("tolerance")) {
+    if (subunity && plan.minBackgroundIndex !== null && Number.isFinite(plan.minBackgroundIndex) && plan.minBackgroundIndex > s.backgroundIndex) {
+      // the smallest index that lifts every ε above the lowest material, then a third more (room
+      // for the mixes between the materials), alone and with every material and family allowed
+      const nb = Number((plan.minBackgroundIndex * 1.02).toPrecision(3));
+      const nb2 = Number((plan.minBackgroundIndex * 1.33).toPrecision(3));
+      out.push({ label: `embed the device in a background of index ${nb}`, overrides: { backgroundIndex: nb }, pitchM: null });
+      if (s.families !== null || s.materials !== null) {
+        out.push({ label: `embed the device in a background of index ${nb} and allow every material and family`, overrides: { backgroundIndex: nb, materials: null, families: null }, pitchM: null });
+      }
+      out.push({ label: `embed the device in a background of index ${nb2} and allow every material and family`, overrides: { backgroundIndex: nb2, materials: null, families: null }, pitchM: null });
+    }
+    if (s.families !== null) {
+      const wanted = [...(magnetic ? ["split-ring"] : []), ...(subunity ? ["wire-medium"] : [])].filter((id) => !s.families!.includes(id) && CELL_FAMILIES.some((f) => f.id === id));
+      for (const id of wanted) out.push({ label: `allow the ${id} family`, overrides: { families: [...s.families, id] }, pitchM: null });
+      out.push({ label: "allow every cell family", overrides: { families: null }, pitchM: null });
+    }
+    if (s.materials !== null) out.push({ label: "allow every catalog material", overrides: { materials: null }, pitchM: null });
+  }
+  if (missed.has("tolerance")) {
+    const now = plan.levels.length;
+    const more = Math.min(MAX_LEVELS, Math.max(now + 2, now * 2));
+    if (more > now) out.push({ label: `use up to ${more} levels`, overrides: { levels: more }, pitchM: null });
+  }
+  if (missed.has("recipes") || missed.has("tolerance") || missed.has("loss") || missed.has("bandwidth") || missed.has("anisotropy")) {
+    for (const name of REDUCTION_SCHEME_NAMES) {
+      const sc = REDUCTION_SCHEMES[name];
+      if (name === s.scheme || !sc.polarizations.includes(s.polarization)) continue;
+      out.push({ label: `reduce with the ${name} scheme`, overrides: { scheme: name as SchemeName }, pitchM: null });
+    }
+    const other = s.polarization === "Ez" ? "Hz" : "Ez";
+    const otherScheme = REDUCTION_SCHEME_NAMES.find((n) => n === s.scheme && REDUCTION_SCHEMES[n].polarizations.includes(other))
+      ?? REDUCTION_SCHEME_NAMES.find((n) => REDUCTION_SCHEMES[n].polarizations.includes(other) && n !== "full")
+      ?? "full";
+    out.push({ label: `serve the ${other} polarization (${otherScheme} scheme)`, overrides: { polarization: other, scheme: otherScheme as SchemeName }, pitchM: null });
+  }
+  if (missed.has("process") && plan.levels.length > 2) {
+    for (const fewer of [Math.ceil(plan.levels.length / 2), Math.ceil(plan.levels.length / 3)]) {
+      if (fewer >= 2 && fewer < plan.levels.length) out.push({ label: `use at most ${fewer} levels (larger steps between them)`, overrides: { levels: fewer }, pitchM: null });
+    }
+  }
+  if (missed.has("process") || (counts.undersize ?? 0) > 0) {
+    out.push({ label: `coarser pitch (${pitchText(plan.grid.pitchM * 1.5)})`, overrides: {}, pitchM: plan.grid.pitchM * 1.5 });
+  }
+  if ((counts.coarse ?? 0) > 0 && (missed.has("recipes") || missed.has("tolerance"))) {
+    out.push({ label: `finer pitch (${pitchText(plan.grid.pitchM / 1.5)})`, overrides: {}, pitchM: plan.grid.pitchM / 1.5 });
+  }
+  return out.slice(0, MAX_TRIES);
+}
+
+function pitchText(m: number): string {
+  return m >= 1e-4 ? `${Number((m * 1e3).toPrecision(3))} mm` : `${Number((m * 1e6).toPrecision(3))} µm`;
+}
+
+/**
+ * Requirements in the order they decide between two verdicts: cells without a recipe first (a plan
+ * that builds fewer cells is never "better" because the cells it dropped no longer miss anything),
+ * then the error, the process, the loss, the bandwidth and the anisotropy.
+ */
+export const PRIORITY: readonly RequirementName[] = ["recipes", "tolerance", "process", "loss", "bandwidth", "anisotropy"];
+
+/** How far past its limit each requirement is (0 when met), in PRIORITY order. */
+function severities(missed: readonly { what: string; value: number; limit: number }[]): number[] {
+  return PRIORITY.map((w) => {
+    const m = missed.find((x) => x.what === w);
+    return m ? missSeverity(m) : 0;
+  });
+}
+
+/**
+ * True when verdict `a` is strictly better than `b`: compared requirement by requirement in
+ * PRIORITY order, the first that differs (by more than 1e-9) decides.
+ */
+export function betterThan(a: readonly MissedRequirement[], b: readonly MissedRequirement[]): boolean {
+  const sa = severities(a), sb = severities(b);
+  for (let k = 0; k < sa.length; k++) {
+    if (sa[k] < sb[k] - 1e-9) return true;
+    if (sa[k] > sb[k] + 1e-9) return false;
+  }
+  return false;
+}
+
+/** Requirements missed before or after whose figure changed, in PRIORITY order. */
+function effectsOf(before: readonly MissedRequirement[], after: readonly MissedRequirement[]): RemedyEffect[] {
+  const names = PRIORITY.filter((w) => {
+    const b = before.find((m) => m.what === w), a = after.find((m) => m.what === w);
+    if (!a && !b) return false;
+    return !(a && b && UNIT[w](a.value) === UNIT[w](b.value)); // unchanged as printed: not a change
+  });
+  return names.map((what) => {
+    const b = before.find((m) => m.what === what) ?? null;
+    const a = after.find((m) => m.what === what) ?? null;
+    return { what, before: b ? b.value : null, after: a ? a.value : null, limit: (a ?? b)!.limit, met: a === null };
+  });
+}
+
+const UNIT: Record<RequirementName, (x: number) => string> = {
+  recipes: (x) => `${x} cells without recipe`,
+  tolerance: (x) => `${Number((x * 100).toPrecision(3))} %`,
+  loss: (x) => `${Number(x.toPrecision(3))} dB`,
+  bandwidth: (x) => `${Number((x * 100).toPrecision(3))} %`,
+  anisotropy: (x) => `${Number(x.toPrecision(3))}`,
+  process: (x) => `${x}`,
+};
+
+/** "recipes: 432 → 0 cells without recipe (met); loss: 6.02 → 2.1 dB (met)". */
+function changesText(effects: RemedyEffect[]): string {
+  return effects.map((e) => {
+    const u = UNIT[e.what];
+    const b = e.before === null ? "met" : u(e.before);
+    const a = e.after === null ? "met" : u(e.after);
+    return `${e.what}: ${b} → ${a}`;
+  }).join("; ");
+}
+
+/**
+ * Try each candidate change by re-planning and keep those that improve the verdict, best first
+ * (at most MAX_SHOWN). `shouldStop` lets the shell end the search early (a time budget).
+ */
+export function findRemedies(plan: Plan, replan: Replan, shouldStop: () => boolean = () => false): RemedyResult {
+  if (plan.verdict.buildable) return { remedies: [], tried: 0 };
+  const before = plan.verdict.missed;
+  const kept: Remedy[] = [];
+  let tried = 0;
+  for (const change of candidateChanges(plan)) {
+    if (shouldStop()) break;
+    let next: Plan | null;
+    try {
+      next = replan(change);
+    } catch {
+      next = null; // a change the design cannot take (e.g. a scheme that does not apply): not offered
+    }
+    tried++;
+    if (!next || !betterThan(next.verdict.missed, before)) continue;
+    const effects = effectsOf(before, next.verdict.missed);
+    kept.push({ ...change, buildable: next.verdict.buildable, effects, missedAfter: next.verdict.missed, changes: changesText(effects) });
+  }
+  kept.sort((a, b) => (betterThan(a.missedAfter, b.missedAfter) ? -1 : betterThan(b.missedAfter, a.missedAfter) ? 1 : 0));
+  return { remedies: kept.slice(0, MAX_SHOWN), tried };
+}
