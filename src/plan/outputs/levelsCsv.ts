@@ -1,7 +1,7 @@
 /**
  * levels.csv: one row per level with its target, its recipe and up to three runners-up.
  * Columns: level, cells, regions, target_<c>…, max_quantization_error, family, host, inclusion,
- * lattice, orientation, fill_fraction, achieved_<c>…, rel_error, <dimension>_m…, loss_tangent, mg_bruggeman_spread,
+ * lattice, orientation, fill_fraction, achieved_<c>…, rel_error, <dimension>_m…, loss_tangent, model_uncertainty,
  * bandwidth, smallest_feature_m, flags, reasons, runner_up_1, runner_up_2, runner_up_3.
  */
 import { orientationCode } from "./orientationText.js";
@@ -28,7 +28,7 @@ export function levelsCsvText(plan: Plan): string {
     ...comps.map((c) => `target_${c}`),
     "max_quantization_error", "family", "host", "inclusion", "lattice", "orientation", "fill_fraction",
     ...comps.map((c) => `achieved_${c}`),
-    "rel_error", ...dims, "loss_tangent", "mg_bruggeman_spread", "bandwidth", "smallest_feature_m",
+    "rel_error", ...dims, "loss_tangent", "model_uncertainty", "bandwidth", "smallest_feature_m",
     "flags", "reasons",
     ...Array.from({ length: RUNNERS_UP_SHOWN }, (_, k) => `runner_up_${k + 1}`),
   ];
