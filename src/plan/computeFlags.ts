@@ -12,7 +12,7 @@ import {
 import type { Candidate, LevelSearch } from "./match/levelCandidates.js";
 import type { EvaluatedMaterial } from "./match/matchContext.js";
 import type { PlanLevel, PlanSettings, TargetComponent } from "./planTypes.js";
-import { relErr, REL_FLOOR } from "./quantize/relativeError.js";
+import { relErr } from "./quantize/relativeError.js";
 import { ROUNDING_TOLERANCE } from "../reduce/reduceCell.js";
 
 export interface FlagInput {
@@ -48,11 +48,12 @@ function levelFlags(lv: PlanLevel, search: LevelSearch, settings: PlanSettings):
   return m;
 }
 
-export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Float64Array; warnings: string[] } {
+export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Float64Array; zeroTargetAbsError: Float64Array; warnings: string[] } {
   const { reduced, targets, comps, level, levels, settings } = inp;
   const n = level.length;
   const flags = new Uint16Array(n);
   const relError = new Float64Array(n).fill(NaN);
+  const zeroTargetAbsError = new Float64Array(n).fill(NaN);
   const warnings: string[] = [];
   levels.forEach((lv, l) => { lv.flags = levelFlags(lv, inp.searches[l], settings); });
   // the widest ε range any allowed ordinary pair reaches
@@ -83,18 +84,25 @@ export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Fl
     f |= lv.flags;
     const r = lv.recipe;
     if (r) {
-      let e = 0;
+      // complex achieved value, no floor (relativeError.ts: complexRelError); zero targets absolutely
+      let e = 0, z = NaN;
       for (let k = 0; k < m; k++) {
         const t = targets[k][c];
-        const w = Math.abs(t) > REL_FLOOR ? Math.abs(t) : REL_FLOOR;
-        const x = Math.abs(r.achieved[k] - t) / w;
+        const dRe = r.achieved[k] - t, dIm = r.achievedIm[k];
+        if (t === 0) {
+          const a = Math.sqrt(r.achieved[k] * r.achieved[k] + dIm * dIm);
+          if (!(a <= z)) z = a;
+          continue;
+        }
+        const x = Math.sqrt(dRe * dRe + dIm * dIm) / Math.abs(t);
         if (x > e) e = x;
       }
       relError[c] = e;
-      if (e > tol) f |= F_INEXACT;
+      zeroTargetAbsError[c] = z;
+      if (e > tol || z > tol) f |= F_INEXACT;
     }
     flags[c] = f;
   }
   if (epsLo === Infinity) warnings.push("no dielectric material is allowed at the design frequency");
-  return { flags, relError, warnings };
+  return { flags, relError, zeroTargetAbsError, warnings };
 }

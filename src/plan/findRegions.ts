@@ -1,7 +1,8 @@
 /**
  * Regions: connected groups of device cells that share a level, so the shop sees contiguous zones.
  * Connectivity is by shared faces on the lattice (4 neighbours in 2D, 6 in 3D). Regions are
- * numbered in the order of their first cell in the grid's row-major listing.
+ * numbered in the order of their levels (cells without a level last), and within a level in the
+ * order of their first cell in the grid's row-major listing.
  */
 import type { DeviceGrid } from "../field/deviceGrid.js";
 import type { PlanRegion } from "./planTypes.js";
@@ -52,5 +53,14 @@ export function findRegions(grid: DeviceGrid, level: Int32Array): RegionResult {
     }
     regions.push({ index: id + 1, level: lv + 1, cellCount: tail, iMin, iMax, jMin, jMax });
   }
-  return { region, regions };
+  // renumber in level order (stable: ties keep the order of their first cell)
+  const order = regions.map((_, k) => k).sort((a, b) => {
+    const la = regions[a].level <= 0 ? Infinity : regions[a].level, lb = regions[b].level <= 0 ? Infinity : regions[b].level;
+    return la - lb || a - b;
+  });
+  const newId = new Int32Array(regions.length);
+  order.forEach((old, k) => { newId[old] = k; });
+  for (let c = 0; c < n; c++) if (region[c] >= 0) region[c] = newId[region[c]];
+  const sorted = order.map((old, k) => ({ ...regions[old], index: k + 1 }));
+  return { region, regions: sorted };
 }

@@ -4,6 +4,7 @@ import type { DeviceGrid } from "../field/deviceGrid.js";
 import type { ReducedField } from "../reduce/reducedField.js";
 import { countFlags, FLAGS } from "./flags.js";
 import type { EvaluatedMaterial } from "./match/matchContext.js";
+import { VACUUM_ID } from "./match/solidCandidates.js";
 import { billOfMaterials, finiteMedian, worstStraightPath } from "./planFigures.js";
 import type { DeviceFigures, PlanLevel, PlanSettings } from "./planTypes.js";
 
@@ -74,7 +75,7 @@ export function planFiguresFor(inp: FiguresInput): DeviceFigures {
     bandwidthMet: settings.bandwidth === null || minBw === null ? null : minBw >= settings.bandwidth,
     smallestFeatureM: smallest,
     processMinFeatureM: inp.process ? inp.process.minFeatureM : null,
-    billOfMaterials: billOfMaterials(levels, grid.pitchM, grid.dimension, (id) => gas.has(id)),
+    billOfMaterials: billOfMaterials(levels, grid.pitchM, grid.dimension, (id) => gas.has(id) || id === VACUUM_ID),
     largestAnisotropy: maxAniso,
   };
 }

@@ -95,7 +95,13 @@ export interface Recipe {
   dimensions: Record<string, number>;
   /** achieved value of each target component (real part), same order as Plan.components */
   achieved: number[];
-  /** relative error of the recipe against the level's target, largest over components */
+  /** imaginary part (loss) of each achieved component, same order */
+  achievedIm: number[];
+  /**
+   * error of the recipe against the level's target: largest over components of
+   * |achieved − target| / |target| with the achieved value complex, no floor (components whose
+   * target is exactly zero are left out here; see Plan.zeroTargetAbsError)
+   */
   relError: number;
   /** loss tangent of the effective medium along the dominant component */
   lossTangent: number;
@@ -120,8 +126,13 @@ export interface PlanLevel {
   /** target value of each component (the cluster centre) */
   target: number[];
   cellCount: number;
-  /** largest relative quantization error of a cell of this level */
+  /** largest relative quantization error of a cell of this level (|centre − target|/|target|, no floor) */
   maxQuantizationError: number;
+  /**
+   * set when this level's target differs from a neighbouring level's by less than the process can
+   * make (the dimensions of their recipes differ by less than the process's smallest feature)
+   */
+  unresolvable: boolean;
   recipe: Recipe | null;
   runnersUp: Recipe[];
   /** why no recipe was found (empty when one was) */
@@ -207,8 +218,13 @@ export interface Plan {
   region: Int32Array;
   /** relative quantization error of each cell (largest over components) */
   quantizationError: Float64Array;
-  /** relative error of the achieved value against the cell's own target (NaN when no recipe) */
+  /**
+   * error of the achieved value against the cell's own target (quantization included): largest over
+   * components of |achieved − target| / |target|, achieved complex, no floor (NaN when no recipe)
+   */
   relError: Float64Array;
+  /** |achieved| of components whose target is exactly zero, largest per cell (NaN when none) */
+  zeroTargetAbsError: Float64Array;
   /** flag bitmask of each cell, bits from plan/flags.ts */
   flags: Uint16Array;
   levels: PlanLevel[];
@@ -216,12 +232,31 @@ export interface Plan {
   /** quantization method used, for the report */
   quantization: { method: string; dimensions: number; maxError: number };
   figures: DeviceFigures;
-  /** true when every cell has a recipe */
+  /** true when every cell has a recipe and every stated requirement is met (= verdict.buildable) */
   buildable: boolean;
+  /** requirements met or missed (plan/verdict.ts) */
+  verdict: Verdict;
   /** warnings for the report and stderr */
   warnings: string[];
   /** the declared layer's mode (realization.layer), or null for bulk materials */
   layer?: LayerReport | null;
+}
+
+/** One requirement the plan misses: its figure and the limit it should meet. */
+export interface MissedRequirement {
+  /** "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process" */
+  what: RequirementName;
+  value: number;
+  limit: number;
+  /** a plain sentence for people */
+  text: string;
+}
+
+export type RequirementName = "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process";
+
+export interface Verdict {
+  buildable: boolean;
+  missed: MissedRequirement[];
 }
 
 /** The machine-readable summary (summary.json and `plan --json`). */
@@ -239,6 +274,7 @@ export interface PlanSummary {
   materials: string[];
   outputs: string[];
   buildable: boolean;
+  verdict: { buildable: boolean; missed: { what: RequirementName; value: number; limit: number }[] };
   polarization: Polarization;
   scheme: SchemeName;
   tolerance: number;

@@ -24,6 +24,8 @@ import { MAX_LEVELS, type LayerSetting, type Plan, type PlanLevel, type PlanOver
 import { isConstant, quantizeTargets } from "./quantize/quantizeTargets.js";
 import { reductionNotes } from "./reductionNotes.js";
 import { resolveSettings, type SettingsSource } from "./resolveSettings.js";
+import { planVerdict } from "./verdict.js";
+import { markUnresolvable } from "./levelSteps.js";
 import { RUNNERS_UP } from "./match/chooseRecipes.js";
 
 export interface PlanCatalogs {
@@ -140,9 +142,10 @@ export function planFromField(
   for (let c = 0, p = 0; c < n; c++) {
     if (!valid[c]) continue;
     level[c] = q.level[p];
-    quantizationError[c] = q.error[p];
     p++;
   }
+  // the reported quantization error has no floor (the quantizer's own objective keeps REL_FLOOR)
+  floorlessQuantizationError(targets, level, q.centres, quantizationError);
 
   // 3. regions
   onProgress?.("regions", 0);
@@ -165,6 +168,7 @@ export function planFromField(
     lattice: settings.lattice,
     process: settings.process === null ? null : catalogs.processes.find((p) => p.id === settings.process)!,
     bandwidth: settings.bandwidth,
+    backgroundIndex: settings.backgroundIndex,
   };
   const cellCounts = new Int32Array(q.centres.length);
   const maxQ = new Float64Array(q.centres.length);
@@ -193,18 +197,22 @@ export function planFromField(
       runnersUp: list.filter((_, m) => m !== k).slice(0, RUNNERS_UP),
       reasons,
       flags: 0,
+      unresolvable: false,
     };
   });
+  markUnresolvable(levels, ctx.process?.minFeatureM ?? null);
 
   // 5. flags and achieved errors
   onProgress?.("flags", 0);
-  const { flags, relError, warnings } = computeFlags({ reduced, targets, comps, level, levels, searches, perLevel, chosen, settings, materials, capped: FLAG_CAPPED, undefinedFlag: FLAG_UNDEFINED });
+  const { flags, relError, zeroTargetAbsError, warnings } = computeFlags({ reduced, targets, comps, level, levels, searches, perLevel, chosen, settings, materials, capped: FLAG_CAPPED, undefinedFlag: FLAG_UNDEFINED });
 
   // 6. device-level figures
   onProgress?.("figures", 0);
   const cheapestEps = Math.min(...materials.filter((m) => !m.isMetal && m.eps.re > 0).map((m) => m.eps.re), Infinity);
   const summary = schemeSummary(reduced, field, { epsFloor: Number.isFinite(cheapestEps) ? cheapestEps : 1 });
   const figures = planFiguresFor({ grid, level, levels, regions: region, regionCount: regions.length, flags, relError, reduced, settings, k0: (2 * Math.PI * f) / C0, boundaryReflection: Number.isFinite(summary.boundaryReflection) ? summary.boundaryReflection : null, materials, process: ctx.process });
+  const verdict = planVerdict({ cells: n, figures, settings, levels, maxZeroTargetAbsError: maxOf(zeroTargetAbsError) });
+  if (regions.length * 3 > n && n >= 30) warnings.push(`the cells cannot be grouped into fewer than ${regions.length} regions (${n} cells): the levels interleave; fewer levels or a larger tolerance give larger regions`);
   const plan: Plan = {
     design: { name: design.name, notes: design.notes ?? "", sourcePath: design.sourcePath, frequencyHz: f, wavelengthM: C0 / f, transform: design.transform.kind },
     settings,
@@ -217,12 +225,14 @@ export function planFromField(
     region,
     quantizationError,
     relError,
+    zeroTargetAbsError,
     flags,
     levels,
     regions,
-    quantization: { method: q.method, dimensions: q.dimensions, maxError: q.maxError },
+    quantization: { method: q.method, dimensions: q.dimensions, maxError: maxOf(quantizationError) },
     figures,
-    buildable: (figures.flagCounts.norecipe ?? 0) === 0,
+    buildable: verdict.buildable,
+    verdict,
     warnings: layer ? [...layer.warnings, ...warnings] : warnings,
     layer,
   };
@@ -237,6 +247,32 @@ function layerFor(l: LayerSetting, polarization: "Ez" | "Hz", catalog: readonly 
     return { id, eps: evaluateMaterial(m, frequencyHz).eps, isMetal: m.class === "metal" };
   };
   return layerReport({ core: phase(l.coreId), thicknessM: l.thicknessM, below: phase(l.belowId), above: phase(l.aboveId), frequencyHz, polarization });
+}
+
+/** Largest finite entry (NaN when none). */
+function maxOf(a: Float64Array): number {
+  let m = NaN;
+  for (let k = 0; k < a.length; k++) if (a[k] > m || (Number.isNaN(m) && Number.isFinite(a[k]))) m = a[k];
+  return m;
+}
+
+/**
+ * Per-cell quantization error without a floor: largest over components of |centre − t|/|t|
+ * (components whose target is exactly zero are left out). Written into `out`.
+ */
+function floorlessQuantizationError(targets: Float64Array[], level: Int32Array, centres: number[][], out: Float64Array): void {
+  for (let c = 0; c < level.length; c++) {
+    const l = level[c];
+    if (l < 0) continue;
+    let e = 0;
+    for (let k = 0; k < targets.length; k++) {
+      const t = targets[k][c];
+      if (t === 0) continue;
+      const x = Math.abs(centres[l][k] - t) / Math.abs(t);
+      if (x > e) e = x;
+    }
+    out[c] = e;
+  }
 }
 
 /** The allowed materials evaluated at the design frequency (default: all valid there). */

@@ -6,9 +6,10 @@
 import { Box, Text, useApp, useInput, useStdout } from "ink";
 import { useEffect, useReducer, useRef, useState } from "react";
 import type { Plan, PlanOverrides, PlanSettings, PlanStage } from "../plan/planTypes.js";
-import { commandForKey, keyName, type KeyLike, type KeyScope } from "./state/keyBindings.js";
+import type { KeyLike } from "./state/keyBindings.js";
+import { keyNames } from "./state/keyBurst.js";
 import { findQuantity } from "./state/mapQuantities.js";
-import { sessionReducer } from "./state/sessionReducer.js";
+import { overlayScope, sessionReducer } from "./state/sessionReducer.js";
 import { effectiveSettings, sessionView, type SchemeTableView, type SessionState } from "./state/sessionState.js";
 import { Footer } from "./components/Footer.js";
 import { Header } from "./components/Header.js";
@@ -50,12 +51,6 @@ function message(err: unknown): string {
   return e?.message ?? String(err);
 }
 
-function overlayScope(state: SessionState): KeyScope | null {
-  const o = state.overlay;
-  if (!o) return null;
-  return o.kind === "picker" ? "picker" : o.kind;
-}
-
 function useTerminalSize(fixed?: { columns: number; rows: number }): { columns: number; rows: number } {
   const { stdout } = useStdout();
   const read = () => ({ columns: fixed?.columns ?? (stdout.columns || 80), rows: fixed?.rows ?? (stdout.rows || 24) });
@@ -84,12 +79,11 @@ export function SessionApp({ initial, services, inputActive, size, onExit }: Ses
   const width = Math.max(40, columns);
   const bodyHeight = Math.max(6, rows - CHROME_ROWS);
 
-  // keys → commands → reducer
+  // keys → reducer, every key of a chunk in order; the reducer resolves each against the state
+  // left by the one before (an overlay opened by the first key of a burst takes the next ones)
   useInput(
     (input: string, key: KeyLike) => {
-      const s = stateRef.current;
-      const command = commandForKey(keyName(input, key), overlayScope(s), s.screen);
-      if (command) dispatch({ type: "command", command });
+      for (const name of keyNames(input, key)) dispatch({ type: "key", name });
     },
     { isActive: inputActive },
   );

@@ -1,11 +1,16 @@
 /**
- * Assemble the FDFD operator of a gridded scene into a complex symmetric band matrix (lower band).
- * Unknowns are numbered along the shorter side of the grid first, so the half-bandwidth is
- * min(nx, ny) + 1 (the nine-point stencil reaches the diagonal neighbours). Nodes whose value is
- * prescribed (Ez nodes inside a perfect conductor) are eliminated symmetrically: their row becomes
+ * Assemble the FDFD operator of a gridded scene as a sparse complex symmetric matrix (both
+ * triangles, compressed columns) for the nested-dissection solver (src/numerics), plus the sizes
+ * of that solve for refusing a grid before anything is allocated. Nodes whose value is prescribed
+ * (Ez nodes inside a perfect conductor) are eliminated symmetrically: their row and column become
  * the identity and their column is moved to the right-hand side, so the matrix stays symmetric.
+ *
+ * The banded assembly (`assembleOperator`, unknowns along the shorter side, half-bandwidth
+ * min(nx, ny) + 1) is kept as the reference the tests compare the sparse solver with.
  */
 import { InputError } from "../core/errors.js";
+import { gridFactorCost, type SymbolicCost } from "../numerics/gridNestedDissection.js";
+import type { SparseSymmetricMatrix } from "../numerics/sparseSymmetricMatrix.js";
 import { newSymBandMatrix, symBandBytes, type SymBandMatrix } from "./bandedLdlt.js";
 import type { FdfdGrid } from "./fdfdGrid.js";
 import type { GridCoefficients } from "./gridCoefficients.js";
@@ -13,21 +18,26 @@ import type { PmlStretch } from "./pml.js";
 import { nodeStencil } from "./stencil.js";
 
 /**
- * Size limits of the direct solver (our choice, for a 2-core machine: the LDLᵀ factorization costs
- * about n·w²/2 complex multiply-adds at roughly 3 ns each in V8, so the work limit is about 3 s per
- * solve; the band takes 16·n·(w+1) bytes). A square grid of about 200 × 200 nodes fits.
+ * Memory the solver may use unless the caller says otherwise: 8 GB (a third of this 24 GB
+ * machine, our choice, leaving room for the other runs and processes). The shell may pass the
+ * machine's own figure (checkGridSize's `limitBytes`).
  */
-export const MAX_BAND_MEGABYTES = 200;
-export const MAX_FACTOR_WORK = 1e9;
+export const DEFAULT_SOLVER_BYTES = 8e9;
+/** Bytes per unknown besides the factor: the matrix (9 entries × 20 B), ordering, solution, residual and right-hand-side vectors. */
+const BYTES_PER_UNKNOWN = 9 * 20 + 4 * 4 + 12 * 16;
 
-/** Node numbering: row of node id = i + nx·j, and back. */
+/** @deprecated banded-solver limits, kept for callers that still name them; the sparse solver is limited by memory only. */
+export const MAX_BAND_MEGABYTES = DEFAULT_SOLVER_BYTES / 1e6;
+export const MAX_FACTOR_WORK = Infinity;
+
+/** Node numbering of the banded reference: row of node id = i + nx·j, and back. */
 export interface NodeOrder {
   /** matrix row of each node id */
   row: Int32Array;
   halfBandwidth: number;
 }
 
-/** Numbering along the shorter side first. */
+/** Numbering along the shorter side first (banded reference). */
 export function nodeOrder(g: FdfdGrid): NodeOrder {
   const row = new Int32Array(g.nx * g.ny);
   const alongX = g.nx <= g.ny;
@@ -35,21 +45,98 @@ export function nodeOrder(g: FdfdGrid): NodeOrder {
   return { row, halfBandwidth: Math.min(g.nx, g.ny) + 1 };
 }
 
-/** Memory (MB) and work (complex multiply-adds) of solving on grid g. */
-export function solveCost(g: FdfdGrid): { megabytes: number; work: number; unknowns: number; halfBandwidth: number } {
-  const n = g.nx * g.ny, w = Math.min(g.nx, g.ny) + 1;
-  return { megabytes: symBandBytes(n, w) / 1e6, work: (n * w * w) / 2, unknowns: n, halfBandwidth: w };
+export interface SolveCost {
+  /** peak memory of one solve (factor + workspace + matrix and vectors), MB */
+  megabytes: number;
+  /** complex multiply-adds of the factorization */
+  work: number;
+  unknowns: number;
+  /** entries of the factor */
+  factorEntries: number;
+  symbolic: SymbolicCost;
 }
 
-/** Throw InputError at `where` when the grid exceeds MAX_BAND_MEGABYTES or MAX_FACTOR_WORK. */
-export function checkGridSize(g: FdfdGrid, where = "verify grid"): void {
+/** Memory and work of solving on grid g with the nested-dissection solver (symbolic phase only). */
+export function solveCost(g: FdfdGrid): SolveCost {
+  const s = gridFactorCost(g.nx, g.ny);
+  const bytes = s.factorBytes + s.workspaceBytes + BYTES_PER_UNKNOWN * s.unknowns;
+  return { megabytes: bytes / 1e6, work: s.work, unknowns: s.unknowns, factorEntries: s.factorEntries, symbolic: s };
+}
+
+/** True when grid g fits in `limitBytes`. */
+export function gridFits(g: FdfdGrid, limitBytes = DEFAULT_SOLVER_BYTES): boolean {
+  return solveCost(g).megabytes * 1e6 <= limitBytes;
+}
+
+/** "1.2 GB" / "850 MB" */
+export function formatBytes(bytes: number): string {
+  return bytes >= 1e9 ? `${(bytes / 1e9).toFixed(1)} GB` : `${Math.max(1, Math.round(bytes / 1e6))} MB`;
+}
+
+/**
+ * Throw InputError at `where` when solving on grid g would need more than `limitBytes`. The
+ * message gives the grid, the estimate and the limit; `hint` (e.g. the largest resolution that
+ * fits) is appended.
+ */
+export function checkGridSize(g: FdfdGrid, where = "verify grid", limitBytes = DEFAULT_SOLVER_BYTES, hint = "lower the resolution or the margin"): void {
   const c = solveCost(g);
-  if (c.megabytes > MAX_BAND_MEGABYTES || c.work > MAX_FACTOR_WORK) {
+  if (c.megabytes * 1e6 > limitBytes) {
     throw new InputError({
       where,
-      message: `grid of ${g.nx} × ${g.ny} nodes is too large for the direct solver (${Math.round(c.megabytes)} MB, ${(c.work / 1e9).toFixed(1)}e9 operations; limits ${MAX_BAND_MEGABYTES} MB and ${MAX_FACTOR_WORK / 1e9}e9); lower the resolution or the margin`,
+      message: `a grid of ${g.nx} × ${g.ny} nodes needs about ${formatBytes(c.megabytes * 1e6)} for the direct solver (${(c.work / 1e9).toFixed(1)}e9 complex operations), more than the ${formatBytes(limitBytes)} allowed; ${hint}`,
     });
   }
+}
+
+/**
+ * The operator matrix (with PML) of coefficients c at free-space wavenumber k0 as a sparse
+ * symmetric matrix indexed by node id (v = i + nx·j). Nodes flagged in `held` keep the value
+ * f[id]; the right-hand side f is updated in place for their symmetric elimination.
+ */
+export function assembleSparseOperator(g: FdfdGrid, c: GridCoefficients, stretch: PmlStretch | null, k0: number, held: Uint8Array | null, fRe: Float64Array, fIm: Float64Array): SparseSymmetricMatrix {
+  const n = g.nx * g.ny;
+  const colPtr = new Int32Array(n + 1);
+  const cap = 9 * n;
+  let rowIdx = new Int32Array(cap), re = new Float64Array(cap), im = new Float64Array(cap);
+  const w = new Float64Array(18);
+  let e = 0;
+  for (let j = 0; j < g.ny; j++) {
+    for (let i = 0; i < g.nx; i++) {
+      const id = i + g.nx * j;
+      colPtr[id] = e;
+      if (held && held[id]) { rowIdx[e] = id; re[e] = 1; im[e] = 0; e++; continue; }
+      nodeStencil(g, c, stretch, k0, i, j, w);
+      for (let dj = -1; dj <= 1; dj++) {
+        const nj = j + dj;
+        if (nj < 0 || nj >= g.ny) continue;
+        for (let di = -1; di <= 1; di++) {
+          const ni = i + di;
+          if (ni < 0 || ni >= g.nx) continue;
+          const s = 2 * ((di + 1) + 3 * (dj + 1));
+          const wr = w[s], wi = w[s + 1];
+          const nid = ni + g.nx * nj;
+          if (nid !== id && wr === 0 && wi === 0) continue;
+          if (held && held[nid]) {
+            // known value: move to the right-hand side
+            fRe[id] -= wr * fRe[nid] - wi * fIm[nid];
+            fIm[id] -= wr * fIm[nid] + wi * fRe[nid];
+            continue;
+          }
+          // row id of the symmetric matrix = column id
+          rowIdx[e] = nid; re[e] = wr; im[e] = wi; e++;
+        }
+      }
+    }
+  }
+  colPtr[n] = e;
+  if (e < cap) { rowIdx = rowIdx.slice(0, e); re = re.slice(0, e); im = im.slice(0, e); }
+  return { n, colPtr, rowIdx, re, im };
+}
+
+/** @deprecated kept for the banded reference: memory and work of the banded solve on grid g. */
+export function bandedSolveCost(g: FdfdGrid): { megabytes: number; work: number; unknowns: number; halfBandwidth: number } {
+  const n = g.nx * g.ny, w = Math.min(g.nx, g.ny) + 1;
+  return { megabytes: symBandBytes(n, w) / 1e6, work: (n * w * w) / 2, unknowns: n, halfBandwidth: w };
 }
 
 /**
@@ -57,8 +144,8 @@ export function checkGridSize(g: FdfdGrid, where = "verify grid"): void {
  * Nodes flagged in `held` keep the value f[id] (f indexed by node id); the right-hand side f is
  * updated in place for the symmetric elimination of those nodes.
  */
+/** Banded reference assembly (tests): lower band in the order `order`. */
 export function assembleOperator(g: FdfdGrid, c: GridCoefficients, stretch: PmlStretch | null, k0: number, order: NodeOrder, held: Uint8Array | null, fRe: Float64Array, fIm: Float64Array): SymBandMatrix {
-  checkGridSize(g);
   const m = newSymBandMatrix(g.nx * g.ny, order.halfBandwidth);
   const w = new Float64Array(18);
   const stride = m.w + 1;

@@ -2,6 +2,7 @@
  * A circular cylinder (dielectric or perfectly conducting) as a Scene — the test object whose exact
  * series is in cylinderSeries.ts.
  */
+import { diskConductor } from "./conductor.js";
 import type { CylinderInterior } from "./cylinderSeries.js";
 import { SAMPLE_BACKGROUND, SAMPLE_MEDIUM, SAMPLE_PEC, S_B, S_TXX, S_TXY, S_TYY, type Scene, type ScenePolarization } from "./scene.js";
 
@@ -19,6 +20,7 @@ export function cylinderScene(
     polarization,
     background,
     bounds: { minX: cx - radiusM, maxX: cx + radiusM, minY: cy - radiusM, maxY: cy + radiusM },
+    conductors: interior.kind === "pec" ? [diskConductor([cx, cy], radiusM)] : [],
     sample(x, y, out) {
       if ((x - cx) ** 2 + (y - cy) ** 2 > r2) return SAMPLE_BACKGROUND;
       if (interior.kind === "pec") return SAMPLE_PEC;

@@ -4,6 +4,7 @@
  * (the inside of a cloak) is a perfect electric conductor.
  */
 import type { DeviceGrid } from "../field/deviceGrid.js";
+import { diskConductor, type Conductor } from "./conductor.js";
 import type { MaterialMap } from "./materialMap.js";
 import { SAMPLE_BACKGROUND, SAMPLE_MEDIUM, SAMPLE_PEC, S_B, S_TXX, S_TXY, S_TYY, type Scene, type ScenePolarization } from "./scene.js";
 
@@ -35,7 +36,7 @@ export function deviceBounds(grid: DeviceGrid): { minX: number; maxX: number; mi
  * Scene of a 2D device: `map` per device cell (null: no device, only the hidden disk — the bare
  * obstacle), in a background of relative (eps, mu).
  */
-export function deviceScene(grid: DeviceGrid, polarization: ScenePolarization, background: { eps: number; mu: number }, map: MaterialMap | null, hidden: HiddenDisk | null): Scene {
+export function deviceScene(grid: DeviceGrid, polarization: ScenePolarization, background: { eps: number; mu: number }, map: MaterialMap | null, hidden: HiddenDisk | null, extraConductors: Conductor[] = []): Scene {
   const lut = latticeLookup(grid);
   const box = deviceBounds(grid);
   const bounds = map ? { ...box } : { minX: 0, maxX: 0, minY: 0, maxY: 0 };
@@ -45,22 +46,26 @@ export function deviceScene(grid: DeviceGrid, polarization: ScenePolarization, b
     else Object.assign(bounds, { minX: Math.min(bounds.minX, cx - r), maxX: Math.max(bounds.maxX, cx + r), minY: Math.min(bounds.minY, cy - r), maxY: Math.max(bounds.maxY, cy + r) });
   }
   const p = grid.pitchM, ox = grid.originXM, oy = grid.originYM;
-  const r2 = hidden ? hidden.radiusM ** 2 : -1;
+  const conductors: Conductor[] = [...(hidden ? [diskConductor(hidden.centerM, hidden.radiusM)] : []), ...extraConductors];
+  const zero = new Float64Array(0);
+  const bIm = map?.bIm ?? zero, xxIm = map?.txxIm ?? zero, yyIm = map?.tyyIm ?? zero, xyIm = map?.txyIm ?? zero;
+  const lossy = bIm.length > 0;
   return {
     polarization,
     background,
     bounds,
+    conductors,
     sample(x, y, out) {
-      if (hidden && (x - hidden.centerM[0]) ** 2 + (y - hidden.centerM[1]) ** 2 < r2) return SAMPLE_PEC;
+      for (const cd of conductors) if (cd.signedDistanceM(x, y) < 0) return SAMPLE_PEC;
       if (!map) return SAMPLE_BACKGROUND;
       const i = Math.round((x - ox) / p), j = Math.round((y - oy) / p);
       if (i < 0 || j < 0 || i >= grid.nx || j >= grid.ny) return SAMPLE_BACKGROUND;
       const c = lut[i + grid.nx * j];
       if (c < 0) return SAMPLE_BACKGROUND;
-      out[S_B] = map.b[c]; out[S_B + 1] = 0;
-      out[S_TXX] = map.txx[c]; out[S_TXX + 1] = 0;
-      out[S_TYY] = map.tyy[c]; out[S_TYY + 1] = 0;
-      out[S_TXY] = map.txy[c]; out[S_TXY + 1] = 0;
+      out[S_B] = map.b[c]; out[S_B + 1] = lossy ? bIm[c] : 0;
+      out[S_TXX] = map.txx[c]; out[S_TXX + 1] = lossy ? xxIm[c] : 0;
+      out[S_TYY] = map.tyy[c]; out[S_TYY + 1] = lossy ? yyIm[c] : 0;
+      out[S_TXY] = map.txy[c]; out[S_TXY + 1] = lossy ? xyIm[c] : 0;
       return SAMPLE_MEDIUM;
     },
   };

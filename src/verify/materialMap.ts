@@ -13,6 +13,11 @@ export interface MaterialMap {
   txx: Float64Array;
   tyy: Float64Array;
   txy: Float64Array;
+  /** imaginary parts (loss, exp(−iωt): Im ≥ 0 when passive); absent for lossless maps */
+  bIm?: Float64Array;
+  txxIm?: Float64Array;
+  tyyIm?: Float64Array;
+  txyIm?: Float64Array;
   /** cells that carry no value and were set to the background */
   missing: number;
 }
@@ -38,10 +43,16 @@ export function mapFromReduced(reduced: ReducedField, background: { b: number; t
  * value, smaller and larger in-plane principal values — with the larger one along the cell's
  * principal axis (angle θ from x): T = λ1 I + (λ2 − λ1) e eᵀ, e = (cos θ, sin θ). Cells whose level
  * has no recipe are set to the background (nothing can be built there) and counted.
+ * Loss: every component gets Im = Re · tan δ with the recipe's loss tangent at the design frequency
+ * (the planner reports one tan δ per recipe, along its dominant component; applying it to every
+ * component is the approximation made here).
  */
 export function mapFromPlan(plan: Plan, background: { b: number; t: number }): MaterialMap {
   const n = plan.grid.count;
-  const m: MaterialMap = { b: new Float64Array(n), txx: new Float64Array(n), tyy: new Float64Array(n), txy: new Float64Array(n), missing: 0 };
+  const m: MaterialMap = {
+    b: new Float64Array(n), txx: new Float64Array(n), tyy: new Float64Array(n), txy: new Float64Array(n), missing: 0,
+    bIm: new Float64Array(n), txxIm: new Float64Array(n), tyyIm: new Float64Array(n), txyIm: new Float64Array(n),
+  };
   for (let c = 0; c < n; c++) {
     const l = plan.level[c];
     const recipe = l >= 0 ? plan.levels[l]?.recipe ?? null : null;
@@ -53,6 +64,8 @@ export function mapFromPlan(plan: Plan, background: { b: number; t: number }): M
     m.txx[c] = l1 + d * co * co;
     m.tyy[c] = l1 + d * si * si;
     m.txy[c] = d * co * si;
+    const tan = Number.isFinite(recipe.lossTangent) && recipe.lossTangent > 0 ? recipe.lossTangent : 0;
+    m.bIm![c] = z * tan; m.txxIm![c] = m.txx[c] * tan; m.tyyIm![c] = m.tyy[c] * tan; m.txyIm![c] = m.txy[c] * tan;
   }
   return m;
 }

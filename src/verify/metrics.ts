@@ -42,14 +42,14 @@ export interface CrossSections {
   /** absorption width, metres (negative means net gain inside the contour) */
   absorptionM: number;
   extinctionM: number;
-  /** incident flux per face, for reference: sin(k̃h) */
+  /** incident flux per face, for reference: sin(k̃h) along x */
   incidentPerFace: number;
 }
 
 /** Scattering, absorption and extinction widths from the flux through `box` (see file comment). */
 export function crossSections(sol: SceneSolution, box: NodeBox): CrossSections {
   const g = sol.grid;
-  const perFace = Math.sin(sol.kGrid * g.h);
+  const perFace = sol.incidentIntensityPerM * g.h;
   const toM = g.h / perFace;
   const scat = boxFlux(g, box, sol.scatteredRe, sol.scatteredIm) * toM;
   const abs = -boxFlux(g, box, sol.totalRe, sol.totalIm) * toM;
@@ -102,4 +102,56 @@ export function relativeDifference(aRe: Float64Array, aIm: Float64Array, bRe: Fl
     den += bRe[k] * bRe[k] + bIm[k] * bIm[k];
   }
   return den > 0 ? Math.sqrt(num / den) : NaN;
+}
+
+/**
+ * Far-field amplitude of the scattered field, T(φ) with u_s ≈ sqrt(2/(π k r)) e^{i(kr − π/4)} T(φ)
+ * as r → ∞ (for a cylinder T(φ) = Σ a_n e^{inφ}, cylinderSeries.ts), from the field on the faces
+ * of `box` by the 2D near-to-far transformation (Green's theorem with the large-argument Hankel
+ * function; Taflove & Hagness, "Computational Electrodynamics", 3rd ed., 2005, §8.5, in 2D):
+ *   T(φ) = (i/4) ∮ [−i k (r̂·n′) u_s − ∂u_s/∂n′] e^{−i k r̂·r′} dl′,
+ * with u_s and ∂u_s/∂n′ taken at face midpoints (mean and difference of the two nodes), and the
+ * grid's own wavenumber K(φ) for k in the phase. Bistatic scattering width σ(φ) = (4/k)|T(φ)|²;
+ * (1/2π)∫σ dφ is the scattering width, and σ_ext = −(4/k) Re T(φ_inc) (optical theorem).
+ */
+export function farField(sol: SceneSolution, box: NodeBox, anglesRad: Float64Array, gridWavenumber: (angleRad: number) => number): { re: Float64Array; im: Float64Array } {
+  const g = sol.grid, h = g.h;
+  const u = sol.scatteredRe, v = sol.scatteredIm;
+  // faces: midpoint, outward normal, (u, du/dn)
+  const fx: number[] = [], fy: number[] = [], nxs: number[] = [], nys: number[] = [], uR: number[] = [], uI: number[] = [], dR: number[] = [], dI: number[] = [];
+  const add = (pIn: number, pOut: number, x: number, y: number, nx: number, ny: number): void => {
+    fx.push(x); fy.push(y); nxs.push(nx); nys.push(ny);
+    uR.push(0.5 * (u[pIn] + u[pOut])); uI.push(0.5 * (v[pIn] + v[pOut]));
+    dR.push((u[pOut] - u[pIn]) / h); dI.push((v[pOut] - v[pIn]) / h);
+  };
+  const { i0, i1, j0, j1 } = box;
+  for (let j = j0; j <= j1; j++) {
+    const y = g.y0 + j * h;
+    add(i0 + g.nx * j, i0 - 1 + g.nx * j, g.x0 + (i0 - 0.5) * h, y, -1, 0);
+    add(i1 + g.nx * j, i1 + 1 + g.nx * j, g.x0 + (i1 + 0.5) * h, y, 1, 0);
+  }
+  for (let i = i0; i <= i1; i++) {
+    const x = g.x0 + i * h;
+    add(i + g.nx * j0, i + g.nx * (j0 - 1), x, g.y0 + (j0 - 0.5) * h, 0, -1);
+    add(i + g.nx * j1, i + g.nx * (j1 + 1), x, g.y0 + (j1 + 0.5) * h, 0, 1);
+  }
+  const m = anglesRad.length;
+  const re = new Float64Array(m), im = new Float64Array(m);
+  for (let a = 0; a < m; a++) {
+    const phi = anglesRad[a];
+    const K = gridWavenumber(phi);
+    const cx = Math.cos(phi), cy = Math.sin(phi);
+    let sRe = 0, sIm = 0;
+    for (let f = 0; f < fx.length; f++) {
+      const rn = cx * nxs[f] + cy * nys[f];
+      // q = −i K rn u − du/dn
+      const qRe = K * rn * uI[f] - dR[f], qIm = -K * rn * uR[f] - dI[f];
+      const ph = -K * (cx * fx[f] + cy * fy[f]);
+      const eRe = Math.cos(ph), eIm = Math.sin(ph);
+      sRe += qRe * eRe - qIm * eIm; sIm += qRe * eIm + qIm * eRe;
+    }
+    // T = (i/4) h Σ
+    re[a] = -0.25 * h * sIm; im[a] = 0.25 * h * sRe;
+  }
+  return { re, im };
 }

@@ -6,6 +6,8 @@
  * the in-plane tensor T = μ_t; for Hz, u = H_z, b = μ_zz and T = ε_t. Both obey
  * ∇·(A ∇u) + k0² b u = 0 with A = T / det T (design brief §2; for diagonal T, A = diag(1/T_yy, 1/T_xx)).
  */
+import type { Conductor } from "./conductor.js";
+
 export type ScenePolarization = "Ez" | "Hz";
 
 /** sample() result: the point is background, a medium, or a perfect electric conductor. */
@@ -27,6 +29,17 @@ export interface Scene {
    * returns the kind; for SAMPLE_BACKGROUND and SAMPLE_PEC out is left alone.
    */
   sample(xM: number, yM: number, out: Float64Array): number;
+  /**
+   * The perfect conductors of the scene as shapes (sample() also reports SAMPLE_PEC inside them):
+   * the solver uses them to place the conductor's surface between grid nodes. Points sample()
+   * calls PEC outside every listed shape are treated as whole cells (a staircase).
+   */
+  conductors?: readonly Conductor[];
+  /**
+   * true when the medium varies continuously wherever sample() returns SAMPLE_MEDIUM (a graded map):
+   * only changes of kind (medium, background, conductor) are interfaces that need fine sampling.
+   */
+  smoothMedium?: boolean;
 }
 
 /** b and the in-plane tensor of the background as the polarization sees it: Ez (ε, μ), Hz (μ, ε). */

@@ -1,17 +1,17 @@
 /**
- * Solve a 2D scene for plane-wave illumination along +x, in the scattered-field formulation:
- * with u = u_inc + u_s and L u_inc = L_b u_inc (L_b: background operator),
- *   L_pml u_s = −(L − L_b) u_inc,
- * whose right-hand side vanishes outside the scatterer, so the PML only ever sees outgoing waves.
- * u_inc = exp(i k̃ x) uses the grid's own wavenumber k̃, cos(k̃h) = 1 − (k0 n_b h)²/2 (the 1D
- * dispersion relation of the three-point difference), so L_b u_inc = 0 exactly on the grid and a
- * homogeneous window scatters nothing. Ez nodes inside a perfect conductor are held at u_s = −u_inc.
+ * Solve a 2D scene in the scattered-field formulation: u = u_inc + u_s with u_inc a grid-exact
+ * solution of the background (illumination.ts), so the right-hand side vanishes outside the
+ * scatterer and the PML only ever sees outgoing waves. Nodes inside a perfect conductor are held at
+ * zero total field (u_s = −u_inc); how the conductor's surface enters is in gridCoefficients.ts.
  */
 import { InputError } from "../core/errors.js";
-import { assembleOperator, nodeOrder } from "./assemble.js";
-import { factorSymBanded, solveSymFactored } from "./bandedLdlt.js";
+import { gridOrdering } from "../numerics/gridNestedDissection.js";
+import { NumericalFailure } from "../numerics/numericalFailure.js";
+import { factorGridMatrix, solveWithFactor } from "../numerics/sparseLdltSolve.js";
+import { assembleSparseOperator, checkGridSize } from "./assemble.js";
 import type { FdfdGrid } from "./fdfdGrid.js";
-import { gridCoefficients, type GridCoefficients } from "./gridCoefficients.js";
+import { backgroundGridCoefficients, gridCoefficients, type GridCoefficients } from "./gridCoefficients.js";
+import { gridWavenumberAt, incidentField, PLANE_ALONG_X, type IncidentField, type Illumination } from "./illumination.js";
 import { pmlStretch, type PmlStretch } from "./pml.js";
 import { backgroundCoefficients, type Scene } from "./scene.js";
 import { applyOperator } from "./stencil.js";
@@ -21,98 +21,109 @@ export interface LinearSolution {
   im: Float64Array;
   /** smallest |pivot| / largest |diagonal| of the factorization */
   pivotRatio: number;
+  /** ‖f − L u‖ / ‖f‖ of the returned solution (after iterative refinement, if any was needed) */
+  residual: number;
 }
 
 /**
- * Solve L_pml u = f on grid g (f indexed by node id). Nodes flagged in holdZero take u = f there.
- * Throws InputError when the factorization meets a zero pivot (the message names the node).
+ * Solve L_pml u = f on grid g (f indexed by node id) with the nested-dissection direct solver
+ * (src/numerics). Nodes flagged in holdZero take u = f there.
+ * Throws InputError when the grid exceeds the solver's memory (checkGridSize, `limitBytes`), and
+ * NumericalFailure when the factorization meets a zero pivot (the message names the node).
  */
-export function solveLinear(g: FdfdGrid, c: GridCoefficients, stretch: PmlStretch | null, k0: number, fRe: Float64Array, fIm: Float64Array, holdZero: Uint8Array | null, onProgress?: (fraction: number) => void): LinearSolution {
-  const order = nodeOrder(g);
-  const n = g.nx * g.ny;
+export function solveLinear(g: FdfdGrid, c: GridCoefficients, stretch: PmlStretch | null, k0: number, fRe: Float64Array, fIm: Float64Array, holdZero: Uint8Array | null, onProgress?: (fraction: number) => void, limitBytes?: number): LinearSolution {
+  checkGridSize(g, "verify grid", limitBytes);
   const f2Re = fRe.slice(), f2Im = fIm.slice();
-  const m = assembleOperator(g, c, stretch, k0, order, holdZero, f2Re, f2Im);
-  const lu = factorSymBanded(m, onProgress);
-  if (!lu.ok) {
-    throw new InputError({ where: "verify solver", message: `the field equations are singular at unknown ${lu.badRow} (zero pivot); try another resolution or margin` });
-  }
-  const bRe = new Float64Array(n), bIm = new Float64Array(n);
-  for (let id = 0; id < n; id++) { bRe[order.row[id]] = f2Re[id]; bIm[order.row[id]] = f2Im[id]; }
-  solveSymFactored(m, bRe, bIm);
-  const re = new Float64Array(n), im = new Float64Array(n);
-  for (let id = 0; id < n; id++) { re[id] = bRe[order.row[id]]; im[id] = bIm[order.row[id]]; }
-  return { re, im, pivotRatio: lu.pivotRatio };
-}
-
-/** Grid wavenumber of a plane wave along x in the background: cos(k̃h) = 1 − (k0 n_b h)²/2. */
-export function gridWavenumber(k0: number, backgroundIndex: number, h: number): number {
-  const c = 1 - ((k0 * backgroundIndex * h) ** 2) / 2;
-  if (!(c > -1)) throw new InputError({ where: "verify grid", message: `grid step ${h} m is too coarse for the wavelength (fewer than 2 points per wavelength)` });
-  return Math.acos(c) / h;
+  const m = assembleSparseOperator(g, c, stretch, k0, holdZero, f2Re, f2Im);
+  const ord = gridOrdering(g.nx, g.ny);
+  const fac = factorGridMatrix(m, ord, onProgress);
+  const fail = (reason: string, id: number): NumericalFailure => {
+    const where = id >= 0 ? ` (node ${id % g.nx}, ${Math.floor(id / g.nx)})` : "";
+    return new NumericalFailure("verify solver", `${reason}${where}; the field equations have no reliable solution on this grid — try another resolution or margin`, id);
+  };
+  if (!fac.ok) throw fail(fac.reason, fac.badUnknown);
+  const sol = solveWithFactor(m, fac.factor, fac.pivotRatio, f2Re, f2Im);
+  if (!sol.ok) throw fail(sol.reason, sol.badUnknown);
+  return { re: sol.re, im: sol.im, pivotRatio: sol.pivotRatio, residual: sol.residual };
 }
 
 export interface SceneSolution {
   grid: FdfdGrid;
   scene: Scene;
   k0: number;
-  /** grid wavenumber of the incident wave in the background */
+  /** grid wavenumber of the incident wave's main direction in the background */
   kGrid: number;
+  /** background wavenumber k0·n_b */
+  kBackground: number;
+  illumination: Illumination;
+  /** power per unit length of a unit plane wave on this grid (see illumination.ts) */
+  incidentIntensityPerM: number;
+  /** beam components, for the far-field pattern (null for plane waves) */
+  incidentComponents: IncidentField["components"];
   coefficients: GridCoefficients;
   incidentRe: Float64Array; incidentIm: Float64Array;
   scatteredRe: Float64Array; scatteredIm: Float64Array;
   totalRe: Float64Array; totalIm: Float64Array;
   pivotRatio: number;
+  /** relative residual ‖f − L u‖ / ‖f‖ of the linear solve */
+  residual: number;
 }
 
 export interface SolveOptions {
-  /** points per grid cell side for material averaging (default 3) */
+  /** points per grid cell side for material averaging (default 4) */
   subsamples?: number;
   /** PML strength factor (1 = design value; tests use 0 to switch it off) */
   pmlStrength?: number;
+  /** default: plane wave along +x */
+  illumination?: Illumination;
+  /** a conducting ground plane y < yM that is part of the background (its reflection is in u_inc) */
+  groundYM?: number;
   onProgress?: (fraction: number) => void;
 }
 
-/** Scattered and total field of `scene` on grid g under u_inc = exp(i k̃ x), free-space wavenumber k0 (rad/m). */
+/**
+ * Scattered and total field of `scene` on grid g, free-space wavenumber k0 (rad/m). With u = u_inc +
+ * u_s and held (conductor) nodes at zero total field, L′(ũ_inc + u_s) = 0 on the open nodes, where
+ * ũ_inc is u_inc with the held nodes zeroed and L′ the operator with the scene's coefficients. The
+ * system solved is L′ u_s = −(L′ ũ_inc − L_b u_inc): the background term is zero to rounding for
+ * grid-exact waves, so the source lives only on and next to the scatterer.
+ */
 export function solveScene(scene: Scene, g: FdfdGrid, k0: number, options: SolveOptions = {}): SceneSolution {
   const { b, t } = backgroundCoefficients(scene);
   const nb = Math.sqrt(b * t);
-  const kGrid = gridWavenumber(k0, nb, g.h);
-  const c = gridCoefficients(g, scene, options.subsamples ?? 3);
+  const kb = k0 * nb;
+  const ill = options.illumination ?? PLANE_ALONG_X;
+  const kGrid = gridWavenumberAt(kb, g.h, ill.angleRad);
+  const c = gridCoefficients(g, scene, options.subsamples ?? 4);
   const n = g.nx * g.ny;
-  const incRe = new Float64Array(n), incIm = new Float64Array(n);
-  for (let j = 0; j < g.ny; j++) {
-    for (let i = 0; i < g.nx; i++) {
-      const ph = kGrid * (g.x0 + i * g.h);
-      incRe[i + g.nx * j] = Math.cos(ph);
-      incIm[i + g.nx * j] = Math.sin(ph);
-    }
-  }
-  // source −(L − L_b) u_inc: the operator is linear in its coefficients, so apply the differences
-  const d: GridCoefficients = {
-    bRe: c.bRe.map((v) => v - b), bIm: c.bIm,
-    axxRe: c.axxRe.map((v) => v - 1 / t), axxIm: c.axxIm,
-    ayyRe: c.ayyRe.map((v) => v - 1 / t), ayyIm: c.ayyIm,
-    axyRe: c.axyRe, axyIm: c.axyIm,
-    pecNode: c.pecNode, deviceNode: c.deviceNode,
-  };
+  const ground = options.groundYM === undefined ? null : { yM: options.groundYM, sign: (scene.polarization === "Ez" ? -1 : 1) as 1 | -1 };
+  const inc = incidentField(g, kb, ill, ground);
+  const incRe = inc.re, incIm = inc.im;
+  const hold = c.pecNode;
+  const zRe = incRe.slice(), zIm = incIm.slice();
+  for (let id = 0; id < n; id++) if (hold[id]) { zRe[id] = 0; zIm[id] = 0; }
   const fRe = new Float64Array(n), fIm = new Float64Array(n);
-  applyOperator(g, d, null, k0, incRe, incIm, fRe, fIm);
-  const hold = scene.polarization === "Ez" ? c.pecNode : null;
+  const bRe = new Float64Array(n), bIm = new Float64Array(n);
+  applyOperator(g, c, null, k0, zRe, zIm, fRe, fIm);
+  applyOperator(g, backgroundGridCoefficients(g, scene), null, k0, incRe, incIm, bRe, bIm);
   for (let id = 0; id < n; id++) {
-    if (hold && hold[id]) { fRe[id] = -incRe[id]; fIm[id] = -incIm[id]; } else { fRe[id] = -fRe[id]; fIm[id] = -fIm[id]; }
+    if (hold[id]) { fRe[id] = 0; fIm[id] = 0; } else { fRe[id] = bRe[id] - fRe[id]; fIm[id] = bIm[id] - fIm[id]; }
   }
-  const sol = solveLinear(g, c, pmlStretch(g, k0 * nb, options.pmlStrength ?? 1), k0, fRe, fIm, hold, options.onProgress);
+  const sol = solveLinear(g, c, pmlStretch(g, kb, options.pmlStrength ?? 1), k0, fRe, fIm, hold, options.onProgress);
   const totRe = new Float64Array(n), totIm = new Float64Array(n);
   for (let id = 0; id < n; id++) {
-    if (c.pecNode[id]) { sol.re[id] = -incRe[id]; sol.im[id] = -incIm[id]; continue; } // zero total field inside conductors
+    if (hold[id]) { sol.re[id] = -incRe[id]; sol.im[id] = -incIm[id]; continue; } // zero total field inside conductors
     totRe[id] = incRe[id] + sol.re[id];
     totIm[id] = incIm[id] + sol.im[id];
   }
   return {
-    grid: g, scene, k0, kGrid, coefficients: c,
+    grid: g, scene, k0, kGrid, kBackground: kb, illumination: ill,
+    incidentIntensityPerM: inc.intensityPerM, incidentComponents: inc.components,
+    coefficients: c,
     incidentRe: incRe, incidentIm: incIm,
     scatteredRe: sol.re, scatteredIm: sol.im,
     totalRe: totRe, totalIm: totIm,
     pivotRatio: sol.pivotRatio,
+    residual: sol.residual,
   };
 }

@@ -1,172 +1,435 @@
 /**
- * The full-wave check of a 2D device: the ideal, reduced and realized material maps (and, for a
- * cloak, the bare hidden object) each simulated under a plane wave along +x on one FDFD grid, with
- * scattering widths and field differences. Pure; the command line wraps it.
+ * The full-wave check of a 2D device: each case (the bare hidden object, the ideal, reduced and
+ * realized devices) is a Scene solved by FDFD on a ladder of grids, and each figure is extrapolated
+ * to zero step with an uncertainty (richardson.ts). Pure; the command line wraps it.
  *
- * Grid: step h = λ0 / (n_max · N) with N points per wavelength (`resolution`, default 12) in the
- * densest material of any case (n_max = max sqrt(|b| λ_max(T)) and the background index); window =
- * device box + margin (default half a background wavelength) each side, plus a PML of
- * clamp(⌈λ_b/(2h)⌉, 10, 20) nodes. When that grid exceeds the solver's limits, N is lowered step by
- * step down to MIN_RESOLUTION (with a note); below that the check is refused with an InputError.
+ * Grid: step h = λ0 / (n_max · N) for N points per wavelength in the densest material of any case
+ * (n_max from the cases' index hints and the background), or finer where the device's smaller side
+ * would get fewer than MIN_STEPS_ACROSS steps on the first rung (all rungs scale alike); window = device box + margin (default
+ * half a background wavelength) each side, plus a PML of clamp(⌈λ_b/(2h)⌉, 10, 20) nodes. Every
+ * case of a rung is solved on the same grid, so ratios such as σ/σ_bare compare like with like.
+ *
+ * Ladder: `resolution` alone runs one grid (no convergence evidence). Otherwise N0 follows the
+ * requested accuracy (N0 = 12 at 2 %, growing as accuracy^(−1/2)), three rungs N0, √2·N0, 2·N0 are
+ * solved, and while a figure's uncertainty exceeds the accuracy another rung (×√2) is added, up to
+ * MAX_RUNGS and the solver's size limit. A requested grid that does not fit is refused, never
+ * silently coarsened.
  */
 import { InputError } from "../core/errors.js";
-import type { DeviceGrid } from "../field/deviceGrid.js";
-import { MAX_BAND_MEGABYTES, MAX_FACTOR_WORK, solveCost } from "./assemble.js";
-import { deviceBounds, deviceScene, type HiddenDisk } from "./deviceScene.js";
-import { gridForWindow, type FdfdGrid } from "./fdfdGrid.js";
-import { largestIndex, type MaterialMap } from "./materialMap.js";
-import { crossSections, fluxBox, observationMask, relativeDifference } from "./metrics.js";
-import type { ScenePolarization } from "./scene.js";
-import { formatLength } from "./formatQuantity.js";
+import { DEFAULT_SOLVER_BYTES, formatBytes, solveCost } from "./assemble.js";
+import { gridForWindow, inPml, type FdfdGrid } from "./fdfdGrid.js";
+import { gridWavenumberAt, type Illumination } from "./illumination.js";
+import { crossSections, farField, fluxBox, relativeDifference, type NodeBox } from "./metrics.js";
+import { richardson } from "./richardson.js";
+import type { Scene, ScenePolarization } from "./scene.js";
 import { solveScene, type SceneSolution } from "./solve.js";
 
 const C0 = 299_792_458;
-export const DEFAULT_RESOLUTION = 12;
-export const MIN_RESOLUTION = 10;
+export const DEFAULT_ACCURACY = 0.02;
+export const MIN_RESOLUTION = 6;
+export const MAX_RESOLUTION = 200;
+export const MAX_RUNGS = 5;
+/** A device smaller than this fraction of the background wavelength is refused (nothing to resolve). */
+export const SMALLEST_DEVICE_WAVELENGTHS = 0.01;
+/** Steps across the device's smaller side on the coarsest rung (a small device is resolved by its size, not only by the wavelength). */
+export const MIN_STEPS_ACROSS = 16;
+/** Angular samples of far-field patterns (one per degree). */
+export const PATTERN_ANGLES = 360;
 
-export type CaseName = "ideal" | "reduced" | "realized";
+export type CaseName = "bare" | "ideal" | "reduced" | "realized" | "realized-geometry";
+
+export interface CaseSpec {
+  name: CaseName;
+  /** null: the case cannot be computed, `reason` says why */
+  scene: Scene | null;
+  reason?: string;
+  /** largest local index of the case's material (for the grid step) */
+  indexHint: number;
+}
 
 export interface VerifyInput {
-  grid: DeviceGrid;
   polarization: ScenePolarization;
   /** relative ε, μ of the background the device sits in */
   background: { eps: number; mu: number };
   frequencyHz: number;
-  cases: { name: CaseName; map: MaterialMap }[];
-  /** the object a cloak hides, modelled as a perfect conductor (null for other devices) */
-  hidden: HiddenDisk | null;
-  /** points per wavelength in the densest material (default DEFAULT_RESOLUTION) */
+  /** box holding every case's scatterer, metres */
+  deviceBox: { minX: number; maxX: number; minY: number; maxY: number };
+  cases: CaseSpec[];
+  illumination?: Illumination;
+  /** a conducting ground plane y < groundYM in every case (carpet-type devices) */
+  groundYM?: number;
+  /** one grid at N points per wavelength (no ladder) */
   resolution?: number;
+  /** relative accuracy the ladder aims at (default 2 %) */
+  accuracy?: number;
   /** free space around the device on each side, metres (default half a background wavelength) */
   marginM?: number;
+  /** compute the bistatic pattern of each case (radial devices) */
+  pattern?: boolean;
   onProgress?: (step: string, fraction: number) => void;
 }
 
-export interface CaseResult {
-  name: CaseName | "bare";
-  /** scattering width σ_s, metres */
+export interface LadderPoint {
+  resolution: number;
+  stepM: number;
   scatteringWidthM: number;
-  /** σ_s divided by the device's geometric width across the beam (y extent) */
-  scatteringPerWidth: number;
-  /** σ_s / σ_s(bare hidden object); null when there is no hidden object */
   vsBare: number | null;
-  /** absorption width, metres (≈ 0 for lossless maps; a check on the solution) */
-  absorptionWidthM: number;
-  /** ‖u − u_ideal‖ / ‖u_ideal‖ over the observation region (null for ideal and bare) */
+  deliveredPower: number | null;
+}
+
+export interface CaseResult {
+  name: CaseName;
+  /** false when the case could not be computed (`reason`) */
+  available: boolean;
+  reason: string | null;
+  /** scattering width σ_s, metres, extrapolated to zero step (plane wave); for a beam, scattered power / peak incident intensity */
+  scatteringWidthM: number | null;
+  /** relative uncertainty of the case's headline figure (null for a single grid) */
+  uncertainty: number | null;
+  /** uncertainty ≤ accuracy (null for a single grid) */
+  converged: boolean | null;
+  /** σ_s / σ_s(bare), extrapolated (null without a bare object) */
+  vsBare: number | null;
+  /** absorption width on the finest grid, metres (≈ 0 for lossless maps) */
+  absorptionWidthM: number | null;
+  /** optical theorem on the finest grid: (σ_ext from the forward far field − σ_s − σ_abs)/σ_s */
+  powerBalance: number | null;
+  /** ‖u − u_ideal‖/‖u_ideal‖ outside the device box, finest grid (null for ideal and bare) */
   fieldErrorVsIdeal: number | null;
-  /** ‖u_s‖ / ‖u_inc‖ over the observation region: the field change the device makes vs empty space */
-  scatteredFieldRelative: number;
-  /** device cells without a value (set to background) */
-  missingCells: number;
-  /** |u_total| per node (for pictures) */
-  magnitude: Float64Array;
+  /** beams: fraction of the outgoing power within the ideal device's output lobe */
+  deliveredPower: number | null;
+  /** beams: output direction minus the ideal device's, degrees */
+  deviationDeg: number | null;
+  /** bistatic scattering width σ(φ), metres, φ = 0 … 359° from +x (when requested) */
+  bistaticM: Float64Array | null;
+  ladder: LadderPoint[];
+  /** |u_total| per node on the finest grid (for pictures) */
+  magnitude: Float64Array | null;
 }
 
 export interface VerifyResult {
+  method: "fdfd";
   polarization: ScenePolarization;
   frequencyHz: number;
+  /** finest grid */
   grid: FdfdGrid;
-  /** points per wavelength actually used in the densest material */
-  resolution: number;
-  requestedResolution: number;
+  resolutions: number[];
+  accuracy: number;
   densestIndex: number;
   backgroundIndex: number;
   marginM: number;
-  /** device extent across the beam (y), metres */
-  deviceWidthM: number;
-  /** nodes in the observation region */
-  observationNodes: number;
+  illumination: Illumination;
   cases: CaseResult[];
-  /** 1 on nodes of any device or hidden region (for pictures) */
   deviceMask: Uint8Array;
   notes: string[];
 }
 
-function chooseGrid(box: { minX: number; maxX: number; minY: number; maxY: number }, lambda0: number, nMax: number, nb: number, requested: number, marginM: number): { g: FdfdGrid; resolution: number } {
-  for (let res = requested; res >= MIN_RESOLUTION; res--) {
-    const h = lambda0 / (nMax * res);
-    const pml = Math.min(20, Math.max(10, Math.ceil(lambda0 / nb / (2 * h))));
-    const g = gridForWindow({ minX: box.minX - marginM, maxX: box.maxX + marginM, minY: box.minY - marginM, maxY: box.maxY + marginM }, h, pml);
-    const c = solveCost(g);
-    if (c.megabytes <= MAX_BAND_MEGABYTES && c.work <= MAX_FACTOR_WORK) return { g, resolution: res };
-  }
-  const h = lambda0 / (nMax * MIN_RESOLUTION);
-  const g = gridForWindow({ minX: box.minX - marginM, maxX: box.maxX + marginM, minY: box.minY - marginM, maxY: box.maxY + marginM }, h, 10);
-  const c = solveCost(g);
-  throw new InputError({
-    where: "verify grid",
-    message: `the device is too large for the 2D check: at ${MIN_RESOLUTION} points per wavelength in its densest material (index ${nMax.toPrecision(3)}) the grid is ${g.nx} × ${g.ny} nodes (${Math.round(c.megabytes)} MB, ${(c.work / 1e9).toFixed(1)}e9 operations; limits ${MAX_BAND_MEGABYTES} MB, ${MAX_FACTOR_WORK / 1e9}e9); try a smaller --margin`,
-  });
+function ladderStart(accuracy: number): number {
+  return Math.min(48, Math.max(8, Math.round(12 * Math.sqrt(DEFAULT_ACCURACY / accuracy))));
 }
 
-/** Run the check (see file comment). Throws InputError for a bad resolution or margin, or a grid too large. */
+/** Largest grid the ladder adds on its own to reach the accuracy (a requested grid may be larger, up to the memory limit). */
+export const MAX_AUTO_UNKNOWNS = 1.2e6;
+
+/** Whether grid g fits the solver's memory (assemble.ts); the figure over its limit when not. */
+export function gridFits(g: FdfdGrid, limitBytes = DEFAULT_SOLVER_BYTES): { ok: boolean; over: string } {
+  const c = solveCost(g);
+  if (c.megabytes * 1e6 > limitBytes) return { ok: false, over: `about ${formatBytes(c.megabytes * 1e6)} for the direct solver (limit ${formatBytes(limitBytes)})` };
+  return { ok: true, over: "" };
+}
+
+interface Rung { resolution: number; g: FdfdGrid }
+
+/** What one solve of one case on one rung yields. */
+interface RunFigures {
+  sol: SceneSolution;
+  sigma: number;
+  abs: number;
+  /** extinction width from the forward far field (plane waves) */
+  ext: number | null;
+  /** bistatic width σ(φ) per degree */
+  pattern: Float64Array | null;
+  /** beams: outgoing power pattern |T_tot(φ)|² and its peak direction */
+  beamPower: Float64Array | null;
+  peakDeg: number | null;
+}
+
+/** Run the check (see file comment). Throws InputError for bad options, a device too small, or a grid too large. */
 export function verifyDevice(input: VerifyInput): VerifyResult {
-  const { grid, polarization, background, frequencyHz, cases, hidden } = input;
-  const requested = input.resolution ?? DEFAULT_RESOLUTION;
-  if (!(requested >= MIN_RESOLUTION && requested <= 60)) throw new InputError({ where: "--resolution", message: `expected points per wavelength from ${MIN_RESOLUTION} to 60, got ${requested}` });
-  const nb = Math.sqrt(background.eps * background.mu);
-  const lambda0 = C0 / frequencyHz;
-  const marginM = input.marginM ?? lambda0 / nb / 2;
-  if (!(marginM >= 0 && Number.isFinite(marginM))) throw new InputError({ where: "--margin", message: `expected a length ≥ 0, got ${marginM}` });
-  let nMax = nb;
-  for (const c of cases) nMax = Math.max(nMax, largestIndex(c.map));
-  const box = deviceBounds(grid);
-  if (hidden) {
-    const [cx, cy] = hidden.centerM, r = hidden.radiusM;
-    box.minX = Math.min(box.minX, cx - r); box.maxX = Math.max(box.maxX, cx + r);
-    box.minY = Math.min(box.minY, cy - r); box.maxY = Math.max(box.maxY, cy + r);
+  const { polarization, background, frequencyHz, cases } = input;
+  const accuracy = input.accuracy ?? DEFAULT_ACCURACY;
+  if (!(accuracy >= 1e-3 && accuracy <= 0.5)) throw new InputError({ where: "--accuracy", message: `expected a relative accuracy from 0.1 % to 50 %, got ${accuracy}` });
+  if (input.resolution !== undefined && !(input.resolution >= MIN_RESOLUTION && input.resolution <= MAX_RESOLUTION)) {
+    throw new InputError({ where: "--resolution", message: `expected points per wavelength from ${MIN_RESOLUTION} to ${MAX_RESOLUTION}, got ${input.resolution}` });
   }
-  const { g, resolution } = chooseGrid(box, lambda0, nMax, nb, requested, marginM);
+  const nb = Math.sqrt(background.eps * background.mu);
+  const lambda0 = C0 / frequencyHz, lambdaB = lambda0 / nb;
+  const box = input.deviceBox;
+  const size = Math.max(box.maxX - box.minX, box.maxY - box.minY);
+  if (!(size >= SMALLEST_DEVICE_WAVELENGTHS * lambdaB)) {
+    throw new InputError({
+      where: "frequency",
+      message: `the device is ${fmt(size)} m across, ${(size / lambdaB).toPrecision(2)} of the wavelength in the background (${fmt(lambdaB)} m): below 1/${Math.round(1 / SMALLEST_DEVICE_WAVELENGTHS)} of a wavelength a full-wave check shows nothing; check the frequency and the device size`,
+    });
+  }
+  const marginM = input.marginM ?? lambdaB / 2;
+  if (!(marginM >= 0 && Number.isFinite(marginM))) throw new InputError({ where: "--margin", message: `expected a length ≥ 0, got ${marginM}` });
+  let baseRes = 1;
+  let nMax = nb;
+  for (const c of cases) if (c.scene) nMax = Math.max(nMax, c.indexHint);
+  // the coarsest rung also puts at least MIN_STEPS_ACROSS steps across the device's smaller side
+  const across = Math.min(box.maxX - box.minX, box.maxY - box.minY);
+  const makeGrid = (res: number): FdfdGrid => {
+    const h = Math.min(lambda0 / (nMax * res), (across / MIN_STEPS_ACROSS) * (baseRes / res));
+    const pml = Math.min(20, Math.max(10, Math.ceil(lambdaB / (2 * h))));
+    const g = gridForWindow({ minX: box.minX - marginM, maxX: box.maxX + marginM, minY: box.minY - marginM, maxY: box.maxY + marginM }, h, pml);
+    if (input.groundYM !== undefined) {
+      // the ground plane on a row of nodes (Ez) or of faces (Hz): the flat ground's reflection is then grid-exact
+      const shift = polarization === "Ez" ? 0 : 0.5;
+      const j = Math.round((input.groundYM - g.y0) / h - shift);
+      g.y0 = input.groundYM - (j + shift) * h;
+    }
+    return g;
+  };
+  const refuse = (res: number, g: FdfdGrid, over: string): never => {
+    throw new InputError({
+      where: input.resolution !== undefined ? "--resolution" : "--accuracy",
+      message: `the grid for ${res} points per wavelength in the densest material (index ${nMax.toPrecision(3)}) is ${g.nx} × ${g.ny} nodes, step ${fmt(g.h)} m, which needs ${over}; ${largestFitting(makeGrid, res)}`,
+    });
+  };
+  let wanted: number[];
+  if (input.resolution !== undefined) wanted = [input.resolution];
+  else { const n0 = ladderStart(accuracy); wanted = [n0, Math.round(n0 * Math.SQRT2), 2 * n0]; }
+  baseRes = input.resolution ?? ladderStart(accuracy);
+  const rungs: Rung[] = [];
+  for (const res of wanted) {
+    const g = makeGrid(res);
+    const fit = gridFits(g);
+    if (!fit.ok) {
+      if (rungs.length >= 2) break; // two rungs still give an estimate (nominal order)
+      refuse(res, g, fit.over);
+    }
+    rungs.push({ resolution: res, g });
+  }
   const notes: string[] = [];
-  if (resolution < requested) notes.push(`resolution lowered from ${requested} to ${resolution} points per wavelength to fit the solver's limits`);
-  // average several design cells into one grid step when the grid is coarser than the lattice
-  const subsamples = Math.min(6, Math.max(3, Math.ceil((2 * g.h) / grid.pitchM)));
-  if (g.h > grid.pitchM) notes.push(`grid step ${formatLength(g.h)} is coarser than the cell pitch ${formatLength(grid.pitchM)}: cells are averaged (${subsamples}×${subsamples} samples per step)`);
+  const ill = input.illumination ?? { kind: "plane", angleRad: 0 };
   const k0 = (2 * Math.PI * frequencyHz) / C0;
-  const runs: { name: CaseName | "bare"; sol: SceneSolution; missing: number }[] = [];
-  const total = cases.length + (hidden ? 1 : 0);
-  const run = (name: CaseName | "bare", map: MaterialMap | null): void => {
-    const done = runs.length;
-    const scene = deviceScene(grid, polarization, background, map, hidden);
-    const sol = solveScene(scene, g, k0, { subsamples, onProgress: (f) => input.onProgress?.(name, (done + f) / total) });
-    runs.push({ name, sol, missing: map?.missing ?? 0 });
+  const kb = k0 * nb;
+  const angles = new Float64Array(PATTERN_ANGLES).map((_, a) => (2 * Math.PI * a) / PATTERN_ANGLES);
+  const live = cases.filter((c) => c.scene !== null);
+  // per rung, per live case
+  const per: RunFigures[][] = [];
+  let total = rungs.length * live.length, done = 0;
+  const solveRung = (r: Rung): void => {
+    const row: RunFigures[] = [];
+    let boxN: NodeBox | null = null;
+    for (const c of live) {
+      const frac0 = done / total;
+      const sol = solveScene(c.scene!, r.g, k0, { illumination: ill, groundYM: input.groundYM, onProgress: (f) => input.onProgress?.(`${c.name} at ${r.resolution} points per wavelength`, frac0 + f / total) });
+      done++;
+      boxN ??= fluxBox(sol);
+      if (!boxN) throw new InputError({ where: "--margin", message: "no room between the device and the PML for the power contour; give a larger margin" });
+      const cs = crossSections(sol, boxN);
+      let pattern: Float64Array | null = null, ext: number | null = null, beamPower: Float64Array | null = null, peakDeg: number | null = null;
+      if (input.groundYM === undefined) {
+        const gk = (phi: number): number => gridWavenumberAt(kb, r.g.h, phi);
+        const ff = farField(sol, boxN, angles, gk);
+        pattern = new Float64Array(PATTERN_ANGLES);
+        for (let a = 0; a < PATTERN_ANGLES; a++) pattern[a] = (4 / kb) * (ff.re[a] ** 2 + ff.im[a] ** 2);
+        if (ill.kind === "plane") {
+          // forward amplitude at the incidence angle (interpolated between whole degrees)
+          const t = forwardAmplitude(sol, boxN, ill.angleRad, gk);
+          ext = -(4 / kb) * t;
+        } else {
+          const lobe = beamLobe(sol, ff, angles, kb);
+          peakDeg = lobe.peakDeg; beamPower = lobe.totalPower;
+        }
+      }
+      row.push({ sol, sigma: cs.scatteringM, abs: cs.absorptionM, ext, pattern, beamPower, peakDeg });
+    }
+    per.push(row);
   };
-  if (hidden) run("bare", null);
-  for (const c of cases) run(c.name, c.map);
+  for (const r of rungs) solveRung(r);
+  const extrapolate = (): CaseResult[] => buildResults(input, live, cases, rungs, per, accuracy, ill);
+  let results = extrapolate();
+  while (input.resolution === undefined && rungs.length < MAX_RUNGS && results.some((c) => c.available && c.converged === false)) {
+    const res = Math.round(rungs[rungs.length - 1].resolution * Math.SQRT2);
+    if (res > MAX_RESOLUTION) break;
+    const g = makeGrid(res);
+    if (!gridFits(g).ok || g.nx * g.ny > MAX_AUTO_UNKNOWNS) { notes.push(`a finer rung (${res} points per wavelength, ${g.nx} × ${g.ny} nodes) is beyond what the ladder adds on its own; it stops at ${rungs[rungs.length - 1].resolution}`); break; }
+    const r = { resolution: res, g };
+    rungs.push(r);
+    total += live.length;
+    solveRung(r);
+    results = extrapolate();
+  }
   input.onProgress?.("metrics", 1);
-  // device mask: union over runs; observation region outside it
-  const n = g.nx * g.ny;
+  const finest = per[per.length - 1];
+  const n = rungs[rungs.length - 1].g.nx * rungs[rungs.length - 1].g.ny;
   const deviceMask = new Uint8Array(n);
-  for (const r of runs) for (let k = 0; k < n; k++) if (r.sol.coefficients.deviceNode[k]) deviceMask[k] = 1;
-  const obs = observationMask(g, deviceMask, 1);
-  let observationNodes = 0;
-  for (let k = 0; k < n; k++) observationNodes += obs[k];
-  const ideal = runs.find((r) => r.name === "ideal");
-  const bare = runs.find((r) => r.name === "bare");
-  const widthM = box.maxY - box.minY;
-  const results: CaseResult[] = runs.map((r) => {
-    const fb = fluxBox(r.sol);
-    if (!fb) throw new InputError({ where: "--margin", message: "no room between the device and the PML for the power contour; give a larger margin" });
-    const cs = crossSections(r.sol, fb);
-    const mag = new Float64Array(n);
-    for (let k = 0; k < n; k++) mag[k] = Math.hypot(r.sol.totalRe[k], r.sol.totalIm[k]);
-    return {
-      name: r.name,
-      scatteringWidthM: cs.scatteringM,
-      scatteringPerWidth: cs.scatteringM / widthM,
-      vsBare: 0,
-      absorptionWidthM: cs.absorptionM,
-      fieldErrorVsIdeal: ideal && r !== ideal && r.name !== "bare" ? relativeDifference(r.sol.totalRe, r.sol.totalIm, ideal.sol.totalRe, ideal.sol.totalIm, obs) : null,
-      scatteredFieldRelative: relativeDifference(r.sol.totalRe, r.sol.totalIm, r.sol.incidentRe, r.sol.incidentIm, obs),
-      missingCells: r.missing,
-      magnitude: mag,
-    };
-  });
-  const bareWidth = bare ? results[0].scatteringWidthM : null;
-  for (const c of results) c.vsBare = bareWidth !== null && bareWidth > 0 ? c.scatteringWidthM / bareWidth : null;
-  for (const c of results) if (c.missingCells > 0) notes.push(`${c.name}: ${c.missingCells} device cells have no value and were left as background`);
+  for (const r of finest) for (let k = 0; k < n; k++) if (r.sol.coefficients.deviceNode[k]) deviceMask[k] = 1;
+  if (input.resolution !== undefined) notes.push("single grid (--resolution): no convergence ladder, figures carry no uncertainty");
   return {
-    polarization, frequencyHz, grid: g, resolution, requestedResolution: requested, densestIndex: nMax, backgroundIndex: nb,
-    marginM, deviceWidthM: widthM, observationNodes, cases: results, deviceMask, notes,
+    method: "fdfd", polarization, frequencyHz, grid: rungs[rungs.length - 1].g, resolutions: rungs.map((r) => r.resolution), accuracy,
+    densestIndex: nMax, backgroundIndex: nb, marginM, illumination: ill, cases: results, deviceMask, notes,
   };
+}
+
+const fmt = (v: number): string => Number(v.toPrecision(3)).toString();
+
+/** The largest resolution below `res` whose grid fits (memory grows about like N² log N in the resolution N, so start from that guess). */
+function largestFitting(makeGrid: (res: number) => FdfdGrid, res: number): string {
+  const need = solveCost(makeGrid(res)).megabytes * 1e6;
+  let r = Math.floor(res * Math.sqrt(DEFAULT_SOLVER_BYTES / need));
+  for (let tries = 0; tries < 12 && r >= MIN_RESOLUTION; tries++, r = Math.floor(r * 0.93)) {
+    if (gridFits(makeGrid(r)).ok) return `the largest resolution that fits is about ${r} points per wavelength (or give a smaller --margin)`;
+  }
+  return `even ${MIN_RESOLUTION} points per wavelength do not fit: the device is too large for the 2D check on this machine`;
+}
+
+/** Re T(φ_inc): the real part of the forward far-field amplitude, for the optical theorem. */
+function forwardAmplitude(sol: SceneSolution, box: NodeBox, angle: number, gk: (phi: number) => number): number {
+  const ff = farField(sol, box, Float64Array.of(angle), gk);
+  return ff.re[0];
+}
+
+/**
+ * Beam far field: total outgoing amplitude T_tot(φ) = T_inc(φ) + T_s(φ), where a beam made of plane
+ * waves of density a(θ) has T_inc(φ) = π a(φ) e^{−i k r̂·r0} in the normalization of farField.
+ * Returns the power pattern |T_tot|² and its peak direction.
+ */
+function beamLobe(sol: SceneSolution, ff: { re: Float64Array; im: Float64Array }, angles: Float64Array, kb: number): { peakDeg: number; totalPower: Float64Array } {
+  const comp = sol.incidentComponents!;
+  const ill = sol.illumination as Extract<Illumination, { kind: "beam" }>;
+  const m = comp.angleRad.length, d = (comp.angleRad[m - 1] - comp.angleRad[0]) / (m - 1);
+  const tot = new Float64Array(angles.length);
+  let best = 0, bestA = 0;
+  for (let a = 0; a < angles.length; a++) {
+    // density a(φ) by linear interpolation of the components (weights / Δθ)
+    let rel = (angles[a] - comp.angleRad[0]) % (2 * Math.PI);
+    if (rel < 0) rel += 2 * Math.PI;
+    const x = rel / d;
+    let dens = 0;
+    if (x <= m - 1) { const q = Math.floor(x), f = x - q; dens = ((q < m ? comp.re[q] : 0) * (1 - f) + (q + 1 < m ? comp.re[q + 1] : 0) * f) / d; }
+    const ph = -kb * (Math.cos(angles[a]) * ill.focusM[0] + Math.sin(angles[a]) * ill.focusM[1]);
+    const iRe = Math.PI * dens * Math.cos(ph), iIm = Math.PI * dens * Math.sin(ph);
+    const re = iRe + ff.re[a], im = iIm + ff.im[a];
+    tot[a] = re * re + im * im;
+    if (tot[a] > best) { best = tot[a]; bestA = a; }
+  }
+  // parabolic refinement of the peak
+  const L = angles.length, y0 = tot[(bestA - 1 + L) % L], y1 = tot[bestA], y2 = tot[(bestA + 1) % L];
+  const den = y0 - 2 * y1 + y2;
+  const off = den !== 0 ? (0.5 * (y0 - y2)) / den : 0;
+  let peakDeg = (bestA + Math.max(-0.5, Math.min(0.5, off))) * (360 / L);
+  if (peakDeg > 180) peakDeg -= 360;
+  return { peakDeg, totalPower: tot };
+}
+
+/** Half-width of the output lobe counted as delivered: 1.5 × the beam's far-field 1/e² half-angle 2/(k w0), at least 3°. */
+function lobeHalfWidthDeg(ill: Illumination, kb: number): number {
+  if (ill.kind !== "beam") return 0;
+  return Math.max(3, (1.5 * 2 * 180) / (Math.PI * kb * ill.waistM));
+}
+
+function deliveredFraction(tot: Float64Array, centreDeg: number, halfDeg: number): number {
+  let inside = 0, all = 0;
+  for (let a = 0; a < tot.length; a++) {
+    const deg = (a * 360) / tot.length;
+    let dd = Math.abs(deg - centreDeg) % 360;
+    if (dd > 180) dd = 360 - dd;
+    all += tot[a];
+    if (dd <= halfDeg) inside += tot[a];
+  }
+  return all > 0 ? inside / all : 0;
+}
+
+function buildResults(
+  input: VerifyInput, live: CaseSpec[], cases: CaseSpec[], rungs: Rung[],
+  per: RunFigures[][],
+  accuracy: number, ill: Illumination,
+): CaseResult[] {
+  const hs = rungs.map((r) => r.g.h);
+  const bareIdx = live.findIndex((c) => c.name === "bare");
+  const idealIdx = live.findIndex((c) => c.name === "ideal");
+  const kb = (2 * Math.PI * input.frequencyHz / C0) * Math.sqrt(input.background.eps * input.background.mu);
+  // beams: the intended output direction is where the ideal device sends the beam, per rung
+  const half = lobeHalfWidthDeg(ill, kb);
+  const intended: (number | null)[] = per.map((row) => {
+    if (ill.kind !== "beam") return null;
+    const ref = idealIdx >= 0 ? row[idealIdx] : null;
+    return ref?.peakDeg ?? (ill.angleRad * 180) / Math.PI;
+  });
+  const bareX = bareIdx >= 0 ? richardson(hs, per.map((row) => row[bareIdx].sigma)) : null;
+  const finest = per[per.length - 1];
+  const g = rungs[rungs.length - 1].g;
+  const obs = outsideMask(g, input.deviceBox);
+  const out: CaseResult[] = [];
+  for (const spec of cases) {
+    const li = live.indexOf(spec);
+    if (li < 0) {
+      out.push({ name: spec.name, available: false, reason: spec.reason ?? "not computed", scatteringWidthM: null, uncertainty: null, converged: null, vsBare: null, absorptionWidthM: null, powerBalance: null, fieldErrorVsIdeal: null, deliveredPower: null, deviationDeg: null, bistaticM: null, ladder: [], magnitude: null });
+      continue;
+    }
+    const ladder: LadderPoint[] = per.map((row, k) => {
+      const r = row[li];
+      const tot = r.beamPower;
+      return {
+        resolution: rungs[k].resolution, stepM: rungs[k].g.h, scatteringWidthM: r.sigma,
+        vsBare: bareIdx >= 0 && row[bareIdx].sigma > 0 ? r.sigma / row[bareIdx].sigma : null,
+        deliveredPower: tot && intended[k] !== null ? deliveredFraction(tot, intended[k]!, half) : null,
+      };
+    });
+    const sx = richardson(hs, ladder.map((p) => p.scatteringWidthM));
+    const vx = bareIdx >= 0 ? richardson(hs, ladder.map((p) => p.vsBare ?? 0)) : null;
+    const dx = ill.kind === "beam" ? richardson(hs, ladder.map((p) => p.deliveredPower ?? 0)) : null;
+    // relative uncertainty: σ against max(σ, σ_bare); delivered power is a fraction (absolute)
+    let unc: number | null = null;
+    if (sx.uncertainty !== null) {
+      const ref = Math.max(Math.abs(sx.value), bareX ? Math.abs(bareX.value) : 0);
+      unc = ref > 0 ? sx.uncertainty / ref : 0;
+      if (dx && dx.uncertainty !== null) unc = Math.max(unc, dx.uncertainty);
+    }
+    const f = finest[li];
+    const mag = new Float64Array(f.sol.totalRe.length);
+    for (let k = 0; k < mag.length; k++) mag[k] = Math.hypot(f.sol.totalRe[k], f.sol.totalIm[k]);
+    const ideal = idealIdx >= 0 ? finest[idealIdx] : null;
+    let deviation: number | null = null;
+    if (ill.kind === "beam" && f.peakDeg !== null && intended[intended.length - 1] !== null) {
+      deviation = f.peakDeg - intended[intended.length - 1]!;
+      if (deviation > 180) deviation -= 360;
+      if (deviation < -180) deviation += 360;
+    }
+    out.push({
+      name: spec.name, available: true, reason: null,
+      scatteringWidthM: sx.value,
+      uncertainty: unc,
+      converged: unc === null ? null : unc <= accuracy,
+      vsBare: vx ? vx.value : null,
+      absorptionWidthM: f.abs,
+      powerBalance: f.ext !== null && f.sigma > 0 ? (f.ext - f.sigma - f.abs) / f.sigma : null,
+      fieldErrorVsIdeal: ideal && spec.name !== "ideal" && spec.name !== "bare" ? relativeDifference(f.sol.totalRe, f.sol.totalIm, ideal.sol.totalRe, ideal.sol.totalIm, obs) : null,
+      deliveredPower: dx ? Math.min(1, Math.max(0, dx.value)) : null,
+      deviationDeg: deviation,
+      bistaticM: input.pattern && ill.kind === "plane" ? f.pattern : null,
+      ladder,
+      magnitude: mag,
+    });
+  }
+  return out;
+}
+
+/** Nodes outside the PML and at least two steps outside the device box (where a user would observe). */
+function outsideMask(g: FdfdGrid, box: { minX: number; maxX: number; minY: number; maxY: number }): Uint8Array {
+  const m = new Uint8Array(g.nx * g.ny);
+  const pad = 2 * g.h;
+  for (let j = 0; j < g.ny; j++) {
+    for (let i = 0; i < g.nx; i++) {
+      if (inPml(g, i, j)) continue;
+      const x = g.x0 + i * g.h, y = g.y0 + j * g.h;
+      if (x > box.minX - pad && x < box.maxX + pad && y > box.minY - pad && y < box.maxY + pad) continue;
+      m[i + g.nx * j] = 1;
+    }
+  }
+  return m;
 }

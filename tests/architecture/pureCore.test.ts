@@ -1,5 +1,5 @@
 /**
- * The functional core (core, field, reduce, media, cells, plan, verify) must not touch the world:
+ * The functional core (core, field, reduce, media, cells, plan, verify, numerics) must not touch the world:
  * no file system, process, console, clock, ink or react. Only io/, cli/ and tui/ may.
  */
 import { describe, it, expect } from "vitest";
@@ -7,7 +7,7 @@ import { readdirSync, readFileSync, statSync } from "node:fs";
 import { join } from "node:path";
 
 const ROOT = join(import.meta.dirname, "..", "..", "src");
-const PURE = ["core", "field", "reduce", "media", "cells", "plan", "verify"];
+const PURE = ["core", "field", "reduce", "media", "cells", "plan", "verify", "numerics"];
 
 function files(dir: string): string[] {
   let out: string[] = [];

@@ -2,7 +2,7 @@ import { describe, it, expect } from "vitest";
 import { mkdtemp, readFile, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
-import { runCli, EXIT_INPUT, EXIT_OK } from "../../src/cli/run.js";
+import { runCli, EXIT_INPUT, EXIT_OK, EXIT_NOT_BUILDABLE } from "../../src/cli/run.js";
 import { bufferIo } from "../../src/cli/cliIo.js";
 
 const DEMO = "tests/plan/golden/small-bend.json";
@@ -53,8 +53,11 @@ describe("cellwright plan", () => {
     const session = join(dir, "session.json");
     await writeFile(session, JSON.stringify({ cellwrightSession: 1, design: resolve(DEMO), overrides: { levels: 3 } }));
     const io = bufferIo();
-    expect(await runCli(["plan", "--session", session, "--out", join(dir, "out"), "--json"], io)).toBe(EXIT_OK);
-    expect(JSON.parse(io.out()).levels).toBeLessThanOrEqual(3);
+    const code = await runCli(["plan", "--session", session, "--out", join(dir, "out"), "--json"], io);
+    const summary = JSON.parse(io.out());
+    expect(summary.levels).toBeLessThanOrEqual(3);
+    // three levels cannot hold the demo's 5 % tolerance: the verdict says so and the exit code follows
+    expect(code).toBe(summary.verdict.buildable ? EXIT_OK : EXIT_NOT_BUILDABLE);
   }, 30_000);
 
   it("rejects a bad tolerance and a missing design", async () => {

@@ -38,6 +38,18 @@ describe.each(DEMOS)("plan %s", (demo) => {
     expect(rows.length).toBe(field.grid.count);
     expect(summary.cells).toBe(field.grid.count);
     expect(code === EXIT_OK).toBe(summary.buildable);
+    // the verdict matches the figures it rests on
+    const missed = new Map<string, { value: number; limit: number }>(summary.verdict.missed.map((m: { what: string; value: number; limit: number }) => [m.what, m]));
+    expect(summary.verdict.buildable).toBe(summary.buildable);
+    expect(summary.verdict.buildable).toBe(missed.size === 0);
+    expect(missed.has("recipes")).toBe((summary.flags.norecipe ?? 0) > 0);
+    const tolerance = design.realization?.tolerance ?? 0.05;
+    expect(missed.has("tolerance")).toBe((summary.maxRelError ?? 0) > tolerance);
+    const budget = design.realization?.lossBudgetDb;
+    expect(missed.has("loss")).toBe(budget !== undefined && summary.lossDb > budget);
+    const bw = design.realization?.bandwidth;
+    expect(missed.has("bandwidth")).toBe(bw !== undefined && summary.minBandwidth !== null && summary.minBandwidth < bw);
+    for (const [, m] of missed) expect(Number.isFinite(m.value) && Number.isFinite(m.limit)).toBe(true);
     const tol = design.realization?.tolerance ?? 0.05;
     const targets = Object.keys(rows[0]).filter((k) => k.startsWith("target_"));
     const levels = new Set<string>();
@@ -66,6 +78,51 @@ describe.each(DEMOS)("plan %s", (demo) => {
     const svg = await readFile(join(out, "maps.svg"), "utf8");
     expect(svg.startsWith("<svg")).toBe(true);
     expect(svg).toContain("level map");
+  }, 60_000);
+});
+
+describe("verdicts of the demos", () => {
+  it("the mast cloak exits 2 naming its missed tolerance, loss budget and bandwidth", async () => {
+    const out = await mkdtemp(join(tmpdir(), "cw-e2e-"));
+    const io = bufferIo();
+    const code = await runCli(["plan", "demo-designs/plan-microwave-mast-cloak.json", "--out", out, "--json"], io);
+    expect(code).toBe(EXIT_NOT_BUILDABLE);
+    const v = JSON.parse(io.out()).verdict;
+    expect(v.buildable).toBe(false);
+    const what = v.missed.map((m: { what: string }) => m.what);
+    for (const w of ["tolerance", "loss", "bandwidth"]) expect(what).toContain(w);
+    const byName = Object.fromEntries(v.missed.map((m: { what: string; value: number; limit: number }) => [m.what, m]));
+    // the design's own limits (demo-designs/plan-microwave-mast-cloak.json)
+    expect(byName.tolerance.limit).toBe(0.05);
+    expect(byName.loss.limit).toBe(3);
+    expect(byName.bandwidth.limit).toBe(0.02);
+    expect(byName.tolerance.value).toBeGreaterThan(0.05);
+    const report = await readFile(join(out, "report.md"), "utf8");
+    expect(report.indexOf("## Verdict")).toBeLessThan(report.indexOf("## Design"));
+    expect(report).toContain("Not buildable as asked");
+  }, 60_000);
+
+  it("the demo npm start plans meets its own requirements and exits 0", async () => {
+    const out = await mkdtemp(join(tmpdir(), "cw-e2e-"));
+    const io = bufferIo();
+    const code = await runCli(["start", "--batch", "--out", out, "--json"], io);
+    expect(code, io.err()).toBe(EXIT_OK);
+    const s = JSON.parse(io.out());
+    expect(s.verdict).toEqual({ buildable: true, missed: [] });
+    expect(s.maxRelError).toBeLessThanOrEqual(s.tolerance);
+  }, 60_000);
+});
+
+describe("the imported-field demo", () => {
+  it("builds ε = μ = 1 cells as empty (solid vacuum) cells instead of refusing them", async () => {
+    const out = await mkdtemp(join(tmpdir(), "cw-e2e-"));
+    const io = bufferIo();
+    const code = await runCli(["plan", "demo-designs/field-imported.json", "--out", out, "--json"], io);
+    const rows: Record<string, string>[] = parse(await readFile(join(out, "build-list.csv"), "utf8"), { columns: true });
+    const solid = rows.filter((r) => r.family === "solid");
+    expect(solid.length).toBeGreaterThan(0);
+    for (const r of rows.filter((x) => x.family === "")) expect(r.flags).toContain("norecipe");
+    expect(code).toBe(rows.every((r) => r.family !== "") ? EXIT_OK : EXIT_NOT_BUILDABLE);
   }, 60_000);
 });
 

@@ -1,3 +1,4 @@
+import { expectClose } from "../helpers/close.js";
 import { describe, it, expect, beforeAll } from "vitest";
 import { loadMaterialCatalog } from "../../src/io/materialCatalog.js";
 import { loadProcessCatalog } from "../../src/io/processCatalog.js";
@@ -50,7 +51,13 @@ describe("recipe choice", () => {
     const c = ctx({ materialIds: ["ptfe", "hdpe", "alumina-96"], familyIds: ["laminate"] });
     const a = levelCandidates([2.2, 1, 1], c).candidates;
     const b = levelCandidates([6, 1, 1], c).candidates;
-    for (const x of [...a, ...b]) expect(x.relError).toBeLessThan(1e-9);
+    // the real parts are exact; the error left is the loss (complex error: |Im ε|/ε_target)
+    for (const [t, list] of [[2.2, a], [6, b]] as const) {
+      for (const x of list) {
+        expect(Math.abs(x.achieved[0] - t) / t).toBeLessThan(1e-9);
+        expectClose(x.relError, Math.abs(x.achievedIm[0]) / t, { rel: 1e-9, abs: 1e-15, label: `${x.host}/${x.inclusion}` });
+      }
+    }
     // without the material count, level A would take the lower-loss PTFE/HDPE pair (3 materials)
     const aBest = [...a].sort((x, y) => baseScore(x, 0.05) - baseScore(y, 0.05))[0];
     expect([aBest.host, aBest.inclusion].sort()).toEqual(["hdpe", "ptfe"]);
@@ -109,5 +116,23 @@ describe("recipe choice", () => {
   it("uses resonant families only where needed", () => {
     const c = ctx({ materialIds: ["ptfe", "copper"], familyIds: ["wire-medium", "split-ring"], lattice: null });
     expect(levelCandidates([1.5, 1, 1], c).candidates.length).toBe(0);
+  });
+});
+
+describe("plain (solid) recipes", () => {
+  it("a target equal to an allowed material, or to empty space, is a solid cell of it", () => {
+    // PTFE's catalog ε' at 10 GHz (a constant-with-tan δ row) asked for exactly: solid PTFE
+    const c = ctx({ materialIds: ["ptfe", "alumina-96"], familyIds: ["rods-in-host"] });
+    const ptfe = c.materials.find((m) => m.material.id === "ptfe")!;
+    const s = levelCandidates([ptfe.eps.re, 1, 1], c).candidates.filter((r) => r.family === "solid");
+    expect(s.map((r) => r.host)).toEqual(["ptfe"]);
+    // its error is its loss alone: |ε' + iε'' − ε'|/ε' = tan δ (identity)
+    expectClose(s[0].relError, ptfe.eps.im / ptfe.eps.re, { rel: 1e-12, label: "solid PTFE error" });
+    // ε = μ = 1: an empty cell, even when air is not among the allowed materials
+    const empty = levelCandidates([1, 1, 1], c).candidates.filter((r) => r.family === "solid");
+    expect(empty.map((r) => r.host)).toEqual(["vacuum"]);
+    expect(empty[0].relError).toBe(0);
+    // a target between the two materials is no solid recipe
+    expect(levelCandidates([4, 1, 1], c).candidates.some((r) => r.family === "solid")).toBe(false);
   });
 });

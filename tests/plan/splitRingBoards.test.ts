@@ -38,20 +38,28 @@ describe("split rings on boards in air (mast cloak demo)", () => {
     await runCli(["plan", DEMO, "--out", out, "--json"], io);
     const levels: Record<string, string>[] = parse(await readFile(join(out, "levels.csv"), "utf8"), { columns: true });
     // levels.csv carries 6 significant digits, hence rel 1e-5 below
+    // rings near resonance (the innermost, μ_r ≪ 1) lose more than they give: their complex error
+    // |μ − μ_t|/|μ_t| passes 4× the tolerance and the level has no recipe, with the miss named
     const ringLevels = levels.filter((l) => l.family === "split-ring");
-    expect(ringLevels.length).toBe(levels.length);
+    expect(ringLevels.length).toBeGreaterThan(0);
+    for (const l of levels.filter((x) => x.family === "")) {
+      expect(l.flags).toContain("norecipe");
+      expect(l.reasons.length, `level ${l.level}`).toBeGreaterThan(0);
+    }
     for (const l of ringLevels) {
       expectClose(Number(l.target_eps_z), epsZ, { rel: 1e-5, label: `level ${l.level} target ε_z` });
       expectClose(Number(l.achieved_eps_z), epsZ, { rel: 1e-5, label: `level ${l.level} achieved ε_z` });
-      expectClose(Number(l.board_thickness_m), (pitchM * (epsZ - epsAir)) / (epsBoard - epsAir), { rel: 1e-5, label: `level ${l.level} board` });
-      // μ_r from the rings within the plan's tolerance (relative, floor 0.01)
+      expectClose(Number(l.board_thickness_mm) / 1000, (pitchM * (epsZ - epsAir)) / (epsBoard - epsAir), { rel: 1e-5, label: `level ${l.level} board` });
+      // μ_r from the rings: the real part within the plan's tolerance, the complex error (loss
+      // included) within the 4× the tolerance a kept recipe may miss by
       const t = Number(l.target_mu_1), got = Number(l.achieved_mu_1);
-      expect(Math.abs(got - t) / Math.max(Math.abs(t), 0.01), `level ${l.level} μ_1`).toBeLessThanOrEqual(demo.realization.tolerance);
+      expect(Math.abs(got - t) / Math.abs(t), `level ${l.level} μ_1`).toBeLessThanOrEqual(demo.realization.tolerance);
+      expect(Number(l.rel_error)).toBeLessThanOrEqual(4 * demo.realization.tolerance);
       expect(Number(l.achieved_mu_2)).toBe(1);
       // the ring axis lies along the magnetic component: μ_1, the smaller in-plane principal value (μ_r)
       expect(l.orientation).toBe("along_1");
       // the process limit (PCB etching, 0.1 mm) is respected by every printed size
-      for (const k of ["ring_width_m", "ring_gap_m", "board_thickness_m"]) expect(Number(l[k]), k).toBeGreaterThanOrEqual(0.1e-3 * (1 - 1e-9));
+      for (const k of ["ring_width_mm", "ring_gap_mm", "board_thickness_mm"]) expect(Number(l[k]), k).toBeGreaterThanOrEqual(0.1 * (1 - 1e-9));
       expect(Number(l.bandwidth)).toBeGreaterThan(0);
     }
   });

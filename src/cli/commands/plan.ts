@@ -62,13 +62,15 @@ export function humanSummary(plan: Plan, outputs: string[]): string {
   const s = planSummary(plan, outputs);
   const flagged = Object.entries(s.flags).filter(([, n]) => n > 0).map(([k, n]) => `${k} ${n}`).join(", ");
   const pct = (x: number | null): string => (x === null ? "—" : `${Number((x * 100).toPrecision(3))} %`);
+  const v = plan.verdict;
   const lines = [
+    v.buildable ? `BUILDABLE: every cell has a recipe and every stated requirement is met` : `NOT BUILDABLE AS ASKED: ${v.missed.length} requirement${v.missed.length === 1 ? "" : "s"} missed`,
+    ...v.missed.map((m) => `  missed ${m.what}: ${m.text}`),
     `${s.design}`,
     `  ${s.cells} cells, ${s.levels} levels, ${s.regions} regions (${s.polarization}, ${s.scheme}, tolerance ${pct(s.tolerance)})`,
     `  error${(s.flags.norecipe ?? 0) > 0 ? " (cells with a recipe)" : ""}: largest ${pct(s.maxRelError)}, median ${pct(s.medianRelError)}; loss ${Number(s.lossDb.toPrecision(3))} dB; boundary reflection ${pct(s.boundaryReflection)}`,
     `  flags: ${flagged || "none"}`,
     `  materials: ${s.materials.join(", ") || "none"}`,
-    s.buildable ? "  every cell has a recipe" : `  NOT BUILDABLE AS ASKED: ${s.flags.norecipe} cells have no recipe (see report.md)`,
     "outputs:",
     ...outputs.map((p) => `  ${p}`),
   ];

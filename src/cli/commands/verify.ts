@@ -1,8 +1,8 @@
 /**
- * `cellwright verify <design.json>`: the 2D full-wave check — the ideal (scheme `full`), reduced
- * (chosen scheme) and realized (the plan's achieved per-cell values) material maps simulated under a
- * plane wave along +x with the FDFD solver of src/verify; prints scattering widths and field errors,
- * and with --out writes an SVG of |field| for the cases.
+ * `cellwright verify <design.json>`: the 2D full-wave check — the bare hidden object, the ideal
+ * (scheme full), reduced (chosen scheme) and realized (the plan's levels as built) devices solved
+ * with the FDFD solver of src/verify on a ladder of grids, each figure extrapolated with an
+ * uncertainty; plane wave at any angle or a Gaussian beam; with --out an SVG of |field|.
  */
 import { isVolumeDevice } from "../../field/isVolumeDevice.js";
 import { resolve } from "node:path";
@@ -14,12 +14,13 @@ import { loadMaterialCatalog } from "../../io/materialCatalog.js";
 import { loadProcessCatalog } from "../../io/processCatalog.js";
 import { parseQuantity } from "../../io/quantity.js";
 import { planFromField } from "../../plan/runPlan.js";
+import { resolveSettings } from "../../plan/resolveSettings.js";
 import { reduceField } from "../../reduce/reduceField.js";
-import type { HiddenDisk } from "../../verify/deviceScene.js";
+import { deviceCases } from "../../verify/deviceCases.js";
 import { fieldSvg } from "../../verify/fieldSvg.js";
 import { formatFrequency, formatLength } from "../../verify/formatQuantity.js";
-import { mapFromPlan, mapFromReduced } from "../../verify/materialMap.js";
-import { DEFAULT_RESOLUTION, verifyDevice, type VerifyResult } from "../../verify/verifyDevice.js";
+import type { Illumination } from "../../verify/illumination.js";
+import { DEFAULT_ACCURACY, verifyDevice, type VerifyResult } from "../../verify/verifyDevice.js";
 import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
@@ -28,31 +29,41 @@ import { optionOverrides } from "./plan.js";
 
 export const VERIFY_SVG = "verify-fields.svg";
 
-const jn = (v: number | null): number | null => (v !== null && Number.isFinite(v) ? v : null);
+const jn = (v: number | null | undefined): number | null => (v !== null && v !== undefined && Number.isFinite(v) ? v : null);
 
 /** The machine-readable summary printed by --json. */
 export function verifySummary(design: string, scheme: string, r: VerifyResult, outputs: string[]): Record<string, unknown> {
   return {
     design,
+    method: r.method,
     polarization: r.polarization,
     scheme,
     frequencyHz: r.frequencyHz,
+    illumination: r.illumination.kind === "plane"
+      ? { kind: "plane", angleDeg: (r.illumination.angleRad * 180) / Math.PI }
+      : { kind: "beam", angleDeg: (r.illumination.angleRad * 180) / Math.PI, waistM: r.illumination.waistM, focusM: r.illumination.focusM },
+    accuracy: r.accuracy,
+    resolutions: r.resolutions,
     grid: { nx: r.grid.nx, ny: r.grid.ny, stepM: r.grid.h, pmlNodes: r.grid.pml },
-    resolution: r.resolution,
     densestIndex: r.densestIndex,
     backgroundIndex: r.backgroundIndex,
     marginM: r.marginM,
-    deviceWidthM: r.deviceWidthM,
-    observationNodes: r.observationNodes,
+    converged: r.cases.every((c) => !c.available || c.converged !== false),
     cases: r.cases.map((c) => ({
       name: c.name,
+      available: c.available,
+      reason: c.reason,
       scatteringWidthM: jn(c.scatteringWidthM),
-      scatteringPerWidth: jn(c.scatteringPerWidth),
+      uncertainty: jn(c.uncertainty),
+      converged: c.converged,
       vsBare: jn(c.vsBare),
       absorptionWidthM: jn(c.absorptionWidthM),
+      powerBalance: jn(c.powerBalance),
       fieldErrorVsIdeal: jn(c.fieldErrorVsIdeal),
-      scatteredFieldRelative: jn(c.scatteredFieldRelative),
-      missingCells: c.missingCells,
+      deliveredPower: jn(c.deliveredPower),
+      deviationDeg: jn(c.deviationDeg),
+      ladder: c.ladder.map((p) => ({ resolution: p.resolution, stepM: p.stepM, scatteringWidthM: jn(p.scatteringWidthM), vsBare: jn(p.vsBare), deliveredPower: jn(p.deliveredPower) })),
+      ...(c.bistaticM ? { bistaticM: Array.from(c.bistaticM, (v) => jn(v) ?? 0) } : {}),
     })),
     notes: r.notes,
     outputs,
@@ -62,37 +73,60 @@ export function verifySummary(design: string, scheme: string, r: VerifyResult, o
 /** The human table. */
 export function verifyTable(design: string, scheme: string, r: VerifyResult): string {
   const f = (v: number | null, d = 3): string => (v === null || !Number.isFinite(v) ? "—" : Number(v.toPrecision(d)).toString());
-  const pct = (v: number | null): string => (v === null || !Number.isFinite(v) ? "—" : `${Number((v * 100).toPrecision(3))} %`);
-  const hasBare = r.cases.some((c) => c.name === "bare");
-  const head = ["case", "σ/width", ...(hasBare ? ["σ/σ_bare"] : []), "|u_s|/|u_inc|", "field vs ideal"];
-  const rows = r.cases.map((c) => [c.name, f(c.scatteringPerWidth), ...(hasBare ? [f(c.vsBare)] : []), pct(c.scatteredFieldRelative), pct(c.fieldErrorVsIdeal)]);
-  const widths = head.map((h, k) => Math.max(h.length, ...rows.map((row) => row[k].length)));
-  const line = (cells: string[]): string => "  " + cells.map((c, k) => (k === 0 ? c.padEnd(widths[k]) : c.padStart(widths[k]))).join("  ");
+  const pct = (v: number | null): string => (v === null || !Number.isFinite(v) ? "—" : `${Number((v * 100).toPrecision(2))} %`);
+  const hasBare = r.cases.some((c) => c.name === "bare" && c.available);
+  const beam = r.illumination.kind === "beam";
+  const head = ["case", beam ? "σ_s (beam)" : "σ_s", ...(hasBare ? ["σ/σ_bare"] : []), ...(beam ? ["delivered", "deviation"] : []), "±", "field vs ideal", ""];
+  const rows = r.cases.map((c) => c.available
+    ? [c.name, formatLength(c.scatteringWidthM ?? 0), ...(hasBare ? [f(c.vsBare)] : []), ...(beam ? [pct(c.deliveredPower), c.deviationDeg === null ? "—" : `${c.deviationDeg.toFixed(1)}°`] : []), pct(c.uncertainty), pct(c.fieldErrorVsIdeal), c.converged === false ? "not converged" : ""]
+    : [c.name, "—", ...(hasBare ? ["—"] : []), ...(beam ? ["—", "—"] : []), "", "", `not computed: ${c.reason}`]);
+  const widths = head.map((h, k) => Math.max(h.length, ...rows.map((row) => (k === head.length - 1 ? 0 : row[k].length))));
+  const line = (cells: string[]): string => ("  " + cells.map((c, k) => (k === 0 ? c.padEnd(widths[k]) : k === cells.length - 1 ? c : c.padStart(widths[k]))).join("  ")).trimEnd();
+  const ill = r.illumination.kind === "plane"
+    ? `plane wave at ${f((r.illumination.angleRad * 180) / Math.PI)}° from +x`
+    : `Gaussian beam at ${f((r.illumination.angleRad * 180) / Math.PI)}°, waist ${formatLength(r.illumination.waistM)}`;
+  const ladder = r.resolutions.length > 1 ? `ladder ${r.resolutions.join(", ")} points per wavelength, extrapolated (accuracy ${pct(r.accuracy)})` : `one grid at ${r.resolutions[0]} points per wavelength`;
   return [
     design,
-    `  ${r.polarization}, scheme ${scheme}, ${formatFrequency(r.frequencyHz)}; grid ${r.grid.nx} × ${r.grid.ny} nodes, step ${formatLength(r.grid.h)} (${r.resolution} points per wavelength at index ${Number(r.densestIndex.toPrecision(3))})`,
+    `  ${r.polarization}, scheme ${scheme}, ${formatFrequency(r.frequencyHz)}, ${ill}; ${r.method.toUpperCase()}, ${ladder}; finest grid ${r.grid.nx} × ${r.grid.ny} nodes, step ${formatLength(r.grid.h)} (densest index ${Number(r.densestIndex.toPrecision(3))})`,
     line(head),
     ...rows.map(line),
-    `  σ: scattering width; width = device extent across the beam (${formatLength(r.deviceWidthM)})`,
+    `  σ_s: scattering width (scattered power / incident intensity), extrapolated to zero grid step; ±: its relative uncertainty${hasBare ? " (against the bare object's σ when that is larger)" : ""}`,
+    ...(beam ? ["  delivered: share of the outgoing power inside the ideal device's output lobe; deviation: output direction minus the ideal's"] : []),
+    "  field vs ideal: relative difference of the total field from the ideal device's, outside the device's box",
     ...r.notes.map((n) => `  note: ${n}`),
   ].join("\n") + "\n";
 }
 
+/** "2%" or "0.02" → 0.02. */
+function parseFraction(text: string, where: string): number {
+  const t = text.trim();
+  const v = t.endsWith("%") ? Number(t.slice(0, -1)) / 100 : Number(t);
+  if (!(v > 0 && v < 1)) throw new InputError({ where, message: `expected a fraction such as 2% or 0.02, got '${text}'` });
+  return v;
+}
+
 export const command: Command = {
   name: "verify",
-  summary: "2D full-wave check: ideal vs reduced vs realized material maps under a plane wave",
-  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--resolution N] [--margin L] [--json] [--out DIR]",
+  summary: "2D full-wave check: bare, ideal, reduced and realized devices, converged figures with uncertainties",
+  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--margin L] [--method fdfd] [--json] [--out DIR]",
   details: [
-    "Simulates the device three times with a frequency-domain finite-difference solver (plane wave",
-    "along +x, PML on all sides): ideal (scheme full), reduced (the chosen scheme) and realized (the",
-    "plan's achieved per-cell values). A cloak's hidden region is a perfect conductor, and the bare",
-    "conductor is simulated too. Prints scattering widths and field differences outside the device.",
+    "Solves each case with a frequency-domain finite-difference solver (PML on all sides): the bare",
+    "hidden object of a cloak (a perfect conductor), the ideal device (scheme full) and the reduced one",
+    "(the chosen scheme), both sampled from the continuous map at the solver's own points, and the",
+    "realized device (the plan's levels as built, with their loss) when the design has a realization.",
+    "By default a ladder of grids is solved and every figure is extrapolated with an uncertainty;",
+    "figures whose uncertainty exceeds --accuracy are marked 'not converged' (exit code 2).",
   ].join("\n"),
   options: [
     { name: "polarization", type: "string", valueName: "Ez|Hz", description: "polarization the device serves (overrides the design)" },
     { name: "scheme", type: "string", valueName: "NAME", description: "reduction scheme: full, unit-mu, non-magnetic, isotropic, matched" },
-    { name: "resolution", type: "string", valueName: "N", description: `grid points per wavelength in the densest material (default ${DEFAULT_RESOLUTION}, 10–60)` },
+    { name: "accuracy", type: "string", valueName: "P", description: `relative accuracy the grid ladder aims at (default ${DEFAULT_ACCURACY * 100}%)` },
+    { name: "resolution", type: "string", valueName: "N", description: "one grid at N points per wavelength in the densest material (no ladder, no uncertainty)" },
+    { name: "angle", type: "string", valueName: "DEG", description: "direction of the incident wave, degrees from +x (default 0)" },
+    { name: "beam", type: "string", valueName: "W[, D]", description: "Gaussian beam of waist W, its axis offset by D across the beam from the device centre" },
     { name: "margin", type: "string", valueName: "L", description: "free space around the device, e.g. '20 mm' (default half a wavelength)" },
+    { name: "method", type: "string", valueName: "fdfd", description: "solver: fdfd (finite differences on a grid)" },
     { name: "json", type: "boolean", description: "print the summary as one JSON object on stdout" },
     { name: "out", type: "string", valueName: "DIR", description: `write ${VERIFY_SVG} (|field| of each case) into DIR` },
   ],
@@ -104,57 +138,82 @@ export const command: Command = {
     const resText = stringOption(args, "resolution");
     const resolution = resText === undefined ? undefined : Number(resText);
     if (resolution !== undefined && !Number.isFinite(resolution)) throw new InputError({ where: "--resolution", message: `expected a number of points per wavelength, got '${resText}'` });
+    const accText = stringOption(args, "accuracy");
+    if (accText !== undefined && resolution !== undefined) throw new InputError({ where: "--accuracy", message: "give either --accuracy (a ladder of grids) or --resolution (one grid), not both" });
+    const accuracy = accText === undefined ? undefined : parseFraction(accText, "--accuracy");
+    const method = stringOption(args, "method") ?? "fdfd";
+    if (method !== "fdfd") throw new InputError({ where: "--method", message: `expected fdfd, got '${method}'` });
+    const angleText = stringOption(args, "angle");
+    const angleDeg = angleText === undefined ? 0 : Number(angleText);
+    if (!Number.isFinite(angleDeg)) throw new InputError({ where: "--angle", message: `expected an angle in degrees, got '${angleText}'` });
     const marginText = stringOption(args, "margin");
     const marginM = marginText === undefined ? undefined : await parseQuantity(marginText, "length", "--margin");
+    const beamText = stringOption(args, "beam");
+    let beam: { waistM: number; offsetM: number } | null = null;
+    if (beamText !== undefined) {
+      const parts = beamText.split(",").map((p) => p.trim());
+      if (parts.length > 2 || parts[0] === "") throw new InputError({ where: "--beam", message: `expected 'WAIST' or 'WAIST, OFFSET' (e.g. '40 mm, 5 mm'), got '${beamText}'` });
+      const waistM = await parseQuantity(parts[0], "length", "--beam");
+      const offsetM = parts[1] !== undefined ? await parseQuantity(parts[1], "length", "--beam") : 0;
+      if (!(waistM > 0)) throw new InputError({ where: "--beam", message: `expected a positive waist, got '${parts[0]}'` });
+      beam = { waistM, offsetM };
+    }
     const design = await loadDesign(designPath, io.cwd);
     const field = await loadFieldForDesign(design);
-    const is3d = isVolumeDevice(field);
-    if (is3d) throw new InputError({ where: `${design.sourcePath}: $.transform`, message: "the full-wave check is two-dimensional (devices invariant along z); a 3D design cannot be verified" });
+    if (isVolumeDevice(field)) throw new InputError({ where: `${design.sourcePath}: $.transform`, message: "the full-wave check is two-dimensional (devices invariant along z); a 3D design cannot be verified" });
     const progress = (text: string): void => io.stderr(`… ${text}\n`);
-    progress("plan (for the realized map)");
-    const [materials, processes] = await Promise.all([loadMaterialCatalog(), loadProcessCatalog()]);
-    const plan = planFromField(design, field, { materials, processes }, overrides);
-    const s = plan.settings;
+    const s = resolveSettings(design, overrides);
+    let plan = null;
+    if (design.realization !== undefined) {
+      progress("plan (for the realized map)");
+      const [materials, processes] = await Promise.all([loadMaterialCatalog(), loadProcessCatalog()]);
+      plan = planFromField(design, field, { materials, processes }, overrides);
+    }
     const backgroundIndex = s.backgroundIndex === 1 && !design.reduction?.backgroundIndex ? undefined : s.backgroundIndex;
     const ideal = reduceField(field, { polarization: s.polarization, scheme: "full", backgroundIndex });
     const reduced = reduceField(field, { polarization: s.polarization, scheme: s.scheme, unitAxis: s.unitAxis, backgroundIndex });
     const n = reduced.settings.backgroundIndex, z = reduced.settings.backgroundImpedance;
     const background = { eps: n / z, mu: n * z };
-    const bg = s.polarization === "Ez" ? { b: background.eps, t: background.mu } : { b: background.mu, t: background.eps };
-    let hidden: HiddenDisk | null = null;
-    if (design.transform.kind === "radial-cloak") hidden = { centerM: design.transform.center ?? [0, 0], radiusM: design.transform.innerRadiusM };
+    const built = deviceCases({ transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid, ideal, reduced, plan });
+    const angleRad = (angleDeg * Math.PI) / 180;
+    let illumination: Illumination = { kind: "plane", angleRad };
+    if (beam) {
+      const b = built.deviceBox, cx = (b.minX + b.maxX) / 2, cy = (b.minY + b.maxY) / 2;
+      // focus on the device centre's line, shifted across the beam by the offset
+      illumination = { kind: "beam", angleRad, waistM: beam.waistM, focusM: [cx - beam.offsetM * Math.sin(angleRad), cy + beam.offsetM * Math.cos(angleRad)] };
+    }
     let last = "";
     const result = verifyDevice({
-      grid: field.grid,
       polarization: s.polarization,
       background,
       frequencyHz: design.frequencyHz,
-      cases: [
-        { name: "ideal", map: mapFromReduced(ideal, bg) },
-        { name: "reduced", map: mapFromReduced(reduced, bg) },
-        { name: "realized", map: mapFromPlan(plan, bg) },
-      ],
-      hidden,
+      deviceBox: built.deviceBox,
+      cases: built.cases,
+      illumination,
       resolution,
+      accuracy,
       marginM,
+      pattern: built.radial,
       onProgress: (step, fraction) => {
-        const tag = `${step} ${Math.floor(fraction * 10) * 10} %`;
+        const tag = `${step} (${Math.floor(fraction * 10) * 10} % of all solves)`;
         if (tag !== last) { last = tag; progress(step === "metrics" ? "metrics" : `solve ${tag}`); }
       },
     });
+    result.notes.unshift(...built.notes);
     for (const note of result.notes) io.stderr(`note: ${note}\n`);
     const outputs: string[] = [];
     const outDir = stringOption(args, "out");
     if (outDir !== undefined) {
       const path = resolve(io.cwd, outDir, VERIFY_SVG);
-      const svg = fieldSvg(result.grid, result.cases.map((c) => ({ title: c.name, magnitude: c.magnitude })), result.deviceMask, {
-        title: `${design.name} — |${s.polarization === "Ez" ? "E_z" : "H_z"}|, ${s.polarization}, scheme ${s.scheme}`,
+      const panels = result.cases.filter((c) => c.magnitude !== null).map((c) => ({ title: c.name, magnitude: c.magnitude! }));
+      const svg = fieldSvg(result.grid, panels, result.deviceMask, {
+        title: `${design.name} — |${s.polarization === "Ez" ? "E_z" : "H_z"}|, ${s.polarization}, scheme ${s.scheme}, finest grid`,
       });
       await writeFileAtomic(path, svg);
       outputs.push(path);
     }
     if (json) io.stdout(`${JSON.stringify(verifySummary(design.name, s.scheme, result, outputs))}\n`);
     else io.stdout(verifyTable(design.name, s.scheme, result) + (outputs.length ? `outputs:\n${outputs.map((p) => `  ${p}`).join("\n")}\n` : ""));
-    return EXIT_OK;
+    return result.cases.some((c) => c.available && c.converged === false) ? 2 : EXIT_OK;
   },
 };

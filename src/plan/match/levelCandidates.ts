@@ -15,7 +15,8 @@ import { homogenizationCheck } from "../../cells/homogenization.js";
 import { designSplitRing, splitRingBandwidth } from "../../cells/splitRing.js";
 import { printedOuterRadiusM } from "../../cells/printedRing.js";
 import { bandwidthWithinTolerance, wireCutoffError } from "../../cells/wireMedium.js";
-import { relErr } from "../quantize/relativeError.js";
+import { largestErrors, relErr } from "../quantize/relativeError.js";
+import { solidCandidates } from "./solidCandidates.js";
 import type { Recipe } from "../planTypes.js";
 import { axisFor, orientationsFor, type Direction } from "./componentMapping.js";
 import type { EvaluatedMaterial, MatchContext } from "./matchContext.js";
@@ -62,6 +63,7 @@ export function levelCandidates(target: number[], ctx: MatchContext): LevelSearc
   // isFluid: liquids (a liquid is never the host)
   const dielectrics = ctx.materials.filter((m) => !m.isMetal);
   const metals = ctx.materials.filter((m) => m.isMetal);
+  search.candidates.push(...solidCandidates(target, ctx));
 
   for (const family of ctx.families) {
     const lattices = family.lattices.filter((l) => ctx.lattice === null || l === ctx.lattice);
@@ -182,8 +184,7 @@ function mixed(
     if (!r.inRange || !Number.isFinite(r.fill)) { lastReason = r.reason ?? "fill fraction out of range"; continue; }
     const ap = family.effectivePermittivity(host.eps, inc.eps, r.fill, lattice, context);
     const achieved = comps.map((c) => (c.kind === "eps" ? (axisFor(family, o, c.axis) === "parallel" ? ap.parallel : ap.perpendicular) : complex(1)));
-    let err = 0;
-    for (let c = 0; c < comps.length; c++) err = Math.max(err, relErr(achieved[c].re, target[c]));
+    const err = largestErrors(achieved.map((a) => a.re), achieved.map((a) => a.im), target).rel;
     if (!best || err < best.err) best = { fill: r.fill, achieved, err };
   }
   if (!best) { refuse(s, lastReason ? `fill out of the family's range (${family.id})` : "no fill fraction found"); return; }
@@ -238,6 +239,7 @@ function mixed(
     fillFraction: fill,
     dimensions: dimensionsToColumns(family.dimensionsFromFill(fill, ctx.pitchM, lattice)),
     achieved: achieved.map((a) => a.re),
+    achievedIm: achieved.map((a) => a.im),
     relError: err,
     lossTangent: eDom.re !== 0 ? Math.abs(eDom.im / eDom.re) : Infinity,
     indexIm: indexIm(eDom, mu),
@@ -302,8 +304,7 @@ function splitRing(
   const g = design.geometry;
   const r = design.response;
   const achievedC: Complex[] = comps.map((c, k) => (c.kind === "eps" ? cellEps : k === mk ? r.mu : complex(1)));
-  let err = 0;
-  for (let c = 0; c < comps.length; c++) err = Math.max(err, relErr(achievedC[c].re, target[c]));
+  const err = largestErrors(achievedC.map((x) => x.re), achievedC.map((x) => x.im), target).rel;
   const outerRadiusM = printedOuterRadiusM(g);
   const wall = Math.max(0, a - 2 * outerRadiusM);
   const featureM = Math.min(g.ringWidthM, boardThicknessM);
@@ -324,6 +325,7 @@ function splitRing(
     fillFraction: r.fill,
     dimensions: dimensionsToColumns(dims),
     achieved: achievedC.map((x) => x.re),
+    achievedIm: achievedC.map((x) => x.im),
     relError: err,
     lossTangent: Math.max(cellEps.re !== 0 ? Math.abs(cellEps.im / cellEps.re) : 0, r.mu.re !== 0 ? Math.abs(r.mu.im / r.mu.re) : Infinity),
     indexIm: indexIm(epsDom, r.mu),

@@ -30,4 +30,6 @@ export interface MatchContext {
   process: Process | null;
   /** required fractional bandwidth, or null */
   bandwidth: number | null;
+  /** index of the medium the device sits in (1: vacuum); a cell may be left as that medium */
+  backgroundIndex?: number;
 }

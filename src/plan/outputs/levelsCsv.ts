@@ -9,6 +9,7 @@ import type { Plan, Recipe } from "../planTypes.js";
 import { flagList } from "../flags.js";
 import { csvField, fmt } from "./csvText.js";
 import { dimensionColumns } from "./buildListRows.js";
+import { designUnit, unitColumn } from "./designUnit.js";
 
 export const RUNNERS_UP_SHOWN = 3;
 
@@ -22,13 +23,14 @@ export function recipeLabel(r: Recipe): string {
 /** The whole levels.csv text (small: one row per level). */
 export function levelsCsvText(plan: Plan): string {
   const dims = dimensionColumns(plan);
+  const unit = designUnit(plan.design.wavelengthM);
   const comps = plan.components.map((c) => c.name);
   const header = [
     "level", "cells", "regions",
     ...comps.map((c) => `target_${c}`),
     "max_quantization_error", "family", "host", "inclusion", "lattice", "orientation", "fill_fraction",
     ...comps.map((c) => `achieved_${c}`),
-    "rel_error", ...dims, "loss_tangent", "model_uncertainty", "bandwidth", "smallest_feature_m",
+    "rel_error", ...dims.map((d) => unitColumn(d, unit)), "loss_tangent", "model_uncertainty", "bandwidth", `smallest_feature_${unit.suffix}`,
     "flags", "reasons",
     ...Array.from({ length: RUNNERS_UP_SHOWN }, (_, k) => `runner_up_${k + 1}`),
   ];
@@ -44,12 +46,12 @@ export function levelsCsvText(plan: Plan): string {
       row.push(csvField(r.family), csvField(r.host), csvField(r.inclusion), r.lattice, orientationCode(r), fmt(r.fillFraction));
       row.push(...r.achieved.map((a) => fmt(a)));
       row.push(fmt(r.relError, 4));
-      for (const d of dims) row.push(d in r.dimensions ? fmt(r.dimensions[d]) : "");
-      row.push(fmt(r.lossTangent, 4), fmt(r.spread, 4), r.bandwidth === null ? "" : fmt(r.bandwidth, 4), fmt(r.featureM, 4));
+      for (const d of dims) row.push(d in r.dimensions ? fmt(r.dimensions[d] * unit.perM) : "");
+      row.push(fmt(r.lossTangent, 4), fmt(r.spread, 4), r.bandwidth === null ? "" : fmt(r.bandwidth, 4), fmt(r.featureM * unit.perM, 4));
     } else {
       row.push("", "", "", "", "", "", ...comps.map(() => ""), "", ...dims.map(() => ""), "", "", "", "");
     }
-    row.push(flagList(lv.flags), csvField(lv.reasons.join("; ")));
+    row.push([flagList(lv.flags), ...(lv.unresolvable ? ["unresolvable"] : [])].filter(Boolean).join(";"), csvField(lv.reasons.join("; ")));
     for (let k = 0; k < RUNNERS_UP_SHOWN; k++) row.push(lv.runnersUp[k] ? csvField(recipeLabel(lv.runnersUp[k])) : "");
     lines.push(row.join(","));
   }

@@ -19,6 +19,7 @@ export function planSummary(plan: Plan, outputs: string[]): PlanSummary {
     materials,
     outputs,
     buildable: plan.buildable,
+    verdict: { buildable: plan.verdict.buildable, missed: plan.verdict.missed.map(({ what, value, limit }) => ({ what, value, limit })) },
     polarization: plan.settings.polarization,
     scheme: plan.settings.scheme,
     tolerance: plan.settings.tolerance,

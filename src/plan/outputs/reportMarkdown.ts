@@ -50,10 +50,16 @@ export function reportMarkdown(plan: Plan): string {
   const L: string[] = [];
   L.push(`# Build plan: ${d.name}`, "");
   if (d.notes) L.push(d.notes, "");
-  if (!plan.buildable) {
-    const n = f.flagCounts.norecipe ?? 0;
-    L.push(`**Not buildable as asked:** ${n} of ${plan.grid.count} cells have no recipe. See the flags below for why and what would help.`, "");
+  L.push("## Verdict", "");
+  if (plan.verdict.buildable) {
+    L.push("**Buildable as asked:** every cell has a recipe and the plan meets every requirement the design states.", "");
+  } else {
+    L.push(`**Not buildable as asked:** ${plan.verdict.missed.length} requirement${plan.verdict.missed.length === 1 ? "" : "s"} missed.`, "");
+    L.push("| requirement | figure | limit | |", "|---|---:|---:|---|");
+    for (const m of plan.verdict.missed) L.push(`| ${m.what} | ${fmt(m.value, 4)} | ${fmt(m.limit, 4)} | ${m.text} |`);
+    L.push("");
   }
+  L.push(`Checked: recipes for every cell; tolerance ${pct(s.tolerance)} on the largest error (quantization and loss included); ${s.lossBudgetDb === null ? "no loss budget stated" : `loss budget ${fmt(s.lossBudgetDb, 3)} dB`}; ${s.bandwidth === null ? "no bandwidth stated" : `bandwidth ${pct(s.bandwidth)}`}; anisotropy limit ${fmt(s.maxAnisotropy, 3)}; ${s.process === null ? "no process stated" : `process ${s.process} (smallest feature, level steps)`}.`, "");
   L.push("## Design", "");
   L.push(`- source: \`${d.sourcePath}\`, transform: ${d.transform}`);
   L.push(`- design frequency ${si(d.frequencyHz, "Hz")} (free-space wavelength ${si(d.wavelengthM, "m")})`);
@@ -68,13 +74,14 @@ export function reportMarkdown(plan: Plan): string {
   L.push("## Levels", "");
   L.push(`${plan.levels.length} levels (${s.levels === null ? `as few as a ${pct(s.tolerance)} tolerance allows` : `at most ${s.levels}`}), quantized by ${plan.quantization.method}; largest quantization error ${pct(plan.quantization.maxError)}. ${plan.regions.length} connected regions.`, "");
   const comps = plan.components.map((c) => c.name);
-  L.push(`| level | cells | ${comps.join(" | ")} | recipe | error | flags |`);
-  L.push(`|---:|---:|${comps.map(() => "---:").join("|")}|---|---:|---|`);
+  L.push(`| level | cells | ${comps.join(" | ")} | recipe | recipe error | quantization error | loss tan δ | flags |`);
+  L.push(`|---:|---:|${comps.map(() => "---:").join("|")}|---|---:|---:|---:|---|`);
   for (const lv of plan.levels) {
     const r = lv.recipe;
-    const flags = FLAGS.filter((_, k) => lv.flags & (1 << k)).map((x) => x.name).join(", ");
-    L.push(`| ${lv.index} | ${lv.cellCount} | ${lv.target.map((t) => fmt(t, 4)).join(" | ")} | ${r ? recipeLabel(r) : `none: ${lv.reasons.slice(0, 2).join("; ")}`} | ${r ? pct(r.relError) : "—"} | ${flags || "—"} |`);
+    const flags = [...FLAGS.filter((_, k) => lv.flags & (1 << k)).map((x) => x.name), ...(lv.unresolvable ? ["unresolvable"] : [])].join(", ");
+    L.push(`| ${lv.index} | ${lv.cellCount} | ${lv.target.map((t) => fmt(t, 4)).join(" | ")} | ${r ? recipeLabel(r) : `none: ${lv.reasons.slice(0, 2).join("; ")}`} | ${r ? pct(r.relError) : "—"} | ${pct(lv.maxQuantizationError)} | ${r ? fmt(r.lossTangent, 3) : "—"} | ${flags || "—"} |`);
   }
+  L.push("", "Recipe error: the level's recipe against the level's target (complex, so its loss counts). Quantization error: the level's target against its cells' own targets, largest. A cell's error (build list `rel_error`) combines both.");
   L.push("", "Runners-up for each level are in levels.csv.");
   if (plan.levels.some((l) => l.recipe && l.recipe.orientation !== null)) {
     L.push("\"along z / 1 / 2\" is the direction of the rods, holes, wires or ring axis, or of a laminate's layer normal: z, or in-plane axis 2 (the larger target value, at the build list's axis_deg from +x) or axis 1 (perpendicular to it).");

@@ -25,3 +25,35 @@ export function minimaxCentre(lo: number, hi: number): number {
   const wh = Math.max(Math.abs(hi), REL_FLOOR);
   return (lo * wh + hi * wl) / (wl + wh);
 }
+
+/**
+ * The error figure of the build list and the verdict (`rel_error`): |a − t| / |t| with the achieved
+ * value complex (a = aRe + i·aIm, so its loss counts) and the target real, with NO floor. A target
+ * of exactly zero has no relative error: the function returns NaN and the caller reports the
+ * absolute error |a| in its own column (`zero_target_abs_error`).
+ *
+ * Example: complexRelError(1.02, 0.03, 1) → √(0.02² + 0.03²) = 0.0360555.
+ */
+export function complexRelError(aRe: number, aIm: number, target: number): number {
+  if (target === 0) return NaN;
+  return Math.hypot(aRe - target, aIm) / Math.abs(target);
+}
+
+/**
+ * Largest complex relative error over components (zero targets skipped) and the largest absolute
+ * error over the components whose target is exactly zero (NaN when there is none).
+ */
+export function largestErrors(aRe: ArrayLike<number>, aIm: ArrayLike<number>, target: ArrayLike<number>): { rel: number; zeroAbs: number } {
+  let rel = 0, zeroAbs = NaN;
+  for (let k = 0; k < target.length; k++) {
+    const t = target[k];
+    if (t === 0) {
+      const a = Math.hypot(aRe[k], aIm[k]);
+      if (!(a <= zeroAbs)) zeroAbs = a;
+      continue;
+    }
+    const e = Math.hypot(aRe[k] - t, aIm[k]) / Math.abs(t);
+    if (e > rel) rel = e;
+  }
+  return { rel, zeroAbs };
+}

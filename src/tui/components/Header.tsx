@@ -57,11 +57,15 @@ export function Header({ state, width }: { state: SessionState; width: number })
       <Text wrap="truncate-end" color={THEME.pick}>{settingsLine(state)}</Text>
       <Box>
         <Box flexGrow={1} flexShrink={0}>
-          {SCREENS.map((sc) => (
-            <Text key={sc.id} inverse={state.screen === sc.id} bold={state.screen === sc.id}>
-              {` ${sc.key} ${sc.title} `}
-            </Text>
-          ))}
+          {SCREENS.map((sc) => {
+            const here = state.screen === sc.id;
+            // the selected tab is bracketed as well as inverted, so it shows without colour
+            return (
+              <Text key={sc.id} inverse={here} bold={here}>
+                {here ? `[${sc.key} ${sc.title}]` : ` ${sc.key} ${sc.title} `}
+              </Text>
+            );
+          })}
         </Box>
         <ProgressLine state={state} width={width} />
       </Box>

@@ -56,6 +56,10 @@ export function PickerOverlay({ state, picker, width, height }: { state: Session
   const rows = Math.max(1, height - 3);
   const start = scrollStart(picker.cursor, items.length, rows);
   const single = picker.field === "process";
+  // id and name in columns of their own, each cut with an ellipsis when too long:
+  // "›[x] <id>  <name>"; the id column takes the longest id, at most 40 % of the line
+  const idWidth = Math.max(4, Math.min(Math.max(...items.map((x) => [...x.id].length)), Math.floor((width - 6) * 0.4)));
+  const labelWidth = Math.max(4, width - 6 - idWidth);
   const summary = single
     ? "↑/↓ move · Enter use it · a design's choice · Esc cancel"
     : `${picker.chosen === null ? "all allowed (design default)" : `${picker.chosen.length} of ${items.length} allowed`} · Space allow/forbid · a design's choice · Enter apply · Esc cancel`;
@@ -69,7 +73,7 @@ export function PickerOverlay({ state, picker, width, height }: { state: Session
         const mark = single ? (on ? "(•)" : "( )") : on ? "[x]" : "[ ]";
         return (
           <Text key={item.id || "none"} inverse={here} color={on ? undefined : THEME.dim} wrap="truncate-end">
-            {fit(`${mark} ${item.id ? fit(item.id, 22) : ""}${item.label}`, width)}
+            {`${here ? "›" : " "}${mark} ${fit(item.id, idWidth)} ${fit(item.label, labelWidth)}`}
           </Text>
         );
       })}

@@ -1,6 +1,7 @@
 /**
- * Flags screen: every flag that occurs, with the regions where it occurs (largest first). Enter
- * jumps to the map showing that flag, cursor on the region.
+ * Flags screen: every flag that occurs, with the regions where it occurs (largest first); the
+ * selected row is marked › (and inverted). Enter jumps to the map showing that flag, cursor on
+ * the region.
  */
 import { Box, Text } from "ink";
 import { flagRegionRows } from "../state/flagRegions.js";
@@ -31,7 +32,7 @@ export function FlagsScreen({ state, width, height }: { state: SessionState; wid
             : `  region ${fit(String(r.region), 5)}level ${fit(String(r.level), 4)}${fit(`${r.cells} cells`, 11)}${r.where}`;
         return (
           <Text key={`${r.flag}:${r.region ?? "all"}`} inverse={here} bold={r.region === null} color={r.region === null ? THEME.warn : undefined} wrap="truncate-end">
-            {fit(text, width)}
+            {fit(`${here ? "›" : " "}${text}`, width)}
           </Text>
         );
       })}

@@ -1,6 +1,7 @@
 /**
  * Levels screen: one row per level (cells, target, error of its recipe, number of runners-up,
- * recipe), and below, everything about the selected level including its runners-up.
+ * recipe), the selected one marked › (and inverted), and below, everything about the selected
+ * level including its runners-up.
  */
 import { Box, Text } from "ink";
 import { levelDetail, levelRows } from "../state/levelViews.js";
@@ -22,7 +23,7 @@ export function LevelsScreen({ state, width, height }: { state: SessionState; wi
   const listRows = levelListRows(height);
   const start = scrollStart(state.levelCursor, rows.length, listRows);
   const targetW = Math.max(12, Math.min(24, 7 * plan.components.length + 2));
-  const recipeW = Math.max(10, width - 4 - 6 - targetW - 10 - 4 - 1);
+  const recipeW = Math.max(10, width - 1 - 4 - 6 - targetW - 10 - 4 - 1);
   const detail = levelDetail(plan, state.levelCursor);
   // summary, column titles, list, pager line, blank line, detail: exactly `height` rows
   const detailRows = Math.max(1, height - listRows - 4);
@@ -35,13 +36,13 @@ export function LevelsScreen({ state, width, height }: { state: SessionState; wi
         {plan.buildable ? <Text color={THEME.ok}>  buildable</Text> : <Text color={THEME.warn}>  some levels have no recipe</Text>}
       </Text>
       <Text color={THEME.dim}>
-        {`${fit("lvl", 4)}${fit("cells", 6)}${fit(`target ${plan.components.map((c) => prettyComponent(c.name)).join(" ")}`, targetW)}${fit("error", 10)}${fit("alt", 4)}recipe`}
+        {` ${fit("lvl", 4)}${fit("cells", 6)}${fit(`target ${plan.components.map((c) => prettyComponent(c.name)).join(" ")}`, targetW)}${fit("error", 10)}${fit("alt", 4)}recipe`}
       </Text>
       {rows.slice(start, start + listRows).map((r, k) => {
         const here = start + k === state.levelCursor;
         return (
           <Text key={r.index} inverse={here} color={r.buildable ? undefined : THEME.warn}>
-            {`${fit(String(r.index), 4)}${fit(String(r.cells), 6)}${fit(r.target, targetW)}${fit(r.error, 10)}${fit(String(r.runnersUp), 4)}${fit(r.recipe, recipeW)}`}
+            {`${here ? "›" : " "}${fit(String(r.index), 4)}${fit(String(r.cells), 6)}${fit(r.target, targetW)}${fit(r.error, 10)}${fit(String(r.runnersUp), 4)}${fit(r.recipe, recipeW)}`}
           </Text>
         );
       })}

@@ -6,7 +6,9 @@
  * it is wide, so a two-character cell is roughly square; when the lattice does not fit, blocks of
  * lattice cells are merged into one map cell (downsampling), keeping the aspect ratio where the
  * space allows. Values are binned into a glyph ramp whose density grows with the value, so the map
- * and its legend read without colour too; colours repeat the same information.
+ * and its legend read without colour too; colours repeat the same information. A quantity that is
+ * constant over the device is one flat fill with one legend entry; the cursor is a glyph of its own
+ * (drawn inverted as well), so neither depends on colour.
  */
 import { formatValue } from "./formatValue.js";
 
@@ -17,11 +19,27 @@ export const VALUE_COLOURS = ["#5b74e8", "#3e9fe0", "#2fbfb0", "#5cc95c", "#b5cf
 /** Glyph and colour of a cell inside the device whose value is missing (no recipe, not a number). */
 export const MISSING_GLYPH = "?";
 export const MISSING_COLOUR = "#ff5fd7";
+/** Glyph and colour of the flat fill of a constant quantity. */
+export const CONSTANT_GLYPH = "=";
+export const CONSTANT_COLOUR = "#5cc95c";
+/** Glyph of the map cell under the cursor (repeated for two-character cells; also drawn inverted). */
+export const CURSOR_GLYPH = "◆";
+/**
+ * Spread below which a quantity counts as constant, relative to its magnitude: floating-point
+ * noise of a constant (1e-16 … 1e-12) and anything the legend's three significant digits could not
+ * tell apart.
+ */
+export const CONSTANT_REL_SPREAD = 1e-6;
 /** Glyphs of categories (levels 1…, or custom), used when there are few enough of them. */
 export const CATEGORY_GLYPHS = "123456789ABCDEFGHJKLMNPQRSTUVWXYZ";
 export const CATEGORY_COLOURS = ["#5b9cf2", "#f2a65b", "#6fd17a", "#e56b8c", "#b48cf0", "#e8d45a", "#4fd0d6", "#c98f62", "#9fb0c8", "#f07ad0"] as const;
 
 export type MapScale =
+  | {
+      /** every value equal (within `CONSTANT_REL_SPREAD`): one flat fill, one legend entry */
+      kind: "constant";
+      value: number;
+    }
   | {
       kind: "continuous";
       /** value at the bottom of the first bin and the top of the last */
@@ -107,7 +125,9 @@ export function chooseLayout(nx: number, ny: number, maxWidth: number, maxHeight
 
 /**
  * A continuous scale over the finite values: min … max, logarithmic when every value is positive
- * and they span more than a factor `logAbove` (default 30). A constant field gets a tiny span.
+ * and they span more than a factor `logAbove` (default 30). Values equal within
+ * `CONSTANT_REL_SPREAD` of their magnitude (or all zero) give the constant scale; no finite value
+ * gives 0 … 1.
  */
 export function continuousScaleOf(values: ArrayLike<number>, logAbove = 30): MapScale {
   let min = Infinity;
@@ -119,10 +139,7 @@ export function continuousScaleOf(values: ArrayLike<number>, logAbove = 30): Map
     if (v > max) max = v;
   }
   if (min === Infinity) return { kind: "continuous", min: 0, max: 1, log: false };
-  if (max === min) {
-    const pad = min === 0 ? 1 : Math.abs(min) * 1e-6;
-    return { kind: "continuous", min: min - pad, max: max + pad, log: false };
-  }
+  if (max - min <= CONSTANT_REL_SPREAD * Math.max(Math.abs(min), Math.abs(max))) return { kind: "constant", value: min + (max - min) / 2 };
   const log = min > 0 && max / min > logAbove;
   return { kind: "continuous", min, max, log };
 }
@@ -165,7 +182,9 @@ export interface LegendOptions {
 export function legendOf(scale: MapScale, hasMissing: boolean, options: LegendOptions = {}): LegendEntry[] {
   const fmt = options.format ?? ((v: number) => formatValue(v));
   const out: LegendEntry[] = [];
-  if (scale.kind === "continuous") {
+  if (scale.kind === "constant") {
+    out.push({ glyph: CONSTANT_GLYPH, colour: CONSTANT_COLOUR, label: `constant ${fmt(scale.value)}` });
+  } else if (scale.kind === "continuous") {
     const last = VALUE_GLYPHS.length - 1;
     for (let b = 0; b <= last; b++) {
       const lo = fmt(binEdge(scale, b));
@@ -182,7 +201,7 @@ export function legendOf(scale: MapScale, hasMissing: boolean, options: LegendOp
 /**
  * Draw the map. `values[c]` belongs to device cell c (lattice indices i[c], j[c]); NaN is a missing
  * value. Cells of the lattice outside the device are blank. With `cursor` (lattice indices), the
- * map cell containing it is drawn inverted.
+ * map cell containing it is drawn as `CURSOR_GLYPH`, inverted.
  * Runs of equal style are merged, so a row is a handful of runs, not one per cell.
  */
 export function renderHeatMap(
@@ -237,6 +256,9 @@ export function renderHeatMap(
         if (counted[m] === 0) {
           glyph = MISSING_GLYPH;
           colour = MISSING_COLOUR;
+        } else if (scale.kind === "constant") {
+          glyph = CONSTANT_GLYPH;
+          colour = CONSTANT_COLOUR;
         } else if (scale.kind === "continuous") {
           const v = summary === "max" ? acc[m] : acc[m] / counted[m];
           const b = binOf(scale, v);
@@ -262,7 +284,7 @@ export function renderHeatMap(
         }
       }
       const inverse = cursorCell !== null && cursorCell.col === col && cursorCell.row === r;
-      const text = glyph.repeat(cellWidth);
+      const text = (inverse ? CURSOR_GLYPH : glyph).repeat(cellWidth);
       const last = runs[runs.length - 1];
       if (last && last.colour === colour && last.inverse === inverse) last.text += text;
       else runs.push({ text, colour, inverse });

@@ -7,7 +7,7 @@
 import type { Plan, PlanOverrides, PlanSettings, PlanStage, Polarization } from "../../plan/planTypes.js";
 import { schemesFor } from "../../reduce/schemes/registry.js";
 import { chooseLayout, moveCursor } from "./heatMap.js";
-import { helpSections, SCREENS, type CommandId } from "./keyBindings.js";
+import { commandForKey, helpSections, SCREENS, type CommandId, type KeyScope } from "./keyBindings.js";
 import { mapQuantities, findQuantity, largestValueCell } from "./mapQuantities.js";
 import { levelCentreCell } from "./levelViews.js";
 import { flagRegionRows } from "./flagRegions.js";
@@ -18,6 +18,8 @@ import { changeChoices } from "./changeChoices.js";
 
 export type SessionAction =
   | { type: "command"; command: CommandId }
+  /** a key press by name (see `keyName`), resolved against the state it arrives at, not the one on screen */
+  | { type: "key"; name: string }
   | { type: "designLoaded"; base: PlanSettings; options?: SessionState["options"] }
   | { type: "loadFailed"; message: string }
   | { type: "planProgress"; seq: number; stage: PlanStage; fraction: number }
@@ -244,11 +246,22 @@ function startCursor(plan: Plan, cursor: { i: number; j: number }, resumed: bool
   return g.count > 0 ? { i: g.i[best], j: g.j[best] } : { i: 0, j: 0 };
 }
 
+/** The key scope of the open overlay, or null when none is open. */
+export function overlayScope(state: SessionState): KeyScope | null {
+  const o = state.overlay;
+  if (!o) return null;
+  return o.kind === "picker" ? "picker" : o.kind;
+}
+
 /** The session's reducer. */
 export function sessionReducer(state: SessionState, action: SessionAction): SessionState {
   switch (action.type) {
     case "command":
       return commandReducer(state, action.command);
+    case "key": {
+      const command = commandForKey(action.name, overlayScope(state), state.screen);
+      return command ? commandReducer(state, command) : state;
+    }
     case "designLoaded":
       return { ...state, base: action.base, options: action.options ?? state.options, computing: { stage: "reduce", fraction: 0 } };
     case "loadFailed":

@@ -33,6 +33,7 @@ function recipe(fill: number, achieved: number[], relError: number): Recipe {
     fillFraction: fill,
     dimensions: { radius_m: 0.001 * fill, wall_m: 0.0005 },
     achieved,
+    achievedIm: achieved.map(() => 0),
     relError,
     lossTangent: 1e-3,
     indexIm: 1e-4,
@@ -75,9 +76,9 @@ export function syntheticPlan(settings: Partial<PlanSettings> = {}): Plan {
   const relError = Float64Array.from(cells.map(([i, j], c) => (level[c] === 2 ? NaN : 0.001 * (i + j))));
   const flags = Uint16Array.from(cells.map(([i]) => (i >= 6 ? FLAG_BIT.subunity | FLAG_BIT.norecipe : 0)));
   const levels = [
-    { index: 1, target: [2.3, 0.3], cellCount: 0, maxQuantizationError: 0.02, recipe: recipe(0.2, [2.31, 0.3], 0.004), runnersUp: [recipe(0.25, [2.4, 0.3], 0.04)], reasons: [], flags: 0 },
-    { index: 2, target: [3.1, 0.6], cellCount: 0, maxQuantizationError: 0.03, recipe: recipe(0.4, [3.12, 0.6], 0.006), runnersUp: [], reasons: [], flags: 0 },
-    { index: 3, target: [3.7, 0.85], cellCount: 0, maxQuantizationError: 0.01, recipe: null, runnersUp: [], reasons: ["no allowed pair reaches ε 3.7"], flags: FLAG_BIT.norecipe },
+    { index: 1, target: [2.3, 0.3], cellCount: 0, maxQuantizationError: 0.02, recipe: recipe(0.2, [2.31, 0.3], 0.004), runnersUp: [recipe(0.25, [2.4, 0.3], 0.04)], reasons: [], flags: 0, unresolvable: false },
+    { index: 2, target: [3.1, 0.6], cellCount: 0, maxQuantizationError: 0.03, recipe: recipe(0.4, [3.12, 0.6], 0.006), runnersUp: [], reasons: [], flags: 0, unresolvable: false },
+    { index: 3, target: [3.7, 0.85], cellCount: 0, maxQuantizationError: 0.01, recipe: null, runnersUp: [], reasons: ["no allowed pair reaches ε 3.7"], flags: FLAG_BIT.norecipe, unresolvable: false },
   ];
   for (let c = 0; c < count; c++) levels[level[c]].cellCount++;
   const regions = levels.map((l, k) => ({ index: k + 1, level: k + 1, cellCount: l.cellCount, iMin: k * 3, iMax: Math.min(nx - 1, k * 3 + 2), jMin: 0, jMax: ny - 1 }));
@@ -96,6 +97,7 @@ export function syntheticPlan(settings: Partial<PlanSettings> = {}): Plan {
     region: Int32Array.from(level),
     quantizationError: Float64Array.from(cells.map(([i]) => 0.002 * i)),
     relError,
+    zeroTargetAbsError: new Float64Array(count).fill(NaN),
     flags,
     levels,
     regions,
@@ -120,6 +122,7 @@ export function syntheticPlan(settings: Partial<PlanSettings> = {}): Plan {
       largestAnisotropy: 3,
     },
     buildable: false,
+    verdict: { buildable: false, missed: [{ what: "recipes", value: 8, limit: 0, text: "8 of 38 cells have no recipe" }] },
     warnings: [],
   };
 }

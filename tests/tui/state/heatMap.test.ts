@@ -12,6 +12,9 @@ import {
   renderHeatMap,
   VALUE_GLYPHS,
   MISSING_GLYPH,
+  CONSTANT_GLYPH,
+  CONSTANT_COLOUR,
+  CURSOR_GLYPH,
   type MapLattice,
 } from "../../../src/tui/state/heatMap.js";
 
@@ -69,11 +72,19 @@ describe("scale and bins", () => {
     // log10 midpoint of 1e-2 … 1e2 is 1 → bin 4 of 8
     if (s.kind === "continuous") expect(binOf(s, 1)).toBe(4);
   });
-  it("gives a constant field a finite scale", () => {
-    const s = continuousScaleOf([3, 3, 3]);
-    if (s.kind !== "continuous") throw new Error("expected continuous");
-    expect(s.max).toBeGreaterThan(s.min);
-    expect(binOf(s, 3)).toBeGreaterThanOrEqual(0);
+  it("calls a field constant when its spread is floating-point noise, and draws it as one flat fill", () => {
+    expect(continuousScaleOf([3, 3, 3])).toEqual({ kind: "constant", value: 3 });
+    expect(continuousScaleOf([0, 0, NaN])).toEqual({ kind: "constant", value: 0 });
+    // 2.2 built up from sums differs from 2.2 in the last bits: still constant, not noise in 8 bins
+    const noisy = [2.2, 0.1 + 0.1 + 2, 2.2 * (1 + 4e-16), 2.2 * (1 - 3e-16)];
+    const s = continuousScaleOf(noisy);
+    expect(s.kind).toBe("constant");
+    // a real spread of one part in 1e4 keeps the ramp
+    expect(continuousScaleOf([2.2, 2.2 * (1 + 1e-4)]).kind).toBe("continuous");
+    const lattice = fullLattice(4, 1);
+    const view = renderHeatMap(lattice, noisy, s, "mean", chooseLayout(4, 1, 80, 5), null);
+    expect(heatMapText(view)).toEqual([CONSTANT_GLYPH.repeat(8)]);
+    expect(view.legend).toEqual([{ glyph: CONSTANT_GLYPH, colour: CONSTANT_COLOUR, label: "constant 2.20" }]);
   });
   it("legend lists every glyph with a numeric range, and the missing glyph when needed", () => {
     const legend = legendOf({ kind: "continuous", min: 0, max: 8, log: false }, true);
@@ -117,8 +128,9 @@ describe("renderHeatMap", () => {
   it("marks missing values and the cursor cell", () => {
     const lattice = fullLattice(2, 1);
     const view = renderHeatMap(lattice, [NaN, 1], { kind: "continuous", min: 0, max: 1, log: false }, "mean", chooseLayout(2, 1, 80, 5), { i: 1, j: 0 });
-    expect(heatMapText(view)).toEqual([`${MISSING_GLYPH}${MISSING_GLYPH}@@`]);
-    expect(view.rows[0].filter((r) => r.inverse).map((r) => r.text)).toEqual(["@@"]);
+    // the cursor is a glyph of its own, not only reverse video
+    expect(heatMapText(view)).toEqual([`${MISSING_GLYPH}${MISSING_GLYPH}${CURSOR_GLYPH}${CURSOR_GLYPH}`]);
+    expect(view.rows[0].filter((r) => r.inverse).map((r) => r.text)).toEqual([`${CURSOR_GLYPH}${CURSOR_GLYPH}`]);
     expect(view.legend.at(-1)?.glyph).toBe(MISSING_GLYPH);
   });
 

@@ -1,0 +1,67 @@
+/**
+ * The verdict of a plan: is it buildable as asked? Yes only when every cell has a recipe AND the
+ * plan meets every requirement the design states:
+ *
+ * - `recipes`: cells without a recipe (limit 0);
+ * - `tolerance`: the largest error of a cell with a recipe against its own target, quantization
+ *   included (Plan.relError: complex, no floor), and the absolute error of components whose target
+ *   is exactly zero, against `realization.tolerance`;
+ * - `loss`: attenuation along the worst straight row or column (dB) against `lossBudgetDb`;
+ * - `bandwidth`: the narrowest bandwidth of a resonant level against the required `bandwidth`
+ *   (non-resonant cells count as broadband);
+ * - `anisotropy`: the largest in-plane anisotropy ratio of the targets against `maxAnisotropy`;
+ * - `process`: levels whose recipe the process cannot tell from a neighbouring level's
+ *   (`unresolvable`, limit 0), and any feature below the process's smallest feature.
+ *
+ * A requirement the design does not state (no loss budget, no bandwidth, no process) is not
+ * checked. Each miss carries its figure, its limit and a plain sentence.
+ */
+import type { DeviceFigures, MissedRequirement, PlanLevel, PlanSettings, Verdict } from "./planTypes.js";
+
+export interface VerdictInput {
+  cells: number;
+  figures: DeviceFigures;
+  settings: PlanSettings;
+  levels: PlanLevel[];
+  /** largest |achieved| of zero-target components over cells (NaN when none) */
+  maxZeroTargetAbsError: number;
+}
+
+const pct = (x: number): string => `${Number((x * 100).toPrecision(3))} %`;
+const num = (x: number): string => String(Number(x.toPrecision(4)));
+
+export function planVerdict(inp: VerdictInput): Verdict {
+  const { figures: f, settings: s } = inp;
+  const missed: MissedRequirement[] = [];
+  const without = f.flagCounts.norecipe ?? 0;
+  if (without > 0) {
+    missed.push({ what: "recipes", value: without, limit: 0, text: `${without} of ${inp.cells} cells have no recipe` });
+  }
+  const err = Math.max(Number.isFinite(f.maxRelError) ? f.maxRelError : 0, Number.isFinite(inp.maxZeroTargetAbsError) ? inp.maxZeroTargetAbsError : 0);
+  if (err > s.tolerance) {
+    missed.push({ what: "tolerance", value: err, limit: s.tolerance, text: `largest error ${pct(err)} (quantization and loss included) against a tolerance of ${pct(s.tolerance)}` });
+  }
+  if (f.lossBudgetDb !== null && f.lossDb > f.lossBudgetDb) {
+    missed.push({ what: "loss", value: f.lossDb, limit: f.lossBudgetDb, text: `loss ${num(f.lossDb)} dB along the worst straight path against a budget of ${num(f.lossBudgetDb)} dB` });
+  }
+  if (f.bandwidthRequired !== null && f.minBandwidth !== null && f.minBandwidth < f.bandwidthRequired) {
+    missed.push({ what: "bandwidth", value: f.minBandwidth, limit: f.bandwidthRequired, text: `narrowest bandwidth ${pct(f.minBandwidth)} against the ${pct(f.bandwidthRequired)} required` });
+  }
+  if (f.largestAnisotropy > s.maxAnisotropy) {
+    missed.push({ what: "anisotropy", value: f.largestAnisotropy, limit: s.maxAnisotropy, text: `largest in-plane anisotropy ${num(f.largestAnisotropy)} against a limit of ${num(s.maxAnisotropy)}` });
+  }
+  const unresolvable = inp.levels.filter((l) => l.unresolvable).length;
+  if (unresolvable > 0) {
+    missed.push({ what: "process", value: unresolvable, limit: 0, text: `${unresolvable} levels differ from a neighbouring level by less than the process can make (unresolvable)` });
+  } else if (f.processMinFeatureM !== null && f.smallestFeatureM !== null && f.smallestFeatureM < f.processMinFeatureM * (1 - 1e-9)) {
+    missed.push({ what: "process", value: f.smallestFeatureM, limit: f.processMinFeatureM, text: `smallest feature ${num(f.smallestFeatureM * 1e6)} µm below the process limit of ${num(f.processMinFeatureM * 1e6)} µm` });
+  }
+  return { buildable: missed.length === 0, missed };
+}
+
+/** Relative size of a miss (how far past its limit, ≥ 0): 0 when met; used to rank remedies. */
+export function missSeverity(m: { what: string; value: number; limit: number }): number {
+  if (m.what === "bandwidth") return m.value > 0 ? Math.log(m.limit / m.value) : 10;
+  if (m.limit === 0) return Math.log1p(m.value);
+  return Math.log(m.value / m.limit);
+}

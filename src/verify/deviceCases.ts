@@ -1,0 +1,94 @@
+/**
+ * The cases the full-wave check compares, built from a design: the bare hidden object (cloaks),
+ * the ideal device (scheme `full`), the reduced device (the chosen scheme) — both sampled from the
+ * continuous map at the solver's own points (continuousScene.ts) — and the realized device from the
+ * plan's levels as built (the lattice of cells with each recipe's achieved values and loss). A case
+ * that cannot be computed carries the reason instead of a scene; it is never a copy of another case.
+ */
+import type { DeviceGrid } from "../field/deviceGrid.js";
+import type { TransformSpec } from "../field/transformSpec.js";
+import type { Plan } from "../plan/planTypes.js";
+import type { ReducedField } from "../reduce/reducedField.js";
+import { diskConductor, type Conductor } from "./conductor.js";
+import { continuousScene } from "./continuousScene.js";
+import { deviceBounds, deviceScene, type HiddenDisk } from "./deviceScene.js";
+import { largestIndex, mapFromPlan, mapFromReduced } from "./materialMap.js";
+import { SAMPLE_BACKGROUND, type Scene, type ScenePolarization } from "./scene.js";
+import type { CaseSpec } from "./verifyDevice.js";
+
+export interface DeviceCasesInput {
+  transform: TransformSpec;
+  /** the field's virtual background (design.background) */
+  fieldBackground: { eps: number; mu: number };
+  /** the medium around the device as the solver sees it */
+  background: { eps: number; mu: number };
+  polarization: ScenePolarization;
+  grid: DeviceGrid;
+  ideal: ReducedField;
+  reduced: ReducedField;
+  /** the plan of the design's realization; null when the design has none */
+  plan: Plan | null;
+}
+
+export interface DeviceCases {
+  cases: CaseSpec[];
+  deviceBox: { minX: number; maxX: number; minY: number; maxY: number };
+  hidden: HiddenDisk | null;
+  /** tensors depend on r only in the polar basis (cloaks, concentrators, rotators) */
+  radial: boolean;
+  notes: string[];
+}
+
+/** Transform kinds whose polar-basis tensors depend on r only. */
+export const RADIAL_KINDS: readonly string[] = ["radial-cloak", "concentrator", "rotator"];
+
+/** The object a transform hides (a perfect conductor filling a cloak's inner radius), or null. */
+export function hiddenObject(spec: TransformSpec): HiddenDisk | null {
+  if (spec.kind === "radial-cloak") return { centerM: spec.center ?? [0, 0], radiusM: spec.innerRadiusM };
+  return null;
+}
+
+function bareScene(polarization: ScenePolarization, background: { eps: number; mu: number }, conductors: Conductor[], box: Scene["bounds"]): Scene {
+  return { polarization, background, bounds: box, conductors, sample: (x, y) => { for (const c of conductors) if (c.signedDistanceM(x, y) < 0) return 2; return SAMPLE_BACKGROUND; } };
+}
+
+/** Build the cases (see file comment). */
+export function deviceCases(input: DeviceCasesInput): DeviceCases {
+  const { transform, polarization, background, grid, plan } = input;
+  const bg = polarization === "Ez" ? { b: background.eps, t: background.mu } : { b: background.mu, t: background.eps };
+  const hidden = hiddenObject(transform);
+  const conductors: Conductor[] = hidden ? [diskConductor(hidden.centerM, hidden.radiusM)] : [];
+  const box = deviceBounds(grid);
+  if (hidden) {
+    const [cx, cy] = hidden.centerM, r = hidden.radiusM;
+    box.minX = Math.min(box.minX, cx - r); box.maxX = Math.max(box.maxX, cx + r);
+    box.minY = Math.min(box.minY, cy - r); box.maxY = Math.max(box.maxY, cy + r);
+  }
+  const notes: string[] = [];
+  const idealMap = mapFromReduced(input.ideal, bg), reducedMap = mapFromReduced(input.reduced, bg);
+  const cases: CaseSpec[] = [];
+  if (hidden) {
+    const r = hidden.radiusM, [cx, cy] = hidden.centerM;
+    cases.push({ name: "bare", scene: bareScene(polarization, background, conductors, { minX: cx - r, maxX: cx + r, minY: cy - r, maxY: cy + r }), indexHint: 0 });
+  }
+  const sceneOf = (red: ReducedField, map: ReturnType<typeof mapFromReduced>): Scene => {
+    if (transform.kind === "imported") return deviceScene(grid, polarization, background, map, hidden);
+    const s = continuousScene({ transform, fieldBackground: input.fieldBackground, background, settings: red.settings, conductors });
+    // the continuous map's own box may be tighter than the cells'; keep the union so nothing is cut
+    s.bounds.minX = Math.min(s.bounds.minX, box.minX); s.bounds.maxX = Math.max(s.bounds.maxX, box.maxX);
+    s.bounds.minY = Math.min(s.bounds.minY, box.minY); s.bounds.maxY = Math.max(s.bounds.maxY, box.maxY);
+    return s;
+  };
+  if (transform.kind === "imported") notes.push("imported tensor field: the ideal and reduced maps are sampled from the design's cells (no continuous map to sample)");
+  cases.push({ name: "ideal", scene: sceneOf(input.ideal, idealMap), indexHint: largestIndex(idealMap) });
+  cases.push({ name: "reduced", scene: sceneOf(input.reduced, reducedMap), indexHint: largestIndex(reducedMap) });
+  if (plan) {
+    const m = mapFromPlan(plan, bg);
+    if (m.missing > 0) notes.push(`realized: ${m.missing} device cells have no recipe and were left as background`);
+    cases.push({ name: "realized", scene: deviceScene(grid, polarization, background, m, hidden), indexHint: largestIndex(m) });
+    cases.push({ name: "realized-geometry", scene: null, reason: "drawing each cell's inclusion at its real size is not available yet; the realized case uses each recipe's effective (homogenized) tensor", indexHint: 0 });
+  } else {
+    cases.push({ name: "realized", scene: null, reason: "the design has no realization (no \"realization\" key): there is nothing built to check", indexHint: 0 });
+  }
+  return { cases, deviceBox: box, hidden, radial: RADIAL_KINDS.includes(transform.kind), notes };
+}
