@@ -45,32 +45,32 @@ export function buildDeviceGrid(bounds: Bounds3, contains: (x: number, y: number
     });
   }
   const x0 = ox + ax.first * p, y0 = oy + ay.first * p, z0 = req.dimension === 3 ? oz + az.first * p : 0;
-  // one scan: remember the flat lattice index of every cell inside, then fill the grid
-  const inside = new Int32Array(total);
+  // One pass straight into the output arrays, sized for the whole lattice: pages never written
+  // (the bounding box's empty corners; k and z in 2D, which stay 0) are never touched, so they
+  // cost neither page faults nor resident memory. The grid holds views of the first `count`.
+  const is = new Int32Array(total), js = new Int32Array(total), ks = new Int32Array(req.dimension === 3 ? total : 0);
+  const xs = new Float64Array(total), ys = new Float64Array(total), zs = new Float64Array(req.dimension === 3 ? total : 0);
   let count = 0;
-  for (let k = 0, flat = 0; k < az.n; k++) {
+  for (let k = 0; k < az.n; k++) {
     const z = z0 + k * p;
     for (let j = 0; j < ay.n; j++) {
       const y = y0 + j * p;
-      for (let i = 0; i < ax.n; i++, flat++) if (contains(x0 + i * p, y, z)) inside[count++] = flat;
+      for (let i = 0; i < ax.n; i++) {
+        const x = x0 + i * p;
+        if (!contains(x, y, z)) continue;
+        is[count] = i; js[count] = j; xs[count] = x; ys[count] = y;
+        if (req.dimension === 3) { ks[count] = k; zs[count] = z; }
+        count++;
+      }
     }
   }
-  const grid: DeviceGrid = {
+  return {
     dimension: req.dimension,
     pitchM: p,
     nx: ax.n, ny: ay.n, nz: az.n,
     originXM: x0, originYM: y0, originZM: z0,
     count,
-    i: new Int32Array(count), j: new Int32Array(count), k: new Int32Array(count),
-    xM: new Float64Array(count), yM: new Float64Array(count), zM: new Float64Array(count),
+    i: is.subarray(0, count), j: js.subarray(0, count), k: req.dimension === 3 ? ks.subarray(0, count) : new Int32Array(count),
+    xM: xs.subarray(0, count), yM: ys.subarray(0, count), zM: req.dimension === 3 ? zs.subarray(0, count) : new Float64Array(count),
   };
-  const plane = ax.n * ay.n;
-  for (let c = 0; c < count; c++) {
-    const flat = inside[c];
-    const k = Math.floor(flat / plane), rest = flat - k * plane;
-    const j = Math.floor(rest / ax.n), i = rest - j * ax.n;
-    grid.i[c] = i; grid.j[c] = j; grid.k[c] = k;
-    grid.xM[c] = x0 + i * p; grid.yM[c] = y0 + j * p; grid.zM[c] = z0 + k * p;
-  }
-  return grid;
 }

@@ -27,26 +27,25 @@ function abortError(): Error {
   return e;
 }
 
-/** Stream `produce`'s chunks into `path`, honouring back-pressure and the abort signal. */
+/**
+ * Stream `produce`'s chunks into `path`, honouring the abort signal. Each chunk's promise settles
+ * once the stream is done with its bytes (so the producer may reuse the buffer), and the stream's
+ * own buffer never holds more than the chunk in flight.
+ */
 async function streamTo(
   path: string,
-  produce: (write: (chunk: string) => Promise<void>) => Promise<void>,
+  produce: (write: (chunk: Uint8Array) => Promise<void>) => Promise<void>,
   signal?: AbortSignal,
 ): Promise<void> {
-  const stream = createWriteStream(path, { encoding: "utf8" });
+  const stream = createWriteStream(path, { highWaterMark: 1 << 20 });
   let failure: Error | null = null;
   stream.on("error", (e) => { failure = e; });
-  const write = async (chunk: string): Promise<void> => {
-    if (signal?.aborted) throw abortError();
-    if (failure) throw failure;
-    if (!stream.write(chunk)) {
-      await new Promise<void>((res, rej) => {
-        const onDrain = (): void => { stream.off("error", onErr); res(); };
-        const onErr = (e: Error): void => { stream.off("drain", onDrain); rej(e); };
-        stream.once("drain", onDrain);
-        stream.once("error", onErr);
-      });
-    }
+  const write = (chunk: Uint8Array): Promise<void> => {
+    if (signal?.aborted) return Promise.reject(abortError());
+    if (failure) return Promise.reject(failure);
+    return new Promise<void>((res, rej) => {
+      stream.write(chunk, (err?: Error | null) => (err ? rej(err) : res()));
+    });
   };
   try {
     await produce(write);

@@ -1,9 +1,11 @@
 /**
  * Quantities with units at the edge: "10.5 GHz", "3 mm", "1550 nm", "90 deg". Bare numbers are SI.
- * Parsing uses mathjs units, loaded lazily (mathjs costs ~0.7 s to load).
+ * Parsing uses mathjs units, loaded lazily (mathjs costs ~0.7 s to load) and only when a value is
+ * not a plain number with one of the common units (quickQuantity.ts).
  */
 import { InputError } from "../core/errors.js";
 import { getMath } from "./mathjs.js";
+import { quickQuantity } from "./quickQuantity.js";
 
 export type Dimension = "length" | "frequency" | "angle" | "dimensionless" | "temperature";
 
@@ -28,11 +30,25 @@ function describeUnit(math: Awaited<ReturnType<typeof getMath>>, u: any): string
  * Example: await parseQuantity("10.5 GHz", "frequency", "$.frequency") → 10500000000
  */
 export async function parseQuantity(value: unknown, dimension: Dimension, where: string): Promise<number> {
-  const math = await getMath();
-  return parseQuantityWith(math, value, dimension, where);
+  try {
+    return parseQuantityWith(null, value, dimension, where);
+  } catch (err) {
+    if (!(err instanceof NeedsMathjs)) throw err;
+  }
+  return parseQuantityWith(await getMath(), value, dimension, where);
 }
 
-/** Synchronous variant once mathjs is loaded. */
+/** Thrown by `parseQuantityWith(null, …)` when the value needs mathjs (not a user error). */
+export class NeedsMathjs extends Error {
+  constructor() {
+    super("this quantity needs mathjs");
+  }
+}
+
+/**
+ * Synchronous variant: plain numbers and the common units (quickQuantity.ts) without mathjs; with
+ * `math` null, anything else throws `NeedsMathjs` so the caller can load it and ask again.
+ */
 export function parseQuantityWith(math: any, value: unknown, dimension: Dimension, where: string): number {
   if (typeof value === "number") {
     if (!Number.isFinite(value)) throw new InputError({ where, message: `expected a finite number, got ${value}` });
@@ -48,6 +64,9 @@ export function parseQuantityWith(math: any, value: unknown, dimension: Dimensio
   if (dimension === "dimensionless") {
     throw new InputError({ where, message: `expected a plain number, got '${value}'` });
   }
+  const quick = quickQuantity(text, dimension);
+  if (quick !== undefined) return quick;
+  if (!math) throw new NeedsMathjs();
   let u: any;
   try {
     u = math.unit(text);

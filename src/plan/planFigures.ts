@@ -1,4 +1,5 @@
 /** Device-level figures of a plan: loss along straight paths, errors, bill of materials. */
+import { selectKth } from "../core/selectKth.js";
 import type { DeviceGrid } from "../field/deviceGrid.js";
 import type { BillOfMaterialsRow, PlanLevel } from "./planTypes.js";
 import { printedMeanRadiusM } from "../cells/printedRing.js";
@@ -52,8 +53,12 @@ export function finiteMedian(values: Float64Array): number {
   const a = new Float64Array(n);
   n = 0;
   for (let c = 0; c < values.length; c++) if (Number.isFinite(values[c])) a[n++] = values[c];
-  a.sort();
-  return n % 2 ? a[(n - 1) >> 1] : 0.5 * (a[n / 2 - 1] + a[n / 2]);
+  if (n % 2) return selectKth(a, (n - 1) >> 1);
+  // even count: the upper middle, then the largest entry below it (all now left of it)
+  const upper = selectKth(a, n / 2);
+  let lower = a[0];
+  for (let c = 1; c < n / 2; c++) if (a[c] > lower) lower = a[c];
+  return 0.5 * (lower + upper);
 }
 
 /**

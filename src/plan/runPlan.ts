@@ -137,12 +137,16 @@ export function planFromField(
   const sub = nValid === n ? targets : targets.map((t) => { const a = new Float64Array(nValid); let q = 0; for (let c = 0; c < n; c++) if (valid[c]) a[q++] = t[c]; return a; });
   const q = quantizeTargets(sub, { maxLevels: settings.levels, goal: settings.tolerance / 2, cap: MAX_LEVELS });
   comps.forEach((c, k) => { c.constant = isConstant(sub[k]); });
-  const level = new Int32Array(n).fill(-1);
-  const quantizationError = new Float64Array(n).fill(NaN);
-  for (let c = 0, p = 0; c < n; c++) {
-    if (!valid[c]) continue;
-    level[c] = q.level[p];
-    p++;
+  // every cell valid (the usual case): the quantizer's arrays are the plan's (no fresh copies;
+  // its error array is overwritten below, every cell having a level)
+  const level = nValid === n ? q.level : new Int32Array(n).fill(-1);
+  const quantizationError = nValid === n ? q.error : new Float64Array(n).fill(NaN);
+  if (nValid !== n) {
+    for (let c = 0, p = 0; c < n; c++) {
+      if (!valid[c]) continue;
+      level[c] = q.level[p];
+      p++;
+    }
   }
   // the reported quantization error has no floor (the quantizer's own objective keeps REL_FLOOR)
   floorlessQuantizationError(targets, level, q.centres, quantizationError);

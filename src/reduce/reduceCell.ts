@@ -4,6 +4,7 @@
  * boundary-impedance estimate, so all three agree. Allocates nothing per call.
  */
 import { sym3Eigen } from "../core/eigen.js";
+import { hypot2 } from "../core/hypot2.js";
 import { XX, YY, ZZ, XY, XZ, YZ } from "../core/symTensor.js";
 import {
   FLAG_CAPPED, FLAG_EPS_BELOW_ONE, FLAG_MAGNETIC, FLAG_OUT_OF_PLANE, FLAG_UNDEFINED,
@@ -101,7 +102,7 @@ export function reductionKernel(settings: ReductionSettings) {
         flags |= FLAG_OUT_OF_PLANE;
       }
       const mean = 0.5 * (pxx + pyy);
-      const half = Math.hypot(0.5 * (pxx - pyy), pxy);
+      const half = hypot2(0.5 * (pxx - pyy), pxy);
       const lMin = mean - half, lMax = mean + half;
       if (!(Number.isFinite(norm) && lMin > 0 && s > 0)) return setUndefined(out, 4, flags);
       const alpha = scheme.cellScale(pol, lMin, lMax, s, unitLarger) * matchScale;

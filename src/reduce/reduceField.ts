@@ -90,13 +90,26 @@ export function reduceField(field: TensorField, options: ReduceOptions): Reduced
   return reduceWithSettings(field, reductionSettings(field, options));
 }
 
-/** `reduceField` for settings already checked by `reductionSettings`. */
+/**
+ * `reduceField` for settings already checked by `reductionSettings`. In 2D the bounds arrays are
+ * views of arrays the kernel fills anyway (Ez: ε min = max = ε_z, μ min/max = the principal
+ * values; Hz the other way round): at 10⁶ cells every fresh array costs more in page faults than
+ * its arithmetic, so equal arrays are shared (all fields are read-only downstream).
+ */
 export function reduceWithSettings(field: TensorField, settings: ReductionSettings): ReducedField {
   const n = field.grid.count;
   const names = componentNames(settings.polarization);
   const components: Record<string, Float64Array> = {};
   const arrays = names.map((name) => (components[name] = new Float64Array(n)));
   const m = arrays.length;
+  const planar = settings.polarization !== "3D";
+  const principal: [Float64Array, Float64Array] = [new Float64Array(n), new Float64Array(n)];
+  const outOfPlane = arrays[0];
+  const ez = settings.polarization === "Ez";
+  const epsMin = planar ? (ez ? outOfPlane : principal[0]) : new Float64Array(n);
+  const epsMax = planar ? (ez ? outOfPlane : principal[1]) : new Float64Array(n);
+  const muMin = planar ? (ez ? principal[0] : outOfPlane) : new Float64Array(n);
+  const muMax = planar ? (ez ? principal[1] : outOfPlane) : new Float64Array(n);
   const out: ReducedField = {
     polarization: settings.polarization,
     scheme: settings.scheme,
@@ -104,35 +117,37 @@ export function reduceWithSettings(field: TensorField, settings: ReductionSettin
     count: n,
     componentNames: names,
     components,
-    principal: [new Float64Array(n), new Float64Array(n)],
+    principal,
     anisotropy: new Float64Array(n),
     droppedAnisotropy: new Float64Array(n),
     scale: new Float64Array(n),
-    epsMin: new Float64Array(n),
-    epsMax: new Float64Array(n),
-    muMin: new Float64Array(n),
-    muMax: new Float64Array(n),
+    epsMin, epsMax, muMin, muMax,
     flags: new Uint8Array(n),
   };
   const kernel = reductionKernel(settings);
   const r = newCellReduction();
   const eps = new Float64Array(6), mu = new Float64Array(6);
-  const [p0, p1] = out.principal;
+  const [p0, p1] = principal;
+  const { anisotropy, droppedAnisotropy, scale, flags } = out;
+  const capped = field.capped;
+  const rc = r.components;
   for (let c = 0; c < n; c++) {
     readSym(eps, field.eps, c);
     readSym(mu, field.mu, c);
-    kernel.apply(eps, mu, field.capped[c] === 1, r);
-    for (let k = 0; k < m; k++) arrays[k][c] = r.components[k];
+    kernel.apply(eps, mu, capped[c] === 1, r);
+    for (let k = 0; k < m; k++) arrays[k][c] = rc[k];
     p0[c] = r.principalMin;
     p1[c] = r.principalMax;
-    out.anisotropy[c] = r.anisotropy;
-    out.droppedAnisotropy[c] = r.droppedAnisotropy;
-    out.scale[c] = r.scale;
-    out.epsMin[c] = r.epsMin;
-    out.epsMax[c] = r.epsMax;
-    out.muMin[c] = r.muMin;
-    out.muMax[c] = r.muMax;
-    out.flags[c] = r.flags;
+    anisotropy[c] = r.anisotropy;
+    droppedAnisotropy[c] = r.droppedAnisotropy;
+    scale[c] = r.scale;
+    if (!planar) {
+      epsMin[c] = r.epsMin;
+      epsMax[c] = r.epsMax;
+      muMin[c] = r.muMin;
+      muMax[c] = r.muMax;
+    }
+    flags[c] = r.flags;
   }
   return out;
 }

@@ -1,7 +1,7 @@
 /**
  * The design file, validated with zod. Quantities are numbers (SI) or strings with units
- * ("10.5 GHz", "40 mm"); the parsed `Design` is SI throughout. Call `prepareQuantities()` (done by
- * loadDesign/parseDesign) before using the schema.
+ * ("10.5 GHz", "40 mm"); the parsed `Design` is SI throughout. Parse through `parseDesign`, which
+ * loads mathjs when a quantity needs it (see quantitySchema.ts).
  */
 import { z } from "zod";
 import { positiveQuantity } from "./quantitySchema.js";

@@ -11,7 +11,7 @@ import { InputError, unknownWithSuggestion, type InputIssue } from "../../core/e
 import { TRANSFORM_KINDS } from "../../field/transforms/registry.js";
 import type { TransformSpec } from "../../field/transformSpec.js";
 import { compileExpressionMap } from "../expressionMap.js";
-import { prepareQuantities } from "./quantitySchema.js";
+import { prepareQuantities, quantitiesNeedMath, resetQuantityNeeds } from "./quantitySchema.js";
 import { designSchema, DESIGN_KEYS, BACKGROUND_KEYS, type Design } from "./designSchema.js";
 import { TRANSFORM_KEYS } from "./transformSchema.js";
 import { GRID_KEYS } from "./gridSchema.js";
@@ -116,11 +116,16 @@ function toIssues(file: string, json: unknown, issue: z.core.$ZodIssue): InputIs
  * Throws InputError listing every problem.
  */
 export async function parseDesign(json: unknown, sourcePath: string, cwd: string = process.cwd()): Promise<Design> {
-  await prepareQuantities();
   if (json === null || typeof json !== "object" || Array.isArray(json)) {
     throw new InputError({ where: `${sourcePath}: $`, message: "expected a JSON object with name, frequency, transform and grid" });
   }
-  const result = designSchema.safeParse(json);
+  // common quantities parse without mathjs; a design with any other one is parsed again with it
+  resetQuantityNeeds();
+  let result = designSchema.safeParse(json);
+  if (quantitiesNeedMath()) {
+    await prepareQuantities();
+    result = designSchema.safeParse(json);
+  }
   if (!result.success) {
     const issues = result.error.issues.flatMap((i) => toIssues(sourcePath, json, i));
     const seen = new Set<string>();

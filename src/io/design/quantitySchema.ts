@@ -1,27 +1,45 @@
 /**
- * zod schemas for quantities with units. mathjs is loaded (async) once by `loadDesign` before any
- * schema runs; the schemas then parse synchronously and report failures as zod issues at their
- * JSON path.
+ * zod schemas for quantities with units. Plain numbers and the common units parse without mathjs;
+ * when a design holds any other quantity string, `parseDesign` loads mathjs (async, once) and
+ * parses again. The schemas parse synchronously and report failures as zod issues at their JSON
+ * path.
  */
 import { z } from "zod";
 import { InputError } from "../../core/errors.js";
 import { getMath } from "../mathjs.js";
-import { parseQuantityWith, type Dimension } from "../quantity.js";
+import { NeedsMathjs, parseQuantityWith, type Dimension } from "../quantity.js";
 
 let math: any = null;
+let neededMath = false;
 
-/** Must be awaited before parsing a design with these schemas. */
+/** Load mathjs for the schemas (needed only when `quantitiesNeedMath()` says so after a parse). */
 export async function prepareQuantities(): Promise<void> {
   math = await getMath();
+}
+
+/** Start a parse: forget whether an earlier parse needed mathjs. */
+export function resetQuantityNeeds(): void {
+  neededMath = false;
+}
+
+/**
+ * True when the last parse met a quantity the fast path does not take while mathjs was not loaded:
+ * its result is then not valid; call `prepareQuantities()` and parse again.
+ */
+export function quantitiesNeedMath(): boolean {
+  return neededMath;
 }
 
 /** A quantity of `dimension`: a number (SI) or a string with a unit; output is the SI number. */
 export function quantity(dimension: Dimension) {
   return z.union([z.number(), z.string()]).transform((value, ctx) => {
-    if (!math) throw new Error("prepareQuantities() was not awaited");
     try {
       return parseQuantityWith(math, value, dimension, "");
     } catch (err) {
+      if (err instanceof NeedsMathjs) {
+        neededMath = true; // this parse is discarded and repeated with mathjs loaded
+        return 1;
+      }
       if (err instanceof InputError) {
         ctx.addIssue({ code: "custom", message: err.issues[0].message });
         return z.NEVER;

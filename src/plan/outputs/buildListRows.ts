@@ -1,6 +1,6 @@
 /**
- * The build list: one CSV row per device cell. This file makes the text in chunks (pure); the
- * writer in io/buildListCsv.ts streams the chunks to disk, so a 10⁶-cell plan never holds the
+ * The build list: one CSV row per device cell. This file makes the bytes in chunks (pure); the
+ * writer in io/planOutputs.ts streams the chunks to disk, so a 10⁶-cell plan never holds the
  * whole text in memory.
  *
  * Columns: cell, i, j, [k,] x_<u>, y_<u>, [z_<u>,] axis_deg, region, level, target_<c>…,
@@ -57,18 +57,107 @@ function levelTexts(plan: Plan): { achieved: string[]; recipe: string[] } {
   return { achieved, recipe };
 }
 
+/** Bytes per emitted chunk of the build list (rows are never split between chunks). */
+export const BUILD_LIST_CHUNK_BYTES = 1 << 20;
+
 /**
- * Calls `emit` with successive chunks of rows (each ending in a line break), `chunkRows` rows at
- * a time; awaits `emit` so a stream's back-pressure is respected. The header comes first.
+ * ASCII text into a byte buffer without building strings: a 10⁶-row build list made by string
+ * concatenation spends most of its time flattening and encoding ropes (and in the garbage
+ * collector). Characters above 127 (never in ids or numbers, possible in a custom catalog) are
+ * UTF-8 encoded.
  */
-export async function emitBuildList(
-  plan: Plan,
-  emit: (chunk: string) => Promise<void> | void,
-  chunkRows = 2048,
-): Promise<void> {
+class RowBytes {
+  buf: Uint8Array = new Uint8Array(BUILD_LIST_CHUNK_BYTES + 65536);
+  at = 0;
+  private encoder: InstanceType<typeof TextEncoder> | null = null;
+
+  text(s: string): void {
+    const n = s.length;
+    if (this.at + 3 * n > this.buf.length) this.grow(3 * n);
+    const buf = this.buf;
+    let at = this.at;
+    for (let k = 0; k < n; k++) {
+      const ch = s.charCodeAt(k);
+      if (ch > 127) {
+        this.at = at;
+        this.encoder ??= new TextEncoder();
+        this.at += this.encoder.encodeInto(s.slice(k), buf.subarray(at)).written;
+        return;
+      }
+      buf[at++] = ch;
+    }
+    this.at = at;
+  }
+
+  /** A non-negative integer in decimal. */
+  int(v: number): void {
+    if (this.at + 16 > this.buf.length) this.grow(16);
+    const buf = this.buf;
+    if (v < 10) {
+      buf[this.at++] = 48 + v;
+      return;
+    }
+    if (v > 0x7fffffff) {
+      this.text(String(v));
+      return;
+    }
+    let at = this.at + (v < 100 ? 2 : v < 1e3 ? 3 : v < 1e4 ? 4 : v < 1e5 ? 5 : v < 1e6 ? 6 : v < 1e7 ? 7 : v < 1e8 ? 8 : v < 1e9 ? 9 : 10);
+    this.at = at;
+    for (let t = v | 0; t > 0; ) {
+      const q = (t / 10) | 0;
+      buf[--at] = 48 + t - q * 10;
+      t = q;
+    }
+  }
+
+  byte(b: number): void {
+    if (this.at + 1 > this.buf.length) this.grow(1);
+    this.buf[this.at++] = b;
+  }
+
+  private grow(extra: number): void {
+    const next = new Uint8Array(Math.max(2 * this.buf.length, this.at + extra));
+    next.set(this.buf.subarray(0, this.at));
+    this.buf = next;
+  }
+
+  /**
+   * The bytes so far, then empty, writing on into the other of two buffers: the caller may hold
+   * the returned view until its emit promise settles (while the next chunk is made), and the
+   * buffers are reused instead of touching fresh memory for every chunk.
+   */
+  take(): Uint8Array {
+    const out = this.buf.subarray(0, this.at);
+    const other = this.spare;
+    this.spare = this.buf;
+    this.buf = other ?? new Uint8Array(this.spare.length);
+    this.at = 0;
+    return out;
+  }
+
+  private spare: Uint8Array | null = null;
+}
+
+const COMMA = 44, NEWLINE = 10;
+
+/**
+ * Calls `emit` with successive chunks of the build list as UTF-8 bytes (whole rows, about
+ * `BUILD_LIST_CHUNK_BYTES` each, the header first). A chunk's bytes stay valid until the promise
+ * `emit` returned for it settles (it should settle once the bytes are written); the next chunk is
+ * made meanwhile, and the one after waits for it (back-pressure).
+ */
+export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Promise<void> | void): Promise<void> {
   const g = plan.grid;
   const three = g.dimension === 3;
-  await emit(`${buildListHeader(plan)}\n`);
+  const out = new RowBytes();
+  let inFlight: Promise<void> | undefined;
+  const flush = async (): Promise<void> => {
+    const sent = Promise.resolve(emit(out.take()));
+    sent.catch(() => undefined); // a failure is thrown where it is awaited, below or at the end
+    await inFlight; // the buffer now being filled was the one of the chunk before
+    inFlight = sent;
+  };
+  out.text(`${buildListHeader(plan)}\n`);
   // positions depend on one lattice index each: format them once per index
   const perM = designUnit(plan.design.wavelengthM).perM;
   const xs = Array.from({ length: g.nx }, (_, i) => fmt((g.originXM + i * g.pitchM) * perM));
@@ -88,31 +177,30 @@ export async function emitBuildList(
     lastS[col] = t;
     return t;
   };
-  const is = Array.from({ length: g.nx }, (_, i) => String(i));
-  const js = Array.from({ length: g.ny }, (_, j) => String(j));
-  const ks = Array.from({ length: g.nz }, (_, k) => String(k));
   const degPerRad = 180 / Math.PI;
-  let chunk = "";
-  let rows = 0;
   for (let c = 0; c < g.count; c++) {
     const lv = plan.level[c];
     const gi = g.i[c], gj = g.j[c];
-    let row = `${c + 1},${is[gi]},${js[gj]},`;
-    if (three) row += `${ks[g.k[c]]},`;
-    row += `${xs[gi]},${ys[gj]},`;
-    if (three) row += `${zs[g.k[c]]},`;
-    row += `${num(0, plan.axisAngleRad[c] * degPerRad, 4)},${plan.region[c] + 1},${lv >= 0 ? lv + 1 : ""}`;
-    for (let k = 0; k < m; k++) row += `,${num(3 + k, plan.targets[k][c], 6)}`;
-    row += lv >= 0 ? achieved[lv] : noAchieved;
-    row += `,${num(1, plan.relError[c], 4)},${num(2, plan.quantizationError[c], 4)},${fmt(plan.zeroTargetAbsError[c], 4)}`;
-    row += lv >= 0 ? recipe[lv] : noRecipe;
-    row += `,${flagList(plan.flags[c])}\n`;
-    chunk += row;
-    if (++rows === chunkRows) {
-      await emit(chunk);
-      chunk = "";
-      rows = 0;
-    }
+    out.int(c + 1); out.byte(COMMA);
+    out.int(gi); out.byte(COMMA);
+    out.int(gj); out.byte(COMMA);
+    if (three) { out.int(g.k[c]); out.byte(COMMA); }
+    out.text(xs[gi]); out.byte(COMMA);
+    out.text(ys[gj]); out.byte(COMMA);
+    if (three) { out.text(zs[g.k[c]]); out.byte(COMMA); }
+    out.text(num(0, plan.axisAngleRad[c] * degPerRad, 4)); out.byte(COMMA);
+    out.int(plan.region[c] + 1); out.byte(COMMA);
+    if (lv >= 0) out.int(lv + 1);
+    for (let k = 0; k < m; k++) { out.byte(COMMA); out.text(num(3 + k, plan.targets[k][c], 6)); }
+    out.text(lv >= 0 ? achieved[lv] : noAchieved);
+    out.byte(COMMA); out.text(num(1, plan.relError[c], 4));
+    out.byte(COMMA); out.text(num(2, plan.quantizationError[c], 4));
+    out.byte(COMMA); out.text(fmt(plan.zeroTargetAbsError[c], 4));
+    out.text(lv >= 0 ? recipe[lv] : noRecipe);
+    out.byte(COMMA); out.text(flagList(plan.flags[c]));
+    out.byte(NEWLINE);
+    if (out.at >= BUILD_LIST_CHUNK_BYTES) await flush();
   }
-  if (chunk) await emit(chunk);
+  if (out.at > 0) await flush();
+  await inFlight;
 }
