@@ -97,8 +97,14 @@ export interface CellDesign {
   feature: SmallestFeature;
   processCheck: ProcessCheck | null;
   homogenization: HomogenizationCheck & { nMax: number };
-  /** Maxwell Garnett vs Bruggeman disagreement per axis; uncertain when above the tolerance */
+  /**
+   * Model uncertainty per axis (solved axes: the solver's error estimate; closed-form axes: the
+   * Maxwell Garnett/Bruggeman disagreement; resonant models: their standard forms' spread);
+   * uncertain when above the tolerance
+   */
   spread: { parallel: number; perpendicular: number; max: number; uncertain: boolean };
+  /** the closed-form values where an axis is solved (null for families without a solved axis) */
+  closedForm?: { parallel: Complex; perpendicular: Complex; rules: AxisPermittivity["rules"] } | null;
   resonance?: WireReport | RingReport;
   /** target reached within tolerance, process can make it, cell fine enough to homogenize */
   valid: boolean;

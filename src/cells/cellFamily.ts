@@ -23,11 +23,23 @@ export interface CellContext {
   conductivitySPerM?: number;
 }
 
+/** Where an axis value comes from: a mixing rule, a resonant model, the host, or the solved cell problem. */
+export type AxisModel = MixingRuleId | "wire-medium" | "host" | "solved-cell";
+
 export interface AxisPermittivity {
   parallel: Complex;
   perpendicular: Complex;
   /** mixing rule (or model) used along each axis */
-  rules: { parallel: MixingRuleId | "wire-medium" | "host"; perpendicular: MixingRuleId | "wire-medium" | "host" };
+  rules: { parallel: AxisModel; perpendicular: AxisModel };
+  /**
+   * Families with a solved axis (homogenize/): the closed-form values the rules give, and the
+   * relative error estimate of each axis value (solver ladder + table interpolation + first-order
+   * loss term; 0 for exact rules). `solvedError` is absent for families without a solved axis.
+   */
+  closedForm?: { parallel: Complex; perpendicular: Complex; rules: { parallel: AxisModel; perpendicular: AxisModel } };
+  solvedError?: { parallel: number; perpendicular: number };
+  /** the solved table does not cover this cell (near touching, contrast out of range): closed form used */
+  unsolved?: string;
 }
 
 /**

@@ -14,6 +14,7 @@
  * (when given) can make it, and the cell is not too coarse ("refuse"); a "warn" homogenization and
  * a spread above the tolerance are notes, not failures.
  */
+import { cAbs, cSub } from "../core/complex.js";
 import { ProgrammerError } from "../core/errors.js";
 import type { Axis, CellFamily, FillResult } from "./cellFamily.js";
 import { homogenizationFor, homogenizationNote, matchError, processCheckFor, shapedPhases } from "./cellChecks.js";
@@ -115,7 +116,19 @@ function designMixedCell(req: CellDesignRequest, family: CellFamily): CellDesign
   else if (homogenization.status === "warn") notes.push(homogenizationNote(homogenization));
   const s = cellSpread(e, host.eps, inclusion.eps, fill);
   const uncertain = s.max > tolerance;
-  if (uncertain) notes.push(`Maxwell Garnett and Bruggeman differ by ${pct(s.max)} at fill ${fmt(fill)}: verify with a full-wave unit-cell simulation`);
+  const solvedAxes = AXES.filter((a) => e.rules[a] === "solved-cell");
+  if (e.unsolved) notes.push(`not covered by the solved cell problem (${e.unsolved}): closed form used`);
+  if (uncertain) {
+    notes.push(solvedAxes.length && !e.unsolved
+      ? `the solved cell's error estimate ${pct(s.max)} exceeds the tolerance at fill ${fmt(fill)}: verify with a full-wave unit-cell simulation`
+      : `Maxwell Garnett and Bruggeman differ by ${pct(s.max)} at fill ${fmt(fill)}: verify with a full-wave unit-cell simulation`);
+  }
+  for (const a of solvedAxes) {
+    const c = e.closedForm?.[a];
+    if (!c) continue;
+    const d = cAbs(cSub(c, e[a])) / cAbs(e[a]);
+    if (d > tolerance) notes.push(`${a}: the closed form (${e.closedForm!.rules[a]}) gives ${fmt(c.re)}, ${pct(d)} off the solved ${fmt(e[a].re)}; the solved value is used`);
+  }
 
   return {
     familyId: family.id,
@@ -135,6 +148,7 @@ function designMixedCell(req: CellDesignRequest, family: CellFamily): CellDesign
     processCheck,
     homogenization,
     spread: { ...s, uncertain },
+    closedForm: e.closedForm ? { parallel: e.closedForm.parallel, perpendicular: e.closedForm.perpendicular, rules: e.closedForm.rules } : null,
     valid: reasons.length === 0,
     reasons,
     notes,

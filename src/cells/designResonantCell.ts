@@ -16,7 +16,8 @@ import { passivityBandwidthBound } from "./passivity.js";
 import { EPS0 } from "./physicalConstants.js";
 import { printedDefaultSizeM, printedMeanRadiusM, printedOuterRadiusM } from "./printedRing.js";
 import { defaultRingStyle, designSplitRing, splitRingBandwidth, splitRingResponse, type SplitRingGeometry, type SplitRingResponse } from "./splitRing.js";
-import { MIN_RADIUS_RATIO, bandwidthWithinTolerance, radiusForTarget, wireMediumResponse } from "./wireMedium.js";
+import { cellAreaM2 } from "./lattice.js";
+import { MIN_RADIUS_RATIO, wireTableMaxRatio, bandwidthWithinTolerance, radiusForTarget, wireMediumResponse } from "./wireMedium.js";
 
 const DEFAULT_TOLERANCE = 0.05;
 const fmt = (x: number): string => Number(x.toPrecision(4)).toString();
@@ -72,20 +73,21 @@ function designWireCell(req: CellDesignRequest, family: CellFamily): CellDesign 
   const target = { ...(req.target ?? {}) };
   const reasons: string[] = [];
   const notes: string[] = [];
-  const reAt = (r: number) => wireMediumResponse({ pitchM, radiusM: r, frequencyHz, hostEps: host.eps, conductivitySPerM: sigma }).eps;
+  const lattice = req.lattice === "hex" ? "hex" : "square";
+  const reAt = (r: number) => wireMediumResponse({ pitchM, radiusM: r, frequencyHz, hostEps: host.eps, conductivitySPerM: sigma, lattice }).eps;
   let radiusM: number;
-  if (req.fill !== undefined) radiusM = pitchM * Math.sqrt(req.fill / Math.PI);
+  if (req.fill !== undefined) radiusM = Math.sqrt((req.fill * cellAreaM2(pitchM, lattice)) / Math.PI);
   else if (target.parallel !== undefined) {
-    const r = radiusForTarget(target.parallel, pitchM, frequencyHz, host.eps, sigma);
+    const r = radiusForTarget(target.parallel, pitchM, frequencyHz, host.eps, sigma, lattice);
     if (Number.isFinite(r.radiusM)) radiusM = r.radiusM;
     else {
       reasons.push(r.reason ?? `ε' = ${target.parallel} out of reach`);
-      const ends = [MIN_RADIUS_RATIO * pitchM, (pitchM / 2) * (1 - 1e-9)];
+      const ends = [MIN_RADIUS_RATIO * pitchM, wireTableMaxRatio(lattice) * pitchM];
       radiusM = ends.reduce((b, x) => (matchError(reAt(x), target.parallel!) < matchError(reAt(b), target.parallel!) ? x : b));
     }
   } else throw new ProgrammerError("designCell: wire-medium needs target.parallel or a fill", req);
 
-  const resp = wireMediumResponse({ pitchM, radiusM, frequencyHz, hostEps: host.eps, conductivitySPerM: sigma });
+  const resp = wireMediumResponse({ pitchM, radiusM, frequencyHz, hostEps: host.eps, conductivitySPerM: sigma, lattice });
   const fill = resp.fill;
   const perp = getMixingRule("mg-cylinder").forward(host.eps, req.inclusion.eps, Math.min(fill, Math.PI / 4));
   const achieved = { parallel: resp.eps, perpendicular: perp, mu: ONE };
@@ -97,10 +99,11 @@ function designWireCell(req: CellDesignRequest, family: CellFamily): CellDesign 
   }
   const bandTarget = target.parallel ?? resp.eps.re;
   const tolAbs = toleranceAbs(tolerance, bandTarget);
-  const band = bandwidthWithinTolerance({ pitchM, radiusM, frequencyHz, hostEps: host.eps, conductivitySPerM: sigma }, bandTarget, tolAbs);
+  const band = bandwidthWithinTolerance({ pitchM, radiusM, frequencyHz, hostEps: host.eps, conductivitySPerM: sigma, lattice }, bandTarget, tolAbs);
   const passivity = passivityBandwidthBound(bandTarget, tolAbs);
   const w = 2 * Math.PI * frequencyHz;
-  if (!resp.plasma.thinWireApplies) notes.push(`thick wires (r/a = ${fmt(radiusM / pitchM)}): the thin-wire formula is off by ${pct(Math.abs(resp.plasma.thinWireRelDiff))}; the thick-wire form is used`);
+  if (resp.plasma.used !== "lattice") reasons.push(`wires of radius ${fmt(radiusM / pitchM)}·pitch are beyond the solved lattice range (r/a ≤ ${wireTableMaxRatio(lattice)}); the thick-wire form is only an estimate there`);
+  else if (!resp.plasma.thinWireApplies) notes.push(`thick wires (r/a = ${fmt(radiusM / pitchM)}): the thin-wire formula is off by ${pct(Math.abs(resp.plasma.thinWireRelDiff))}; the lattice value is used`);
   if (sigma / (w * EPS0) < 100) notes.push(`the metal is not a good conductor at this frequency (σ/ωε₀ = ${fmt(sigma / (w * EPS0))}); the wire model assumes one`);
   if (resp.gammaRadPerS > 0.1 * w) notes.push(`strong damping (γ/ω = ${fmt(resp.gammaRadPerS / w)}): thin wires of this metal are lossy`);
   const report: WireReport = {

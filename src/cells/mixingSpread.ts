@@ -32,9 +32,13 @@ export interface CellSpread {
   max: number;
 }
 
-/** Spread on both axes of a family's effective permittivity. */
+/**
+ * Model uncertainty on both axes of a family's effective permittivity: the solver's error estimate
+ * on a solved axis, the MG/Bruggeman spread on a closed-form axis.
+ */
 export function cellSpread(eff: AxisPermittivity, host: Complex, inclusion: Complex, fill: number): CellSpread {
-  const parallel = axisSpread(eff.rules.parallel, host, inclusion, fill);
-  const perpendicular = axisSpread(eff.rules.perpendicular, host, inclusion, fill);
+  const one = (axis: "parallel" | "perpendicular") => (eff.rules[axis] === "solved-cell" ? eff.solvedError?.[axis] ?? 0 : axisSpread(eff.rules[axis], host, inclusion, fill));
+  const parallel = one("parallel");
+  const perpendicular = one("perpendicular");
   return { parallel, perpendicular, max: Math.max(parallel, perpendicular) };
 }

@@ -9,10 +9,13 @@
  *                                                         (2002) — constant from memory
  *   thick wire   kp² = 2π/(a² ln(a²/(4r(a−r))))          Maslovski, Tretyakov, Belov, MOTL 35, 47
  *                                                         (2002) — form from memory
- * The thick-wire form is the one used for ε: it reduces to the corrected thin-wire form (up to a
- * 0.08 difference in the logarithm) for r ≪ a and stays finite up to touching wires. The thin-wire
- * form drops an O(1) constant in the logarithm and is reported for comparison; it is taken as
- * applicable when r/a ≤ 0.01 (ln(a/r) ≥ 4.6, common practice for "thin").
+ *   lattice      the lowest TM band at Γ of the wire lattice, solved (wireCutoff/wireLatticeCutoff.ts)
+ * The lattice value is the one used for ε (square lattice up to r/a = 0.3, hexagonal up to 0.2;
+ * error in ω_p ≤ 3·10⁻⁵ up to r/a = 0.2, 3·10⁻³ at 0.3). The closed forms are reported beside it as documented limits: the thick-wire
+ * form lies 1.7 % (r/a = 0.01) to 10 % (r/a = 0.2) above the lattice value; the corrected form is
+ * its static thin-wire limit (0.25 % above it at r/a = 0.001). The thin-wire form drops an O(1)
+ * constant in the logarithm; it is taken as applicable when r/a ≤ 0.01 (common practice).
+ * Beyond that range no value is solved: the thick-wire form is reported and the design is refused.
  * Damping from the wire resistance per length R' = 1/(σA) over the inductance per length
  * L' = 1/(ε₀a²ωp²): γ = ε₀a²ωp²/(σA), A = πr² at DC (Pendry 1998: γ = ε₀a²ωp²/(πr²σ)), the skin
  * shell when δ < r. γ is evaluated at the design frequency and held fixed across the band.
@@ -22,6 +25,8 @@ import type { Complex } from "../core/complex.js";
 import { C0, EPS0 } from "./physicalConstants.js";
 import { skinDepthM, wireConductingAreaM2 } from "./skinDepth.js";
 import { toleranceBand, type ToleranceBand } from "./toleranceBand.js";
+import { wireCutoffKpA, wireTableMaxRatio } from "./wireCutoff/wireLatticeCutoff.js";
+import type { WireLattice } from "./wireCutoff/latticeSums.js";
 
 export const THIN_WIRE_LIMIT = 0.01;
 const TWO_PI = 2 * Math.PI;
@@ -56,31 +61,44 @@ export function radiusForThickWirePlasma(pitchM: number, plasmaHz: number): numb
   return (pitchM * (e / (1 + Math.sqrt(1 - e)))) / 2;
 }
 
+/** Lattice (exact) plasma frequency, Hz, of wires r on `lattice` at pitch a; NaN beyond wireTableMaxRatio. */
+export function latticeWirePlasmaHz(pitchM: number, radiusM: number, lattice: WireLattice = "square"): number {
+  const kpA = wireCutoffKpA(lattice, radiusM / pitchM);
+  return Number.isFinite(kpA) ? (C0 * kpA) / (TWO_PI * pitchM) : NaN;
+}
+
+export { wireTableMaxRatio, wireCutoffError } from "./wireCutoff/wireLatticeCutoff.js";
+
 export interface WirePlasma {
   thinWireHz: number;
   correctedHz: number;
   thickWireHz: number;
-  /** the value used for ε (thick-wire form) */
+  /** the lattice value (lowest TM band at Γ), NaN beyond wireTableMaxRatio (0.3 square, 0.2 hex) */
+  latticeHz: number;
+  /** the value used for ε: the lattice value, or the thick-wire form where none is solved */
   usedHz: number;
-  used: "thick-wire";
+  used: "lattice" | "thick-wire";
   /** r/a ≤ 0.01: the thin-wire formula's assumption holds */
   thinWireApplies: boolean;
   /** (thin − used)/used: how far the thin-wire formula is off */
   thinWireRelDiff: number;
 }
 
-/** All three plasma-frequency estimates for wires of radius r at pitch a. */
-export function wirePlasma(pitchM: number, radiusM: number): WirePlasma {
+/** The lattice plasma frequency and the closed-form estimates for wires of radius r at pitch a. */
+export function wirePlasma(pitchM: number, radiusM: number, lattice: WireLattice = "square"): WirePlasma {
   const thin = thinWirePlasmaHz(pitchM, radiusM);
   const thick = thickWirePlasmaHz(pitchM, radiusM);
+  const exact = latticeWirePlasmaHz(pitchM, radiusM, lattice);
+  const used = Number.isFinite(exact) ? exact : thick;
   return {
     thinWireHz: thin,
     correctedHz: correctedWirePlasmaHz(pitchM, radiusM),
     thickWireHz: thick,
-    usedHz: thick,
-    used: "thick-wire",
+    latticeHz: exact,
+    usedHz: used,
+    used: Number.isFinite(exact) ? "lattice" : "thick-wire",
     thinWireApplies: radiusM / pitchM <= THIN_WIRE_LIMIT,
-    thinWireRelDiff: (thin - thick) / thick,
+    thinWireRelDiff: (thin - used) / used,
   };
 }
 
@@ -107,6 +125,8 @@ export interface WireMediumInput {
   hostEps: Complex;
   /** metal DC conductivity, S/m (Infinity: perfect conductor) */
   conductivitySPerM: number;
+  /** wire lattice (default square) */
+  lattice?: WireLattice;
 }
 
 export interface WireMediumResponse {
@@ -124,7 +144,7 @@ export interface WireMediumResponse {
 /** ε along the wires at the design frequency, with the plasma estimates and the damping. */
 export function wireMediumResponse(input: WireMediumInput): WireMediumResponse {
   const { pitchM, radiusM, frequencyHz, hostEps, conductivitySPerM } = input;
-  const plasma = wirePlasma(pitchM, radiusM);
+  const plasma = wirePlasma(pitchM, radiusM, input.lattice ?? "square");
   const gamma = wireDampingRadPerS(pitchM, radiusM, plasma.usedHz, conductivitySPerM, frequencyHz);
   return {
     plasma,
@@ -132,7 +152,7 @@ export function wireMediumResponse(input: WireMediumInput): WireMediumResponse {
     gammaRadPerS: gamma,
     skinDepthM: conductivitySPerM === Infinity ? 0 : skinDepthM(conductivitySPerM, frequencyHz),
     eps: drudeEps(hostEps, plasma.usedHz, gamma, frequencyHz),
-    fill: (Math.PI * radiusM * radiusM) / (pitchM * pitchM),
+    fill: (Math.PI * radiusM * radiusM) / (input.lattice === "hex" ? (Math.sqrt(3) / 2) * pitchM * pitchM : pitchM * pitchM),
   };
 }
 
@@ -150,18 +170,19 @@ export const MIN_RADIUS_RATIO = 1e-7;
 
 /**
  * Wire radius whose Re ε at the design frequency equals targetEps (< Re ε_h). Bisection in ln r
- * over [1e-7·a, a/2): Re ε falls monotonically as the wires thicken (ωp rises, γ falls).
- * Example: radiusForTarget(0.5, 5e-3, 10e9, {re:1,im:0}, Infinity).radiusM ≈ 1.3e-8 (lossless:
- * ε = 0.5 needs f_p = 7.07 GHz, and with the thick-wire form that is a 13 nm wire in 5 mm cells).
+ * over [1e-7·a, wireTableMaxRatio·a] (the solved lattice range): Re ε falls monotonically as the wires thicken
+ * (ωp rises, γ falls).
+ * Example: radiusForTarget(0.5, 5e-3, 10e9, {re:1,im:0}, Infinity).radiusM ≈ 8e-9 (lossless:
+ * ε = 0.5 needs f_p = 7.07 GHz, a wire of a few nm in 5 mm cells by the lattice value).
  */
-export function radiusForTarget(targetEps: number, pitchM: number, frequencyHz: number, hostEps: Complex, conductivitySPerM: number): RadiusResult {
-  const reEps = (r: number): number => wireMediumResponse({ pitchM, radiusM: r, frequencyHz, hostEps, conductivitySPerM }).eps.re;
+export function radiusForTarget(targetEps: number, pitchM: number, frequencyHz: number, hostEps: Complex, conductivitySPerM: number, lattice: WireLattice = "square"): RadiusResult {
+  const reEps = (r: number): number => wireMediumResponse({ pitchM, radiusM: r, frequencyHz, hostEps, conductivitySPerM, lattice }).eps.re;
   const rLo = MIN_RADIUS_RATIO * pitchM;
-  const rHi = (pitchM / 2) * (1 - 1e-9);
+  const rHi = wireTableMaxRatio(lattice) * pitchM;
   const none = (reason: string): RadiusResult => ({ radiusM: NaN, achieved: { re: NaN, im: NaN }, converged: false, iterations: 0, reason });
   if (!(targetEps < hostEps.re)) return none(`a wire medium lowers ε below the host's ${hostEps.re}; target ${targetEps} is not below it`);
   if (reEps(rLo) < targetEps) return none(`ε' = ${targetEps} needs wires thinner than ${MIN_RADIUS_RATIO}·pitch (ε' ≥ ${reEps(rLo).toPrecision(4)} is the reach at this pitch and frequency; use a smaller pitch)`);
-  if (reEps(rHi) > targetEps) return none(`ε' = ${targetEps} is below the reach of touching wires (${reEps(rHi).toPrecision(4)}); use a larger pitch`);
+  if (reEps(rHi) > targetEps) return none(`ε' = ${targetEps} is below the reach of wires of radius ${wireTableMaxRatio(lattice)}·pitch, the thickest solved (${reEps(rHi).toPrecision(4)}); use a larger pitch`);
   let lo = Math.log(rLo);
   let hi = Math.log(rHi);
   let k = 0;
@@ -171,7 +192,7 @@ export function radiusForTarget(targetEps: number, pitchM: number, frequencyHz: 
     else hi = m;
   }
   const r = Math.exp(0.5 * (lo + hi));
-  const achieved = wireMediumResponse({ pitchM, radiusM: r, frequencyHz, hostEps, conductivitySPerM }).eps;
+  const achieved = wireMediumResponse({ pitchM, radiusM: r, frequencyHz, hostEps, conductivitySPerM, lattice }).eps;
   return { radiusM: r, achieved, converged: Math.abs(achieved.re - targetEps) <= 1e-9 * Math.max(1, Math.abs(targetEps)), iterations: k };
 }
 

@@ -9,7 +9,7 @@ export const FLAGS = [
   { name: "unreachable", meaning: "the target lies outside the bounds of every allowed material pair" },
   { name: "undersize", meaning: "a recipe needs a feature or gap below the process limit" },
   { name: "coarse", meaning: "the pitch is above λ/10 in the cell's densest material (refused beyond λ/4)" },
-  { name: "uncertain", meaning: "Maxwell Garnett and Bruggeman disagree by more than the tolerance: verify with a full-wave unit-cell simulation" },
+  { name: "uncertain", meaning: "the cell model's own uncertainty exceeds the tolerance (solved cell not converged, or no solved model covers the cell and the closed forms disagree, or the resonant model's standard forms disagree): verify with a full-wave unit-cell simulation" },
   { name: "capped", meaning: "the target was capped or offset at a singularity of the map" },
   { name: "norecipe", meaning: "no allowed material, family and lattice reaches the target" },
   { name: "inexact", meaning: "the achieved value is off the cell's target by more than the tolerance" },

@@ -37,6 +37,19 @@ export interface PlanSettings {
   lossBudgetDb: number | null;
   /** fractional bandwidth the device must work over; null = not checked */
   bandwidth: number | null;
+  /** the layer the device is made in (realization.layer); null = bulk materials */
+  layer?: LayerSetting | null;
+}
+
+export type { LayerReport } from "../cells/slab/layerHost.js";
+import type { LayerReport } from "../cells/slab/layerHost.js";
+
+/** realization.layer, SI. */
+export interface LayerSetting {
+  coreId: string;
+  thicknessM: number;
+  belowId: string;
+  aboveId: string;
 }
 
 /** A partial PlanSettings overriding what the design says (command-line options, session edits). */
@@ -95,7 +108,7 @@ export interface Recipe {
   lossTangent: number;
   /** imaginary part of the effective index at the design frequency */
   indexIm: number;
-  /** Maxwell Garnett – Bruggeman spread, relative */
+  /** relative model uncertainty: solved-cell error estimate, MG/Bruggeman spread where no solved model applies, resonant models' spread */
   spread: number;
   /** fractional bandwidth where the target stays within tolerance (resonant families), else null */
   bandwidth: number | null;
@@ -230,6 +243,8 @@ export interface Plan {
   remedies: RemedyResult | null;
   /** warnings for the report and stderr */
   warnings: string[];
+  /** the declared layer's mode (realization.layer), or null for bulk materials */
+  layer?: LayerReport | null;
 }
 
 /** One requirement the plan misses: its figure and the limit it should meet. */

@@ -16,7 +16,7 @@ export interface SettingsSource {
 /**
  * Resolve the settings. Defaults: polarization Ez, scheme full, unit axis larger, background index
  * 1, levels as the tolerance allows, tolerance 0.05 (common practice for a first build), every
- * material, family and lattice, no process, maxAnisotropy 10, no loss or bandwidth check.
+ * material, family and lattice, no process, maxAnisotropy 10, no loss or bandwidth check, no layer.
  */
 export function resolveSettings(design: SettingsSource, overrides: PlanOverrides = {}): PlanSettings {
   const red = design.reduction;
@@ -35,6 +35,7 @@ export function resolveSettings(design: SettingsSource, overrides: PlanOverrides
     maxAnisotropy: rz.maxAnisotropy ?? DEFAULT_MAX_ANISOTROPY,
     lossBudgetDb: rz.lossBudgetDb ?? null,
     bandwidth: rz.bandwidth ?? null,
+    layer: rz.layer ? { coreId: rz.layer.core, thicknessM: rz.layer.thickness, belowId: rz.layer.below, aboveId: rz.layer.above } : null,
   };
   const out = { ...base };
   for (const [k, v] of Object.entries(overrides)) {

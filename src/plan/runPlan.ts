@@ -12,6 +12,7 @@ import { CELL_FAMILIES } from "../cells/registry.js";
 import type { Process } from "../cells/process.js";
 import type { TensorField } from "../field/tensorField.js";
 import { evaluateMaterial, type Material } from "../media/material.js";
+import { layerReport, type LayerReport } from "../cells/slab/layerHost.js";
 import { reduceField } from "../reduce/reduceField.js";
 import { FLAG_CAPPED, FLAG_UNDEFINED } from "../reduce/reducedField.js";
 import { schemeSummary } from "../reduce/schemeMetrics.js";
@@ -21,7 +22,7 @@ import { chooseRecipes } from "./match/chooseRecipes.js";
 import { levelCandidates, type Candidate } from "./match/levelCandidates.js";
 import type { EvaluatedMaterial, MatchContext } from "./match/matchContext.js";
 import { planFiguresFor } from "./planFiguresFor.js";
-import { MAX_LEVELS, type Plan, type PlanLevel, type PlanOverrides, type PlanProgress, type TargetComponent } from "./planTypes.js";
+import { MAX_LEVELS, type LayerSetting, type Plan, type PlanLevel, type PlanOverrides, type PlanProgress, type TargetComponent } from "./planTypes.js";
 import { isConstant, quantizeTargets } from "./quantize/quantizeTargets.js";
 import { reductionNotes } from "./reductionNotes.js";
 import { resolveSettings, type SettingsSource } from "./resolveSettings.js";
@@ -67,6 +68,13 @@ function checkIds(design: PlanDesign, s: ReturnType<typeof resolveSettings>, cat
   (s.families ?? []).forEach((id, k) => {
     if (!famIds.includes(id)) issues.push({ where: at(`families[${k}]`), message: unknownWithSuggestion("cell family", id, famIds) });
   });
+  if (s.layer) {
+    const l = s.layer;
+    for (const [key, id] of [["core", l.coreId], ["below", l.belowId], ["above", l.aboveId]] as const) {
+      if (!matIds.includes(id)) issues.push({ where: at(`layer.${key}`), message: unknownWithSuggestion("material", id, matIds) });
+    }
+    if (s.materials !== null && !s.materials.includes(l.coreId)) issues.push({ where: at("layer.core"), message: `the layer's core '${l.coreId}' must be one of the allowed materials (${s.materials.join(", ")})` });
+  }
   if (s.process !== null && !catalogs.processes.some((p) => p.id === s.process)) {
     issues.push({ where: at("process"), message: unknownWithSuggestion("process", s.process, catalogs.processes.map((p) => p.id)) });
   }
@@ -158,7 +166,9 @@ export function planFromField(
   const { region, regions } = findRegions(grid, level);
 
   // 4. matching, per level
-  const materials = evaluateMaterials(catalogs.materials, settings.materials, f);
+  const evaluated = evaluateMaterials(catalogs.materials, settings.materials, f);
+  const layer = settings.layer ? layerFor(settings.layer, settings.polarization, catalogs.materials, f) : null;
+  const materials = layer ? evaluated.map((m) => (m.material.id === settings.layer!.coreId ? { ...m, eps: layer.coreEps } : m)) : evaluated;
   const families = CELL_FAMILIES.filter((fam) => settings.families === null || settings.families.includes(fam.id));
   const ctx: MatchContext = {
     polarization: settings.polarization,
@@ -240,10 +250,20 @@ export function planFromField(
     verdict,
     minBackgroundIndex: summary.cellsEpsBelowFloor > 0 && Number.isFinite(summary.minBackgroundIndex) ? summary.minBackgroundIndex : null,
     remedies: null,
-    warnings,
+    warnings: layer ? [...layer.warnings, ...warnings] : warnings,
+    layer,
   };
   onProgress?.("figures", 1);
   return plan;
+}
+
+/** The declared layer's mode at the design frequency (the ids were checked by checkIds). */
+function layerFor(l: LayerSetting, polarization: "Ez" | "Hz", catalog: readonly Material[], frequencyHz: number): LayerReport {
+  const phase = (id: string) => {
+    const m = catalog.find((x) => x.id === id)!;
+    return { id, eps: evaluateMaterial(m, frequencyHz).eps, isMetal: m.class === "metal" };
+  };
+  return layerReport({ core: phase(l.coreId), thicknessM: l.thicknessM, below: phase(l.belowId), above: phase(l.aboveId), frequencyHz, polarization });
 }
 
 /** Largest finite entry (NaN when none). */

@@ -12,11 +12,18 @@ const copper: CellPhase = { id: "copper", eps: complex(1, 1e8), class: "metal", 
 const ebl: Process = { id: "ebl", name: "electron-beam lithography", minFeatureM: 20e-9, minGapM: 20e-9, maxAspectRatio: 10, materialClasses: ["semiconductor"], source: "common practice" };
 
 describe("designCell, mixing families", () => {
-  it("rods for an in-plane target: fill from Maxwell Garnett cylinders, radius from the fill", () => {
+  it("rods for an in-plane target: fill from the solved cell, radius from the fill, closed form beside it", () => {
     const d = designCell({ familyId: "rods-in-host", lattice: "square", pitchM: 0.8e-3, frequencyHz: 10e9, host: air, inclusion: alumina, target: { perpendicular: 2 } });
-    // MG cylinders solved for f: f = (ε−ε_h)(ε_i+ε_h)/((ε+ε_h)(ε_i−ε_h)) with real parts (Sihvola 1999)
-    const f = ((2 - 1) * (9.6 + 1)) / ((2 + 1) * (9.6 - 1));
-    expectClose(d.fill!, f, { rel: 1e-3 });
+    // the solved fill reproduces the square-array closed form of Perrins, McKenzie & McPhedran
+    // (Proc. R. Soc. A 369, 207 (1979)) within the solver's stated error
+    const T = (1 + 9.6) / (1 - 9.6);
+    const f = d.fill!;
+    const perrins = 1 - (2 * f) / (T + f - (0.305827 * f ** 4 * T) / (T * T - 1.402958 * f ** 8) - (0.013362 * f ** 8) / T);
+    expectClose(perrins, 2, { rel: 2e-3 });
+    // MG cylinders at that fill (Sihvola 1999) is the closed form reported beside it
+    const beta = (9.6 - 1) / (9.6 + 1);
+    expectClose(d.closedForm!.perpendicular.re, (1 + f * beta) / (1 - f * beta), { rel: 1e-6 }); // real-part formula; the loss moves Re ε by ~1e-8
+    expect(d.rules.perpendicular).toBe("solved-cell");
     expectClose(d.dimensions.radiusM, 0.8e-3 * Math.sqrt(d.fill! / Math.PI), { rel: 1e-12 });
     expectClose(d.achieved.perpendicular.re, 2, { rel: 1e-9 });
     expect(d.valid).toBe(true);

@@ -5,7 +5,8 @@
  * Maxwell Garnett for cylinders with the slab as host: for a hole phase of lower ε this is the
  * upper Hashin–Shtrikman bound (Milton 2002), suited to isolated holes.
  */
-import { mixingFamily, type MixingFamilySpec } from "./mixingFamily.js";
+import type { MixingFamilySpec } from "./mixingFamily.js";
+import { solvedCircleFamily } from "./solvedCircleFamily.js";
 import { circleLattice } from "./rodsInHost.js";
 
 const spec: MixingFamilySpec = {
@@ -27,4 +28,4 @@ const spec: MixingFamilySpec = {
   limitNote: (lattice) => `touching holes, ${lattice} lattice`,
 };
 
-export const holesInSlab = mixingFamily(spec);
+export const holesInSlab = solvedCircleFamily(spec);

@@ -6,7 +6,8 @@
  * mean, which is exact for a field along invariant rods (Sihvola 1999).
  */
 import { cellAreaM2, type Lattice } from "../lattice.js";
-import { mixingFamily, type MixingFamilySpec } from "./mixingFamily.js";
+import type { MixingFamilySpec } from "./mixingFamily.js";
+import { solvedCircleFamily } from "./solvedCircleFamily.js";
 
 /** Geometry shared by rods and holes: circles of radius r on a 2D lattice. */
 export const circleLattice = {
@@ -40,4 +41,4 @@ const spec: MixingFamilySpec = {
   limitNote: (lattice) => `touching rods, ${lattice} lattice`,
 };
 
-export const rodsInHost = mixingFamily(spec);
+export const rodsInHost = solvedCircleFamily(spec);

@@ -1,6 +1,21 @@
 /** The design's `realization` key: what the shop may use to build the device. */
 import { z } from "zod";
 import { closest } from "../../core/errors.js";
+import { positiveQuantity } from "./quantitySchema.js";
+
+export const LAYER_KEYS = ["core", "thickness", "below", "above"];
+
+/**
+ * The layer the device is made in: core material id, its thickness, and the materials below and
+ * above (metal on both sides: parallel plates). The planner then mixes the core's slab mode index
+ * (cells/slab/layerHost.ts).
+ */
+const layerSchema = z.strictObject({
+  core: z.string().min(1),
+  thickness: positiveQuantity("length"),
+  below: z.string().min(1),
+  above: z.string().min(1),
+});
 
 const shape = {
   /** material ids allowed (host and inclusions); default: every catalog material valid at the frequency */
@@ -18,6 +33,8 @@ const shape = {
   lossBudgetDb: z.number().nonnegative().optional(),
   /** fractional bandwidth the device must work over, e.g. 0.1 */
   bandwidth: z.number().positive().max(2).optional(),
+  /** the thin film (or plate pair) the device is made in */
+  layer: layerSchema.optional(),
 };
 
 export const REALIZATION_KEYS = Object.keys(shape);

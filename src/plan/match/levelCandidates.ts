@@ -8,14 +8,14 @@
  * rings where a permeability other than 1 is.
  */
 import { EPS0_F_PER_M } from "../../core/physicalConstants.js";
-import { complex, refractiveIndex, type Complex } from "../../core/complex.js";
+import { cAbs, complex, cSub, refractiveIndex, type Complex } from "../../core/complex.js";
 import type { CellFamily } from "../../cells/cellFamily.js";
 import type { Lattice } from "../../cells/lattice.js";
 import { checkProcess } from "../../cells/process.js";
 import { homogenizationCheck } from "../../cells/homogenization.js";
 import { designSplitRing, splitRingBandwidth } from "../../cells/splitRing.js";
 import { printedOuterRadiusM } from "../../cells/printedRing.js";
-import { bandwidthWithinTolerance } from "../../cells/wireMedium.js";
+import { bandwidthWithinTolerance, wireCutoffError } from "../../cells/wireMedium.js";
 import { largestErrors, relErr } from "../quantize/relativeError.js";
 import { solidCandidates } from "./solidCandidates.js";
 import type { Recipe } from "../planTypes.js";
@@ -152,6 +152,14 @@ function homogenization(ctx: MatchContext, phases: Complex[]): { status: "ok" | 
   return homogenizationCheck(ctx.pitchM, ctx.frequencyHz, nMax);
 }
 
+/**
+ * Relative uncertainty of a wire medium's ε from its cut-off: ε = ε_h − (ω_p/ω)², so
+ * δε = 2(δω_p/ω_p)·|ε − ε_h|, over |ε|.
+ */
+function wireUncertainty(eps: Complex, host: Complex, ratio: number): number {
+  return (2 * wireCutoffError(ratio) * Math.abs(eps.re - host.re)) / Math.max(Math.abs(eps.re), 1e-3);
+}
+
 function indexIm(eps: Complex, mu: Complex): number {
   const n = refractiveIndex(eps, mu);
   return Number.isFinite(n.im) ? Math.max(0, n.im) : 0;
@@ -192,11 +200,24 @@ function mixed(
   const dom = epsIdx[0];
   const domAxis = axisFor(family, o, comps[dom].axis);
   const ap = family.effectivePermittivity(host.eps, inc.eps, fill, lattice, context);
+  // model uncertainty per targeted axis: the solver's error estimate on a solved axis, the
+  // MG/Bruggeman spread on a closed-form axis, the cut-off's error on a wire axis
   let spread = 0;
+  const notes: string[] = [];
   for (const k of epsIdx) {
     const axis = axisFor(family, o, comps[k].axis);
-    spread = Math.max(spread, mixingSpread(ap.rules[axis], family.dimension, host.eps, inc.eps, fill));
+    const rule = ap.rules[axis];
+    const u = rule === "solved-cell" ? (ap.solvedError?.[axis] ?? 0)
+      : rule === "wire-medium" ? wireUncertainty(ap[axis], host.eps, family.dimensionsFromFill(fill, ctx.pitchM, lattice).radiusM / ctx.pitchM)
+      : mixingSpread(rule, family.dimension, host.eps, inc.eps, fill);
+    spread = Math.max(spread, Number.isFinite(u) ? u : 1);
+    const closed = ap.closedForm?.[axis];
+    if (rule === "solved-cell" && closed) {
+      const d = cAbs(cSub(closed, ap[axis])) / cAbs(ap[axis]);
+      if (d > ctx.tolerance) notes.push(`${axis}: the closed form (${ap.closedForm!.rules[axis]}) differs from the solved cell by ${Number((100 * d).toPrecision(3))} %; the solved value is used`);
+    }
   }
+  if (ap.unsolved) notes.push(`not solved (${ap.unsolved}): closed form used`);
   const eDom = domAxis === "parallel" ? ap.parallel : ap.perpendicular;
   let bandwidth: number | null = null;
   if (family.resonant) {
@@ -228,7 +249,7 @@ function mixed(
     featureM: Math.min(feature.featureM, feature.gapM > 0 ? feature.gapM : Infinity),
     resonant: family.resonant,
     score: 0,
-    notes: [],
+    notes,
     homogenization: h.status,
     orientation: family.isotropic ? null : o,
   });

@@ -1,7 +1,7 @@
 /**
  * levels.csv: one row per level with its target, its recipe and up to three runners-up.
  * Columns: level, cells, regions, target_<c>…, max_quantization_error, family, host, inclusion,
- * lattice, orientation, fill_fraction, achieved_<c>…, rel_error, <dimension>_m…, loss_tangent, mg_bruggeman_spread,
+ * lattice, orientation, fill_fraction, achieved_<c>…, rel_error, <dimension>_m…, loss_tangent, model_uncertainty,
  * bandwidth, smallest_feature_m, flags, reasons, runner_up_1, runner_up_2, runner_up_3.
  */
 import { orientationCode } from "./orientationText.js";
@@ -30,7 +30,7 @@ export function levelsCsvText(plan: Plan): string {
     ...comps.map((c) => `target_${c}`),
     "max_quantization_error", "family", "host", "inclusion", "lattice", "orientation", "fill_fraction",
     ...comps.map((c) => `achieved_${c}`),
-    "rel_error", ...dims.map((d) => unitColumn(d, unit)), "loss_tangent", "mg_bruggeman_spread", "bandwidth", `smallest_feature_${unit.suffix}`,
+    "rel_error", ...dims.map((d) => unitColumn(d, unit)), "loss_tangent", "model_uncertainty", "bandwidth", `smallest_feature_${unit.suffix}`,
     "flags", "reasons",
     ...Array.from({ length: RUNNERS_UP_SHOWN }, (_, k) => `runner_up_${k + 1}`),
   ];

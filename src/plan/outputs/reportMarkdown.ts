@@ -2,6 +2,7 @@
  * report.md: a short, readable report of a plan — design, reduction and its cost, levels,
  * flags with where they are, device-level figures, bill of materials, cautions and assumptions.
  */
+import { EFFECTIVE_INDEX_LIMITS } from "../../cells/slab/layerHost.js";
 import type { Plan } from "../planTypes.js";
 import { FLAGS } from "../flags.js";
 import { fmt } from "./csvText.js";
@@ -129,8 +130,9 @@ export function reportMarkdown(plan: Plan): string {
   L.push("");
   L.push("## Assumptions", "");
   L.push(
-    "- Each cell is replaced by a uniform effective medium computed with quasi-static mixing rules (Maxwell Garnett, Bruggeman, Wiener laminate bounds). These hold when the cell is much smaller than the wavelength inside it; the plan flags cells coarser than λ/10 in their densest material and refuses cells coarser than λ/4.",
-    "- Where Maxwell Garnett and Bruggeman disagree by more than the tolerance, the value is uncertain: verify such cells with a full-wave unit-cell simulation before building.",
+    "- Each cell is replaced by a uniform effective medium. Rods and holes on square and hexagonal lattices use the solved periodic cell problem (quasi-static; the closed forms are reported beside it where they differ by more than the tolerance); laminates use the exact Wiener means; 3D cells use the Maxwell Garnett and Bruggeman rules. These hold when the cell is much smaller than the wavelength inside it; the plan flags cells coarser than λ/10 in their densest material and refuses cells coarser than λ/4.",
+    "- A value is uncertain when its model's uncertainty exceeds the tolerance: the solved cell's error estimate (grid ladder and table interpolation), or, where no solved model covers the cell (3D cells, circles nearly touching), the Maxwell Garnett/Bruggeman spread; for wire media the error of the lattice cut-off. Verify such cells with a full-wave unit-cell simulation before building.",
+    ...(plan.layer ? [`- Layer: the core is mixed with its slab mode index ${plan.layer.modeIndex === null ? "(none guided: bulk values)" : Number(plan.layer.modeIndex.toPrecision(5))} (${plan.layer.kind === "slab" ? `${plan.layer.polarization} modes, ${plan.layer.guidedModes} guided` : `parallel plates, ${plan.layer.polarization}`}). ${plan.layer.kind === "slab" ? EFFECTIVE_INDEX_LIMITS : ""}`.trim()] : []),
     "- Resonant cells (wire media, split rings) follow simple analytic models; their bandwidth and loss are estimates to be confirmed by measurement or simulation.",
     ...(plan.levels.some((l) => l.recipe?.family === "split-ring")
       ? ["- Split-ring cells are printed rings (edge-coupled, quasi-static LC model) on boards standing in air, the boards across the ring axis; the cell's permittivity is the board/air laminate and the rings' own electric response is neglected. Neighbouring rings' coupling is not modelled."]
