@@ -114,7 +114,7 @@ function schemeReport(design: Design, s: SchemeSummary, outPath?: string): strin
   }
   lines.push(`  smallest background index with no ε below ${f(s.epsFloor)}: ${f(s.minBackgroundIndex)}`);
   lines.push(`  capped cells: ${s.capped}${s.capped ? `, e.g. ${s.cappedCells.slice(0, 3).map(where).join(", ")}` : ""}`);
-  lines.push(`  undefined cells: ${s.undefinedCells}${s.undefinedCells ? `, e.g. ${s.undefinedList.slice(0, 3).map(where).join(", ")}` : ""}`);
+  lines.push(`  cells with no reduced value: ${s.undefinedCells}${s.undefinedCells ? `, e.g. ${s.undefinedList.slice(0, 3).map(where).join(", ")}` : ""}`);
   if (s.outOfPlaneCells) lines.push(`  cells coupling the plane to z: ${s.outOfPlaneCells} (the polarizations do not separate there)`);
   if (outPath) lines.push(`  wrote ${outPath}`);
   return lines.join("\n") + "\n";

@@ -39,6 +39,7 @@ function valueAt(json: unknown, path: readonly PropertyKey[]): unknown {
 export function describeValue(value: unknown): string {
   if (Array.isArray(value)) return `an array of ${value.length}`;
   if (value !== null && typeof value === "object") return "an object";
+  if (value === undefined) return "nothing";
   const text = JSON.stringify(value) ?? String(value);
   return text.length > 60 ? `${text.slice(0, 57)}…"` : text;
 }
@@ -132,7 +133,8 @@ function toIssues(file: string, json: unknown, issue: z.core.$ZodIssue): InputIs
   const value = valueAt(json, path);
   const last = path[path.length - 1];
   const expected = typeof last === "string" ? EXPECTED[last] : undefined;
-  if (value === undefined && (issue.code === "invalid_type" || issue.code === "invalid_union")) {
+  if (value === undefined && (issue.code === "invalid_type" || issue.code === "invalid_union" || issue.code === "invalid_value")) {
+    if (issue.code === "invalid_value") return [{ where: here, message: `missing; expected one of ${issue.values.map((v) => JSON.stringify(v)).join(", ")}` }];
     return [{ where: here, message: `missing; expected ${expected ?? (issue.code === "invalid_type" ? `a ${issue.expected}` : "a value")}` }];
   }
   if (last === "kind" && path.length === 2 && path[0] === "transform") {
