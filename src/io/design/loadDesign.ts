@@ -36,6 +36,7 @@ function valueAt(json: unknown, path: readonly PropertyKey[]): unknown {
 
 /** A JSON value for a message: short, on one line, its type named when it is not a scalar. */
 export function describeValue(value: unknown): string {
+  if (value === undefined) return "nothing (the key is missing)";
   if (Array.isArray(value)) return `an array of ${value.length}`;
   if (value !== null && typeof value === "object") return "an object";
   const text = JSON.stringify(value) ?? String(value);
