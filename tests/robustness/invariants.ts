@@ -43,7 +43,7 @@ export function listFiles(dir: string, prefix = ""): string[] {
  * NaN and Infinity never belong in output. "undefined" is an English word (and a reduce flag), so
  * only its JavaScript-leak shapes count: after "=", "got" or a number, or before a unit.
  */
-const BAD_TOKEN = /\bNaN\b|-?\bInfinity\b|(=|\bgot|\d)\s*undefined\b|\bundefined\s*(m|mm|µm|nm|Hz|GHz|MHz|THz|%|deg|dB)\b|"undefined"/;
+const BAD_TOKEN = /\bNaN\b|-?\bInfinity\b|(=|\bgot|\d)[ \t]*undefined\b|\bundefined[ \t]*(m|mm|µm|nm|Hz|GHz|MHz|THz|%|deg|dB)\b|"undefined"/;
 
 /** Problems found in a text written for people or files ("" names the stream). */
 export function textProblems(name: string, text: string): string[] {

@@ -247,3 +247,14 @@ describe("memory is estimated before allocating", () => {
     expect(r.err).toMatch(/offgrid\.csv:8: x_m = 0\.0053 is off the square grid of pitch 0\.002 m/);
   });
 });
+
+describe("found by the generated cases", () => {
+  it("an empty reduction object names the missing scheme, not 'got undefined'", async () => {
+    const d = demo("field-radial-cloak.json");
+    d.reduction = {};
+    const r = await ok(["reduce", put("noscheme.json", d)]);
+    expect(r.code).toBe(1);
+    expect(r.err).toContain("$.reduction.scheme: expected one of");
+    expect(r.err).toContain("got nothing (the key is missing)");
+  });
+});

@@ -11,8 +11,8 @@ import { InputError, unknownWithSuggestion, type InputIssue } from "../../core/e
 import { TRANSFORM_KINDS } from "../../field/transforms/registry.js";
 import type { TransformSpec } from "../../field/transformSpec.js";
 import { compileExpressionMap } from "../expressionMap.js";
-import { resolveQuasiConformal, resolveLaplaceShell, type ParsedQuasiConformal, type ParsedLaplaceShell } from "./computedMapSpecs.js";
 import { findJsonProblem } from "../jsonProblem.js";
+import { resolveQuasiConformal, resolveLaplaceShell, type ParsedQuasiConformal, type ParsedLaplaceShell } from "./computedMapSpecs.js";
 import { prepareQuantities, quantitiesNeedMath, resetQuantityNeeds } from "./quantitySchema.js";
 import { designSchema, DESIGN_KEYS, BACKGROUND_KEYS, type Design } from "./designSchema.js";
 import { TRANSFORM_KEYS } from "./transformSchema.js";
@@ -37,9 +37,9 @@ function valueAt(json: unknown, path: readonly PropertyKey[]): unknown {
 
 /** A JSON value for a message: short, on one line, its type named when it is not a scalar. */
 export function describeValue(value: unknown): string {
+  if (value === undefined) return "nothing (the key is missing)";
   if (Array.isArray(value)) return `an array of ${value.length}`;
   if (value !== null && typeof value === "object") return "an object";
-  if (value === undefined) return "nothing";
   const text = JSON.stringify(value) ?? String(value);
   return text.length > 60 ? `${text.slice(0, 57)}…"` : text;
 }
@@ -133,8 +133,7 @@ function toIssues(file: string, json: unknown, issue: z.core.$ZodIssue): InputIs
   const value = valueAt(json, path);
   const last = path[path.length - 1];
   const expected = typeof last === "string" ? EXPECTED[last] : undefined;
-  if (value === undefined && (issue.code === "invalid_type" || issue.code === "invalid_union" || issue.code === "invalid_value")) {
-    if (issue.code === "invalid_value") return [{ where: here, message: `missing; expected one of ${issue.values.map((v) => JSON.stringify(v)).join(", ")}` }];
+  if (value === undefined && (issue.code === "invalid_type" || issue.code === "invalid_union")) {
     return [{ where: here, message: `missing; expected ${expected ?? (issue.code === "invalid_type" ? `a ${issue.expected}` : "a value")}` }];
   }
   if (last === "kind" && path.length === 2 && path[0] === "transform") {

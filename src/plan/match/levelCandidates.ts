@@ -172,16 +172,17 @@ function mixed(
 ): void {
   const comps = ctx.components;
   const context = { pitchM: ctx.pitchM, frequencyHz: ctx.frequencyHz, conductivitySPerM: inc.material.conductivitySPerM };
+  // resonant families need a conducting inclusion (σ, or ωε₀·Im ε): refused here as a counted
+  // reason, so that any error the family throws is a bug that reaches the user, not a skipped cell
+  if (family.resonant && !((inc.material.conductivitySPerM ?? 0) > 0 || inc.eps.im > 0)) {
+    refuse(s, `${family.id} needs a conducting inclusion`);
+    return;
+  }
   let best: { fill: number; achieved: Complex[]; err: number } | null = null;
   let lastReason = "";
   for (const k of epsIdx) {
     const axis = axisFor(family, o, comps[k].axis);
-    let r;
-    try {
-      r = family.fillForTarget(host.eps, inc.eps, target[k], axis, lattice, context);
-    } catch {
-      continue;
-    }
+    const r = family.fillForTarget(host.eps, inc.eps, target[k], axis, lattice, context);
     if (!r.inRange || !Number.isFinite(r.fill)) { lastReason = r.reason ?? "fill fraction out of range"; continue; }
     const ap = family.effectivePermittivity(host.eps, inc.eps, r.fill, lattice, context);
     const achieved = comps.map((c) => (c.kind === "eps" ? (axisFor(family, o, c.axis) === "parallel" ? ap.parallel : ap.perpendicular) : complex(1)));
