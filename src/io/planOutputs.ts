@@ -19,6 +19,8 @@ export const PLAN_OUTPUT_FILES = ["build-list.csv", "levels.csv", "report.md", "
 export interface WriteOptions {
   /** aborting stops the write and removes every temporary file */
   signal?: AbortSignal;
+  /** further files written in the same unit (layout files: GDSII, DXF), after PLAN_OUTPUT_FILES */
+  extra?: { name: string; data: string | Uint8Array }[];
 }
 
 function abortError(): Error {
@@ -55,6 +57,9 @@ async function streamTo(
     if (failure) throw failure;
   } catch (err) {
     stream.destroy();
+    // wait until the file is really closed: a stream destroyed before its file opened would
+    // otherwise create it after the caller removed the temporary files
+    await new Promise<void>((res) => { if (stream.closed) res(); else stream.once("close", () => res()); });
     throw err;
   }
 }
@@ -68,8 +73,10 @@ export async function writePlanOutputs(plan: Plan, dir: string, options: WriteOp
   const folder = resolve(dir);
   await fs.mkdir(folder, { recursive: true });
   const tag = `${process.pid}.${randomBytes(4).toString("hex")}`;
-  const finals = PLAN_OUTPUT_FILES.map((name) => join(folder, name));
-  const temps = PLAN_OUTPUT_FILES.map((name) => join(folder, `.${name}.${tag}.tmp`));
+  const extra = options.extra ?? [];
+  const names = [...PLAN_OUTPUT_FILES, ...extra.map((e) => e.name)];
+  const finals = names.map((name) => join(folder, name));
+  const temps = names.map((name) => join(folder, `.${name}.${tag}.tmp`));
   // a final name taken by a folder would fail the renames half-way: refuse before writing anything
   for (const f of finals) {
     const st = await fs.stat(f).catch(() => null);
@@ -78,10 +85,10 @@ export async function writePlanOutputs(plan: Plan, dir: string, options: WriteOp
   try {
     if (signal?.aborted) throw abortError();
     await streamTo(temps[0], (write) => emitBuildList(plan, write), signal);
-    const texts = [levelsCsvText(plan), reportMarkdown(plan), mapsSvg(plan), `${JSON.stringify(planSummary(plan, finals), null, 2)}\n`];
+    const texts: (string | Uint8Array)[] = [levelsCsvText(plan), reportMarkdown(plan), mapsSvg(plan), `${JSON.stringify(planSummary(plan, finals), null, 2)}\n`, ...extra.map((e) => e.data)];
     for (let k = 0; k < texts.length; k++) {
       if (signal?.aborted) throw abortError();
-      await fs.writeFile(temps[k + 1], texts[k], "utf8");
+      await fs.writeFile(temps[k + 1], texts[k], typeof texts[k] === "string" ? "utf8" : undefined);
     }
     if (signal?.aborted) throw abortError();
     for (let k = 0; k < temps.length; k++) await fs.rename(temps[k], finals[k]);
