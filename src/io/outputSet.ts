@@ -142,6 +142,9 @@ async function streamTo(path: string, file: OutputFile, signal?: AbortSignal): P
     if (failure) throw failure;
   } catch (err) {
     stream.destroy();
+    // wait until the file is really closed: a stream destroyed before its file opened would
+    // otherwise create it after the caller removed the temporary files
+    await new Promise<void>((res) => { if (stream.closed) res(); else stream.once("close", () => res()); });
     throw err;
   }
   return { name: file.name, bytes, crc32: (crc >>> 0).toString(16).padStart(8, "0") };

@@ -13,15 +13,22 @@ import { mapsSvg } from "../plan/outputs/svgMaps.js";
 import { planSummary } from "../plan/outputs/planSummary.js";
 import { MANIFEST_NAME, checkOutputFolder, prepareOutputFolder, writeOutputSet, type OutputFile, type WriteSetOptions } from "./outputSet.js";
 
-export type WriteOptions = WriteSetOptions;
+/** A further file written in the same unit (layout files: GDSII, DXF). */
+export interface ExtraOutput { name: string; data: string | Uint8Array }
+
+export interface WriteOptions extends WriteSetOptions {
+  /** further files written in the same set, before summary.json */
+  extra?: readonly ExtraOutput[];
+}
 
 /** Every file of a plan's output set except the manifest, in writing order; `finals` are the paths summary.json lists. */
-export function planOutputFiles(plan: Plan, finals: (names: string[]) => string[]): OutputFile[] {
+export function planOutputFiles(plan: Plan, finals: (names: string[]) => string[], extra: readonly ExtraOutput[] = []): OutputFile[] {
   const files: OutputFile[] = [
     { name: "build-list.csv", produce: (write) => emitBuildList(plan, write) },
     { name: "levels.csv", produce: (write) => write(levelsCsvText(plan)) },
     { name: "report.md", produce: (write) => write(reportMarkdown(plan)) },
     { name: "maps.svg", produce: (write) => write(mapsSvg(plan)) },
+    ...extra.map((e): OutputFile => ({ name: e.name, produce: (write) => write(e.data) })),
   ];
   const names = [...files.map((f) => f.name), "summary.json", MANIFEST_NAME];
   files.push({ name: "summary.json", produce: (write) => write(`${JSON.stringify(planSummary(plan, finals(names)), null, 2)}\n`) });
@@ -47,7 +54,7 @@ export async function preparePlanOutputs(dir: string): Promise<string> {
  * last). summary.json lists those paths under `outputs`.
  */
 export async function writePlanOutputs(plan: Plan, dir: string, options: WriteOptions = {}): Promise<string[]> {
-  const files = planOutputFiles(plan, (names) => names.map((n) => join(folder, n)));
+  const files = planOutputFiles(plan, (names) => names.map((n) => join(folder, n)), options.extra ?? []);
   const folder = await prepareOutputFolder(dir, files.map((f) => f.name));
   return writeOutputSet(folder, files, options);
 }

@@ -15,6 +15,10 @@ import { loadSessionFile } from "../../io/sessionFile.js";
 import { planSummary } from "../../plan/outputs/planSummary.js";
 import { planFromField } from "../../plan/runPlan.js";
 import { searchRemedies } from "../../io/planRemedies.js";
+import { planLayout } from "../../plan/layout/layoutShapes.js";
+import { layoutFormats, LAYOUT_FILE } from "../../plan/layout/layoutFormats.js";
+import { gdsiiBytes } from "../../io/layout/gdsiiWriter.js";
+import { dxfText } from "../../io/layout/dxfWriter.js";
 import type { Plan, PlanOverrides } from "../../plan/planTypes.js";
 import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
@@ -82,8 +86,22 @@ export function humanSummary(plan: Plan, outputs: string[]): string {
   return lines.join("\n") + "\n";
 }
 
+/** The layout files the plan's process takes (plan/layout/layoutFormats.ts); notes go to stderr. */
+function layoutFiles(plan: Plan, io: CliIo): { name: string; data: string | Uint8Array }[] {
+  const layout = planLayout(plan);
+  const { formats, note } = layoutFormats(plan.settings.process);
+  if (note) io.stderr(`layout: ${note}\n`);
+  for (const n of layout.notDrawn) io.stderr(`layout: level ${n.level} not drawn: ${n.reason}\n`);
+  for (const n of layout.notes) io.stderr(`layout: ${n}\n`);
+  if (layout.levels.length === 0) {
+    if (formats.length) io.stderr("layout: no level has a plan-view shape; no layout file written\n");
+    return [];
+  }
+  return formats.map((f) => ({ name: LAYOUT_FILE[f], data: f === "gds" ? gdsiiBytes(layout) : dxfText(layout) }));
+}
+
 /** Load, plan and write; shared by `plan` and `start`. Returns the exit code. */
-export async function runPlanCommand(designPath: string, overrides: PlanOverrides, outDir: string, json: boolean, io: CliIo): Promise<number> {
+export async function runPlanCommand(designPath: string, overrides: PlanOverrides, outDir: string, json: boolean, io: CliIo, opts: { layout?: boolean } = {}): Promise<number> {
   const design = await loadDesign(designPath, io.cwd);
   // a folder that cannot take the outputs is refused before minutes of planning
   await preparePlanOutputs(resolve(io.cwd, outDir));
@@ -104,7 +122,7 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
   process.once("SIGTERM", onSigint);
   let outputs: string[];
   try {
-    outputs = await writePlanOutputs(plan, resolve(io.cwd, outDir), { signal: controller.signal });
+    outputs = await writePlanOutputs(plan, resolve(io.cwd, outDir), { signal: controller.signal, extra: opts.layout ? layoutFiles(plan, io) : [] });
   } catch (err) {
     if ((err as Error).name === "AbortError") { io.stderr("interrupted; no output was written\n"); return EXIT_INTERRUPTED; }
     throw err;
@@ -131,7 +149,7 @@ async function runCheck(dir: string, args: ParsedArgs, io: CliIo): Promise<numbe
 export const command: Command = {
   name: "plan",
   summary: "plan a device: levels, recipes, flags, build list, report and maps",
-  usage: "plan (<design.json> | --check DIR) [--out DIR] [--json] [--session FILE] [--levels N] [--tolerance T] [--polarization Ez|Hz] [--scheme NAME] [--background-index N]",
+  usage: "plan (<design.json> | --check DIR) [--out DIR] [--json] [--layout] [--session FILE] [--levels N] [--tolerance T] [--polarization Ez|Hz] [--scheme NAME] [--background-index N]",
   details: [
     "Reduces the design's field, quantizes the targets into levels, groups cells into regions, finds",
     "a recipe per level and writes build-list.csv, levels.csv, report.md, maps.svg and summary.json,",
@@ -141,6 +159,7 @@ export const command: Command = {
   options: [
     { name: "out", type: "string", valueName: "DIR", description: `output folder (default ./${DEFAULT_OUT_DIR})` },
     { name: "json", type: "boolean", description: "print the summary as one JSON object on stdout" },
+    { name: "layout", type: "boolean", description: "also write the layout for the fab: layout.gds (lithography) and/or layout.dxf (laser, CNC, PCB), by the process" },
     { name: "session", type: "string", valueName: "FILE", description: "take the design and overrides from a saved session file" },
     { name: "levels", type: "string", valueName: "N", description: "largest number of distinct recipes (overrides the design)" },
     { name: "tolerance", type: "string", valueName: "T", description: "largest relative error accepted, e.g. 0.03 (overrides the design)" },
@@ -168,7 +187,7 @@ export const command: Command = {
     const fromSession = overrides;
     overrides = { ...overrides, ...fromOptions };
     try {
-      return await runPlanCommand(designPath, overrides, stringOption(args, "out") ?? DEFAULT_OUT_DIR, flagOption(args, "json"), io);
+      return await runPlanCommand(designPath, overrides, stringOption(args, "out") ?? DEFAULT_OUT_DIR, flagOption(args, "json"), io, { layout: flagOption(args, "layout") });
     } catch (err) {
       // an override that came from the session file is named there ("s.json: $.overrides.materials[1]")
       if (!(err instanceof InputError) || sessionPath === undefined) throw err;
