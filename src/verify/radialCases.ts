@@ -1,0 +1,99 @@
+/**
+ * The cases of a verify run (deviceCases.ts) solved with the exact radial solver instead of the
+ * finite-difference grid, for the transforms whose tensors are r-only and diagonal in the polar
+ * basis: a radial cloak (perfect-conductor core of the inner radius, shell to the outer radius)
+ * and a concentrator (homogeneous core r < R1 sampled from the case's own scene, shell R1 … R3).
+ * Each case's scene is checked first (radialFromScene.ts); one that is not radial (a rotator, a map
+ * sampled on the design's square cells) comes back unavailable with the reason — never silently
+ * replaced. `uncertainty` is the solver's own convergence figure (tolerance ladder, order tail).
+ */
+import type { TransformSpec } from "../field/transformSpec.js";
+import { radialProblemFromScene } from "./radialFromScene.js";
+import { radialScattering, type RadialCore } from "./radialSolver.js";
+import { SAMPLE_MEDIUM, S_B, S_TXX, S_TXY, S_TYY, SAMPLE_LENGTH, type Scene } from "./scene.js";
+import type { CaseSpec } from "./verifyDevice.js";
+
+export interface RadialCaseResult {
+  name: CaseSpec["name"];
+  available: boolean;
+  reason: string | null;
+  scatteringWidthM: number | null;
+  /** σ_s / σ_s(bare) when a bare case was computed */
+  vsBare: number | null;
+  absorptionWidthM: number | null;
+  /** relative: max(tolerance-ladder change, order tail), with an absolute floor of 1e-9 of the bare width when there is one */
+  uncertainty: number | null;
+  /** bistatic width σ(φ), φ = 0 … 359° from +x (incidence along +x) */
+  bistaticM: Float64Array | null;
+}
+
+/** The geometry the radial solver needs for a transform, or why it does not apply. */
+export function radialGeometry(spec: TransformSpec): { centreM: [number, number]; coreRadiusM: number; outerRadiusM: number; pecCore: boolean } | { reason: string } {
+  if (spec.kind === "radial-cloak") return { centreM: spec.center ?? [0, 0], coreRadiusM: spec.innerRadiusM, outerRadiusM: spec.outerRadiusM, pecCore: true };
+  if (spec.kind === "concentrator") return { centreM: spec.center ?? [0, 0], coreRadiusM: spec.innerRadiusM, outerRadiusM: spec.outerRadiusM, pecCore: false };
+  if (spec.kind === "rotator") return { reason: "a rotator's tensor is not diagonal in the polar basis (it couples r and θ); use the finite-difference method" };
+  return { reason: `a ${spec.kind} is not a radial device; use the finite-difference method` };
+}
+
+/** The homogeneous core of `scene` at r < coreRadius (sampled at half the radius), or why it is not one. */
+function sampledCore(scene: Scene, centre: [number, number], coreRadiusM: number): RadialCore | string {
+  const out = new Float64Array(SAMPLE_LENGTH);
+  const values: number[][] = [];
+  for (const [fx, fy] of [[0.5, 0], [0, 0.3], [-0.2, -0.2]]) {
+    const kind = scene.sample(centre[0] + fx * coreRadiusM, centre[1] + fy * coreRadiusM, out);
+    values.push(kind === SAMPLE_MEDIUM ? [out[S_B], out[S_B + 1], out[S_TXX], out[S_TXX + 1], out[S_TYY], out[S_TYY + 1], out[S_TXY], out[S_TXY + 1]] : [kind === 0 ? -1 : -2]);
+  }
+  if (values.some((v) => v.length !== values[0].length || v.some((x, i) => Math.abs(x - values[0][i]) > 1e-9 * Math.max(1, Math.abs(x))))) return "the core is not homogeneous";
+  const v = values[0];
+  const { eps: eb, mu: mb } = scene.background;
+  let b: number, t: number;
+  if (v.length === 1) {
+    if (v[0] === -2) return { kind: "pec" };
+    [b, t] = scene.polarization === "Ez" ? [eb, mb] : [mb, eb];
+  } else {
+    if (v[1] !== 0 || v[3] !== 0 || v[5] !== 0 || v[6] !== 0 || v[2] !== v[4]) return "the core is lossy or anisotropic (the radial solver's core is an isotropic lossless medium)";
+    b = v[0]; t = v[2];
+  }
+  if (!(b > 0 && t > 0)) return "the core has a non-positive constant";
+  return scene.polarization === "Ez" ? { kind: "medium", eps: b, mu: t } : { kind: "medium", eps: t, mu: b };
+}
+
+/** Solve every case of `cases` radially (see file comment); k0 in rad/m. */
+export function radialCases(spec: TransformSpec, cases: CaseSpec[], k0: number, tolerance = 1e-9): RadialCaseResult[] {
+  const geo = radialGeometry(spec);
+  const unavailable = (name: CaseSpec["name"], reason: string): RadialCaseResult => ({ name, available: false, reason, scatteringWidthM: null, vsBare: null, absorptionWidthM: null, uncertainty: null, bistaticM: null });
+  if ("reason" in geo) return cases.map((c) => unavailable(c.name, geo.reason));
+  const results: RadialCaseResult[] = cases.map((c) => {
+    if (!c.scene) return unavailable(c.name, c.reason ?? "not computed");
+    const scene = c.scene;
+    let core: RadialCore | string;
+    if (c.name === "bare") core = { kind: "pec" };
+    else core = geo.pecCore ? { kind: "pec" } : sampledCore(scene, geo.centreM, geo.coreRadiusM);
+    if (typeof core === "string") return unavailable(c.name, core);
+    let problem;
+    if (c.name === "bare") {
+      problem = { polarization: scene.polarization, k0, background: scene.background, coreRadiusM: geo.coreRadiusM, core, shells: [], tolerance };
+    } else {
+      const p = radialProblemFromScene({ scene, centreM: geo.centreM, coreRadiusM: geo.coreRadiusM, core, outerRadiusM: geo.outerRadiusM, k0, tolerance });
+      if (!p.applies) return unavailable(c.name, `not radial: ${p.reason}; use the finite-difference method`);
+      problem = p.problem;
+    }
+    const s = radialScattering(problem);
+    return {
+      name: c.name, available: true, reason: null,
+      scatteringWidthM: s.scatteringWidthM, vsBare: null, absorptionWidthM: s.absorptionWidthM,
+      uncertainty: Math.max(s.convergence.relativeChange, s.convergence.tail),
+      bistaticM: s.patternWidthM,
+    };
+  });
+  const bare = results.find((r) => r.name === "bare" && r.available);
+  if (bare && bare.scatteringWidthM! > 0) {
+    for (const r of results) {
+      if (!r.available) continue;
+      r.vsBare = r.scatteringWidthM! / bare.scatteringWidthM!;
+      // a nearly invisible case: its relative figure cannot be better than the bare width's tolerance
+      r.uncertainty = Math.max(r.uncertainty!, Math.min(1, (1e-9 * bare.scatteringWidthM!) / Math.max(r.scatteringWidthM!, 1e-300)));
+    }
+  }
+  return results;
+}
