@@ -78,7 +78,7 @@ describe("interactive session (frames)", () => {
     await press("3");
     await waitFor(app.lastFrame, (s) => s.includes("3 levels, 3 regions"), "levels screen");
     await press("+");
-    const f = await waitFor(app.lastFrame, (s) => s.includes("levels 4 ·") && s.includes("plan up to date"), "levels 4");
+    const f = await waitFor(app.lastFrame, (s) => s.includes("levels ≤4 (3 used) ·") && s.includes("plan up to date"), "levels 4");
     expect(f).toContain("level 1:");
     expect(services.planCalls.at(-1)).toEqual({ levels: 4 });
     await press("[");

@@ -62,11 +62,11 @@ describe("session at 80 × 24", () => {
     const { app, services } = start();
     await waitFor(app.lastFrame, (s) => s.includes("plan up to date"), "first plan");
     app.stdin.write("+++"); // one terminal write: ink hands it over as one string
-    const f = await waitFor(app.lastFrame, (s) => s.includes("levels 6 ·") && s.includes("plan up to date"), "levels 3 + 3");
-    expect(f).toContain("levels 6");
+    const f = await waitFor(app.lastFrame, (s) => s.includes("levels ≤6 (3 used) ·") && s.includes("plan up to date"), "levels 3 + 3");
+    expect(f).toContain("levels ≤6 (3 used)"); // the synthetic plan has 3 levels whatever the largest count
     expect(services.planCalls.at(-1)).toEqual({ levels: 6 });
     app.stdin.write("]-\r\u001B[A\r"); // tolerance step, one level fewer, Enter, ↑, Enter (scheme above)
-    await waitFor(app.lastFrame, (s) => s.includes("levels 5 ·") && s.includes("tol 7.50 %") && s.includes("full ·") && s.includes("plan up to date"), "levels 5, 7.5 %, full");
+    await waitFor(app.lastFrame, (s) => s.includes("levels ≤5 (3 used) ·") && s.includes("tol 7.50 %") && s.includes("full ·") && s.includes("plan up to date"), "levels 5, 7.5 %, full");
     expect(services.planCalls.at(-1)).toEqual({ levels: 5, tolerance: 0.075, scheme: "full" });
   });
 
@@ -79,7 +79,7 @@ describe("session at 80 × 24", () => {
       await sleep(50);
     }
     // 8 + 5 = 13 levels; 3 % → 5 % → 7.5 % → 5 % (the tolerance steps)
-    const f = await waitFor(app.lastFrame, (s) => s.includes("levels 13 · tol 5.00 %") && s.includes("plan up to date"), "13 levels and 5 %");
+    const f = await waitFor(app.lastFrame, (s) => s.includes("levels ≤13 (3 used) · tol 5.00 %") && s.includes("plan up to date"), "13 levels and 5 %");
     expect(f).toContain("[3 Levels]");
     expect(services.planCalls.at(-1)).toEqual({ levels: 13 }); // 5 % is the design's own tolerance
   });

@@ -8,7 +8,9 @@ import { STAGE_WORDS, THEME } from "../theme.js";
 export function settingsLine(state: SessionState): string {
   const s = effectiveSettings(state);
   if (!s) return "reading the design…";
-  const levels = s.levels ?? (state.plan && !planIsStale(state) ? `${state.plan.levels.length} (auto)` : "auto");
+  // the level count is a largest number: say so when the plan needs fewer (+ then changes nothing)
+  const used = state.plan && !planIsStale(state) ? state.plan.levels.length : null;
+  const levels = s.levels === null ? (used !== null ? `${used} (auto)` : "auto") : used !== null && used < s.levels ? `≤${s.levels} (${used} used)` : String(s.levels);
   const parts = [
     s.polarization,
     s.scheme,
