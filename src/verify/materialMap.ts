@@ -43,9 +43,8 @@ export function mapFromReduced(reduced: ReducedField, background: { b: number; t
  * value, smaller and larger in-plane principal values — with the larger one along the cell's
  * principal axis (angle θ from x): T = λ1 I + (λ2 − λ1) e eᵀ, e = (cos θ, sin θ). Cells whose level
  * has no recipe are set to the background (nothing can be built there) and counted.
- * Loss: every component gets Im = Re · tan δ with the recipe's loss tangent at the design frequency
- * (the planner reports one tan δ per recipe, along its dominant component; applying it to every
- * component is the approximation made here).
+ * Loss: the recipe's achieved imaginary parts at the design frequency (the same principal-frame
+ * rotation applies to them).
  */
 export function mapFromPlan(plan: Plan, background: { b: number; t: number }): MaterialMap {
   const n = plan.grid.count;
@@ -64,8 +63,9 @@ export function mapFromPlan(plan: Plan, background: { b: number; t: number }): M
     m.txx[c] = l1 + d * co * co;
     m.tyy[c] = l1 + d * si * si;
     m.txy[c] = d * co * si;
-    const tan = Number.isFinite(recipe.lossTangent) && recipe.lossTangent > 0 ? recipe.lossTangent : 0;
-    m.bIm![c] = z * tan; m.txxIm![c] = m.txx[c] * tan; m.tyyIm![c] = m.tyy[c] * tan; m.txyIm![c] = m.txy[c] * tan;
+    const [zi, l1i, l2i] = recipe.achievedIm ?? [0, 0, 0];
+    const di = (l2i ?? 0) - (l1i ?? 0);
+    m.bIm![c] = zi ?? 0; m.txxIm![c] = (l1i ?? 0) + di * co * co; m.tyyIm![c] = (l1i ?? 0) + di * si * si; m.txyIm![c] = di * co * si;
   }
   return m;
 }

@@ -13,7 +13,8 @@ import type { FdfdGrid } from "./fdfdGrid.js";
 import { backgroundGridCoefficients, gridCoefficients, type GridCoefficients } from "./gridCoefficients.js";
 import { gridWavenumberAt, incidentField, PLANE_ALONG_X, type IncidentField, type Illumination } from "./illumination.js";
 import { pmlStretch, type PmlStretch } from "./pml.js";
-import { backgroundCoefficients, type Scene } from "./scene.js";
+import { groundConductor } from "./conductor.js";
+import { backgroundCoefficients, emptyScene, SAMPLE_PEC, type Scene } from "./scene.js";
 import { applyOperator } from "./stencil.js";
 
 export interface LinearSolution {
@@ -88,7 +89,8 @@ export interface SolveOptions {
  * system solved is L′ u_s = −(L′ ũ_inc − L_b u_inc): the background term is zero to rounding for
  * grid-exact waves, so the source lives only on and next to the scatterer.
  */
-export function solveScene(scene: Scene, g: FdfdGrid, k0: number, options: SolveOptions = {}): SceneSolution {
+export function solveScene(sceneIn: Scene, g: FdfdGrid, k0: number, options: SolveOptions = {}): SceneSolution {
+  const scene = options.groundYM === undefined ? sceneIn : withGround(sceneIn, options.groundYM);
   const { b, t } = backgroundCoefficients(scene);
   const nb = Math.sqrt(b * t);
   const kb = k0 * nb;
@@ -105,7 +107,16 @@ export function solveScene(scene: Scene, g: FdfdGrid, k0: number, options: Solve
   const fRe = new Float64Array(n), fIm = new Float64Array(n);
   const bRe = new Float64Array(n), bIm = new Float64Array(n);
   applyOperator(g, c, null, k0, zRe, zIm, fRe, fIm);
-  applyOperator(g, backgroundGridCoefficients(g, scene), null, k0, incRe, incIm, bRe, bIm);
+  if (options.groundYM === undefined) {
+    applyOperator(g, backgroundGridCoefficients(g, scene), null, k0, incRe, incIm, bRe, bIm);
+  } else {
+    // the background is the flat ground: the same treatment of its surface, so the source vanishes along it
+    const flat = gridCoefficients(g, withGround(emptyScene(scene.polarization, scene.background), options.groundYM), options.subsamples ?? 4);
+    const wRe = incRe.slice(), wIm = incIm.slice();
+    for (let id = 0; id < n; id++) if (flat.pecNode[id]) { wRe[id] = 0; wIm[id] = 0; }
+    applyOperator(g, flat, null, k0, wRe, wIm, bRe, bIm);
+    for (let id = 0; id < n; id++) if (flat.pecNode[id]) { incRe[id] = 0; incIm[id] = 0; } // u_inc is defined above the ground only
+  }
   for (let id = 0; id < n; id++) {
     if (hold[id]) { fRe[id] = 0; fIm[id] = 0; } else { fRe[id] = bRe[id] - fRe[id]; fIm[id] = bIm[id] - fIm[id]; }
   }
@@ -125,5 +136,16 @@ export function solveScene(scene: Scene, g: FdfdGrid, k0: number, options: Solve
     totalRe: totRe, totalIm: totIm,
     pivotRatio: sol.pivotRatio,
     residual: sol.residual,
+  };
+}
+
+/** `scene` standing on a perfectly conducting ground plane y < yM (added to its conductors). */
+export function withGround(scene: Scene, yM: number): Scene {
+  const ground = groundConductor(yM);
+  return {
+    ...scene,
+    bounds: { minX: -Infinity, maxX: Infinity, minY: -Infinity, maxY: Math.max(scene.bounds.maxY, yM) },
+    conductors: [...(scene.conductors ?? []), ground],
+    sample: (x, y, out) => (y < yM ? SAMPLE_PEC : scene.sample(x, y, out)),
   };
 }

@@ -1,0 +1,36 @@
+/**
+ * `npm run bench`: the time of one full `cellwright verify` of each 2D demo at the default accuracy
+ * (the grid ladder, every case, extrapolation), run in-process through the command line, median of
+ * three runs, with the rungs used and the figures' convergence. Nothing here decides pass or fail.
+ */
+import { readdirSync } from "node:fs";
+import { join } from "node:path";
+import { bufferIo } from "../cli/cliIo.js";
+import { runCli } from "../cli/run.js";
+
+const RUNS = 3;
+
+export async function verifyBench(log: (line: string) => void): Promise<void> {
+  const dir = join(import.meta.dirname, "..", "..", "demo-designs");
+  const demos = readdirSync(dir).filter((f) => f.endsWith(".json") && !f.includes("spherical")).sort();
+  for (const demo of demos) {
+    const times: number[] = [];
+    let summary = "";
+    for (let r = 0; r < RUNS; r++) {
+      const io = bufferIo(dir);
+      const t0 = process.hrtime.bigint();
+      const code = await runCli(["verify", join(dir, demo), "--json"], io);
+      times.push(Number(process.hrtime.bigint() - t0) / 1e9);
+      if (code > 2) { summary = `failed (exit ${code}): ${io.err().split("\n").filter(Boolean).pop()}`; break; }
+      try {
+        const s = JSON.parse(io.out());
+        summary = `exit ${code}, rungs ${s.resolutions.join("/")}, finest ${s.grid.nx}×${s.grid.ny}, converged ${s.converged}`;
+      } catch {
+        summary = `exit ${code}: ${io.err().split("\n").filter(Boolean).pop()}`;
+        break;
+      }
+    }
+    times.sort((a, b) => a - b);
+    log(`${demo.padEnd(36)} median ${times[Math.floor(times.length / 2)].toFixed(1)} s (${times.map((t) => t.toFixed(1)).join(", ")})  ${summary}`);
+  }
+}
