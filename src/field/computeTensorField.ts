@@ -49,7 +49,16 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     return importedField;
   }
   const file = design.sourcePath;
-  const transform = makeTransform(spec);
+  let transform: Transform;
+  try {
+    transform = makeTransform(spec);
+  } catch (err) {
+    // computed maps (field/maps) name their JSON path; the file is known here
+    if (err instanceof InputError && err.issues.every((i) => i.where.startsWith("$"))) {
+      throw new InputError(err.issues.map((i) => ({ where: `${file}: ${i.where}`, message: i.message })));
+    }
+    throw err;
+  }
   const dimension = transform.dimension === 3 && !design.grid.slice ? 3 : 2;
   const grid = buildDeviceGrid(transform.bounds, transform.contains, {
     pitchM: design.grid.pitchM, origin: design.grid.origin, dimension, where: `${file}: $.grid.pitch`,
@@ -148,5 +157,6 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     outerBoundary: transform.sampleOuterBoundary(BOUNDARY_SAMPLES),
     evaluateAt: pointEvaluator(transform, epsB, muB),
     volumeDevice: transform.dimension === 3,
+    ...(transform.computedMap ? { map: transform.computedMap } : {}),
   };
 }

@@ -4,6 +4,7 @@
  */
 import type { SymTensorField } from "../core/symTensor.js";
 import type { DeviceGrid } from "./deviceGrid.js";
+import type { ComputedMapInfo } from "./maps/computedMapInfo.js";
 
 /** A closed outer boundary sampled for reflection estimates (points just inside, outward normals). */
 export interface BoundarySamples {
@@ -48,6 +49,8 @@ export interface TensorField {
   outerBoundary: BoundarySamples | null;
   /** true when the transform is a volume (3D) device, even if only its z = 0 slice was gridded */
   volumeDevice?: boolean;
-  /** exact evaluation at any point (null for imported fields) */
+  /** exact evaluation at any point (null for imported fields); interpolated for computed maps */
   evaluateAt: PointEvaluator | null;
+  /** for computed maps: what the map solver reports (module, anisotropy, grid, residual) */
+  map?: ComputedMapInfo;
 }

@@ -84,6 +84,49 @@ export interface ExpressionSpec extends SingularityOptions {
   compiled: CompiledMap;
 }
 
+/**
+ * One side of a computed quadrilateral map, in metres. `graph`: y = f(x) for bottom/top, x = f(y)
+ * for left/right, over the virtual rectangle's span; `parametric`: (x(t), y(t)), t from 0 to 1
+ * (bottom and top run left to right, left and right bottom to top); `points`: a polyline in that
+ * direction; `straight`: the rectangle's own side. Functions are compiled at the edge
+ * (io/curveExpression.ts); `text` keeps what the user wrote, for messages.
+ */
+export type SideCurve =
+  | { kind: "straight" }
+  | { kind: "graph"; text: string; f: (s: number) => number }
+  | { kind: "parametric"; text: [string, string]; fx: (t: number) => number; fy: (t: number) => number }
+  | { kind: "points"; pointsM: [number, number][] };
+
+export type SideName = "bottom" | "right" | "top" | "left";
+
+export interface QuasiConformalSpec extends SingularityOptions {
+  kind: "quasi-conformal";
+  /** the virtual rectangle as the user gave it; the physical domain is it with sides replaced */
+  rectangle: { minM: [number, number]; maxM: [number, number] };
+  /** "module": the virtual width is set so that its aspect equals the physical conformal module */
+  fit: "none" | "module";
+  sides: Record<SideName, SideCurve>;
+  /** solver grid lines along bottom/top (nu) and along left/right (nv) */
+  nodes: [number, number];
+}
+
+/** A closed curve around `center`: r(θ) (θ from +x, radians) or a point list. */
+export type ClosedCurve =
+  | { kind: "polar"; text: string; r: (thetaRad: number) => number }
+  | { kind: "points"; pointsM: [number, number][] };
+
+export interface LaplaceShellSpec extends SingularityOptions {
+  kind: "laplace-shell";
+  center: [number, number];
+  inner: ClosedCurve;
+  outer: ClosedCurve;
+  /** virtual radius of the inner curve as a fraction of its physical radius: 0 for a cloak, > 1 for a concentrator */
+  innerScale: number;
+  /** solver grid lines around (nTheta) and across (nRadial) the shell */
+  nodes: [number, number];
+  innerOffsetM?: number;
+}
+
 export interface ImportedSpec {
   kind: "imported";
   /** absolute path of the CSV */
@@ -98,6 +141,8 @@ export type TransformSpec =
   | BeamBendSpec
   | SphericalCloakSpec
   | ExpressionSpec
+  | QuasiConformalSpec
+  | LaplaceShellSpec
   | ImportedSpec;
 
 export type TransformKind = TransformSpec["kind"];

@@ -27,7 +27,7 @@ const FUNCTIONS: Record<string, (a: string[]) => string> = {
   // checked here, then lifted out before differentiation (see `lift`)
   atan2: (a) => `Math.atan2(${a[0]}, ${a[1]})`,
 };
-const ARITY: Record<string, number> = { pow: 2, atan2: 2 };
+const ARITY: Record<string, number> = { pow: 2, atan2: 2, max: 2, min: 2 };
 const OPERATORS: Record<string, string> = { add: "+", subtract: "-", multiply: "*", divide: "/" };
 const CONSTANTS: Record<string, string> = { pi: "Math.PI", e: "Math.E", x: "x", y: "y" };
 
@@ -37,21 +37,23 @@ export const EXPRESSION_FUNCTIONS = Object.keys(FUNCTIONS).sort();
 class Unusable extends Error {}
 
 /** JavaScript for a whitelisted mathjs node; throws Unusable for anything else. */
-function toJs(node: any): string {
+function toJs(node: any, symbols: Record<string, string> = CONSTANTS, fns: Record<string, (a: string[]) => string> = FUNCTIONS): string {
+  const sub = (n: any): string => toJs(n, symbols, fns);
   switch (node.type) {
     case "ConstantNode": {
       if (typeof node.value !== "number" || !Number.isFinite(node.value)) throw new Unusable(`expected numbers, got '${String(node.value)}'`);
       return `(${String(node.value)})`;
     }
     case "SymbolNode": {
-      if (node.name in CONSTANTS) return CONSTANTS[node.name];
-      if (/^_t\d+$/.test(node.name)) return node.name.slice(1);
-      throw new Unusable(`unknown symbol '${node.name}'; expected x, y (metres), pi or e`);
+      if (node.name in symbols) return symbols[node.name];
+      if (symbols === CONSTANTS && /^_t\d+$/.test(node.name)) return node.name.slice(1);
+      const vars = Object.keys(symbols).filter((k) => k !== "pi" && k !== "e");
+      throw new Unusable(`unknown symbol '${node.name}'; expected ${vars.join(", ")}${vars.some((v) => v === "x" || v === "y") ? " (metres)" : ""}, pi or e`);
     }
     case "ParenthesisNode":
-      return `(${toJs(node.content)})`;
+      return `(${sub(node.content)})`;
     case "OperatorNode": {
-      const args: string[] = node.args.map(toJs);
+      const args: string[] = node.args.map(sub);
       if (node.fn === "unaryMinus" && args.length === 1) return `(-${args[0]})`;
       if (node.fn === "unaryPlus" && args.length === 1) return args[0];
       if (node.fn === "pow" && args.length === 2) return `Math.pow(${args[0]}, ${args[1]})`;
@@ -61,11 +63,11 @@ function toJs(node: any): string {
     }
     case "FunctionNode": {
       const name: string = node.fn?.name ?? node.name;
-      const gen = FUNCTIONS[name];
+      const gen = fns[name];
       const arity = ARITY[name] ?? 1;
-      if (!gen) throw new Unusable(`function '${name}' is not allowed; expected one of ${EXPRESSION_FUNCTIONS.join(", ")}`);
+      if (!gen) throw new Unusable(`function '${name}' is not allowed; expected one of ${Object.keys(fns).sort().join(", ")}`);
       if (node.args.length !== arity) throw new Unusable(`${name} takes ${arity} argument${arity === 1 ? "" : "s"}`);
-      return gen(node.args.map(toJs));
+      return gen(node.args.map(sub));
     }
     default:
       throw new Unusable(`'${node.toString()}' is not allowed in a map; expected arithmetic on x and y`);
@@ -148,5 +150,35 @@ export async function compileExpressionMap(virtual: { x: string; y: string }, wh
     if (err instanceof InputError) throw err;
     const msg = err instanceof Unusable ? err.message : `cannot form the Jacobian: ${(err as Error).message}`;
     throw new InputError({ where: `${where}.${current}`, message: `unusable map '${virtual[current]}': ${msg}` });
+  }
+}
+
+/** Functions a side or boundary curve may use: those of maps, plus max and min (no derivative is taken). */
+const CURVE_FUNCTIONS: Record<string, (a: string[]) => string> = {
+  ...FUNCTIONS,
+  max: (a) => `Math.max(${a[0]}, ${a[1]})`, min: (a) => `Math.min(${a[0]}, ${a[1]})`,
+};
+
+/**
+ * Compile a curve given as an expression of one variable (`x`, `y`, `t` or `theta`), e.g. the
+ * bottom side "0.4e-6*cos(pi*x/3.8e-6)^2" of a carpet, with the same whitelist as maps plus
+ * max/min. Throws InputError at `where` when it cannot be parsed or uses anything else.
+ * Example: (await compileCurveExpression("2*t + 1", "t", w))(0.5) → 2
+ */
+export async function compileCurveExpression(text: string, variable: "x" | "y" | "t" | "theta", where: string): Promise<(v: number) => number> {
+  const math = await getMath();
+  try {
+    let node: any;
+    try {
+      node = math.parse(text);
+    } catch (err) {
+      throw new Unusable(`cannot parse: ${(err as Error).message}`);
+    }
+    const code = `"use strict"; return function curve(v) { return ${toJs(node, { pi: "Math.PI", e: "Math.E", [variable]: "v" }, CURVE_FUNCTIONS)}; };`;
+    // The generated source contains only whitelisted tokens produced by toJs.
+    return new Function(code)() as (v: number) => number;
+  } catch (err) {
+    const msg = err instanceof Unusable ? err.message : (err as Error).message;
+    throw new InputError({ where, message: `unusable curve '${text}': ${msg}` });
   }
 }

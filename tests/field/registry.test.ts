@@ -22,6 +22,20 @@ const SPECS: TransformSpec[] = [
   { kind: "beam-shifter", lengthM: 0.06, heightM: 0.04, shiftM: 0.01 },
   { kind: "beam-bend", innerRadiusM: 0.04, outerRadiusM: 0.08, angleRad: Math.PI / 2, referenceRadiusM: 0.06, center: [0, 0.01] },
   { kind: "spherical-cloak", innerRadiusM: 0.015, outerRadiusM: 0.035 },
+  {
+    // a carpet 60 mm × 30 mm with a 6 mm cos² bump, virtual rectangle fitted to the module
+    kind: "quasi-conformal", rectangle: { minM: [-0.03, 0], maxM: [0.03, 0.03] }, fit: "module", nodes: [41, 21],
+    sides: {
+      bottom: { kind: "graph", text: "bump", f: (x) => (Math.abs(x) < 0.02 ? 0.006 * Math.cos((Math.PI * x) / 0.04) ** 2 : 0) },
+      right: { kind: "straight" }, top: { kind: "straight" }, left: { kind: "straight" },
+    },
+  },
+  {
+    // a concentrator between an ellipse and a circle, core magnified 1.5×
+    kind: "laplace-shell", center: [0.002, 0], innerScale: 1.5, nodes: [64, 11],
+    inner: { kind: "polar", text: "ellipse", r: (t) => (0.02 * 0.015) / Math.hypot(0.015 * Math.cos(t), 0.02 * Math.sin(t)) },
+    outer: { kind: "polar", text: "0.05", r: () => 0.05 },
+  },
   { kind: "expression", virtual: { x: "x + 0.2*y", y: "0.9*y + 0.1*x^2/0.05" }, region: { shape: "circle", centerM: [0, 0], radiusM: 0.03 }, compiled: linearMap },
 ];
 

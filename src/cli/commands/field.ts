@@ -8,6 +8,7 @@ import { SYM_COMPONENTS, symToObject } from "../../core/symTensor.js";
 import { principal3 } from "../../field/principalValues.js";
 import { summarizeField, type FieldSummary } from "../../field/summarizeField.js";
 import type { TensorField } from "../../field/tensorField.js";
+import type { ComputedMapInfo } from "../../field/maps/computedMapInfo.js";
 import { loadDesign } from "../../io/design/loadDesign.js";
 import type { Design } from "../../io/design/designSchema.js";
 import { loadFieldForDesign, writeFieldCsv } from "../../io/fieldCsv.js";
@@ -38,6 +39,11 @@ function describeTransform(design: Design): string {
     case "beam-bend": return `beam bend, ${mm(t.innerRadiusM)}–${mm(t.outerRadiusM)}, ${g((t.angleRad * 180) / Math.PI)} deg, R0 = ${mm(t.referenceRadiusM)}`;
     case "spherical-cloak": return `spherical cloak, a = ${mm(t.innerRadiusM)}, b = ${mm(t.outerRadiusM)}`;
     case "expression": return `expression map x = ${t.virtual.x}, y = ${t.virtual.y}`;
+    case "quasi-conformal": {
+      const sides = (["bottom", "right", "top", "left"] as const).filter((n) => t.sides[n].kind !== "straight");
+      return `quasi-conformal map of a rectangle, ${sides.length ? `${sides.join(", ")} side${sides.length > 1 ? "s" : ""} replaced` : "no side replaced"}${t.fit === "module" ? ", width fitted to the module" : ""}`;
+    }
+    case "laplace-shell": return `laplace-shell ${t.innerScale === 0 ? "cloak" : `concentrator (inner scale ${g(t.innerScale)})`} between two curves around (${mm(t.center[0])}, ${mm(t.center[1])})`;
     case "imported": return `imported field`;
   }
 }
@@ -64,8 +70,27 @@ function humanSummary(design: Design, field: TensorField, s: FieldSummary, outPa
   const cap = s.capValue !== null ? `cap ${g(s.capValue)} on the largest principal value` : "";
   if (offset || cap) lines.push(`  capped cells: ${s.capped} (${[offset, cap].filter(Boolean).join(", ")})`);
   else lines.push(`  capped cells: none (no innerOffset or cap set)`);
+  if (field.map) {
+    const m = field.map;
+    lines.push(`  computed map: solver grid ${m.nodes[0]} × ${m.nodes[1]}, linear-solve residual ${m.residual.toExponential(1)}, Jacobian error ≈ ${g(m.jacobianErrorEstimate)} (relative, from a half-resolution solve)`);
+    if (m.conformalModule !== null && m.conformalModuleBounds && m.virtualAspect !== null) {
+      lines.push(`  conformal module ${g(m.conformalModule)} (between ${g(m.conformalModuleBounds[0])} and ${g(m.conformalModuleBounds[1])}), virtual aspect ${g(m.virtualAspect)}`);
+    }
+    lines.push(`  anisotropy of the map (ratio of principal stretches): max ${g(m.maxAnisotropy)}, mean ${g(m.meanAnisotropy)}`);
+  }
   if (outPath) lines.push(`  wrote ${outPath}`);
   return lines.join("\n") + "\n";
+}
+
+/** The `map` object of field --json (module and aspect as height/width of the Dirichlet pair). */
+function mapJson(m: ComputedMapInfo): Record<string, unknown> {
+  const out: Record<string, unknown> = {
+    conformalModule: m.conformalModule, conformalModuleBounds: m.conformalModuleBounds, virtualAspect: m.virtualAspect,
+    maxAnisotropy: m.maxAnisotropy, meanAnisotropy: m.meanAnisotropy, nodes: m.nodes, residual: m.residual,
+    jacobianErrorEstimate: m.jacobianErrorEstimate,
+  };
+  if (m.virtualRectangle) out.virtualRectangle = { min_m: m.virtualRectangle.minM, max_m: m.virtualRectangle.maxM };
+  return out;
 }
 
 async function runAt(design: Design, field: TensorField, at: string, io: CliIo, json: boolean): Promise<number> {
@@ -84,6 +109,7 @@ async function runAt(design: Design, field: TensorField, at: string, io: CliIo, 
     const out: Record<string, unknown> = { x_m: x, y_m: y };
     if (field.grid.dimension === 3) out.z_m = z;
     Object.assign(out, { eps: symToObject(eps), mu: symToObject(mu), epsPrincipal: ep, muPrincipal: mp, detJ });
+    if (field.map) out.interpolated = { jacobianErrorEstimate: field.map.jacobianErrorEstimate, nodes: field.map.nodes };
     io.stdout(JSON.stringify(out) + "\n");
     return 0;
   }
@@ -95,6 +121,7 @@ async function runAt(design: Design, field: TensorField, at: string, io: CliIo, 
     `  principal eps ${ep.map(g).join(", ")}; mu ${mp.map(g).join(", ")}`,
     `  det J ${g(detJ)}`,
   ];
+  if (field.map) lines.push(`  interpolated from the solved map (${field.map.nodes[0]} × ${field.map.nodes[1]} grid lines); Jacobian error ≈ ${g(field.map.jacobianErrorEstimate)} relative`);
   io.stdout(lines.join("\n") + "\n");
   return 0;
 }
@@ -106,7 +133,8 @@ export const command: Command = {
   details: [
     "Maps every cell of the design's grid through the transform and prints the ranges of the",
     "permittivity and permeability tensors, their anisotropy and the cells that were capped.",
-    "--at gives the exact tensors at one physical point (not snapped to a cell centre).",
+    "--at gives the exact tensors at one physical point (not snapped to a cell centre); inside a",
+    "computed map (quasi-conformal, laplace-shell) they are interpolated from the solved map.",
   ].join("\n"),
   options: [
     { name: "out", type: "string", valueName: "FILE", description: "write the per-cell CSV (written atomically)" },
@@ -137,6 +165,7 @@ export const command: Command = {
       io.stdout(JSON.stringify({
         cells: s.cells, eps: s.eps, mu: s.mu, maxAnisotropy: s.maxAnisotropy,
         cellsWithPrincipalBelowOne: s.cellsWithPrincipalBelowOne, cellsNotPositiveDefinite: npd, capped: s.capped, capValue: s.capValue,
+        ...(field.map ? { map: mapJson(field.map) } : {}),
       }) + "\n");
     } else {
       io.stdout(humanSummary(design, field, s, out));

@@ -11,6 +11,8 @@ import { beamShifter } from "./beamShifter.js";
 import { beamBend } from "./beamBend.js";
 import { sphericalCloak } from "./sphericalCloak.js";
 import { expressionMap } from "./expressionMap.js";
+import { quasiConformal } from "./quasiConformal.js";
+import { laplaceShell } from "./laplaceShell.js";
 import { ProgrammerError } from "../../core/errors.js";
 
 type Analytic = Exclude<TransformSpec, { kind: "imported" }>;
@@ -23,6 +25,8 @@ export const TRANSFORMS: { [K in Analytic["kind"]]: (spec: Extract<Analytic, { k
   "beam-bend": beamBend,
   "spherical-cloak": sphericalCloak,
   expression: expressionMap,
+  "quasi-conformal": quasiConformal,
+  "laplace-shell": laplaceShell,
 };
 
 /** All kinds a design may name, analytic ones first. */

@@ -9,6 +9,7 @@
  * radians. Every method writes into caller-supplied outputs and allocates nothing.
  */
 import type { BoundarySamples } from "../tensorField.js";
+import type { ComputedMapInfo } from "../maps/computedMapInfo.js";
 
 export interface Bounds3 {
   minX: number;
@@ -44,6 +45,8 @@ export interface Transform {
   clampToInnerOffset?(p: Float64Array, offsetM: number): boolean;
   /** points just inside the outer boundary with outward unit normals, about `count` of them */
   sampleOuterBoundary(count: number): BoundarySamples;
+  /** for maps computed by a solver (field/maps): module, anisotropy and solver evidence */
+  computedMap?: ComputedMapInfo;
 }
 
 /** Relative distance inside the outer boundary where boundary samples are placed. */

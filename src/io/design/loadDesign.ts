@@ -11,6 +11,7 @@ import { InputError, unknownWithSuggestion, type InputIssue } from "../../core/e
 import { TRANSFORM_KINDS } from "../../field/transforms/registry.js";
 import type { TransformSpec } from "../../field/transformSpec.js";
 import { compileExpressionMap } from "../expressionMap.js";
+import { resolveQuasiConformal, resolveLaplaceShell, type ParsedQuasiConformal, type ParsedLaplaceShell } from "./computedMapSpecs.js";
 import { prepareQuantities, quantitiesNeedMath, resetQuantityNeeds } from "./quantitySchema.js";
 import { designSchema, DESIGN_KEYS, BACKGROUND_KEYS, type Design } from "./designSchema.js";
 import { TRANSFORM_KEYS } from "./transformSchema.js";
@@ -72,6 +73,14 @@ function knownKeys(json: unknown, path: readonly PropertyKey[]): string[] | null
     const kind = valueAt(json, ["transform", "kind"]);
     return typeof kind === "string" ? TRANSFORM_KEYS[kind] ?? null : null;
   }
+  const kind = valueAt(json, ["transform", "kind"]);
+  if (kind === "quasi-conformal") {
+    if (p === "transform.virtual") return ["rectangle", "fit"];
+    if (p === "transform.virtual.rectangle") return ["min", "max"];
+    if (p === "transform.sides") return ["bottom", "right", "top", "left"];
+    if (/^transform\.sides\.(bottom|right|top|left)$/.test(p)) return ["x", "y", "points"];
+  }
+  if (kind === "laplace-shell" && /^transform\.(inner|outer)$/.test(p)) return ["r", "points"];
   if (p === "transform.virtual") return ["x", "y"];
   if (p === "transform.region") return [...REGION_SHAPES];
   if (p === "transform.region.circle") return ["center", "radius"];
@@ -141,6 +150,10 @@ export async function parseDesign(json: unknown, sourcePath: string, cwd: string
   if (d.transform.kind === "expression") {
     const compiled = await compileExpressionMap(d.transform.virtual, `${sourcePath}: $.transform.virtual`);
     transform = { ...d.transform, compiled };
+  } else if (d.transform.kind === "quasi-conformal") {
+    transform = await resolveQuasiConformal(d.transform as ParsedQuasiConformal, d.grid.pitchM, sourcePath);
+  } else if (d.transform.kind === "laplace-shell") {
+    transform = await resolveLaplaceShell(d.transform as ParsedLaplaceShell, d.grid.pitchM, sourcePath);
   } else if (d.transform.kind === "imported") {
     transform = { kind: "imported", file: resolve(cwd, dirname(sourcePath), d.transform.file) };
   } else {

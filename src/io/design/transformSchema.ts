@@ -114,10 +114,78 @@ const expression = z
   })
   .strict();
 
+/** One side of a quasi-conformal domain, as written; which keys fit which side is checked below. */
+const sideSchema = z
+  .object({
+    x: z.string().min(1).optional(),
+    y: z.string().min(1).optional(),
+    points: z.array(point2).min(2).optional(),
+  })
+  .strict();
+
+export const QUAD_SIDE_NAMES = ["bottom", "right", "top", "left"] as const;
+
+const quasiConformal = z
+  .object({
+    kind: z.literal("quasi-conformal"),
+    virtual: z
+      .object({
+        rectangle: z.object({ min: point2, max: point2 }).strict(),
+        fit: z.enum(["none", "module"]).default("none"),
+      })
+      .strict(),
+    sides: z
+      .object({ bottom: sideSchema.optional(), right: sideSchema.optional(), top: sideSchema.optional(), left: sideSchema.optional() })
+      .strict()
+      .default({}),
+    nodes: z.tuple([z.number().int().min(5).max(2001), z.number().int().min(5).max(2001)]).optional(),
+    cap,
+  })
+  .strict()
+  .superRefine((t, ctx) => {
+    const [x0, y0] = t.virtual.rectangle.min, [x1, y1] = t.virtual.rectangle.max;
+    if (!(x1 > x0 && y1 > y0)) {
+      ctx.addIssue({ code: "custom", message: "expected max above and right of min", path: ["virtual", "rectangle", "max"] });
+    }
+    for (const name of QUAD_SIDE_NAMES) {
+      const side = t.sides[name];
+      if (!side) continue;
+      const across = name === "bottom" || name === "top" ? "y" : "x";
+      const keys = Object.keys(side).sort().join(",");
+      const fits = keys === across || keys === "x,y" || keys === "points";
+      if (!fits) {
+        ctx.addIssue({
+          code: "custom", path: ["sides", name],
+          message: `expected { "${across}": "<expression of ${across === "y" ? "x" : "y"}>" }, { "x": "<expression of t>", "y": "<expression of t>" } or { "points": [[x, y], …] }, got keys ${keys || "none"}`,
+        });
+      }
+    }
+  });
+
+const closedCurve = z.object({ r: z.string().min(1).optional(), points: z.array(point2).min(3).optional() }).strict()
+  .refine((c) => (c.r === undefined) !== (c.points === undefined), { message: 'expected { "r": "<expression of theta>" } or { "points": [[x, y], …] }' });
+
+const laplaceShell = z
+  .object({
+    kind: z.literal("laplace-shell"),
+    center: point2.default([0, 0]),
+    inner: closedCurve,
+    outer: closedCurve,
+    innerScale: z.number().nonnegative().default(0),
+    nodes: z.tuple([z.number().int().min(8).max(4001), z.number().int().min(3).max(1001)]).optional(),
+    innerOffset,
+    cap,
+  })
+  .strict()
+  .superRefine((t, ctx) => {
+    if (t.innerScale > 0 && t.innerScale <= 1) issue(ctx, "innerScale", "expected 0 (a cloak) or more than 1 (a concentrator's magnification)");
+    if (t.innerOffset !== undefined && t.innerScale > 0) issue(ctx, "innerOffset", "only a cloak (innerScale 0) has a singular inner boundary");
+  });
+
 const imported = z.object({ kind: z.literal("imported"), file: z.string().min(1) }).strict();
 
 export const transformSchema = z.discriminatedUnion("kind", [
-  radialCloak, concentrator, rotator, beamShifter, beamBend, sphericalCloak, expression, imported,
+  radialCloak, concentrator, rotator, beamShifter, beamBend, sphericalCloak, expression, quasiConformal, laplaceShell, imported,
 ]);
 
 /** JSON keys accepted by each kind, for "did you mean" messages. */
@@ -129,6 +197,8 @@ export const TRANSFORM_KEYS: Record<string, string[]> = {
   "beam-bend": ["kind", "innerRadius", "outerRadius", "angle", "referenceRadius", "center", "cap"],
   "spherical-cloak": ["kind", "innerRadius", "outerRadius", "center", "innerOffset", "cap"],
   expression: ["kind", "virtual", "region", "cap"],
+  "quasi-conformal": ["kind", "virtual", "sides", "nodes", "cap"],
+  "laplace-shell": ["kind", "center", "inner", "outer", "innerScale", "nodes", "innerOffset", "cap"],
   imported: ["kind", "file"],
 };
 
