@@ -38,6 +38,13 @@ export function parseCommandArgs(command: Command, rawArgv: string[]): ParsedArg
         message: `expected at most ${max} argument${max === 1 ? "" : "s"}, got ${parsed.positionals.length}: ${parsed.positionals.join(" ")}`,
       });
     }
+    // an empty value is never meaningful ("--mu-tolerance ''" must not read as 0)
+    for (const [name, value] of Object.entries(parsed.values)) {
+      const values = Array.isArray(value) ? value : [value];
+      if (values.some((v) => typeof v === "string" && v.trim() === "")) {
+        throw new InputError({ where: `--${name}`, message: "expected a value, got an empty string" });
+      }
+    }
     return { positionals: parsed.positionals, options: parsed.values as ParsedArgs["options"] };
   } catch (err) {
     if (err instanceof InputError) throw err;

@@ -45,6 +45,12 @@ const USER_FS_CODES: Record<string, string> = {
   EPERM: "operation not permitted",
   EROFS: "read-only file system",
   ENOSPC: "no space left on the device",
+  ENAMETOOLONG: "the path or one of its names is too long",
+  ELOOP: "too many symbolic links (a link loop?)",
+  ENOTEMPTY: "a folder that is not empty is in the way",
+  EMLINK: "too many links",
+  EFBIG: "file too large for this file system",
+  EDQUOT: "disk quota exceeded",
 };
 
 export function reportError(err: unknown, io: CliIo): number {

@@ -8,6 +8,7 @@
  * Source: Pendry, Schurig, Smith, Science 312, 1780 (2006).
  */
 import { InputError, ProgrammerError } from "../core/errors.js";
+import { cellBudgetProblem, type CellBudget } from "../core/memoryBudget.js";
 import { allocSymField, allocPlanarSymField } from "../core/symTensor.js";
 import type { TensorField, PointEvaluator } from "./tensorField.js";
 import type { FieldDesign } from "./transformSpec.js";
@@ -39,10 +40,11 @@ export function pointEvaluator(transform: Transform, epsB: number, muB: number):
 
 /**
  * Compute the tensor field of a design. For `imported` designs pass the field read by
- * io/fieldCsv.ts (it is returned as is). Throws InputError (where = "<file>: $.transform…") for
+ * io/fieldCsv.ts (it is returned as is). With a `budget`, a grid whose estimated memory exceeds
+ * it is refused at $.grid.pitch before the per-cell arrays are allocated. Throws InputError (where = "<file>: $.transform…") for
  * folding or undefined maps, and for grids with no cell inside the device.
  */
-export function computeTensorField(design: FieldDesign, importedField?: TensorField): TensorField {
+export function computeTensorField(design: FieldDesign, importedField?: TensorField, budget?: CellBudget): TensorField {
   const spec = design.transform;
   if (spec.kind === "imported") {
     if (!importedField) throw new ProgrammerError("imported designs need their field: use loadFieldForDesign");
@@ -64,12 +66,22 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     pitchM: design.grid.pitchM, origin: design.grid.origin, dimension, where: `${file}: $.grid.pitch`,
   });
   const n = grid.count;
+  // estimate before allocating the per-cell arrays: refuse what the machine cannot hold
+  const tooMany = budget ? cellBudgetProblem(n, design.grid.pitchM, dimension, budget) : null;
+  if (tooMany !== null) throw new InputError({ where: `${file}: $.grid.pitch`, message: tooMany });
   if (n === 0) {
     throw new InputError({ where: `${file}: $.grid`, message: "no cell centre lies inside the device; expected a pitch smaller than the device (or another origin)" });
   }
   if (spec.kind === "expression") checkExpressionDerivatives(spec, grid, `${file}: $.transform.virtual`);
 
   const epsB = design.background.eps, muB = design.background.mu, ratio = muB / epsB;
+  if (spec.cap !== undefined && spec.cap < Math.max(epsB, muB)) {
+    // far from the singular boundary the material is the background: such a cap would clip every cell
+    throw new InputError({
+      where: `${file}: $.transform.cap`,
+      message: `a cap of ${spec.cap} is below the background (ε_b = ${epsB}, μ_b = ${muB}) and would cap every cell; expected a largest allowed principal value above ${Math.max(epsB, muB)}, e.g. 10 to 100`,
+    });
+  }
   // Memory (and page faults) dominate at 1e6 cells, so arrays that must be equal are shared:
   // μ' = (μ_b/ε_b)·ε', hence with μ_b = ε_b every μ array is the ε array; a 2D map (invariant
   // along z) has ε'_xz = ε'_yz = 0, one zero array serves both. Fields are read-only downstream.
@@ -89,7 +101,7 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   const k = new Float64Array(9), s = new Float64Array(6), te = new Float64Array(6), tm = new Float64Array(6);
   const ve = new Float64Array(3), vm = new Float64Array(3), pt = new Float64Array(3);
   const bad: BadCell[] = [];
-  let badCount = 0;
+  let badCount = 0, overflowCount = 0, firstOverflow = -1;
   const { xM, yM, zM } = grid;
   // hoisted array references: the hot loop touches only locals
   const { xx: exx, yy: eyy, zz: ezz, xy: exy, xz: exz, yz: eyz } = eps;
@@ -124,6 +136,12 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     } else {
       principal3(ve, te);
     }
+    if (!(ve[2] < Infinity && ve[0] > -Infinity)) {
+      // a component beyond the double range (e.g. a shift of 1e300 m): no material to report
+      if (firstOverflow < 0) firstOverflow = c;
+      overflowCount++;
+      continue;
+    }
     vm[0] = ratio * ve[0]; vm[1] = ratio * ve[1]; vm[2] = ratio * ve[2];
     if (cap !== null) {
       if (capPrincipal(te, ve, cap)) flagged = 1;
@@ -143,8 +161,16 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   }
   if (badCount > 0) {
     const where = spec.kind === "expression" ? `${file}: $.transform.virtual` : `${file}: $.transform`;
-    const what = spec.kind === "expression" ? ` (x = '${spec.virtual.x}', y = '${spec.virtual.y}')` : "";
+    const clip = (t: string): string => (t.length > 60 ? `${t.slice(0, 57)}…` : t);
+    const what = spec.kind === "expression" ? ` (x = '${clip(spec.virtual.x)}', y = '${clip(spec.virtual.y)}')` : "";
     throw new InputError({ where, message: describeBadCells(bad, badCount, grid, what, transform.clampToInnerOffset !== undefined) });
+  }
+  if (overflowCount > 0) {
+    const c = firstOverflow;
+    throw new InputError({
+      where: `${file}: $.transform`,
+      message: `the material overflows the number range in ${overflowCount} cell${overflowCount === 1 ? "" : "s"} (first at x = ${xM[c]} m, y = ${yM[c]} m); expected transform parameters of a buildable scale`,
+    });
   }
   return {
     source: spec.kind,

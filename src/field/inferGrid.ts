@@ -10,6 +10,39 @@ import type { DeviceGrid } from "./deviceGrid.js";
 /** Relative distance (in pitches) a centre may sit off the lattice. */
 export const LATTICE_TOLERANCE = 1e-6;
 
+/**
+ * Largest lattice (positions of the bounding box, cells or holes) an imported field may span:
+ * regions, edges and maps keep one 4-byte index per position, so a sparse field whose cells lie
+ * far apart would allocate gigabytes for a handful of cells.
+ */
+export const MAX_IMPORTED_LATTICE = 5e7;
+
+/**
+ * The lattice offset (in [0, 1) pitches) most rows agree with, and how many do: the largest
+ * cluster of x/pitch mod 1 within the tolerance (wrapping at 1). O(n log n).
+ */
+function majorityOffset(values: Float64Array, origin: number, pitch: number): { offset: number; count: number } {
+  const n = values.length;
+  const f = new Float64Array(2 * n);
+  for (let r = 0; r < n; r++) {
+    const t = (values[r] - origin) / pitch;
+    f[r] = t - Math.floor(t);
+  }
+  const sorted = f.subarray(0, n).sort();
+  for (let r = 0; r < n; r++) f[n + r] = sorted[r] + 1;
+  let best = 0, bestAt = 0;
+  for (let a = 0, b = 0; a < n; a++) {
+    while (b < a + n && f[b] - f[a] <= 2 * LATTICE_TOLERANCE) b++;
+    if (b - a > best) { best = b - a; bestAt = a; }
+  }
+  return { offset: f[bestAt] % 1, count: best };
+}
+
+function offLattice(v: number, origin: number, pitch: number, offset: number): boolean {
+  const t = (v - origin) / pitch - offset;
+  return Math.abs(t - Math.round(t)) > 2 * LATTICE_TOLERANCE;
+}
+
 function smallestGap(values: Float64Array, scale: number): number {
   const s = Float64Array.from(values).sort();
   let gap = Infinity;
@@ -40,6 +73,36 @@ export function inferGrid(xs: Float64Array, ys: Float64Array, rowWhere: (row: nu
   const scale = Math.max(maxX - minX, maxY - minY, Math.abs(minX), Math.abs(minY), 1e-300);
   let pitch = Math.min(smallestGap(xs, scale), smallestGap(ys, scale));
   if (!Number.isFinite(pitch)) pitch = fallbackPitchM;
+  // A few stray rows off the design's lattice make the smallest gap tiny: when most rows sit on the
+  // lattice of the expected pitch, blame the first stray row (in file order), not the pitch.
+  if (Number.isFinite(fallbackPitchM) && Math.abs(pitch - fallbackPitchM) > 1e-6 * fallbackPitchM && n > 2) {
+    const ox = majorityOffset(xs, minX, fallbackPitchM), oy = majorityOffset(ys, minY, fallbackPitchM);
+    if (ox.count > n / 2 && oy.count > n / 2) {
+      for (let r = 0; r < n; r++) {
+        const badX = offLattice(xs[r], minX, fallbackPitchM, ox.offset), badY = offLattice(ys[r], minY, fallbackPitchM, oy.offset);
+        if (badX || badY) {
+          throw new InputError({
+            where: rowWhere(r),
+            message: `${badX ? `x_m = ${xs[r]}` : `y_m = ${ys[r]}`} is off the square grid of pitch ${fallbackPitchM} m that the other rows follow; expected a uniform grid`,
+          });
+        }
+      }
+    }
+  }
+  const span = (Math.round((maxX - minX) / pitch) + 1) * (Math.round((maxY - minY) / pitch) + 1);
+  if (!(span <= MAX_IMPORTED_LATTICE)) {
+    // name the row farthest from the median centre: usually a stray or mistyped row
+    const mx = Float64Array.from(xs).sort()[n >> 1], my = Float64Array.from(ys).sort()[n >> 1];
+    let far = 0, farD = -1;
+    for (let r = 0; r < n; r++) {
+      const d = Math.hypot(xs[r] - mx, ys[r] - my);
+      if (d > farD) { farD = d; far = r; }
+    }
+    throw new InputError({
+      where: rowWhere(far),
+      message: `the ${n} cells span a lattice of ${span.toExponential(2)} positions of pitch ${pitch} m (at most ${MAX_IMPORTED_LATTICE.toExponential(0)}; each takes memory even when empty); this cell at (${xs[far]} m, ${ys[far]} m) lies ${farD.toPrecision(3)} m from the middle of the others: expected one compact device`,
+    });
+  }
   const nx = Math.round((maxX - minX) / pitch) + 1, ny = Math.round((maxY - minY) / pitch) + 1;
   const key = new Float64Array(n);
   const ii = new Int32Array(n), jj = new Int32Array(n);

@@ -36,6 +36,33 @@ export const EXPRESSION_FUNCTIONS = Object.keys(FUNCTIONS).sort();
 
 class Unusable extends Error {}
 
+/** Longest expression accepted, in characters (a map is a formula, not a program). */
+export const MAX_EXPRESSION_LENGTH = 2000;
+/** Deepest nesting of parentheses and function calls accepted. */
+export const MAX_EXPRESSION_DEPTH = 60;
+
+/** An expression shortened for messages: at most 60 characters, on one line. */
+export function clipExpression(text: string): string {
+  const one = text.replace(/\s+/g, " ");
+  return one.length > 60 ? `${one.slice(0, 57)}…` : one;
+}
+
+/** Refuse expressions too long or too deeply nested to be formulas, before mathjs recurses through them. */
+function checkSize(text: string): void {
+  if (text.length > MAX_EXPRESSION_LENGTH) {
+    throw new Unusable(`${text.length} characters; expected at most ${MAX_EXPRESSION_LENGTH}`);
+  }
+  let depth = 0, deepest = 0;
+  for (let k = 0; k < text.length; k++) {
+    const ch = text[k];
+    if (ch === "(" || ch === "[") deepest = Math.max(deepest, ++depth);
+    else if (ch === ")" || ch === "]") depth--;
+  }
+  if (deepest > MAX_EXPRESSION_DEPTH) {
+    throw new Unusable(`parentheses nested ${deepest} deep; expected at most ${MAX_EXPRESSION_DEPTH}`);
+  }
+}
+
 /** JavaScript for a whitelisted mathjs node; throws Unusable for anything else. */
 function toJs(node: any, symbols: Record<string, string> = CONSTANTS, fns: Record<string, (a: string[]) => string> = FUNCTIONS): string {
   const sub = (n: any): string => toJs(n, symbols, fns);
@@ -113,6 +140,7 @@ export async function compileExpressionMap(virtual: { x: string; y: string }, wh
     for (const key of ["x", "y"] as const) {
       current = key;
       let node: any;
+      checkSize(virtual[key]);
       try {
         node = math.parse(virtual[key]);
       } catch (err) {
@@ -148,8 +176,11 @@ export async function compileExpressionMap(virtual: { x: string; y: string }, wh
     return new Function(code)() as CompiledMap;
   } catch (err) {
     if (err instanceof InputError) throw err;
-    const msg = err instanceof Unusable ? err.message : `cannot form the Jacobian: ${(err as Error).message}`;
-    throw new InputError({ where: `${where}.${current}`, message: `unusable map '${virtual[current]}': ${msg}` });
+    // a RangeError here is the call stack running out in a recursive walk: too deep a formula
+    const msg = err instanceof Unusable ? err.message
+      : err instanceof RangeError ? `nested too deeply to differentiate; expected at most ${MAX_EXPRESSION_DEPTH} levels`
+      : `cannot form the Jacobian: ${clipExpression((err as Error).message)}`;
+    throw new InputError({ where: `${where}.${current}`, message: `unusable map '${clipExpression(virtual[current])}': ${msg}` });
   }
 }
 

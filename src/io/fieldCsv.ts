@@ -5,7 +5,8 @@
  *   eps_p1, eps_p2, eps_p3, mu_p1, mu_p2, mu_p3, eps_anisotropy, mu_anisotropy, det_j, capped
  * (k and z_m only for 3D grids). On import only x_m, y_m and the six eps components are required;
  * missing mu columns mean μ = 1; principal values and anisotropy are recomputed; det_j and capped
- * are kept when present. Numbers are written in JavaScript's shortest round-trip form.
+ * are kept when present. Numbers are written in JavaScript's shortest round-trip form; undefined
+ * values (anisotropy of a cell that is not positive definite) are left empty.
  */
 import { createReadStream } from "node:fs";
 import { stat } from "node:fs/promises";
@@ -19,6 +20,8 @@ import { inferGrid } from "../field/inferGrid.js";
 import { fieldFromArrays } from "../field/fieldFromArrays.js";
 import type { FieldDesign } from "../field/transformSpec.js";
 import { writeStreamAtomic } from "./atomicWrite.js";
+import { memoryBudget } from "./memoryLimit.js";
+import { cellBudgetProblem, type MemoryPurpose } from "../core/memoryBudget.js";
 
 const EPS_COLUMNS = SYM_COMPONENTS.map((c) => `eps_${c}`);
 const MU_COLUMNS = SYM_COMPONENTS.map((c) => `mu_${c}`);
@@ -30,7 +33,8 @@ export function fieldCsvColumns(dimension: 2 | 3): string[] {
   return [...pos, ...EPS_COLUMNS, ...MU_COLUMNS, ...DERIVED, "det_j", "capped"];
 }
 
-const num = (v: number): string => (Number.isNaN(v) ? "" : String(v));
+/** Undefined values (NaN, or the infinite anisotropy of a cell that is not positive definite) are empty. */
+const num = (v: number): string => (Number.isFinite(v) ? String(v) : "");
 
 /** Write the per-cell CSV atomically (nothing appears under `path` unless every row was written). */
 export async function writeFieldCsv(path: string, field: TensorField): Promise<void> {
@@ -201,8 +205,9 @@ function displayPath(file: string): string {
  * The field of any design: computed for built-in kinds and expression maps, streamed from the CSV
  * for `imported`. Commands call this.
  */
-export async function loadFieldForDesign(design: FieldDesign): Promise<TensorField> {
-  if (design.transform.kind !== "imported") return computeTensorField(design);
+export async function loadFieldForDesign(design: FieldDesign, purpose: MemoryPurpose = "plan"): Promise<TensorField> {
+  const budget = memoryBudget(purpose);
+  if (design.transform.kind !== "imported") return computeTensorField(design, undefined, budget);
   // a missing or unreadable file is the user's mistake, named at the design key that points to it
   try {
     const st = await stat(design.transform.file);
@@ -217,5 +222,7 @@ export async function loadFieldForDesign(design: FieldDesign): Promise<TensorFie
     pitchWhere: `${design.sourcePath}: $.grid.pitch`,
     background: design.background,
   });
+  const tooMany = cellBudgetProblem(field.grid.count, field.grid.pitchM, 2, budget);
+  if (tooMany !== null) throw new InputError({ where: `${design.sourcePath}: $.transform.file`, message: tooMany });
   return computeTensorField(design, field);
 }

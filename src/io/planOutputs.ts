@@ -1,93 +1,53 @@
 /**
- * Writing a plan's outputs: build-list.csv (streamed), levels.csv, report.md, maps.svg and
- * summary.json, as ONE unit — every file goes to a temporary name in the output folder first, and
- * all are renamed to their final names only once every one is complete. On any failure (or an
- * abort) the temporary files are removed and no final file is touched.
+ * Writing a plan's outputs as one output set (see outputSet.ts): build-list.csv (streamed),
+ * levels.csv, report.md, maps.svg and summary.json, then manifest.json last. The files are data:
+ * `planOutputFiles` lists them, so a new output (a layout file) is one more entry there.
+ * On any failure (or an abort) the temporary files are removed and no final file is touched.
  */
-import { createWriteStream, promises as fs } from "node:fs";
-import { join, resolve } from "node:path";
-import { randomBytes } from "node:crypto";
+import { join } from "node:path";
 import type { Plan } from "../plan/planTypes.js";
 import { emitBuildList } from "../plan/outputs/buildListRows.js";
 import { levelsCsvText } from "../plan/outputs/levelsCsv.js";
 import { reportMarkdown } from "../plan/outputs/reportMarkdown.js";
 import { mapsSvg } from "../plan/outputs/svgMaps.js";
 import { planSummary } from "../plan/outputs/planSummary.js";
+import { MANIFEST_NAME, checkOutputFolder, prepareOutputFolder, writeOutputSet, type OutputFile, type WriteSetOptions } from "./outputSet.js";
 
-export const PLAN_OUTPUT_FILES = ["build-list.csv", "levels.csv", "report.md", "maps.svg", "summary.json"] as const;
+export type WriteOptions = WriteSetOptions;
 
-export interface WriteOptions {
-  /** aborting stops the write and removes every temporary file */
-  signal?: AbortSignal;
+/** Every file of a plan's output set except the manifest, in writing order; `finals` are the paths summary.json lists. */
+export function planOutputFiles(plan: Plan, finals: (names: string[]) => string[]): OutputFile[] {
+  const files: OutputFile[] = [
+    { name: "build-list.csv", produce: (write) => emitBuildList(plan, write) },
+    { name: "levels.csv", produce: (write) => write(levelsCsvText(plan)) },
+    { name: "report.md", produce: (write) => write(reportMarkdown(plan)) },
+    { name: "maps.svg", produce: (write) => write(mapsSvg(plan)) },
+  ];
+  const names = [...files.map((f) => f.name), "summary.json", MANIFEST_NAME];
+  files.push({ name: "summary.json", produce: (write) => write(`${JSON.stringify(planSummary(plan, finals(names)), null, 2)}\n`) });
+  return files;
 }
 
-function abortError(): Error {
-  const e = new Error("interrupted; no output was written");
-  e.name = "AbortError";
-  return e;
+/** Names of a plan's outputs (for checks before planning), manifest included. */
+export function planOutputNames(plan?: Plan): string[] {
+  const files = plan ? planOutputFiles(plan, () => []) : null;
+  return files ? [...files.map((f) => f.name), MANIFEST_NAME] : ["build-list.csv", "levels.csv", "report.md", "maps.svg", "summary.json", MANIFEST_NAME];
 }
 
 /**
- * Stream `produce`'s chunks into `path`, honouring the abort signal. Each chunk's promise settles
- * once the stream is done with its bytes (so the producer may reuse the buffer), and the stream's
- * own buffer never holds more than the chunk in flight.
+ * Check the output folder before planning (not created yet): names in the way refused (an input
+ * error naming the path), temporary files of killed runs removed.
  */
-async function streamTo(
-  path: string,
-  produce: (write: (chunk: Uint8Array) => Promise<void>) => Promise<void>,
-  signal?: AbortSignal,
-): Promise<void> {
-  const stream = createWriteStream(path, { highWaterMark: 1 << 20 });
-  let failure: Error | null = null;
-  stream.on("error", (e) => { failure = e; });
-  const write = (chunk: Uint8Array): Promise<void> => {
-    if (signal?.aborted) return Promise.reject(abortError());
-    if (failure) return Promise.reject(failure);
-    return new Promise<void>((res, rej) => {
-      stream.write(chunk, (err?: Error | null) => (err ? rej(err) : res()));
-    });
-  };
-  try {
-    await produce(write);
-    await new Promise<void>((res, rej) => {
-      stream.end((err?: Error | null) => (err ? rej(err) : res()));
-    });
-    if (failure) throw failure;
-  } catch (err) {
-    stream.destroy();
-    throw err;
-  }
+export async function preparePlanOutputs(dir: string): Promise<string> {
+  return checkOutputFolder(dir, planOutputNames());
 }
 
 /**
- * Write every output of `plan` into `dir` (created if missing). Returns the absolute paths written,
- * in PLAN_OUTPUT_FILES order. summary.json lists those paths under `outputs`.
+ * Write every output of `plan` into `dir` as one set. Returns the absolute paths written (manifest
+ * last). summary.json lists those paths under `outputs`.
  */
 export async function writePlanOutputs(plan: Plan, dir: string, options: WriteOptions = {}): Promise<string[]> {
-  const { signal } = options;
-  const folder = resolve(dir);
-  await fs.mkdir(folder, { recursive: true });
-  const tag = `${process.pid}.${randomBytes(4).toString("hex")}`;
-  const finals = PLAN_OUTPUT_FILES.map((name) => join(folder, name));
-  const temps = PLAN_OUTPUT_FILES.map((name) => join(folder, `.${name}.${tag}.tmp`));
-  // a final name taken by a folder would fail the renames half-way: refuse before writing anything
-  for (const f of finals) {
-    const st = await fs.stat(f).catch(() => null);
-    if (st && !st.isFile()) throw new Error(`cannot write ${f}: a folder or special file has that name`);
-  }
-  try {
-    if (signal?.aborted) throw abortError();
-    await streamTo(temps[0], (write) => emitBuildList(plan, write), signal);
-    const texts = [levelsCsvText(plan), reportMarkdown(plan), mapsSvg(plan), `${JSON.stringify(planSummary(plan, finals), null, 2)}\n`];
-    for (let k = 0; k < texts.length; k++) {
-      if (signal?.aborted) throw abortError();
-      await fs.writeFile(temps[k + 1], texts[k], "utf8");
-    }
-    if (signal?.aborted) throw abortError();
-    for (let k = 0; k < temps.length; k++) await fs.rename(temps[k], finals[k]);
-  } catch (err) {
-    await Promise.all(temps.map((t) => fs.rm(t, { force: true })));
-    throw err;
-  }
-  return finals;
+  const files = planOutputFiles(plan, (names) => names.map((n) => join(folder, n)));
+  const folder = await prepareOutputFolder(dir, files.map((f) => f.name));
+  return writeOutputSet(folder, files, options);
 }

@@ -15,6 +15,7 @@
  */
 import type { Complex } from "../core/complex.js";
 import { spheroidAspectForDepolarization } from "./depolarization.js";
+import { parallelMeanReal, seriesMeanReal } from "./bounds.js";
 import { maxwellGarnettAxis } from "./mixing/mgEllipsoid.js";
 
 export interface AnisotropicMatch {
@@ -95,8 +96,8 @@ export function laminateMaxAnisotropy(eps1: number, eps2: number): number {
   let best = 1;
   for (let k = 1; k < 1000; k++) {
     const f = k / 1000;
-    const par = (1 - f) * eps1 + f * eps2;
-    const ser = 1 / ((1 - f) / eps1 + f / eps2);
+    const par = parallelMeanReal(eps1, eps2, f);
+    const ser = seriesMeanReal(eps1, eps2, f);
     best = Math.max(best, par / ser);
   }
   return best;

@@ -4,6 +4,18 @@
  * `fill` is always the volume fraction of the second phase (the inclusion).
  */
 import type { Complex } from "../core/complex.js";
+import { parallelMean } from "./mixing/parallel.js";
+import { seriesMean } from "./mixing/series.js";
+
+/** Real parallel mean (1 − f)ε₁ + fε₂: the one definition is the mixing rule's (parallel.ts). */
+export function parallelMeanReal(eps1: number, eps2: number, fill: number): number {
+  return parallelMean({ re: eps1, im: 0 }, { re: eps2, im: 0 }, fill).re;
+}
+
+/** Real series mean 1/((1 − f)/ε₁ + f/ε₂): the one definition is the mixing rule's (series.ts). */
+export function seriesMeanReal(eps1: number, eps2: number, fill: number): number {
+  return seriesMean({ re: eps1, im: 0 }, { re: eps2, im: 0 }, fill).re;
+}
 
 /**
  * Wiener bounds [series, parallel] = [1/((1−f)/ε₁ + f/ε₂), (1−f)ε₁ + fε₂], sorted. Exact for a
@@ -12,8 +24,8 @@ import type { Complex } from "../core/complex.js";
  * Example: wienerBounds(1, 4, 0.5) → [1.6, 2.5].
  */
 export function wienerBounds(eps1: number, eps2: number, fill: number): [number, number] {
-  const par = (1 - fill) * eps1 + fill * eps2;
-  const ser = 1 / ((1 - fill) / eps1 + fill / eps2);
+  const par = parallelMeanReal(eps1, eps2, fill);
+  const ser = seriesMeanReal(eps1, eps2, fill);
   return par >= ser ? [ser, par] : [par, ser];
 }
 

@@ -36,13 +36,17 @@ export function spheroidDepolarization(aspect: number): { axis: number; transver
   if (aspect === Infinity) axis = 0;
   else if (aspect === 0) axis = 1;
   else if (aspect >= 1) {
-    const e2 = 1 - 1 / (aspect * aspect);
+    // q = 1 − e² taken as 1/m² directly, and ln((1+e)/(1−e)) = 2 ln((1+e)·m): no overflow or 0·∞
+    // for needles (m up to 1e308)
+    const q = 1 / (aspect * aspect);
+    const e2 = 1 - q;
     const e = Math.sqrt(e2);
-    axis = e < 0.1 ? (1 - e2) * seriesNearSphere(e2) : ((1 - e2) / (2 * e * e2)) * (Math.log((1 + e) / (1 - e)) - 2 * e);
+    axis = e < 0.1 ? q * seriesNearSphere(e2) : (q / (e * e2)) * (Math.log1p(e) + Math.log(aspect) - e);
   } else {
+    // (1 + e²)/(e·e²)·(e − atan e) = (1 + 1/e²)·(1 − atan(e)/e): finite for flat disks (e² = ∞)
     const e2 = 1 / (aspect * aspect) - 1;
     const e = Math.sqrt(e2);
-    axis = e < 0.1 ? (1 + e2) * seriesNearSphere(-e2) : ((1 + e2) / (e * e2)) * (e - Math.atan(e));
+    axis = e < 0.1 ? (1 + e2) * seriesNearSphere(-e2) : (1 + 1 / e2) * (1 - Math.atan(e) / e);
   }
   return { axis, transverse: (1 - axis) / 2 };
 }

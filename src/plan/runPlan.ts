@@ -3,6 +3,8 @@
  * flags → device-level figures. Pure (no files, no clock); the command line and the interactive
  * session both call `planFromField`.
  */
+import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
+import { deviceScaleProblem } from "../core/physicalScale.js";
 import { isVolumeDevice } from "../field/isVolumeDevice.js";
 import { InputError, unknownWithSuggestion, type InputIssue } from "../core/errors.js";
 import { sym2MajorAngle } from "../core/eigen.js";
@@ -41,7 +43,13 @@ export interface PlanDesign extends SettingsSource {
   transform: { kind: string };
 }
 
-const C0 = 299_792_458;
+
+/** Cells left without a target (flagged norecipe) are named, never dropped silently. */
+function noTargetWarning(grid: TensorField["grid"], valid: Uint8Array, count: number): string {
+  const c = valid.indexOf(0);
+  return `${count} cell${count === 1 ? " has" : "s have"} no target and no recipe (first at x = ${grid.xM[c]} m, y = ${grid.yM[c]} m): ` +
+    "the reduction is undefined there (a principal value of ε or μ ≤ 0, or singular); they are flagged norecipe";
+}
 
 /** Check ids in the settings against the catalogs; all problems at once. */
 function checkIds(design: PlanDesign, s: ReturnType<typeof resolveSettings>, catalogs: PlanCatalogs, overrides: PlanOverrides): void {
@@ -84,6 +92,8 @@ export function planFromField(
   if (isVolumeDevice(field)) throw new InputError({ where: `${design.sourcePath}: $.transform`, message: `the planner builds 2D devices (invariant along z); a ${design.transform.kind} is a 3D device, and its z = 0 slice is not invariant along z` });
   const n = grid.count;
   const f = design.frequencyHz;
+  const scale = deviceScaleProblem(Math.max(grid.nx, grid.ny, grid.nz) * grid.pitchM, f, "the device");
+  if (scale !== null) throw new InputError({ where: `${design.sourcePath}: $.frequency`, message: scale });
 
   // 1. reduction → per-cell targets
   onProgress?.("reduce", 0);
@@ -199,6 +209,7 @@ export function planFromField(
   // 5. flags and achieved errors
   onProgress?.("flags", 0);
   const { flags, relError, zeroTargetAbsError, warnings } = computeFlags({ reduced, targets, comps, level, levels, searches, perLevel, chosen, settings, materials, capped: FLAG_CAPPED, undefinedFlag: FLAG_UNDEFINED });
+  if (nValid < n) warnings.push(noTargetWarning(grid, valid, n - nValid));
 
   // 6. device-level figures
   onProgress?.("figures", 0);

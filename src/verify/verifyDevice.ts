@@ -15,6 +15,7 @@
  * MAX_RUNGS and the solver's size limit. A requested grid that does not fit is refused, never
  * silently coarsened.
  */
+import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
 import { InputError } from "../core/errors.js";
 import { DEFAULT_SOLVER_BYTES, formatBytes, solveCost } from "./assemble.js";
 import { gridForWindow, inPml, type FdfdGrid } from "./fdfdGrid.js";
@@ -24,7 +25,6 @@ import { richardson } from "./richardson.js";
 import type { Scene, ScenePolarization } from "./scene.js";
 import { solveScene, type SceneSolution } from "./solve.js";
 
-const C0 = 299_792_458;
 export const DEFAULT_ACCURACY = 0.02;
 export const MIN_RESOLUTION = 6;
 export const MAX_RESOLUTION = 200;

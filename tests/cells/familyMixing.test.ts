@@ -30,7 +30,9 @@ describe("effective permittivity per axis", () => {
       const fam = getCellFamily(id);
       const e = fam.effectivePermittivity(air, alumina, 0.2, "cubic");
       expect(e.parallel).toEqual(e.perpendicular);
-      expectClose(fam.effectivePermittivity(air, alumina, 0, "cubic").parallel.re, 1, { rel: 1e-12, label: `${id} f=0` });
+      // both ends: f = 0 is the host (air), f = 1 the inclusion (an identity of every mixing rule)
+      expectClose(fam.effectivePermittivity(air, alumina, 0, "cubic").parallel.re, air.re, { rel: 1e-12, label: `${id} f=0` });
+      expectClose(fam.effectivePermittivity(air, alumina, 1, "cubic").parallel.re, alumina.re, { rel: 1e-12, label: `${id} f=1` });
     }
   });
 

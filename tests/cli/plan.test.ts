@@ -16,8 +16,11 @@ describe("cellwright plan", () => {
     expect(lines.length).toBe(1);
     const s = JSON.parse(lines[0]);
     for (const k of ["design", "cells", "levels", "regions", "flags", "maxRelError", "medianRelError", "lossDb", "boundaryReflection", "minBandwidth", "materials", "outputs"]) expect(s).toHaveProperty(k);
-    expect(s.outputs.length).toBe(5);
+    expect(s.outputs.map((p: string) => p.slice(out.length + 1))).toEqual(["build-list.csv", "levels.csv", "report.md", "maps.svg", "summary.json", "manifest.json"]);
     expect(JSON.parse(await readFile(join(out, "summary.json"), "utf8"))).toEqual(s);
+    const check = bufferIo();
+    expect(await runCli(["plan", "--check", out, "--json"], check), check.err()).toBe(EXIT_OK);
+    expect(JSON.parse(check.out()).files.map((f: { name: string }) => f.name)).toEqual(s.outputs.slice(0, 5).map((p: string) => p.slice(out.length + 1)));
   }, 30_000);
 
   it("--background-index takes the concentrator out of ε < 1 (the way out its report names)", async () => {

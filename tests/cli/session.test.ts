@@ -111,7 +111,7 @@ describe("session export = cellwright plan --session", () => {
     const plan = await services.plan(overrides, () => undefined);
     const written = await services.exportPlan(plan, overrides, { screen: "map", mapQuantity: "level", cursorI: 1, cursorJ: 2 });
     await services.close();
-    expect(written.map((p) => p.slice(outA.length + 1))).toEqual(["build-list.csv", "levels.csv", "report.md", "maps.svg", "summary.json", "session.json"]);
+    expect(written.map((p) => p.slice(outA.length + 1))).toEqual(["build-list.csv", "levels.csv", "report.md", "maps.svg", "summary.json", "manifest.json", "session.json"]);
 
     const io = bufferIo(dir);
     const code = await runCli(["plan", "--session", join(outA, "session.json"), "--out", outB], io);

@@ -31,7 +31,7 @@ describe.each(DEMOS)("plan %s", (demo) => {
     const summary = JSON.parse(io.out());
     expect(io.out().trim().split("\n").length).toBe(1);
     const files = (await readdir(out)).sort();
-    expect(files).toEqual(["build-list.csv", "levels.csv", "maps.svg", "report.md", "summary.json"]);
+    expect(files).toEqual(["build-list.csv", "levels.csv", "manifest.json", "maps.svg", "report.md", "summary.json"]);
     const design = await loadDesign(demo);
     const field = await loadFieldForDesign(design);
     const rows: Record<string, string>[] = parse(await readFile(join(out, "build-list.csv"), "utf8"), { columns: true });

@@ -6,7 +6,10 @@ import { describe, it, expect } from "vitest";
 import { expectClose } from "../helpers/close.js";
 import { makeTransform } from "../../src/field/transforms/registry.js";
 import { pointEvaluator } from "../../src/field/computeTensorField.js";
-import type { TransformSpec } from "../../src/field/transformSpec.js";
+import type { FieldDesign, TransformSpec } from "../../src/field/transformSpec.js";
+import { computeTensorField } from "../../src/field/computeTensorField.js";
+import { reductionSettings } from "../../src/reduce/reduceField.js";
+import { reducePoint } from "../../src/reduce/reducePoint.js";
 import { cylindrical, quad, sphericalBasis } from "./polarBasis.js";
 
 const TOL = { rel: 1e-12, abs: 1e-13 };
@@ -38,13 +41,19 @@ describe("linear cylindrical cloak", () => {
       });
     }
   }
-  it("reduced set: ε_z(b/(b−a))² check at the Schurig et al. radii", () => {
-    // Schurig et al. (2006) quote ε_z = 3.423 (from memory); the formula (b/(b−a))² gives 3.4306.
-    const { eps } = evalAt(spec, 0.04, 0);
-    const c = cylindrical(eps, 0);
-    // reduced Ez set: ε_z' = ε_z·μ_θ = (b/(b−a))² (Schurig et al., Science 314, 977 (2006))
-    expectClose(c.zz * c.tt, (b / (b - a)) ** 2, { rel: 1e-12, label: "eps_z reduced" });
-    expectClose((b / (b - a)) ** 2, 3.4306, { rel: 1e-4, label: "published 3.4306" });
+  it("reduced set (unit-mu, Ez) from the reduction code: ε_z = (b/(b−a))², μ_r = ((r−a)/r)², μ_θ = 1", () => {
+    // Schurig et al., Science 314, 977 (2006): the reduced Ez set μ_r = ((r−a)/r)², μ_θ = 1,
+    // ε_z = (b/(b−a))², which is 3.4306 at a = 27.1 mm, b = 58.9 mm (from memory)
+    const design: FieldDesign = { name: "reduced cloak", sourcePath: "closed-form", background: { eps: 1, mu: 1 }, transform: spec, grid: { pitchM: 0.004 } };
+    const field = computeTensorField(design);
+    const settings = reductionSettings(field, { polarization: "Ez", scheme: "unit-mu" });
+    for (const rp of [0.03, 0.04, 0.055]) {
+      const r = reducePoint(field, settings, rp * Math.cos(0.7), rp * Math.sin(0.7), 0);
+      expectClose(r.components.eps_zz, (b / (b - a)) ** 2, { rel: 1e-12, label: `eps_z at r' = ${rp}` });
+      expectClose(r.principal, [((rp - a) / rp) ** 2, 1], { rel: 1e-12, abs: 1e-13, label: `mu_r, mu_theta at r' = ${rp}` });
+    }
+    const r = reducePoint(field, settings, 0.04, 0, 0);
+    expectClose(r.components.eps_zz, 3.4306, { rel: 1e-4, label: "published 3.4306" });
   });
 });
 

@@ -47,7 +47,7 @@ describe("plan with bad or impossible input", () => {
     const out = join(dir, "out");
     const io = bufferIo();
     expect(await runCli(["plan", p, "--out", out], io)).toBe(EXIT_NOT_BUILDABLE);
-    expect((await readdir(out)).sort()).toEqual(["build-list.csv", "levels.csv", "maps.svg", "report.md", "summary.json"]);
+    expect((await readdir(out)).sort()).toEqual(["build-list.csv", "levels.csv", "manifest.json", "maps.svg", "report.md", "summary.json"]);
     const report = await readFile(join(out, "report.md"), "utf8");
     expect(report).toContain("Not buildable as asked");
     expect(report).toContain("| norecipe |");

@@ -4,6 +4,8 @@
  * resonant families the band within tolerance and the passivity bound. Exit 2 when the cell is not
  * buildable as asked (target out of reach, process limit, cell too coarse).
  */
+import { deviceScaleProblem } from "../../core/physicalScale.js";
+import { SPEED_OF_LIGHT_M_PER_S } from "../../core/physicalConstants.js";
 import { InputError, type InputIssue } from "../../core/errors.js";
 import type { CellPhase, CellDesignRequest, CellTarget, SplitRingSizes } from "../../cells/cellDesignTypes.js";
 import { designCell, DEFAULT_TOLERANCE } from "../../cells/designCell.js";
@@ -127,6 +129,8 @@ export const command: Command = {
     const pitchM = (await positiveLength(args, "pitch"))!;
     const frequencyHz = await parseQuantity(stringOption(args, "frequency"), "frequency", "--frequency");
     if (!(frequencyHz > 0)) throw new InputError({ where: "--frequency", message: `expected a frequency > 0, got '${stringOption(args, "frequency")}'` });
+    const pitchScale = deviceScaleProblem(pitchM, frequencyHz, "the pitch");
+    if (pitchScale !== null && pitchM * frequencyHz > SPEED_OF_LIGHT_M_PER_S) throw new InputError({ where: "--pitch", message: pitchScale });
 
     let fill: number | undefined;
     if (fillText !== undefined) {

@@ -149,7 +149,7 @@ export const command: Command = {
     const json = flagOption(args, "json");
     if (at !== undefined) await parsePoint(at); // bad --at fails before any work
     const design = await loadDesign(designPath, io.cwd);
-    const field = await loadFieldForDesign(design);
+    const field = await loadFieldForDesign(design, "field");
     if (at !== undefined) {
       const code = await runAt(design, field, at, io, json);
       if (out) await writeFieldCsv(resolve(io.cwd, out), field);

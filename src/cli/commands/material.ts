@@ -45,7 +45,9 @@ export async function frequencyFromOptions(args: ParsedArgs): Promise<number | u
   if (l !== undefined) {
     const m = await parseQuantity(l, "length", "--wavelength");
     if (!(m > 0)) throw new InputError({ where: "--wavelength", message: `expected a wavelength > 0, got '${l}'` });
-    return SPEED_OF_LIGHT / m;
+    const hz = SPEED_OF_LIGHT / m;
+    if (!Number.isFinite(hz)) throw new InputError({ where: "--wavelength", message: `a wavelength of ${m} m is a frequency beyond the number range; expected a physical wavelength such as '1550 nm'` });
+    return hz;
   }
   return undefined;
 }
@@ -120,6 +122,12 @@ export const command: Command = {
     const frequencyHz = await frequencyFromOptions(args);
     if (frequencyHz === undefined) return showRow(m, json, io);
     const v = evaluateMaterial(m, frequencyHz);
+    if (![v.eps.re, v.eps.im, v.n.re, v.n.im, v.lossTangent].every(Number.isFinite)) {
+      throw new InputError({
+        where: stringOption(args, "wavelength") !== undefined ? "--wavelength" : "--frequency",
+        message: `${m.id}'s ${m.model} model has no finite value at ${formatHz(frequencyHz)}; expected a frequency near its valid range ${formatHz(m.validMinHz)} – ${formatHz(m.validMaxHz)}`,
+      });
+    }
     if (v.warning) io.stderr(`warning: ${v.warning}\n`);
     if (json) {
       io.stdout(

@@ -8,7 +8,8 @@ import { InputError } from "../../core/errors.js";
 import { loadDesign } from "../../io/design/loadDesign.js";
 import { loadFieldForDesign } from "../../io/fieldCsv.js";
 import { loadMaterialCatalog } from "../../io/materialCatalog.js";
-import { writePlanOutputs } from "../../io/planOutputs.js";
+import { preparePlanOutputs, writePlanOutputs } from "../../io/planOutputs.js";
+import { checkOutputSet } from "../../io/outputSet.js";
 import { loadProcessCatalog } from "../../io/processCatalog.js";
 import { loadSessionFile } from "../../io/sessionFile.js";
 import { planSummary } from "../../plan/outputs/planSummary.js";
@@ -18,7 +19,7 @@ import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_INPUT, EXIT_INTERRUPTED, EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
-import { resolve } from "node:path";
+import { join, resolve } from "node:path";
 
 export const DEFAULT_OUT_DIR = "cellwright-out";
 
@@ -80,6 +81,8 @@ export function humanSummary(plan: Plan, outputs: string[]): string {
 /** Load, plan and write; shared by `plan` and `start`. Returns the exit code. */
 export async function runPlanCommand(designPath: string, overrides: PlanOverrides, outDir: string, json: boolean, io: CliIo): Promise<number> {
   const design = await loadDesign(designPath, io.cwd);
+  // a folder that cannot take the outputs is refused before minutes of planning
+  await preparePlanOutputs(resolve(io.cwd, outDir));
   const [field, materials, processes] = await Promise.all([loadFieldForDesign(design), loadMaterialCatalog(), loadProcessCatalog()]);
   let lastStage = "";
   const plan = planFromField(design, field, { materials, processes }, overrides, (stage) => {
@@ -106,13 +109,25 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
   return plan.buildable ? EXIT_OK : EXIT_NOT_BUILDABLE;
 }
 
+/** `plan --check DIR`: is DIR one complete output set? Exit 0 yes, 1 no (each problem named). */
+async function runCheck(dir: string, args: ParsedArgs, io: CliIo): Promise<number> {
+  if (args.positionals.length > 0) throw new InputError({ where: "--check", message: "expected only an output folder, not a design file" });
+  const r = await checkOutputSet(resolve(io.cwd, dir));
+  if (flagOption(args, "json")) io.stdout(`${JSON.stringify({ folder: r.folder, complete: r.ok, files: r.files, problems: r.problems })}\n`);
+  else if (r.ok) io.stdout(`${r.folder}: one complete output set (${r.files.map((f) => f.name).join(", ")})\n`);
+  if (r.ok) return EXIT_OK;
+  for (const p of r.problems) io.stderr(`error: ${join(r.folder, p)}\n`);
+  return EXIT_INPUT;
+}
+
 export const command: Command = {
   name: "plan",
   summary: "plan a device: levels, recipes, flags, build list, report and maps",
-  usage: "plan <design.json> [--out DIR] [--json] [--session FILE] [--levels N] [--tolerance T] [--polarization Ez|Hz] [--scheme NAME] [--background-index N]",
+  usage: "plan (<design.json> | --check DIR) [--out DIR] [--json] [--session FILE] [--levels N] [--tolerance T] [--polarization Ez|Hz] [--scheme NAME] [--background-index N]",
   details: [
     "Reduces the design's field, quantizes the targets into levels, groups cells into regions, finds",
-    "a recipe per level and writes build-list.csv, levels.csv, report.md, maps.svg and summary.json.",
+    "a recipe per level and writes build-list.csv, levels.csv, report.md, maps.svg and summary.json,",
+    "then manifest.json (each file's size and checksum) last; --check DIR verifies such a set.",
     "Exit codes: 0 every cell has a recipe; 2 outputs written but some cells have none; 1 bad input.",
   ].join("\n"),
   options: [
@@ -123,9 +138,12 @@ export const command: Command = {
     { name: "tolerance", type: "string", valueName: "T", description: "largest relative error accepted, e.g. 0.03 (overrides the design)" },
     { name: "polarization", type: "string", valueName: "Ez|Hz", description: "polarization the device serves (overrides the design)" },
     { name: "scheme", type: "string", valueName: "NAME", description: "reduction scheme: full, unit-mu, non-magnetic, isotropic, matched" },
+    { name: "check", type: "string", valueName: "DIR", description: "verify that DIR holds one complete output set (manifest sizes and checksums)" },
     { name: "background-index", type: "string", valueName: "N", description: "embed the device in a dielectric of index N (overrides the design)" },
   ],
   async run(args: ParsedArgs, io: CliIo): Promise<number> {
+    const checkDir = stringOption(args, "check");
+    if (checkDir !== undefined) return runCheck(checkDir, args, io);
     const sessionPath = stringOption(args, "session");
     let designPath = args.positionals[0];
     let overrides: PlanOverrides = {};

@@ -174,7 +174,7 @@ export const command: Command = {
     const point = at !== undefined ? await parsePoint(at) : undefined;
 
     const design = await loadDesign(designPath, io.cwd);
-    const field = await loadFieldForDesign(design);
+    const field = await loadFieldForDesign(design, "reduce");
     const file = design.sourcePath;
     const spec = design.reduction;
     const three = isVolumeDevice(field);

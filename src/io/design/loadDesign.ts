@@ -11,6 +11,7 @@ import { InputError, unknownWithSuggestion, type InputIssue } from "../../core/e
 import { TRANSFORM_KINDS } from "../../field/transforms/registry.js";
 import type { TransformSpec } from "../../field/transformSpec.js";
 import { compileExpressionMap } from "../expressionMap.js";
+import { findJsonProblem } from "../jsonProblem.js";
 import { resolveQuasiConformal, resolveLaplaceShell, type ParsedQuasiConformal, type ParsedLaplaceShell } from "./computedMapSpecs.js";
 import { prepareQuantities, quantitiesNeedMath, resetQuantityNeeds } from "./quantitySchema.js";
 import { designSchema, DESIGN_KEYS, BACKGROUND_KEYS, type Design } from "./designSchema.js";
@@ -32,6 +33,38 @@ function valueAt(json: unknown, path: readonly PropertyKey[]): unknown {
     v = v[p as any];
   }
   return v;
+}
+
+/** A JSON value for a message: short, on one line, its type named when it is not a scalar. */
+export function describeValue(value: unknown): string {
+  if (value === undefined) return "nothing (the key is missing)";
+  if (Array.isArray(value)) return `an array of ${value.length}`;
+  if (value !== null && typeof value === "object") return "an object";
+  const text = JSON.stringify(value) ?? String(value);
+  return text.length > 60 ? `${text.slice(0, 57)}…"` : text;
+}
+
+const LENGTH_KEYS = ["innerRadius", "outerRadius", "compressedRadius", "referenceRadius", "radius", "length", "height", "shift", "innerOffset", "pitch"];
+const ANGLE_KEYS = ["angle"];
+
+/**
+ * "bare numbers are SI" spelled out for the keys a message is about whose JSON value is a bare
+ * number: 60 for innerRadius is 60 m, "90" for angle is 90 rad.
+ */
+function bareNumberHint(json: unknown, path: readonly PropertyKey[], message: string): string {
+  const parent = valueAt(json, path.slice(0, -1));
+  if (parent === null || typeof parent !== "object") return "";
+  const last = String(path[path.length - 1]);
+  const keys = Object.keys(parent).filter((k) => k === last || new RegExp(`\\b${k}\\b`).test(message));
+  const hints: string[] = [];
+  for (const k of keys) {
+    const v = (parent as Record<string, unknown>)[k];
+    const bare = typeof v === "number" || (typeof v === "string" && v.trim() !== "" && Number.isFinite(Number(v)));
+    if (!bare) continue;
+    if (LENGTH_KEYS.includes(k)) hints.push(`${k} ${JSON.stringify(v)} is a bare number, read as ${Number(v)} m (bare numbers are SI); write e.g. '${Number(v)} mm' for millimetres`);
+    if (ANGLE_KEYS.includes(k)) hints.push(`${k} ${JSON.stringify(v)} is a bare number, read as ${Number(v)} rad (bare numbers are SI); write '${Number(v)} deg' for degrees`);
+  }
+  return hints.length ? ` (${hints.join("; ")})` : "";
 }
 
 /** What each key expects, for "missing" messages. */
@@ -104,19 +137,21 @@ function toIssues(file: string, json: unknown, issue: z.core.$ZodIssue): InputIs
     return [{ where: here, message: `missing; expected ${expected ?? (issue.code === "invalid_type" ? `a ${issue.expected}` : "a value")}` }];
   }
   if (last === "kind" && path.length === 2 && path[0] === "transform") {
-    return [{ where: here, message: unknownWithSuggestion("transform kind", String(value), TRANSFORM_KINDS) }];
+    if (typeof value !== "string") return [{ where: here, message: `expected a transform kind (${TRANSFORM_KINDS.join(", ")}) as a string, got ${describeValue(value)}` }];
+    return [{ where: here, message: unknownWithSuggestion("transform kind", describeValue(value).slice(1, -1), TRANSFORM_KINDS) }];
   }
   if (issue.code === "invalid_union" && expected) {
-    return [{ where: here, message: `expected ${expected}, got ${JSON.stringify(value)}` }];
+    return [{ where: here, message: `expected ${expected}, got ${describeValue(value)}` }];
   }
   if (issue.code === "invalid_type") {
     const got = Array.isArray(value) ? "an array" : value === null ? "null" : `a ${typeof value}`;
     return [{ where: here, message: `expected ${expected ?? `a ${issue.expected}`}, got ${got}` }];
   }
   if (issue.code === "invalid_value") {
-    return [{ where: here, message: `expected one of ${issue.values.map((v) => JSON.stringify(v)).join(", ")}, got ${JSON.stringify(value)}` }];
+    return [{ where: here, message: `expected one of ${issue.values.map((v) => JSON.stringify(v)).join(", ")}, got ${describeValue(value)}` }];
   }
-  return [{ where: here, message: issue.message.charAt(0).toLowerCase() + issue.message.slice(1) }];
+  const message = issue.message.charAt(0).toLowerCase() + issue.message.slice(1);
+  return [{ where: here, message: `${message}${issue.code === "custom" ? bareNumberHint(json, path, message) : ""}` }];
 }
 
 /**
@@ -193,16 +228,17 @@ export async function loadDesign(path: string, cwd: string = process.cwd()): Pro
     const code = (err as NodeJS.ErrnoException).code;
     throw new InputError({ where: path, message: code === "ENOENT" ? "file not found; expected a design JSON file" : `cannot read the file (${code ?? "error"})` });
   }
+  // a byte-order mark at the start is not part of the JSON text; RFC 8259 §8.1 lets parsers ignore it
+  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
   let json: unknown;
   try {
     json = JSON.parse(text);
-  } catch (err) {
-    const msg = (err as Error).message;
-    const pos = /position (\d+)/.exec(msg);
-    const offset = pos ? Number(pos[1]) : text.length;
-    const { line, column } = lineColumn(text, offset);
-    const what = msg.replace(/^JSON\.parse: /, "").replace(/ in JSON at position \d+.*$/, "").replace(/ \(line \d+ column \d+\)$/, "");
-    throw new InputError({ where: `${path}:${line}:${column}`, message: `invalid JSON: ${what.charAt(0).toLowerCase()}${what.slice(1)}` });
+  } catch {
+    // our own scanner names the first character that does not fit (engines' messages vary and
+    // some carry no position); the message never quotes raw text
+    const problem = findJsonProblem(text) ?? { offset: text.length, message: "not valid JSON" };
+    const { line, column } = lineColumn(text, problem.offset);
+    throw new InputError({ where: `${path}:${line}:${column}`, message: `invalid JSON: ${problem.message}` });
   }
   return parseDesign(json, path, cwd);
 }

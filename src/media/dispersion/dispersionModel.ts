@@ -5,6 +5,7 @@
  * Convention exp(−iωt): a lossy passive medium has Im ε ≥ 0.
  */
 import type { Complex } from "../../core/complex.js";
+import { EPS0_F_PER_M, SPEED_OF_LIGHT_M_PER_S } from "../../core/physicalConstants.js";
 
 export type DispersionModelId = "constant" | "debye" | "debye-water" | "lorentz" | "drude" | "drude-lorentz" | "sellmeier";
 
@@ -34,11 +35,11 @@ export interface DispersionModel {
 /** Angular frequency ω = 2πf in rad/s. */
 export const angular = (frequencyHz: number): number => 2 * Math.PI * frequencyHz;
 
-/** Speed of light in vacuum, m/s (exact, SI 2019). */
-export const SPEED_OF_LIGHT = 299_792_458;
+/** Speed of light in vacuum, m/s (exact, SI 2019): the one definition in core/physicalConstants.ts. */
+export const SPEED_OF_LIGHT = SPEED_OF_LIGHT_M_PER_S;
 
-/** Vacuum permittivity ε₀ in F/m (CODATA 2018). */
-export const VACUUM_PERMITTIVITY = 8.8541878128e-12;
+/** Vacuum permittivity ε₀ in F/m (CODATA 2018; defined in core/physicalConstants.ts). */
+export const VACUUM_PERMITTIVITY = EPS0_F_PER_M;
 
 /** Pole numbers present in a parameter record for a key pattern like "pole{N}_f0_hz", sorted. */
 export function poleNumbers(params: DispersionParams, suffix: string): number[] {

@@ -7,25 +7,9 @@
  * Source: Bruggeman, Ann. Phys. 416, 636 (1935); Sihvola, "Electromagnetic Mixing Formulas and
  * Applications", IEE (1999), ch. 5.
  */
-import { cAdd, cMul, cScale, cSub, type Complex } from "../../core/complex.js";
+import { cAdd, cMul, cScale, cSqrt, cSub, type Complex } from "../../core/complex.js";
 import { acceptClosedForm, realPhases, solveFillByBracketing } from "./fillSolver.js";
 import type { InverseResult } from "./mixingRule.js";
-
-/**
- * Principal square root without cancellation: the smaller component is obtained by division
- * (im/(2·re) of the root) instead of sqrt((|z| ∓ Re z)/2), which loses half the digits of a
- * nearly real argument — and low-loss phases (tan δ ~ 1e-5) give exactly such arguments.
- */
-export function stableSqrt(z: Complex): Complex {
-  const m = Math.hypot(z.re, z.im);
-  if (m === 0) return { re: 0, im: 0 };
-  if (z.re >= 0) {
-    const t = Math.sqrt((m + z.re) / 2);
-    return { re: t, im: z.im / (2 * t) };
-  }
-  const t = Math.sqrt((m - z.re) / 2);
-  return { re: Math.abs(z.im) / (2 * t), im: z.im < 0 ? -t : t };
-}
 
 /**
  * ε_eff of the symmetric Bruggeman rule (complex). Of the two roots of the quadratic, the
@@ -60,7 +44,7 @@ export function bruggemanAligned(host: Complex, inclusion: Complex, fill: number
     cScale(cSub(cScale(inclusion, k), host), fill),
     cScale(cSub(cScale(host, k), inclusion), 1 - fill),
   );
-  const disc = stableSqrt(cAdd(cMul(b, b), cScale(cMul(inclusion, host), 4 * k)));
+  const disc = cSqrt(cAdd(cMul(b, b), cScale(cMul(inclusion, host), 4 * k)));
   const r1 = cScale(cAdd(b, disc), 1 / (2 * k));
   const r2 = cScale(cSub(b, disc), 1 / (2 * k));
   const scale = Math.max(Math.hypot(r1.re, r1.im), Math.hypot(r2.re, r2.im), 1e-300);

@@ -7,6 +7,7 @@
  * families are tried only where needed: wire media where a permittivity below 1 is asked for, split
  * rings where a permeability other than 1 is.
  */
+import { EPS0_F_PER_M } from "../../core/physicalConstants.js";
 import { complex, refractiveIndex, type Complex } from "../../core/complex.js";
 import type { CellFamily } from "../../cells/cellFamily.js";
 import type { Lattice } from "../../cells/lattice.js";
@@ -163,16 +164,17 @@ function mixed(
 ): void {
   const comps = ctx.components;
   const context = { pitchM: ctx.pitchM, frequencyHz: ctx.frequencyHz, conductivitySPerM: inc.material.conductivitySPerM };
+  // resonant families need a conducting inclusion (σ, or ωε₀·Im ε): refused here as a counted
+  // reason, so that any error the family throws is a bug that reaches the user, not a skipped cell
+  if (family.resonant && !((inc.material.conductivitySPerM ?? 0) > 0 || inc.eps.im > 0)) {
+    refuse(s, `${family.id} needs a conducting inclusion`);
+    return;
+  }
   let best: { fill: number; achieved: Complex[]; err: number } | null = null;
   let lastReason = "";
   for (const k of epsIdx) {
     const axis = axisFor(family, o, comps[k].axis);
-    let r;
-    try {
-      r = family.fillForTarget(host.eps, inc.eps, target[k], axis, lattice, context);
-    } catch {
-      continue;
-    }
+    const r = family.fillForTarget(host.eps, inc.eps, target[k], axis, lattice, context);
     if (!r.inRange || !Number.isFinite(r.fill)) { lastReason = r.reason ?? "fill fraction out of range"; continue; }
     const ap = family.effectivePermittivity(host.eps, inc.eps, r.fill, lattice, context);
     const achieved = comps.map((c) => (c.kind === "eps" ? (axisFor(family, o, c.axis) === "parallel" ? ap.parallel : ap.perpendicular) : complex(1)));
@@ -251,7 +253,7 @@ function splitRing(
 ): void {
   const comps = ctx.components;
   const a = ctx.pitchM;
-  const sigma = metal.material.conductivitySPerM ?? 2 * Math.PI * ctx.frequencyHz * 8.8541878128e-12 * metal.eps.im;
+  const sigma = metal.material.conductivitySPerM ?? 2 * Math.PI * ctx.frequencyHz * EPS0_F_PER_M * metal.eps.im;
   // board fill from the ε target(s): geometric mean when two in-plane values are asked for
   const epsTarget = epsIdx.length ? Math.exp(epsIdx.reduce((acc, k) => acc + Math.log(Math.max(target[k], 1e-6)), 0) / epsIdx.length) : host.eps.re;
   // boards stand in the allowed gas (air) when there is one; otherwise the board fills the cell

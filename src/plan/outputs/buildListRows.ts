@@ -166,6 +166,7 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
   const { achieved, recipe } = levelTexts(plan);
   const m = plan.components.length;
   const noAchieved = ",".repeat(m);
+  // family, host, inclusion, lattice, orientation, fill_fraction, dimensions…, loss_tangent
   const noRecipe = ",".repeat(6 + dimensionColumns(plan).length + 1);
   // repeated values (constant components, isotropic axes, neighbouring cells) reuse their text
   const lastV = new Float64Array(m + 3).fill(NaN);

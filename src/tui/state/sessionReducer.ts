@@ -310,7 +310,10 @@ export function sessionReducer(state: SessionState, action: SessionAction): Sess
       return { ...state, saveWanted: false, quitWanted: false, overlay: { kind: "notice", title: "Saving failed", lines: [action.message], tone: "error" }, status: null };
     case "resize":
       return { ...state, mapArea: action.mapArea, listRows: Math.max(1, action.listRows) };
-    default:
-      return state;
+    default: {
+      // exhaustive: a new action type that is not handled above fails to compile here
+      const unhandled: never = action;
+      return unhandled;
+    }
   }
 }

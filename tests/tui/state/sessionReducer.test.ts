@@ -144,7 +144,11 @@ describe("session reducer", () => {
     let s = run(ready(), "screenLevels", "down", "choose");
     expect(s.screen).toBe("map");
     expect(s.mapQuantity).toBe("level");
-    expect(s.plan?.level[s.plan.grid.j[0] * 0 + 0]).toBeDefined();
+    // the cursor lands on a cell of the chosen level (the second: level index 1, cells with i in 3..5)
+    const plan = s.plan!;
+    const under = Array.from({ length: plan.grid.count }, (_, c) => c).find((c) => plan.grid.i[c] === s.cursor.i && plan.grid.j[c] === s.cursor.j);
+    expect(under).not.toBeUndefined();
+    expect(plan.level[under!]).toBe(1);
     expect(s.cursor.i).toBeGreaterThanOrEqual(3);
     expect(s.cursor.i).toBeLessThanOrEqual(5);
     s = run(s, "screenFlags", "choose");

@@ -1,0 +1,53 @@
+/**
+ * `npm run fuzz -- --cases N --seed S`: run N generated robustness cases (fuzzCases.ts) and print
+ * a table of failure kinds with a reproducing example each. Exit 0 when every case kept the
+ * invariants, 1 otherwise.
+ */
+import fc from "fast-check";
+import { rmSync } from "node:fs";
+import { parseArgs } from "node:util";
+import { failureKind, fuzzCase, fuzzRoot, runCase, type FuzzCase } from "./fuzzCases.js";
+
+const { values } = parseArgs({ options: { cases: { type: "string", default: "1000" }, seed: { type: "string", default: "1" } } });
+const cases = Number(values.cases), seed = Number(values.seed);
+if (!(Number.isInteger(cases) && cases > 0) || !Number.isInteger(seed)) {
+  process.stderr.write("usage: npm run fuzz -- --cases N --seed S\n");
+  process.exit(1);
+}
+// the command line reports progress on stderr; keep the console for the table
+const root = fuzzRoot();
+const kinds = new Map<string, { count: number; example: FuzzCase; problem: string }>();
+const byKind = new Map<string, number>();
+let failed = 0;
+const started = Date.now();
+const samples = fc.sample(fuzzCase, { numRuns: cases, seed });
+for (let k = 0; k < samples.length; k++) {
+  const c = samples[k];
+  byKind.set(c.kind, (byKind.get(c.kind) ?? 0) + 1);
+  let problems: string[];
+  try {
+    problems = await runCase(c, root);
+  } catch (err) {
+    problems = [`harness threw: ${(err as Error).message}`];
+  }
+  if (problems.length) {
+    failed++;
+    const kind = `${c.kind} ${c.argv[0]}: ${failureKind(problems)}`;
+    const entry = kinds.get(kind);
+    if (entry) entry.count++;
+    else kinds.set(kind, { count: 1, example: c, problem: problems[0] });
+  }
+  if ((k + 1) % 250 === 0) process.stderr.write(`… ${k + 1}/${cases} cases, ${failed} failing, ${Math.round((Date.now() - started) / 1000)} s\n`);
+}
+rmSync(root, { recursive: true, force: true });
+const mix = [...byKind].map(([k, n]) => `${k} ${n}`).join(", ");
+console.log(`${cases} cases (seed ${seed}; ${mix}), ${failed} failing, ${kinds.size} kinds, ${Math.round((Date.now() - started) / 1000)} s`);
+if (kinds.size) {
+  console.log("");
+  console.log("| count | kind | example argv |");
+  console.log("| ---: | --- | --- |");
+  for (const [kind, e] of [...kinds].sort((a, b) => b[1].count - a[1].count)) {
+    console.log(`| ${e.count} | ${kind.replace(/\|/g, "\\|")} | ${e.example.argv.join(" ").replace(/\|/g, "\\|").slice(0, 100)} |`);
+  }
+}
+process.exitCode = failed ? 1 : 0;
