@@ -29,11 +29,12 @@ export function formatCellDesign(d: CellDesign): string[] {
   out.push(`smallest feature  ${formatLength(d.feature.featureM)}, gap ${formatLength(d.feature.gapM)}`);
   if (d.processCheck) out.push(`process           ${d.processCheck.ok ? "ok" : d.processCheck.reasons.join("; ")}`);
   out.push(`homogenization    ${d.homogenization.status}: pitch = ${g(d.homogenization.ratio, 3)} λ in the densest material (n = ${g(d.homogenization.nMax, 4)})`);
-  if (d.spread.max > 0) out.push(`MG–Bruggeman      ${pct(d.spread.max)} spread${d.spread.uncertain ? " (uncertain)" : ""}`);
+  if (d.spread.max > 0) out.push(`model uncertainty ${pct(d.spread.max)}${d.closedForm && (d.rules.perpendicular === "solved-cell" || d.rules.parallel === "solved-cell") ? " (solved cell)" : " (MG–Bruggeman spread)"}${d.spread.uncertain ? " (uncertain)" : ""}`);
+  if (d.closedForm) out.push(`closed form       parallel ${c(d.closedForm.parallel)} (${d.closedForm.rules.parallel}), perpendicular ${c(d.closedForm.perpendicular)} (${d.closedForm.rules.perpendicular})`);
   const r = d.resonance;
   if (r?.kind === "wire-medium") {
     const p = r.plasma;
-    out.push(`plasma frequency  thick-wire ${formatFrequency(p.thickWireHz)} (used), corrected thin-wire ${formatFrequency(p.correctedHz)}, thin-wire ${formatFrequency(p.thinWireHz)}${p.thinWireApplies ? "" : " (thin-wire assumption r/a ≤ 0.01 not met)"}`);
+    out.push(`plasma frequency  ${p.used === "lattice" ? `lattice ${formatFrequency(p.latticeHz)} (used), ` : "not solved at this radius, "}thick-wire ${formatFrequency(p.thickWireHz)}${p.used === "thick-wire" ? " (used)" : ""}, corrected thin-wire ${formatFrequency(p.correctedHz)}, thin-wire ${formatFrequency(p.thinWireHz)}${p.thinWireApplies ? "" : " (thin-wire assumption r/a ≤ 0.01 not met)"}`);
     out.push(`damping           γ/2π = ${formatFrequency(r.gammaRadPerS / (2 * Math.PI))}, skin depth ${formatLength(r.skinDepthM)}`);
   }
   if (r?.kind === "split-ring") {

@@ -8,7 +8,7 @@ export const FLAGS = [
   { name: "anisotropic", meaning: "the in-plane anisotropy ratio is above the design's maxAnisotropy" },
   { name: "unreachable", meaning: "the target lies outside the bounds of every allowed material pair" },
   { name: "undersize", meaning: "a recipe needs a feature or gap below the process limit" },
-  { name: "coarse", meaning: "the pitch is above λ/10 in the cell's densest material (refused beyond λ/4)" },
+  { name: "coarse", meaning: "the pitch is above λ/10 in the cell's densest material and, for rods and holes along z, the lowest band departs from the long-wavelength index by more than the tolerance (refused beyond λ/4)" },
   { name: "uncertain", meaning: "the cell model's own uncertainty exceeds the tolerance (solved cell not converged, or no solved model covers the cell and the closed forms disagree, or the resonant model's standard forms disagree): verify with a full-wave unit-cell simulation" },
   { name: "capped", meaning: "the target was capped or offset at a singularity of the map" },
   { name: "norecipe", meaning: "no allowed material, family and lattice reaches the target" },

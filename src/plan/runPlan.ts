@@ -19,6 +19,7 @@ import { schemeSummary } from "../reduce/schemeMetrics.js";
 import { findRegions } from "./findRegions.js";
 import { computeFlags } from "./computeFlags.js";
 import { chooseRecipes } from "./match/chooseRecipes.js";
+import { bandVerdict } from "./match/bandCheck.js";
 import { levelCandidates, type Candidate } from "./match/levelCandidates.js";
 import type { EvaluatedMaterial, MatchContext } from "./match/matchContext.js";
 import { planFiguresFor } from "./planFiguresFor.js";
@@ -197,6 +198,18 @@ export function planFromField(
   });
   const perLevel: Candidate[][] = searches.map((s) => s.candidates);
   const chosen = chooseRecipes(perLevel, settings.tolerance);
+  // the coarse flag of a chosen rod or hole recipe between λ/10 and λ/4 rests on its lowest band
+  chosen.forEach((k, l) => {
+    const r = k >= 0 ? perLevel[l][k] : null;
+    if (!r || r.homogenization !== "warn") return;
+    const v = bandVerdict(r, materials, settings.polarization, grid.pitchM, f, settings.tolerance);
+    if (!v) return;
+    const pct = (x: number) => `${Number((100 * x).toPrecision(2))} %`;
+    r.homogenization = v.status;
+    r.notes = [...r.notes, v.band.inBand
+      ? `band index ${v.band.index.map((x) => Number(x.toPrecision(4))).join(" / ")} (principal directions), ${pct(v.band.deviation)} from the long-wavelength value, anisotropy ${pct(v.band.anisotropy)}`
+      : "the design frequency lies above the lowest band's edge: not homogenizable"];
+  });
   const levels: PlanLevel[] = q.centres.map((centre, l) => {
     const list = perLevel[l];
     const k = chosen[l];

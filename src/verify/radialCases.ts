@@ -6,6 +6,8 @@
  * Each case's scene is checked first (radialFromScene.ts); one that is not radial (a rotator, a map
  * sampled on the design's square cells) comes back unavailable with the reason — never silently
  * replaced. `uncertainty` is the solver's own convergence figure (tolerance ladder, order tail).
+ * The devices are rotationally symmetric, so a plane wave from any angle α scatters the same total
+ * and the bistatic pattern turns with it.
  */
 import type { TransformSpec } from "../field/transformSpec.js";
 import { radialProblemFromScene } from "./radialFromScene.js";
@@ -21,10 +23,22 @@ export interface RadialCaseResult {
   /** σ_s / σ_s(bare) when a bare case was computed */
   vsBare: number | null;
   absorptionWidthM: number | null;
-  /** relative: max(tolerance-ladder change, order tail), with an absolute floor of 1e-9 of the bare width when there is one */
+  /** max(tolerance-ladder change, order tail) × σ_s / max(σ_s, 1e-6 · 2R): relative, except for widths below 1e-6 of the device's width */
   uncertainty: number | null;
-  /** bistatic width σ(φ), φ = 0 … 359° from +x (incidence along +x) */
+  /** bistatic width σ(φ), φ = 0 … 359° from +x, for incidence at `incidenceRad` from +x */
   bistaticM: Float64Array | null;
+}
+
+/** σ(φ) = (4/k)|a_0 + 2 Σ a_m cos m(φ − α)|² at φ = 0 … 359° (rotational symmetry: incidence at α). */
+function patternAt(aRe: Float64Array, aIm: Float64Array, k: number, incidenceRad: number): Float64Array {
+  const out = new Float64Array(360);
+  for (let q = 0; q < 360; q++) {
+    const phi = (q * Math.PI) / 180 - incidenceRad;
+    let sRe = aRe[0], sIm = aIm[0];
+    for (let m = 1; m < aRe.length; m++) { const c = 2 * Math.cos(m * phi); sRe += c * aRe[m]; sIm += c * aIm[m]; }
+    out[q] = (4 / k) * (sRe * sRe + sIm * sIm);
+  }
+  return out;
 }
 
 /** The geometry the radial solver needs for a transform, or why it does not apply. */
@@ -59,7 +73,7 @@ function sampledCore(scene: Scene, centre: [number, number], coreRadiusM: number
 }
 
 /** Solve every case of `cases` radially (see file comment); k0 in rad/m. */
-export function radialCases(spec: TransformSpec, cases: CaseSpec[], k0: number, tolerance = 1e-9): RadialCaseResult[] {
+export function radialCases(spec: TransformSpec, cases: CaseSpec[], k0: number, tolerance = 1e-9, incidenceRad = 0): RadialCaseResult[] {
   const geo = radialGeometry(spec);
   const unavailable = (name: CaseSpec["name"], reason: string): RadialCaseResult => ({ name, available: false, reason, scatteringWidthM: null, vsBare: null, absorptionWidthM: null, uncertainty: null, bistaticM: null });
   if ("reason" in geo) return cases.map((c) => unavailable(c.name, geo.reason));
@@ -83,17 +97,17 @@ export function radialCases(spec: TransformSpec, cases: CaseSpec[], k0: number, 
       name: c.name, available: true, reason: null,
       scatteringWidthM: s.scatteringWidthM, vsBare: null, absorptionWidthM: s.absorptionWidthM,
       uncertainty: Math.max(s.convergence.relativeChange, s.convergence.tail),
-      bistaticM: s.patternWidthM,
+      bistaticM: patternAt(s.aRe, s.aIm, s.k, incidenceRad),
     };
   });
   const bare = results.find((r) => r.name === "bare" && r.available);
-  if (bare && bare.scatteringWidthM! > 0) {
-    for (const r of results) {
-      if (!r.available) continue;
-      r.vsBare = r.scatteringWidthM! / bare.scatteringWidthM!;
-      // a nearly invisible case: its relative figure cannot be better than the bare width's tolerance
-      r.uncertainty = Math.max(r.uncertainty!, Math.min(1, (1e-9 * bare.scatteringWidthM!) / Math.max(r.scatteringWidthM!, 1e-300)));
-    }
+  // an invisible device has σ_s ≈ 0, whose relative change means nothing: the uncertainty is taken
+  // relative to the larger of σ_s and 1e-6 of the device's width 2R (a width below that reads as zero)
+  const floorM = 1e-6 * 2 * geo.outerRadiusM;
+  for (const r of results) {
+    if (!r.available) continue;
+    if (bare && bare.scatteringWidthM! > 0) r.vsBare = r.scatteringWidthM! / bare.scatteringWidthM!;
+    r.uncertainty = (r.uncertainty! * r.scatteringWidthM!) / Math.max(r.scatteringWidthM!, floorM);
   }
   return results;
 }

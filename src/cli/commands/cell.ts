@@ -21,6 +21,38 @@ import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
+import { layerReport, type LayerReport } from "../../cells/slab/layerHost.js";
+import { bandIndex } from "../../cells/band/lowestBand.js";
+import type { CellDesign } from "../../cells/cellDesignTypes.js";
+
+const SPEED_OF_LIGHT = 299_792_458;
+
+/** --frequency F or --wavelength L (vacuum), as Hz. */
+async function designFrequency(args: ParsedArgs): Promise<number> {
+  const f = stringOption(args, "frequency");
+  const l = stringOption(args, "wavelength");
+  if (f !== undefined && l !== undefined) throw new InputError({ where: "--wavelength", message: "give either --frequency or --wavelength, not both" });
+  if (l !== undefined) {
+    const m = await parseQuantity(l, "length", "--wavelength");
+    if (!(m > 0)) throw new InputError({ where: "--wavelength", message: `expected a wavelength > 0, got '${l}'` });
+    return SPEED_OF_LIGHT / m;
+  }
+  const hz = await parseQuantity(f, "frequency", "--frequency");
+  if (!(hz > 0)) throw new InputError({ where: "--frequency", message: `expected a frequency > 0, got '${f}'` });
+  return hz;
+}
+
+const LAYER_FLAGS = ["layer-core", "layer-thickness", "layer-below", "layer-above"] as const;
+
+/** Band index and spatial dispersion of rods or holes (null for other families and lattices). */
+function bandFor(design: CellDesign, host: CellPhase, inclusion: CellPhase, axis: "parallel" | "perpendicular"): { bandIndex: { directions: number[]; quasiStatic: number; anisotropy: number; inBand: boolean; planeWaves: number }; spatialDispersion: number } | null {
+  if (design.familyId !== "rods-in-host" && design.familyId !== "holes-in-slab") return null;
+  if (design.lattice !== "square" && design.lattice !== "hex") return null;
+  if (design.fill === null || !(host.eps.re > 0) || !(inclusion.eps.re > 0)) return null;
+  const k0a = (2 * Math.PI * design.frequencyHz * design.pitchM) / SPEED_OF_LIGHT;
+  const b = bandIndex({ lattice: design.lattice, epsHost: host.eps.re, epsCircle: inclusion.eps.re, fill: design.fill }, axis, k0a);
+  return { bandIndex: { directions: b.index, quasiStatic: b.quasiStatic, anisotropy: b.anisotropy, inBand: b.inBand, planeWaves: b.planeWaves }, spatialDispersion: b.deviation };
+}
 
 function plainNumber(text: string, where: string, what: string): number {
   const v = Number(text);
@@ -48,11 +80,15 @@ const json = (x: unknown): string => JSON.stringify(x, (_k, v) => (typeof v === 
 export const command: Command = {
   name: "cell",
   summary: "design one unit cell: dimensions, effective ε or μ, process and homogenization checks",
-  usage: "cell <family> --pitch P [--lattice square|hex|cubic] --frequency F --host ID --inclusion ID (--fill F | --target EPS) [--axis parallel|perpendicular] [--tolerance T] [--process ID] [--height H] [--json] (resonant families: see below)",
+  usage: "cell <family> --pitch P [--lattice square|hex|cubic] (--frequency F | --wavelength L) --host ID --inclusion ID (--fill F | --target EPS) [--axis parallel|perpendicular] [--tolerance T] [--process ID] [--height H] [--layer-core ID --layer-thickness L --layer-below ID --layer-above ID] [--json] (resonant families: see below)",
   details: [
     `families: ${CELL_FAMILIES.map((f) => f.id).join(", ")}.`,
     "parallel = field along the rods, holes or wires (in the layer planes of a laminate); perpendicular = across.",
     "--target matches the real part of ε along --axis (default: the family's main axis); the loss follows.",
+    "rods-in-host, holes-in-slab (square, hex): the field-across value is the solved periodic cell problem; the",
+    "  closed form is shown beside it. Between λ/10 and λ/4 the lowest band is solved (band index, spatial dispersion).",
+    "--layer-*: the device is made in a film (core, thickness, below, above): the core is mixed with its slab mode",
+    "  index (effective-index method; TE modes for a field across the circles, TM along them).",
     "wire-medium: --radius R and/or --target EPS (ε along the wires), --metal ID (default copper), --host ID (default air).",
     "split-ring: --target MU (μ along the ring axis) or --ring-gap D, with optional --ring-radius, --ring-width,",
     "  --stack-spacing, --thickness; --metal ID (default copper), --host ID (default air).",
@@ -67,6 +103,11 @@ export const command: Command = {
     { name: "pitch", type: "string", valueName: "P", description: "cell pitch (lattice constant), e.g. '2 mm'" },
     { name: "lattice", type: "string", valueName: "L", description: "square, hex or cubic (default: the family's first)" },
     { name: "frequency", type: "string", valueName: "F", description: "design frequency, e.g. '10 GHz'" },
+    { name: "wavelength", type: "string", valueName: "L", description: "vacuum wavelength instead of a frequency, e.g. '1550 nm'" },
+    { name: "layer-core", type: "string", valueName: "ID", description: "film material the cell is etched in (with the other --layer-* options)" },
+    { name: "layer-thickness", type: "string", valueName: "L", description: "film thickness, e.g. '220 nm'" },
+    { name: "layer-below", type: "string", valueName: "ID", description: "material below the film (substrate)" },
+    { name: "layer-above", type: "string", valueName: "ID", description: "material above the film (cover)" },
     { name: "host", type: "string", valueName: "ID", description: "host material id (default air for wire-medium and split-ring)" },
     { name: "inclusion", type: "string", valueName: "ID", description: "inclusion material id" },
     { name: "fill", type: "string", valueName: "F", description: "fill fraction of the inclusion, 0..1 (evaluate)" },
@@ -101,7 +142,10 @@ export const command: Command = {
       if (stringOption(args, name) === undefined) issues.push({ where: `--${name}`, message: `expected ${what}` });
     };
     need("pitch", "the cell pitch, e.g. '2 mm'");
-    need("frequency", "the design frequency, e.g. '10 GHz'");
+    if (stringOption(args, "frequency") === undefined && stringOption(args, "wavelength") === undefined) issues.push({ where: "--frequency", message: "expected the design frequency, e.g. '10 GHz' (or --wavelength)" });
+    const layerGiven = LAYER_FLAGS.filter((o) => stringOption(args, o) !== undefined);
+    if (layerGiven.length > 0 && layerGiven.length < LAYER_FLAGS.length) for (const o of LAYER_FLAGS) if (stringOption(args, o) === undefined) issues.push({ where: `--${o}`, message: "give all four --layer-* options or none" });
+    if (layerGiven.length > 0 && family.resonant) issues.push({ where: "--layer-core", message: "a layer applies to dielectric families, not to resonant ones" });
     const fillText = stringOption(args, "fill");
     const targetText = stringOption(args, "target");
     const ringOnly = ["ring-radius", "ring-width", "ring-gap", "stack-spacing", "thickness", "ring-style", "split-gap", "board-thickness"];
@@ -127,8 +171,7 @@ export const command: Command = {
     const lattice = latticeText === undefined ? family.lattices[0] : parseLattice(latticeText, "--lattice");
     if (!family.lattices.includes(lattice)) throw new InputError({ where: "--lattice", message: `${family.id} takes ${family.lattices.join(" or ")}, not ${lattice}` });
     const pitchM = (await positiveLength(args, "pitch"))!;
-    const frequencyHz = await parseQuantity(stringOption(args, "frequency"), "frequency", "--frequency");
-    if (!(frequencyHz > 0)) throw new InputError({ where: "--frequency", message: `expected a frequency > 0, got '${stringOption(args, "frequency")}'` });
+    const frequencyHz = await designFrequency(args);
     const pitchScale = deviceScaleProblem(pitchM, frequencyHz, "the pitch");
     if (pitchScale !== null && pitchM * frequencyHz > SPEED_OF_LIGHT_M_PER_S) throw new InputError({ where: "--pitch", message: pitchScale });
 
@@ -181,6 +224,27 @@ export const command: Command = {
       if (inclusion.class !== "metal") throw new InputError({ where, message: `'${metalId}' is a ${inclusion.class}; expected a metal` });
     } else inclusion = await phase(stringOption(args, "inclusion")!, "--inclusion", frequencyHz, io);
 
+    let layer: LayerReport | null = null;
+    const axisUsed = (stringOption(args, "axis") ?? family.defaultAxis) as "parallel" | "perpendicular";
+    if (layerGiven.length === LAYER_FLAGS.length) {
+      const coreId = stringOption(args, "layer-core")!;
+      const thicknessM = (await positiveLength(args, "layer-thickness"))!;
+      const core = await phase(coreId, "--layer-core", frequencyHz, io);
+      const below = await phase(stringOption(args, "layer-below")!, "--layer-below", frequencyHz, io);
+      const above = await phase(stringOption(args, "layer-above")!, "--layer-above", frequencyHz, io);
+      if (core.id !== host.id && core.id !== inclusion.id) throw new InputError({ where: "--layer-core", message: `the film '${core.id}' must be the host or the inclusion` });
+      layer = layerReport({
+        core: { id: core.id, eps: core.eps, isMetal: core.class === "metal" },
+        thicknessM,
+        below: { id: below.id, eps: below.eps, isMetal: below.class === "metal" },
+        above: { id: above.id, eps: above.eps, isMetal: above.class === "metal" },
+        frequencyHz,
+        polarization: axisUsed === "parallel" ? "Ez" : "Hz",
+      });
+      for (const w of layer.warnings) io.stderr(`warning: ${w}\n`);
+      if (host.id === core.id) host.eps = layer.coreEps;
+      else inclusion.eps = layer.coreEps;
+    }
     const request: CellDesignRequest = {
       familyId: family.id, lattice, pitchM, frequencyHz, host, inclusion, target, tolerance,
       ...(fill !== undefined ? { fill } : {}),
@@ -189,10 +253,23 @@ export const command: Command = {
       ...(family.id === "split-ring" ? { splitRing } : {}),
     };
     const design = designCell(request);
+    const band = design.homogenization.status !== "ok" ? bandFor(design, host, inclusion, axisUsed) : null;
+    if (band && !band.bandIndex.inBand) design.notes.push("the design frequency lies above the lowest band's edge: the cell is not homogenizable");
+    else if (band && band.spatialDispersion > tolerance) design.notes.push(`spatial dispersion: the band index departs ${Number((100 * band.spatialDispersion).toPrecision(2))} % from the long-wavelength value (tolerance ${tolerance * 100} %)`);
+    const wire = design.resonance?.kind === "wire-medium" ? design.resonance.plasma : null;
     if (flagOption(args, "json")) {
-      io.stdout(`${json({ command: "cell", ...design, host: { id: host.id, class: host.class, eps: host.eps }, inclusion: { id: inclusion.id, class: inclusion.class, eps: inclusion.eps }, process: process?.id ?? null })}\n`);
+      io.stdout(`${json({
+        command: "cell", ...design,
+        host: { id: host.id, class: host.class, eps: host.eps }, inclusion: { id: inclusion.id, class: inclusion.class, eps: inclusion.eps }, process: process?.id ?? null,
+        ...(band ? band : {}),
+        ...(layer ? { layer: { modeIndex: layer.modeIndex, guidedModes: layer.guidedModes, kind: layer.kind, polarization: layer.polarization, coreEps: layer.coreEps, warnings: layer.warnings } } : {}),
+        ...(wire ? { plasmaFrequencyHz: wire.latticeHz, plasmaModel: wire.used, thinWireForms: { thinWireHz: wire.thinWireHz, correctedHz: wire.correctedHz, thickWireHz: wire.thickWireHz } } : {}),
+      })}\n`);
     } else {
-      io.stdout(`${formatCellDesign(design).join("\n")}\n`);
+      const lines = formatCellDesign(design);
+      if (layer) lines.push(`layer             ${layer.kind === "slab" ? `${layer.polarization} slab mode index ${layer.modeIndex === null ? "none (bulk used)" : Number(layer.modeIndex.toPrecision(5))}, ${layer.guidedModes} guided` : `parallel plates, ${layer.guidedModes} mode(s)`}`);
+      if (band) lines.push(`band index        ${band.bandIndex.directions.map((x) => Number(x.toPrecision(4))).join(" / ")} (principal directions), long-wavelength ${Number(band.bandIndex.quasiStatic.toPrecision(4))}, spatial dispersion ${Number((100 * band.spatialDispersion).toPrecision(2))} %`);
+      io.stdout(`${lines.join("\n")}\n`);
     }
     if (!design.valid) for (const r of design.reasons) io.stderr(`not buildable: ${r}\n`);
     return design.valid ? EXIT_OK : EXIT_NOT_BUILDABLE;

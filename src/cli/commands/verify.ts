@@ -22,6 +22,7 @@ import { formatFrequency, formatLength } from "../../verify/formatQuantity.js";
 import type { Illumination } from "../../verify/illumination.js";
 import { DEFAULT_ACCURACY, verifyDevice, type VerifyResult } from "../../verify/verifyDevice.js";
 import { flagOption, stringOption } from "../args.js";
+import { runRadialVerify } from "./verifyRadial.js";
 import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_OK } from "../run.js";
@@ -106,10 +107,12 @@ function parseFraction(text: string, where: string): number {
   return v;
 }
 
+const beamText0 = (args: ParsedArgs): string | undefined => stringOption(args, "beam");
+
 export const command: Command = {
   name: "verify",
   summary: "2D full-wave check: bare, ideal, reduced and realized devices, converged figures with uncertainties",
-  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--margin L] [--method fdfd] [--json] [--out DIR]",
+  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--margin L] [--method fdfd|radial] [--json] [--out DIR]",
   details: [
     "Solves each case with a frequency-domain finite-difference solver (PML on all sides): the bare",
     "hidden object of a cloak (a perfect conductor), the ideal device (scheme full) and the reduced one",
@@ -126,7 +129,7 @@ export const command: Command = {
     { name: "angle", type: "string", valueName: "DEG", description: "direction of the incident wave, degrees from +x (default 0)" },
     { name: "beam", type: "string", valueName: "W[, D]", description: "Gaussian beam of waist W, its axis offset by D across the beam from the device centre" },
     { name: "margin", type: "string", valueName: "L", description: "free space around the device, e.g. '20 mm' (default half a wavelength)" },
-    { name: "method", type: "string", valueName: "fdfd", description: "solver: fdfd (finite differences on a grid)" },
+    { name: "method", type: "string", valueName: "fdfd|radial", description: "solver: fdfd (finite differences on a grid, default) or radial (exact, per angular order; cloaks and concentrators, plane waves)" },
     { name: "json", type: "boolean", description: "print the summary as one JSON object on stdout" },
     { name: "out", type: "string", valueName: "DIR", description: `write ${VERIFY_SVG} (|field| of each case) into DIR` },
   ],
@@ -142,7 +145,10 @@ export const command: Command = {
     if (accText !== undefined && resolution !== undefined) throw new InputError({ where: "--accuracy", message: "give either --accuracy (a ladder of grids) or --resolution (one grid), not both" });
     const accuracy = accText === undefined ? undefined : parseFraction(accText, "--accuracy");
     const method = stringOption(args, "method") ?? "fdfd";
-    if (method !== "fdfd") throw new InputError({ where: "--method", message: `expected fdfd, got '${method}'` });
+    if (method !== "fdfd" && method !== "radial") throw new InputError({ where: "--method", message: `expected fdfd or radial, got '${method}'` });
+    if (method === "radial" && beamText0(args) !== undefined) throw new InputError({ where: "--beam", message: "the radial method solves plane waves only; use --method fdfd for a beam" });
+    for (const o of ["resolution", "margin"]) if (method === "radial" && stringOption(args, o) !== undefined) throw new InputError({ where: `--${o}`, message: "the radial method has no grid; drop this option or use --method fdfd" });
+    if (method === "radial" && stringOption(args, "out") !== undefined) throw new InputError({ where: "--out", message: "the radial method draws no field picture; use --method fdfd" });
     const angleText = stringOption(args, "angle");
     const angleDeg = angleText === undefined ? 0 : Number(angleText);
     if (!Number.isFinite(angleDeg)) throw new InputError({ where: "--angle", message: `expected an angle in degrees, got '${angleText}'` });
@@ -175,6 +181,12 @@ export const command: Command = {
     const n = reduced.settings.backgroundIndex, z = reduced.settings.backgroundImpedance;
     const background = { eps: n / z, mu: n * z };
     const built = deviceCases({ transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid, ideal, reduced, plan });
+    if (method === "radial") {
+      return runRadialVerify(io, {
+        designName: design.name, scheme: s.scheme, polarization: s.polarization, frequencyHz: design.frequencyHz,
+        transform: design.transform, cases: built.cases, accuracy: accuracy ?? DEFAULT_ACCURACY, angleDeg, json, notes: built.notes,
+      });
+    }
     const angleRad = (angleDeg * Math.PI) / 180;
     let illumination: Illumination = { kind: "plane", angleRad };
     if (beam) {
