@@ -96,6 +96,7 @@ describe("GDSII layout of the silicon chip bend (electron-beam lithography)", ()
     let b = 0;
     for (const [level, cells] of [...byLevel].sort((x, y) => x[0] - y[0])) {
       let drawnArea = 0;
+      let smallestRadiusNm = Infinity;
       for (const row of cells) {
         const poly = gds.boundaries[b++];
         expect(poly.layer).toBe(level);
@@ -109,7 +110,9 @@ describe("GDSII layout of the silicon chip bend (electron-beam lithography)", ()
         const rUm = Number(row.radius_um);
         // vertices are rounded to the 1 nm database unit: on a ~30 nm hole each moves ≤ 0.5 nm,
         // which bounds the area error by about 2·0.5/30 ≈ 3 % (1 % is what the rounding gives here)
-        expectClose(area, Math.PI * (rUm * 1000) ** 2, { rel: 1e-2, label: `hole area of cell ${row.cell}` });
+        // the bound itself, relative: 2·0.5 nm / r
+        expectClose(area, Math.PI * (rUm * 1000) ** 2, { rel: 1 / (rUm * 1000), label: `hole area of cell ${row.cell}` });
+        smallestRadiusNm = Math.min(smallestRadiusNm, rUm * 1000);
         drawnArea += area;
       }
       // drawn fraction of the level's cells against its fill fraction; hex recipes on the square
@@ -117,7 +120,7 @@ describe("GDSII layout of the silicon chip bend (electron-beam lithography)", ()
       const lv = r.levels.find((x) => Number(x.level) === level)!;
       const a = 100; // nm, the demo's pitch
       const factor = lv.lattice === "hex" ? Math.sqrt(3) / 2 : 1;
-      expectClose(drawnArea / (cells.length * a * a), Number(lv.fill_fraction) * factor, { rel: 1e-2, label: `level ${level} area fraction` }); // the same 1 nm vertex rounding in every cell of a level
+      expectClose(drawnArea / (cells.length * a * a), Number(lv.fill_fraction) * factor, { rel: 1 / smallestRadiusNm, label: `level ${level} area fraction` }); // the same 1 nm vertex rounding bound, at the level's smallest hole
     }
     expect(b).toBe(gds.boundaries.length);
   });
