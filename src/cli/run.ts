@@ -7,6 +7,7 @@
  * 3 internal error (a bug: please report); 130 interrupted while writing (nothing written).
  */
 import { InputError } from "../core/errors.js";
+import { NumericalFailure } from "../numerics/numericalFailure.js";
 import { unknownWithSuggestion } from "../core/errors.js";
 import { commandHelp, parseCommandArgs } from "./args.js";
 import type { CliIo } from "./cliIo.js";
@@ -65,6 +66,11 @@ export function reportError(err: unknown, io: CliIo): number {
   if (err instanceof InputError) {
     for (const i of err.issues) io.stderr(`error: ${i.where}: ${i.message}\n`);
     return EXIT_INPUT;
+  }
+  if (err instanceof NumericalFailure) {
+    // valid input, no trustworthy answer: neither the user's mistake nor a bug in the caller
+    io.stderr(`error: ${err.where}: numerical failure, no trustworthy answer: ${err.message}\n`);
+    return EXIT_INTERNAL;
   }
   const e = err as Error;
   io.stderr(`internal error: ${e?.message ?? String(err)}\n`);
