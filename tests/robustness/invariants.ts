@@ -47,7 +47,9 @@ const BAD_TOKEN = /\bNaN\b|-?\bInfinity\b|(=|\bgot|\d)[ \t]*undefined\b|\bundefi
 
 /** Problems found in a text written for people or files ("" names the stream). */
 export function textProblems(name: string, text: string): string[] {
-  const m = BAD_TOKEN.exec(text);
+  // a message quoting the user's own value back ('got "Infinity"', 'got \'NaN\'') is an echo, not a leak
+  const own = text.replace(/\bgot ("[^"\n]*"|'[^'\n]*')/g, (_, q: string) => `got ${q[0]}${"·".repeat(q.length - 2)}${q[0]}`);
+  const m = BAD_TOKEN.exec(own);
   if (!m) return [];
   const start = Math.max(0, m.index - 60);
   return [`${name}: '${m[0]}' in "${text.slice(start, m.index + 40).replace(/\n/g, "⏎")}"`];
