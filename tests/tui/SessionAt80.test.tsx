@@ -108,7 +108,7 @@ describe("session at 80 × 24", () => {
     const long = lines(f).find((l) => l.includes("a-process-id")) ?? "";
     expect(long).toMatch(/a-process-id\S*… +a process name/);
     expect([...long].length).toBeLessThanOrEqual(80);
-    // the selected row carries a marker besides the reverse video: the first row is selected
+    // the selected row carries a marker besides the inverse colours: the first row is selected
     expect(f).toMatch(/^›\(•\) +no process limit/m);
     app.stdin.write(KEY.down);
     const g = await waitFor(app.lastFrame, (s) => /^›\( \) two-photon-lithography/m.test(s), "marker moved");

@@ -128,7 +128,7 @@ describe("renderHeatMap", () => {
   it("marks missing values and the cursor cell", () => {
     const lattice = fullLattice(2, 1);
     const view = renderHeatMap(lattice, [NaN, 1], { kind: "continuous", min: 0, max: 1, log: false }, "mean", chooseLayout(2, 1, 80, 5), { i: 1, j: 0 });
-    // the cursor is a glyph of its own, not only reverse video
+    // the cursor is a glyph of its own, not only inverse colours
     expect(heatMapText(view)).toEqual([`${MISSING_GLYPH}${MISSING_GLYPH}${CURSOR_GLYPH}${CURSOR_GLYPH}`]);
     expect(view.rows[0].filter((r) => r.inverse).map((r) => r.text)).toEqual([`${CURSOR_GLYPH}${CURSOR_GLYPH}`]);
     expect(view.legend.at(-1)?.glyph).toBe(MISSING_GLYPH);
