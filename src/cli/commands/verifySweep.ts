@@ -13,7 +13,7 @@ import { memoryBudget } from "../../io/memoryLimit.js";
 import { checkOutputFolder, prepareOutputFolder, writeOutputSet, type OutputFile } from "../../io/outputSet.js";
 import { parseQuantity } from "../../io/quantity.js";
 import { formatFrequency } from "../../verify/formatQuantity.js";
-import { planSweepPool, sweepPeakBytes } from "../../verify/sweep/sweepConcurrency.js";
+import { planSweepPool, sweepPeakBytes, workerBaselineBytes } from "../../verify/sweep/sweepConcurrency.js";
 import { sweepCsvText } from "../../verify/sweep/sweepCsv.js";
 import { MAX_SWEEP_POINTS, sweepFrequencies } from "../../verify/sweep/sweepFrequencies.js";
 import type { SweepContext } from "../../verify/sweep/sweepPoint.js";
@@ -86,7 +86,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   const progress = (text: string): void => io.stderr(`… ${text}\n`);
   const budget = memoryBudget("verify");
   const peaks = frequencies.map((f) => ({ frequencyHz: f, ...sweepPeakBytes(context, f) }));
-  const pool = planSweepPool(peaks, availableParallelism(), budget.budgetBytes, budget.source);
+  const pool = planSweepPool(peaks, availableParallelism(), budget.budgetBytes, budget.source, workerBaselineBytes(context.grid.count));
   if ("refusal" in pool) throw new InputError({ where: "--sweep", message: pool.refusal });
   const notes = [...run.notes];
   if (pool.note) notes.push(pool.note);
@@ -97,11 +97,13 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   process.once("SIGTERM", onSigint);
   let outputs: string[] = [];
   let result;
+  let threads = 0;
   try {
     const ran = await runSweepPool({ ...context, solverBytes: pool.solverBytes }, frequencies, {
       workers: pool.workers, signal: controller.signal, formatHz: formatFrequency,
       onDone: (done, total, f) => progress(`sweep: ${done} of ${total} done (${formatFrequency(f)})`),
     });
+    threads = ran.threads;
     result = summarizeSweep(ran.points, { designFrequencyHz: run.designFrequencyHz, threshold: run.threshold, beam: context.illumination.kind === "beam" });
     result.notes = [...new Set([...notes, ...result.notes])];
     if (ran.threads === 0 && pool.workers > 1) result.notes.push("the worker file is not built (running from the sources): frequencies were solved one after the other");
@@ -124,7 +126,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
     process.off("SIGTERM", onSigint);
   }
   for (const note of result.notes) io.stderr(`note: ${note}\n`);
-  const sweep = sweepJson(result, run.threshold);
+  const sweep = { ...sweepJson(result, run.threshold), workers: pool.workers, threads };
   const ladder = context.resolution !== undefined ? `one grid at ${context.resolution} points per wavelength` : `grid ladder per frequency, accuracy ${Number(((context.accuracy ?? 0.02) * 100).toPrecision(3))} %`;
   if (run.json) {
     io.stdout(`${JSON.stringify({

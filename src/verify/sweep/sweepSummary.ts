@@ -69,7 +69,7 @@ export function sweepSeries(r: SweepResult): SweepSeries[] {
 }
 
 /** The `sweep` object of `verify --json` (see the README for the keys). */
-export function sweepJson(r: SweepResult, threshold: number): Record<string, unknown> {
+export function sweepJson(r: SweepResult, threshold: number): Record<string, unknown> & { converged: boolean } {
   const col = <K extends keyof SweepCaseFigures>(name: string, key: K): (SweepCaseFigures[K] | null)[] =>
     r.points.map((p) => {
       const c = p.cases.find((x) => x.name === name);
