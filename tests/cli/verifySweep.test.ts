@@ -129,7 +129,7 @@ describe("verify --sweep", () => {
     const s = JSON.parse(r.out);
     const byName = Object.fromEntries(s.sweep.cases.map((c: { name: string }) => [c.name, c]));
     expect(Object.keys(byName)).toEqual(["bare", "ideal", "reduced", "realized"]);
-    const plain = JSON.parse((await run([MAST, "--resolution", "8", "--json"])).out);
+    const plain = JSON.parse((await run([MAST, "--method", "fdfd", "--resolution", "8", "--json"])).out);
     for (const name of ["bare", "ideal", "reduced", "realized"]) {
       const one = plain.cases.find((c: { name: string }) => c.name === name);
       expectClose(byName[name].scatteringWidthM[1], one.scatteringWidthM, { rel: 1e-12, label: `${name} at 8.5 GHz` });
