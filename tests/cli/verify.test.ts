@@ -8,12 +8,15 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { bufferIo } from "../../src/cli/cliIo.js";
 import { runCli } from "../../src/cli/run.js";
+import { cylinderSeries, seriesScatteringWidth } from "../../src/verify/cylinderSeries.js";
 import { expectClose } from "../helpers/close.js";
 
 const DEMO = join(import.meta.dirname, "..", "..", "demo-designs");
 const CLOAK = join(DEMO, "field-radial-cloak.json"); // linear cloak a = 20 mm, b = 50 mm, 9.4 GHz, Ez
 const CONCENTRATOR = join(DEMO, "plan-concentrator-subunity.json"); // Hz, non-magnetic, 5.8 GHz
 const SPHERE = join(DEMO, "field-spherical-cloak.json");
+const BEND = join(DEMO, "field-beam-bend.json"); // quarter-turn bend, 10 GHz, Ez
+const MAST = join(DEMO, "plan-microwave-mast-cloak.json"); // reduced Ez cloak a = 25 mm, b = 60 mm, split rings, 8.5 GHz
 let dir = "";
 beforeAll(() => { dir = mkdtempSync(join(tmpdir(), "cw-verify-")); });
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -82,3 +85,69 @@ describe("verify command", () => {
     expect(c.err).toMatch(/--margin/);
   });
 });
+
+describe("verify --method auto (the default)", () => {
+  it("the cylindrical cloak demo goes to the exact radial solver: no grid, the bare mast equals the PEC series (Balanis, Advanced Engineering Electromagnetics, 2nd ed. 2012, §11.5)", async () => {
+    const r = await run([CLOAK, "--json"]);
+    expect(r.code, r.err).toBe(0);
+    const s = JSON.parse(r.out);
+    expect(s.method).toBe("radial");
+    expect(s.methodReason).toMatch(/depend on r only.*\(auto\)/);
+    expect(s.grid).toBeNull();
+    expect(s.resolutions).toEqual([]);
+    const [bare, ideal, , realized] = s.cases;
+    expect(bare.method).toBe("radial");
+    const k0 = (2 * Math.PI * 9.4e9) / 299_792_458;
+    expectClose(bare.scatteringWidthM, seriesScatteringWidth(cylinderSeries({ polarization: "Ez", radiusM: 0.02, k0, background: { eps: 1, mu: 1 }, interior: { kind: "pec" } })), { rel: 1e-7, label: "bare mast" });
+    expect(ideal.converged).toBe(true);
+    expect(ideal.vsBare).toBeLessThan(0.1);
+    expect(ideal.bistaticM).toHaveLength(360);
+    // a case with nothing to solve names no solver
+    expect(realized).toMatchObject({ available: false, method: null, methodReason: null });
+    const h = await run([CLOAK]);
+    expect(h.out).toMatch(/exact radial solver \(no grid\)/);
+    expect(h.out).not.toMatch(/finest grid/);
+  });
+
+  it("a bend takes the grid and says why; so does a beam on the cloak", async () => {
+    const r = await run([BEND, "--json", "--resolution", "8"]);
+    expect(r.code, r.err).toBe(0);
+    const s = JSON.parse(r.out);
+    expect(s.method).toBe("fdfd");
+    expect(s.methodReason).toMatch(/auto: a beam-bend is not a radial device/);
+    for (const c of s.cases.filter((x: { available: boolean }) => x.available)) expect(c.method).toBe("fdfd");
+    const b = await run([CLOAK, "--json", "--resolution", "8", "--beam", "60 mm"]);
+    expect(b.code, b.err).toBe(0);
+    const sb = JSON.parse(b.out);
+    expect(sb.method).toBe("fdfd");
+    expect(sb.methodReason).toMatch(/a beam is not a plane wave/);
+  });
+
+  it("a radial cloak with a realization: bare, ideal and reduced exact, the realized map (square cells) on the grid beside a grid bare object", async () => {
+    const r = await run([MAST, "--json", "--accuracy", "10%"]);
+    expect([0, 2], r.err).toContain(r.code);
+    const s = JSON.parse(r.out);
+    expect(s.method).toBe("radial+fdfd");
+    expect(s.methodReason).toMatch(/finite differences for realized/);
+    const by = Object.fromEntries(s.cases.map((c: { name: string }) => [c.name, c]));
+    for (const n of ["bare", "ideal", "reduced"]) expect(by[n].method, n).toBe("radial");
+    expect(by.realized.method).toBe("fdfd");
+    expect(by.realized.methodReason).toMatch(/not radial/);
+    expect(by.realized.ladder.length).toBeGreaterThanOrEqual(3);
+    // σ/σ_bare of the grid case is taken against the grid's bare object, rung by rung
+    for (const p of by.realized.ladder) expectClose(p.vsBare * by.bare.scatteringWidthM, p.scatteringWidthM, { rel: 0.1, label: `rung ${p.resolution}: grid bare within 10 % of the exact one` });
+    expect(s.grid).not.toBeNull();
+    // the reduced Ez cloak has a finite floor (Yan, Ruan & Qiu, PRL 99, 233901 (2007)): not invisible
+    expect(by.reduced.vsBare).toBeGreaterThan(0.1);
+  });
+
+  it("--method fdfd forces the grid on a radial cloak; grid options under auto ask for the grid too", async () => {
+    const r = await run([CLOAK, "--json", "--method", "fdfd", "--resolution", "8"]);
+    expect(JSON.parse(r.out).methodReason).toMatch(/--method fdfd/);
+    const a = await run([CLOAK, "--json", "--resolution", "8"]);
+    const s = JSON.parse(a.out);
+    expect(s.method).toBe("fdfd");
+    expect(s.methodReason).toMatch(/--resolution asks for the grid/);
+  });
+});
+

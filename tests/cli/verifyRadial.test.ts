@@ -60,6 +60,6 @@ describe("verify --method radial", () => {
     }
     const r = await run([CLOAK, "--method", "spectral"]);
     expect(r.code).toBe(1);
-    expect(r.err).toMatch(/expected fdfd or radial/);
+    expect(r.err).toMatch(/expected auto, fdfd, radial/);
   });
 });

@@ -1,6 +1,7 @@
 /** The Levels screen shows the verdict, each missed requirement and the "what would help" panel. */
 import { describe, it, expect } from "vitest";
 import { render } from "ink-testing-library";
+import { Box } from "ink";
 import { LevelsScreen } from "../../src/tui/screens/LevelsScreen.js";
 import { sessionReducer } from "../../src/tui/state/sessionReducer.js";
 import { initialSessionState } from "../../src/tui/state/sessionState.js";
@@ -20,7 +21,31 @@ describe("Levels screen verdict", () => {
     const frame = lastFrame() ?? "";
     expect(frame).toContain("NOT buildable: missed recipes");
     expect(frame).toContain("missed recipes: 8 of 38 cells have no recipe");
-    expect(frame).toContain("what would help (tried by re-planning; 5 tried):");
+    expect(frame).toContain("what would help (tried by re-planning; 5 tried; key w applies one):");
     expect(frame).toContain("1. allow every catalog material (buildable): recipes: 8 cells without recipe → met");
+  });
+});
+
+describe("Levels screen at 80 × 24 with a failing plan", () => {
+  it("keeps the remedies on screen above six missed requirements, and the column titles apart", () => {
+    const plan = syntheticPlan();
+    const names = ["recipes", "tolerance", "loss", "bandwidth", "anisotropy", "process"] as const;
+    plan.verdict = { buildable: false, missed: names.map((what, k) => ({ what, value: k + 1, limit: 0, text: `requirement ${what} missed by a long explanation that runs past the edge of the screen` })) };
+    plan.remedies = {
+      tried: 10,
+      remedies: [1, 2, 3].map((k) => ({ label: `remedy ${k}`, overrides: { levels: 10 + k }, pitchM: null, buildable: false, effects: [], missedAfter: [], changes: `tolerance: 27.7 % → ${20 + k} %` })),
+    };
+    const s0 = initialSessionState({ designPath: "/d/bend.json", outDir: "/d/out", sessionPath: "/d/out/session.json", mapArea: { width: 60, height: 10 } });
+    let s = sessionReducer(s0, { type: "designLoaded", base: SYNTHETIC_SETTINGS, options: { materials: [], families: [], processes: [] } });
+    s = sessionReducer(s, { type: "planReady", seq: 1, plan });
+    // 24 rows less the header (4 lines) and the footer (1 line)
+    const { lastFrame } = render(<Box width={80}><LevelsScreen state={s} width={80} height={19} /></Box>);
+    const frame = lastFrame() ?? "";
+    const rows = frame.split("\n");
+    expect(rows.length).toBeLessThanOrEqual(19);
+    for (const k of [1, 2, 3]) expect(frame).toContain(`${k}. remedy ${k}: tolerance: 27.7 % → ${20 + k} %`);
+    expect(frame).toContain("missed recipes: requirement recipes");
+    expect(frame).toMatch(/recipe err +quant err +alt/);
+    for (const line of rows) expect([...line].length, line).toBeLessThanOrEqual(80);
   });
 });

@@ -148,3 +148,19 @@ describe("session at 80 × 24", () => {
     expect(f).not.toMatch(/[·:+*#@]{2}/); // no ramp glyphs on the map
   });
 });
+
+describe("the settings line", () => {
+  it("drops words before values so that every setting fits 80 columns", async () => {
+    const { settingsLine } = await import("../../src/tui/components/Header.js");
+    const { sessionReducer } = await import("../../src/tui/state/sessionReducer.js");
+    const { SYNTHETIC_SETTINGS } = await import("./helpers/syntheticPlan.js");
+    const s0 = initialSessionState({ designPath: "/d/bend.json", outDir: "/out", sessionPath: "/out/session.json" });
+    const base = { ...SYNTHETIC_SETTINGS, levels: 10, process: "stereolithography", materials: ["ptfe", "alumina-96", "air"], families: ["rods-in-host"] };
+    const s = sessionReducer(s0, { type: "designLoaded", base, options: { materials: [], families: [], processes: [] } });
+    const wide = settingsLine(s, 200);
+    expect(wide).toBe("Ez · unit-mu · levels 10 · tol 5.00 % · process stereolithography · 3 materials · 1 family");
+    const narrow = settingsLine(s, 80);
+    expect(narrow).toBe("Ez · unit-mu · 10 lv · tol 5.00 % · stereolithography · 3 mat · 1 fam");
+    expect(narrow.length).toBeLessThanOrEqual(80);
+  });
+});

@@ -22,9 +22,9 @@ import { SPEED_OF_LIGHT_M_PER_S } from "../../core/physicalConstants.js";
 import { fieldSvg } from "../../verify/fieldSvg.js";
 import { formatFrequency, formatLength } from "../../verify/formatQuantity.js";
 import type { Illumination } from "../../verify/illumination.js";
-import { DEFAULT_ACCURACY, verifyDevice, type VerifyResult } from "../../verify/verifyDevice.js";
+import { DEFAULT_ACCURACY } from "../../verify/verifyDevice.js";
+import { METHOD_OPTIONS, runCheck, type CheckResult, type MethodOption } from "../../verify/runCheck.js";
 import { flagOption, stringOption } from "../args.js";
-import { runRadialVerify } from "./verifyRadial.js";
 import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_OK } from "../run.js";
@@ -35,10 +35,11 @@ export const VERIFY_SVG = "verify-fields.svg";
 const jn = (v: number | null | undefined): number | null => (v !== null && v !== undefined && Number.isFinite(v) ? v : null);
 
 /** The machine-readable summary printed by --json. */
-export function verifySummary(design: string, scheme: string, r: VerifyResult, outputs: string[]): Record<string, unknown> {
+export function verifySummary(design: string, scheme: string, r: CheckResult, outputs: string[]): Record<string, unknown> {
   return {
     design,
     method: r.method,
+    methodReason: r.methodReason,
     polarization: r.polarization,
     scheme,
     frequencyHz: r.frequencyHz,
@@ -47,7 +48,7 @@ export function verifySummary(design: string, scheme: string, r: VerifyResult, o
       : { kind: "beam", angleDeg: (r.illumination.angleRad * 180) / Math.PI, waistM: r.illumination.waistM, focusM: r.illumination.focusM },
     accuracy: r.accuracy,
     resolutions: r.resolutions,
-    grid: { nx: r.grid.nx, ny: r.grid.ny, stepM: r.grid.h, pmlNodes: r.grid.pml },
+    grid: r.grid ? { nx: r.grid.nx, ny: r.grid.ny, stepM: r.grid.h, pmlNodes: r.grid.pml } : null,
     densestIndex: r.densestIndex,
     backgroundIndex: r.backgroundIndex,
     marginM: r.marginM,
@@ -55,6 +56,8 @@ export function verifySummary(design: string, scheme: string, r: VerifyResult, o
     converged: r.cases.every((c) => !c.available || c.converged !== false),
     cases: r.cases.map((c) => ({
       name: c.name,
+      method: c.method,
+      methodReason: c.methodReason,
       available: c.available,
       reason: c.reason,
       scatteringWidthM: jn(c.scatteringWidthM),
@@ -75,28 +78,32 @@ export function verifySummary(design: string, scheme: string, r: VerifyResult, o
 }
 
 /** The human table. */
-export function verifyTable(design: string, scheme: string, r: VerifyResult): string {
+export function verifyTable(design: string, scheme: string, r: CheckResult): string {
   const f = (v: number | null, d = 3): string => (v === null || !Number.isFinite(v) ? "—" : Number(v.toPrecision(d)).toString());
   const pct = (v: number | null): string => (v === null || !Number.isFinite(v) ? "—" : `${Number((v * 100).toPrecision(2))} %`);
+  const unc = (v: number | null): string => (v !== null && v < 1e-4 ? "< 0.01 %" : pct(v));
   const hasBare = r.cases.some((c) => c.name === "bare" && c.available);
   const beam = r.illumination.kind === "beam";
   const ground = r.groundYM !== null;
-  const head = ["case", beam ? "σ_s (beam)" : "σ_s", ...(hasBare ? ["σ/σ_bare"] : []), ...(beam ? [ground ? "specular" : "delivered", "deviation"] : []), "±", "field vs ideal", ""];
+  const mixed = r.method === "radial+fdfd";
+  const head = ["case", ...(mixed ? ["solver"] : []), beam ? "σ_s (beam)" : "σ_s", ...(hasBare ? ["σ/σ_bare"] : []), ...(beam ? [ground ? "specular" : "delivered", "deviation"] : []), "±", "field vs ideal", ""];
   const rows = r.cases.map((c) => c.available
-    ? [c.name, formatLength(c.scatteringWidthM ?? 0), ...(hasBare ? [f(c.vsBare)] : []), ...(beam ? [pct(c.deliveredPower), c.deviationDeg === null ? "—" : `${c.deviationDeg.toFixed(1)}°`] : []), pct(c.uncertainty), pct(c.fieldErrorVsIdeal), c.converged === false ? "not converged" : ""]
-    : [c.name, "—", ...(hasBare ? ["—"] : []), ...(beam ? ["—", "—"] : []), "", "", `not computed: ${c.reason}`]);
+    ? [c.name, ...(mixed ? [c.method ?? ""] : []), formatLength(c.scatteringWidthM ?? 0), ...(hasBare ? [f(c.vsBare)] : []), ...(beam ? [pct(c.deliveredPower), c.deviationDeg === null ? "—" : `${c.deviationDeg.toFixed(1)}°`] : []), unc(c.uncertainty), pct(c.fieldErrorVsIdeal), c.converged === false ? "not converged" : ""]
+    : [c.name, ...(mixed ? [""] : []), "—", ...(hasBare ? ["—"] : []), ...(beam ? ["—", "—"] : []), "", "", `not computed: ${c.reason}`]);
   const widths = head.map((h, k) => Math.max(h.length, ...rows.map((row) => (k === head.length - 1 ? 0 : row[k].length))));
   const line = (cells: string[]): string => ("  " + cells.map((c, k) => (k === 0 ? c.padEnd(widths[k]) : k === cells.length - 1 ? c : c.padStart(widths[k]))).join("  ")).trimEnd();
   const ill = r.illumination.kind === "plane"
     ? `plane wave at ${f((r.illumination.angleRad * 180) / Math.PI)}° from +x`
     : `Gaussian beam at ${f((r.illumination.angleRad * 180) / Math.PI)}°, waist ${formatLength(r.illumination.waistM)}`;
-  const ladder = r.resolutions.length > 1 ? `ladder ${r.resolutions.join(", ")} points per wavelength, extrapolated (accuracy ${pct(r.accuracy)})` : `one grid at ${r.resolutions[0]} points per wavelength`;
+  const ladder = r.resolutions.length > 1 ? `ladder ${r.resolutions.join(", ")} points per wavelength, extrapolated (accuracy ${pct(r.accuracy)})` : r.resolutions.length === 1 ? `one grid at ${r.resolutions[0]} points per wavelength` : `accuracy ${pct(r.accuracy)}`;
+  const solver = r.method === "radial" ? "exact radial solver (no grid)" : r.method === "fdfd" ? "FDFD" : "exact radial solver and FDFD";
   return [
     design,
-    `  ${r.polarization}, scheme ${scheme}, ${formatFrequency(r.frequencyHz)}, ${ill}; ${r.method.toUpperCase()}, ${ladder}; finest grid ${r.grid.nx} × ${r.grid.ny} nodes, step ${formatLength(r.grid.h)} (densest index ${Number(r.densestIndex.toPrecision(3))})`,
+    `  ${r.polarization}, scheme ${scheme}, ${formatFrequency(r.frequencyHz)}, ${ill}; ${solver}, ${ladder}${r.grid ? `; finest grid ${r.grid.nx} × ${r.grid.ny} nodes, step ${formatLength(r.grid.h)} (densest index ${Number(r.densestIndex.toPrecision(3))})` : ""}`,
+    `  solver: ${r.methodReason}`,
     line(head),
     ...rows.map(line),
-    `  σ_s: scattering width (scattered power / incident intensity), extrapolated to zero grid step; ±: its relative uncertainty${hasBare ? " (against the bare object's σ when that is larger)" : ""}`,
+    `  σ_s: scattering width (scattered power / incident intensity), ${r.method === "radial" ? "exact per angular order" : r.method === "fdfd" ? "extrapolated to zero grid step" : "exact (radial) or extrapolated to zero grid step (fdfd)"}; ±: its relative uncertainty${hasBare ? " (against the bare object's σ when that is larger)" : ""}`,
     ...(beam && !ground ? ["  delivered: share of the outgoing power inside the ideal device's output lobe; deviation: output direction minus the ideal's"] : []),
     ...(ground ? [
       `  ground plane below y = ${formatLength(r.groundYM!)} (perfect conductor; the bump is part of it in every case but flat)`,
@@ -131,7 +138,7 @@ export function defaultGroundWaist(deviceWidthM: number, angleRad: number, lambd
 export const command: Command = {
   name: "verify",
   summary: "2D full-wave check: bare, ideal, reduced and realized devices, converged figures with uncertainties",
-  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--scene ground|free] [--margin L] [--method fdfd|radial] [--json] [--out DIR]",
+  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--scene ground|free] [--margin L] [--method auto|fdfd|radial] [--json] [--out DIR]",
   details: [
     "Solves each case with a frequency-domain finite-difference solver (PML on all sides): the bare",
     "hidden object of a cloak (a perfect conductor), the ideal device (scheme full) and the reduced one",
@@ -153,7 +160,7 @@ export const command: Command = {
     { name: "beam", type: "string", valueName: "W[, D]", description: "Gaussian beam of waist W, its axis offset by D across the beam from the device centre" },
     { name: "scene", type: "string", valueName: "ground|free", description: "carpet designs: on their ground plane, lit by a beam from above (ground, default) or in free space (free)" },
     { name: "margin", type: "string", valueName: "L", description: "free space around the device, e.g. '20 mm' (default half a wavelength)" },
-    { name: "method", type: "string", valueName: "fdfd|radial", description: "solver: fdfd (finite differences on a grid, default) or radial (exact, per angular order; cloaks and concentrators, plane waves)" },
+    { name: "method", type: "string", valueName: "auto|fdfd|radial", description: "solver: auto (default: radial where the tensors depend on r only, fdfd for the rest), fdfd (finite differences on a grid) or radial (exact, per angular order; cloaks and concentrators, plane waves)" },
     { name: "json", type: "boolean", description: "print the summary as one JSON object on stdout" },
     { name: "out", type: "string", valueName: "DIR", description: `write ${VERIFY_SVG} (|field| of each case) into DIR` },
   ],
@@ -168,8 +175,8 @@ export const command: Command = {
     const accText = stringOption(args, "accuracy");
     if (accText !== undefined && resolution !== undefined) throw new InputError({ where: "--accuracy", message: "give either --accuracy (a ladder of grids) or --resolution (one grid), not both" });
     const accuracy = accText === undefined ? undefined : parseFraction(accText, "--accuracy");
-    const method = stringOption(args, "method") ?? "fdfd";
-    if (method !== "fdfd" && method !== "radial") throw new InputError({ where: "--method", message: `expected fdfd or radial, got '${method}'` });
+    const method = (stringOption(args, "method") ?? "auto") as MethodOption;
+    if (!METHOD_OPTIONS.includes(method)) throw new InputError({ where: "--method", message: `expected ${METHOD_OPTIONS.join(", ")}, got '${method}'` });
     if (method === "radial" && beamText0(args) !== undefined) throw new InputError({ where: "--beam", message: "the radial method solves plane waves only; use --method fdfd for a beam" });
     for (const o of ["resolution", "margin"]) if (method === "radial" && stringOption(args, o) !== undefined) throw new InputError({ where: `--${o}`, message: "the radial method has no grid; drop this option or use --method fdfd" });
     if (method === "radial" && stringOption(args, "out") !== undefined) throw new InputError({ where: "--out", message: "the radial method draws no field picture; use --method fdfd" });
@@ -209,12 +216,6 @@ export const command: Command = {
     const background = { eps: n / z, mu: n * z };
     const built = deviceCases({ transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid, ideal, reduced, plan, freeSpace: sceneKind === "free" });
     if (sceneKind === "ground" && !built.ground) throw new InputError({ where: "--scene", message: `the ground-plane scene needs a carpet design: ${carpetGround(design.transform).reason}` });
-    if (method === "radial") {
-      return runRadialVerify(io, {
-        designName: design.name, scheme: s.scheme, polarization: s.polarization, frequencyHz: design.frequencyHz,
-        transform: design.transform, cases: built.cases, accuracy: accuracy ?? DEFAULT_ACCURACY, angleDeg, json, notes: built.notes,
-      });
-    }
     let angleRad = (angleDeg * Math.PI) / 180;
     let illumination: Illumination = { kind: "plane", angleRad };
     const ground = built.ground;
@@ -233,7 +234,9 @@ export const command: Command = {
       illumination = { kind: "beam", angleRad, waistM: beam.waistM, focusM: [cx - beam.offsetM * Math.sin(angleRad), cy + beam.offsetM * Math.cos(angleRad)] };
     }
     let last = "";
-    const result = verifyDevice({
+    const gridOption = ["resolution", "margin", "out"].find((o) => stringOption(args, o) !== undefined);
+    const result = runCheck({
+      method, transform: design.transform, gridOption: gridOption && `--${gridOption}`,
       polarization: s.polarization,
       background,
       frequencyHz: design.frequencyHz,
@@ -254,7 +257,7 @@ export const command: Command = {
     for (const note of result.notes) io.stderr(`note: ${note}\n`);
     const outputs: string[] = [];
     const outDir = stringOption(args, "out");
-    if (outDir !== undefined) {
+    if (outDir !== undefined && result.grid) {
       const path = resolve(io.cwd, outDir, VERIFY_SVG);
       const panels = result.cases.filter((c) => c.magnitude !== null).map((c) => ({ title: c.name, magnitude: c.magnitude! }));
       const svg = fieldSvg(result.grid, panels, result.deviceMask, {

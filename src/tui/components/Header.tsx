@@ -5,22 +5,30 @@ import { effectiveSettings, hasUnsavedChanges, planIsStale, type SessionState } 
 import { formatPercent } from "../state/formatValue.js";
 import { STAGE_WORDS, THEME } from "../theme.js";
 
-export function settingsLine(state: SessionState): string {
+/**
+ * The settings line, in the longest wording that fits `width` columns: words go before values
+ * ("levels 5" → "5 lv", "process stereolithography" → "stereolithography"), so that at 80 columns
+ * every setting stays visible; the last form is cut at the end by the caller if still too long.
+ */
+export function settingsLine(state: SessionState, width = Infinity): string {
   const s = effectiveSettings(state);
   if (!s) return "reading the design…";
   // the level count is a largest number: say so when the plan needs fewer (+ then changes nothing)
   const used = state.plan && !planIsStale(state) ? state.plan.levels.length : null;
   const levels = s.levels === null ? (used !== null ? `${used} (auto)` : "auto") : used !== null && used < s.levels ? `≤${s.levels} (${used} used)` : String(s.levels);
-  const parts = [
-    s.polarization,
-    s.scheme,
-    `levels ${levels}`,
-    `tol ${formatPercent(s.tolerance)}`,
-    `process ${s.process ?? "none"}`,
-  ];
-  if (s.materials) parts.push(`${s.materials.length} materials`);
-  if (s.families) parts.push(`${s.families.length} famil${s.families.length === 1 ? "y" : "ies"}`);
-  return parts.join(" · ");
+  const nMat = s.materials ? s.materials.length : null;
+  const nFam = s.families ? s.families.length : null;
+  const long = [s.polarization, s.scheme, `levels ${levels}`, `tol ${formatPercent(s.tolerance)}`, `process ${s.process ?? "none"}`];
+  if (nMat !== null) long.push(`${nMat} materials`);
+  if (nFam !== null) long.push(`${nFam} famil${nFam === 1 ? "y" : "ies"}`);
+  const short = [s.polarization, s.scheme, `${levels} lv`, `tol ${formatPercent(s.tolerance)}`, s.process ?? "no process"];
+  if (nMat !== null) short.push(`${nMat} mat`);
+  if (nFam !== null) short.push(`${nFam} fam`);
+  for (const [parts, sep] of [[long, " · "], [short, " · "], [short, " "]] as const) {
+    const line = parts.join(sep);
+    if (line.length <= width) return line;
+  }
+  return short.join(" ");
 }
 
 export function ProgressLine({ state, width }: { state: SessionState; width: number }) {
@@ -56,7 +64,7 @@ export function Header({ state, width }: { state: SessionState; width: number })
           </Box>
         ) : null}
       </Box>
-      <Text wrap="truncate-end" color={THEME.pick}>{settingsLine(state)}</Text>
+      <Text wrap="truncate-end" color={THEME.pick}>{settingsLine(state, width)}</Text>
       <Box>
         <Box flexGrow={1} flexShrink={0}>
           {SCREENS.map((sc) => {

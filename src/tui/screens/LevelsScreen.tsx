@@ -12,21 +12,26 @@ import type { SessionState } from "../state/sessionState.js";
 import { THEME, fit } from "../theme.js";
 
 /** Rows the list part takes at a given body height (the detail gets the rest). */
-export function levelListRows(height: number): number {
-  return Math.max(3, Math.floor((height - 4) / 2));
+export function levelListRows(height: number, buildable = true): number {
+  // a plan that misses requirements needs room below for what would help and what was missed
+  return Math.max(3, Math.floor((height - 4) / (buildable ? 2 : 3)));
 }
 
 export function LevelsScreen({ state, width, height }: { state: SessionState; width: number; height: number }) {
   const plan = state.plan;
   if (!plan) return <Text color={THEME.dim}>waiting for the first plan…</Text>;
   const rows = levelRows(plan);
-  const listRows = levelListRows(height);
+  const listRows = levelListRows(height, plan.verdict.buildable);
   const start = scrollStart(state.levelCursor, rows.length, listRows);
   const targetW = Math.max(12, Math.min(24, 7 * plan.components.length + 2));
-  const recipeW = Math.max(10, width - 1 - 4 - 6 - targetW - 10 - 10 - 4 - 1);
+  // error columns are one wider than their titles so that the titles never run together
+  const errW = 11;
+  const recipeW = Math.max(10, width - 1 - 4 - 6 - targetW - 2 * errW - 4 - 1);
   const detail = [...verdictLines(plan), ...levelDetail(plan, state.levelCursor)];
-  // summary, column titles, list, pager line, blank line, detail: exactly `height` rows
-  const detailRows = Math.max(1, height - listRows - 4);
+  // summary, column titles, list, pager line, blank line, detail: exactly `height` rows; a list
+  // shorter than its share gives the rest to the detail (verdict, remedies, the level)
+  const shownRows = Math.min(listRows, rows.length);
+  const detailRows = Math.max(1, height - shownRows - 4);
   const f = plan.figures;
   return (
     <Box flexDirection="column" height={height} flexShrink={0}>
@@ -36,13 +41,13 @@ export function LevelsScreen({ state, width, height }: { state: SessionState; wi
         <Text color={THEME.dim}>{`  largest error ${formatPercent(f.maxRelError)}, median ${formatPercent(f.medianRelError)}${plan.buildable ? "" : " (cells with a recipe)"}`}</Text>
       </Text>
       <Text color={THEME.dim}>
-        {` ${fit("lvl", 4)}${fit("cells", 6)}${fit(`target ${plan.components.map((c) => prettyComponent(c.name)).join(" ")}`, targetW)}${fit("recipe err", 10)}${fit("quant err", 10)}${fit("alt", 4)}recipe`}
+        {` ${fit("lvl", 4)}${fit("cells", 6)}${fit(`target ${plan.components.map((c) => prettyComponent(c.name)).join(" ")}`, targetW)}${fit("recipe err", errW)}${fit("quant err", errW)}${fit("alt", 4)}recipe`}
       </Text>
       {rows.slice(start, start + listRows).map((r, k) => {
         const here = start + k === state.levelCursor;
         return (
           <Text key={r.index} inverse={here} color={r.buildable ? undefined : THEME.warn}>
-            {`${here ? "›" : " "}${fit(String(r.index), 4)}${fit(String(r.cells), 6)}${fit(r.target, targetW)}${fit(r.error, 10)}${fit(r.quantization, 10)}${fit(String(r.runnersUp), 4)}${fit(r.recipe, recipeW)}`}
+            {`${here ? "›" : " "}${fit(String(r.index), 4)}${fit(String(r.cells), 6)}${fit(r.target, targetW)}${fit(r.error, errW)}${fit(r.quantization, errW)}${fit(String(r.runnersUp), 4)}${fit(r.recipe, recipeW)}`}
           </Text>
         );
       })}

@@ -105,14 +105,17 @@ export function levelCentreCell(plan: Plan, levelIndex0: number): number {
  */
 export function verdictLines(plan: Plan): string[] {
   if (plan.verdict.buildable) return [];
-  const out = plan.verdict.missed.map((m) => `missed ${m.what}: ${m.text}`);
+  // the remedies come first: the summary line already names what was missed, and at 24 rows the
+  // detail pane is short — what the user can do about it must not fall below the screen
+  const out: string[] = [];
   const r = plan.remedies;
   if (r === null) out.push("what would help: not searched yet");
   else if (r.remedies.length === 0) out.push(`what would help: none of ${r.tried} changes tried improves the plan`);
   else {
-    out.push(`what would help (tried by re-planning; ${r.tried} tried):`);
+    out.push(`what would help (tried by re-planning; ${r.tried} tried; key w applies one):`);
     r.remedies.forEach((x, k) => out.push(`  ${k + 1}. ${x.label}${x.buildable ? " (buildable)" : ""}: ${x.changes}`));
   }
+  for (const m of plan.verdict.missed) out.push(`missed ${m.what}: ${m.text}`);
   out.push("");
   return out;
 }

@@ -1,0 +1,114 @@
+/**
+ * One verify run with the solver chosen per case: `auto` (the default) takes the exact radial
+ * solver (radialCases.ts) for every case whose scene is r-only and diagonal in the polar basis —
+ * a radial cloak's bare conductor, ideal and reduced shells, a concentrator, a layered realization
+ * of them — and the finite-difference grid (verifyDevice.ts) for the rest (the realized map on the
+ * design's square cells, rotators, bends, beams, ground planes). `radial` and `fdfd` force one
+ * solver. Each case says which solver computed it and why (`method`, `methodReason`); the run's
+ * `method` is `radial`, `fdfd` or `radial+fdfd`.
+ *
+ * In a mixed run a grid case is compared with the bare object solved on the same grid (σ/σ_bare
+ * like with like); the bare row itself is the exact radial figure. A grid case's field difference
+ * from the ideal device needs the ideal on the grid too, so it is null when the ideal was radial.
+ * Pure: no files, no clock.
+ */
+import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
+import { InputError } from "../core/errors.js";
+import type { TransformSpec } from "../field/transformSpec.js";
+import type { FdfdGrid } from "./fdfdGrid.js";
+import type { Illumination } from "./illumination.js";
+import { radialCases, radialGeometry, type RadialCaseResult } from "./radialCases.js";
+import { DEFAULT_ACCURACY, verifyDevice, type CaseResult, type VerifyInput, type VerifyResult } from "./verifyDevice.js";
+
+export type MethodOption = "auto" | "fdfd" | "radial";
+export const METHOD_OPTIONS: readonly MethodOption[] = ["auto", "fdfd", "radial"];
+
+export interface CheckCase extends CaseResult {
+  /** the solver that computed this case (null: the case has nothing to solve, `reason` says why) */
+  method: "fdfd" | "radial" | null;
+  /** why that solver (null with `method`) */
+  methodReason: string | null;
+}
+
+export interface CheckResult extends Omit<VerifyResult, "method" | "grid" | "cases"> {
+  method: "fdfd" | "radial" | "radial+fdfd";
+  /** why this solver (or split) was used */
+  methodReason: string;
+  /** finest grid, null when no case needed it */
+  grid: FdfdGrid | null;
+  cases: CheckCase[];
+}
+
+export interface CheckInput extends VerifyInput {
+  method: MethodOption;
+  transform: TransformSpec;
+  /** the option that asks for the grid (--resolution, --margin, --out), if any: auto then takes the grid */
+  gridOption?: string | null;
+}
+
+/** Why the radial solver cannot take this run as a whole (null when it can). */
+export function radialRunReason(input: Pick<CheckInput, "transform" | "illumination" | "groundYM">): string | null {
+  const geo = radialGeometry(input.transform);
+  if ("reason" in geo) return geo.reason;
+  if (input.illumination?.kind === "beam") return "a beam is not a plane wave: the radial solver takes plane waves only";
+  if (input.groundYM !== undefined) return "a ground plane breaks the rotational symmetry the radial solver needs";
+  return null;
+}
+
+const RADIAL_WHY = "exact radial solver: the tensors depend on r only and are diagonal in the polar basis";
+
+/** Run the check (see file comment). Throws InputError when `radial` is forced where it does not apply. */
+export function runCheck(input: CheckInput): CheckResult {
+  const accuracy = input.accuracy ?? DEFAULT_ACCURACY;
+  const whole = radialRunReason(input);
+  if (input.method === "radial" && whole !== null) throw new InputError({ where: "--method", message: `radial does not apply: ${whole}; use --method fdfd` });
+  const gridOnly = input.method === "fdfd" ? "--method fdfd" : whole !== null ? whole : input.gridOption ? `${input.gridOption} asks for the grid` : null;
+  if (gridOnly !== null) {
+    const r = verifyDevice(input);
+    const why = input.method === "fdfd" ? "finite differences on a grid (--method fdfd)" : `finite differences on a grid (auto: ${gridOnly})`;
+    return { ...r, method: "fdfd", methodReason: why, cases: r.cases.map((c) => (c.available ? { ...c, method: "fdfd", methodReason: why } : { ...c, method: null, methodReason: null })) };
+  }
+  const k0 = (2 * Math.PI * input.frequencyHz) / C0;
+  const angle = input.illumination?.kind === "plane" ? input.illumination.angleRad : 0;
+  const radial = radialCases(input.transform, input.cases, k0, 1e-9, angle);
+  const onGrid = input.method === "auto"
+    ? input.cases.filter((c) => c.scene !== null && !radial.find((r) => r.name === c.name)!.available)
+    : [];
+  const needGrid = onGrid.some((c) => c.name !== "bare");
+  const gridRun = needGrid
+    ? verifyDevice({ ...input, cases: input.cases.filter((c) => c.name === "bare" || onGrid.includes(c)) })
+    : null;
+  return mergeRuns(input, radial, gridRun, accuracy);
+}
+
+function mergeRuns(input: CheckInput, radial: RadialCaseResult[], grid: VerifyResult | null, accuracy: number): CheckResult {
+  const cases: CheckCase[] = input.cases.map((spec) => {
+    const r = radial.find((c) => c.name === spec.name)!;
+    const g = grid?.cases.find((c) => c.name === spec.name && c.available);
+    if (g && !r.available) return { ...g, method: "fdfd", methodReason: `finite differences on a grid (auto: ${r.reason})` };
+    const none = spec.scene === null;
+    return {
+      name: spec.name, method: none ? null : "radial", methodReason: none ? null : r.available ? RADIAL_WHY : "--method radial",
+      available: r.available, reason: r.reason,
+      scatteringWidthM: r.scatteringWidthM, uncertainty: r.uncertainty, converged: r.uncertainty === null ? null : r.uncertainty <= accuracy,
+      vsBare: r.vsBare, absorptionWidthM: r.absorptionWidthM, powerBalance: null, fieldErrorVsIdeal: null,
+      deliveredPower: null, deviationDeg: null, bistaticM: r.bistaticM, ladder: [], magnitude: null,
+    };
+  });
+  const usedGrid = cases.some((c) => c.method === "fdfd");
+  const nb = Math.sqrt(input.background.eps * input.background.mu);
+  const notes = [...(grid?.notes ?? [])];
+  if (usedGrid) notes.push("radial cases are exact for their continuous map; grid cases are compared with the bare object solved on the same grid and have no field difference from the (radial) ideal");
+  const gridNames = cases.filter((c) => c.method === "fdfd").map((c) => c.name).join(", ");
+  return {
+    method: usedGrid ? "radial+fdfd" : "radial",
+    methodReason: usedGrid
+      ? `auto: exact radial solver where the tensors depend on r only; finite differences for ${gridNames} (not radial)`
+      : input.method === "radial" ? `${RADIAL_WHY} (--method radial)` : `${RADIAL_WHY} (auto)`,
+    polarization: input.polarization, frequencyHz: input.frequencyHz,
+    grid: grid?.grid ?? null, resolutions: grid?.resolutions ?? [], accuracy,
+    densestIndex: grid?.densestIndex ?? nb, backgroundIndex: nb, marginM: grid?.marginM ?? 0,
+    illumination: input.illumination ?? { kind: "plane", angleRad: 0 },
+    cases, deviceMask: grid?.deviceMask ?? new Uint8Array(0), groundYM: null, notes,
+  };
+}
