@@ -29,7 +29,7 @@ export interface SessionServices {
   /** the scheme comparison for the settings' polarization */
   schemes(settings: PlanSettings): Promise<SchemeTableView>;
   /** write every output of `plan` and the session file; returns the paths written */
-  exportPlan(plan: Plan, overrides: PlanOverrides, view: ReturnType<typeof sessionView>): Promise<string[]>;
+  exportPlan(plan: Plan, overrides: PlanOverrides, view: ReturnType<typeof sessionView>, options?: { layout?: boolean }): Promise<string[]>;
   /** write only the session file; returns its path */
   saveChoices(overrides: PlanOverrides, view: ReturnType<typeof sessionView>): Promise<string>;
 }
@@ -147,7 +147,7 @@ export function SessionApp({ initial, services, inputActive, size, onExit }: Ses
     if (state.planSeq !== want || !state.plan) return;
     exporting.current = want;
     const overrides = state.overrides;
-    services.exportPlan(state.plan, overrides, sessionView(state)).then(
+    services.exportPlan(state.plan, overrides, sessionView(state), { layout: state.exportLayout === true }).then(
       (paths) => {
         exporting.current = null;
         dispatch({ type: "exportDone", paths, overrides });

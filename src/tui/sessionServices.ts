@@ -14,6 +14,7 @@ import { searchRemedies } from "../io/planRemedies.js";
 import { saveSessionFile } from "../io/sessionFile.js";
 import type { Plan, PlanOverrides, PlanSettings, PlanStage } from "../plan/planTypes.js";
 import { resolveSettings } from "../plan/resolveSettings.js";
+import { layoutFiles } from "../io/layout/layoutFiles.js";
 import { planFromField } from "../plan/runPlan.js";
 import { compareSchemes } from "../reduce/schemeMetrics.js";
 import { loadPlanInputs, type PlanInputs } from "./planInputs.js";
@@ -142,8 +143,10 @@ export function createSessionServices(opts: ServiceOptions): SessionServices & {
       return schemeTableView(settings.polarization, summaries, summaries.skipped ?? []);
     },
 
-    async exportPlan(plan, overrides, view) {
-      const paths = await writePlanOutputs(plan, opts.outDir);
+    async exportPlan(plan, overrides, view, options) {
+      // the layout files come from the same code as `plan --layout`; its notes are dropped here
+      const extra = options?.layout ? layoutFiles(plan, { stderr: () => undefined }) : [];
+      const paths = await writePlanOutputs(plan, opts.outDir, { extra });
       await saveSessionFile(opts.sessionPath, { designPath: opts.designPath, overrides, view });
       return [...paths, opts.sessionPath];
     },

@@ -88,6 +88,20 @@ describe("interactive session (frames)", () => {
     await waitFor(app.lastFrame, (s) => s.includes("no recipe:") && s.includes("no allowed pair reaches"), "level 3 detail");
   });
 
+  it("l on the Levels screen exports with the layout files (the plan --layout code path)", async () => {
+    const { app, services, press } = start();
+    await waitFor(app.lastFrame, (s) => s.includes("plan up to date"), "first plan");
+    await press("l");
+    // l is a Levels-screen key: elsewhere it does nothing
+    expect(services.exports).toEqual([]);
+    await press("3");
+    await waitFor(app.lastFrame, (s) => s.includes("l layout"), "the footer names the key");
+    await press("l");
+    const f = await waitFor(app.lastFrame, (s) => s.includes("Exported"), "the export notice");
+    expect(f).toContain("/out/layout.dxf");
+    expect(services.exports).toEqual([{ overrides: {}, levels: -1, layout: true }]); // the design's own levels (no override)
+  });
+
   it("exports and shows the paths, then quits without asking", async () => {
     const { app, services, press, exited } = start();
     await waitFor(app.lastFrame, (s) => s.includes("plan up to date"), "first plan");

@@ -12,6 +12,7 @@ const FOOTER_ORDER: readonly { command: CommandId; word: string }[] = [
   // the screen's or overlay's own keys
   { command: "up", word: "move" },
   { command: "choose", word: "choose" },
+  { command: "exportLayout", word: "layout" },
   { command: "toggle", word: "allow/forbid" },
   { command: "nextQuantity", word: "quantity" },
   { command: "worstCell", word: "largest" },
@@ -34,9 +35,9 @@ const FOOTER_ORDER: readonly { command: CommandId; word: string }[] = [
 ];
 
 /** Hints that stay while any other hint can still go: the screen's own keys and the most used. */
-const KEEP: ReadonlySet<CommandId> = new Set(["up", "choose", "toggle", "nextQuantity", "worstCell", "confirmYes", "confirmSave", "close", "levelsUp", "toleranceTighter", "undo", "save", "export", "help", "quit"]);
+const KEEP: ReadonlySet<CommandId> = new Set(["up", "choose", "exportLayout", "toggle", "nextQuantity", "worstCell", "confirmYes", "confirmSave", "close", "levelsUp", "toleranceTighter", "undo", "save", "export", "help", "quit"]);
 /** Words of kept hints in the order they go when even the kept hints do not fit with words. */
-const WORD_DROP: readonly CommandId[] = ["up", "choose", "quit", "worstCell", "nextQuantity", "help", "allowAll", "close", "toggle", "toleranceTighter", "levelsUp", "export", "save", "undo", "confirmSave", "confirmYes"];
+const WORD_DROP: readonly CommandId[] = ["up", "choose", "exportLayout", "quit", "worstCell", "nextQuantity", "help", "allowAll", "close", "toggle", "toleranceTighter", "levelsUp", "export", "save", "undo", "confirmSave", "confirmYes"];
 
 export interface FooterHint {
   /** the key as shown ("u", "+/-", "↑/↓") */

@@ -26,6 +26,7 @@ export type CommandId =
   | "quit"
   | "forceQuit"
   | "export"
+  | "exportLayout"
   | "save"
   | "undo"
   | "togglePolarization"
@@ -107,6 +108,7 @@ export const KEY_BINDINGS: readonly KeyBinding[] = [
   { keys: ["pagedown"], label: "", does: "", scope: "levels", command: "pageDown" },
   { keys: ["enter"], label: "Enter", does: "show the selected level on the map", scope: "levels", command: "choose" },
   { keys: ["w"], label: "w", does: "apply the best remedy of \"what would help\" (tried by re-planning)", scope: "levels", command: "applyRemedy" },
+  { keys: ["l"], label: "l", does: "export with the layout files for the fab (as plan --layout)", scope: "levels", command: "exportLayout" },
   // flags
   { keys: ["up"], label: "↑ / ↓", does: "select a flagged region", scope: "flags", command: "up" },
   { keys: ["down"], label: "", does: "", scope: "flags", command: "down" },

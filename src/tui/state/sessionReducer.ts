@@ -157,7 +157,9 @@ function globalCommand(state: SessionState, command: CommandId): SessionState {
     case "save":
       return { ...state, saveWanted: true, status: "saving the choices…" };
     case "export":
-      return { ...state, exportWanted: state.planWanted, status: "exporting…" };
+      return { ...state, exportWanted: state.planWanted, exportLayout: false, status: "exporting…" };
+    case "exportLayout":
+      return { ...state, exportWanted: state.planWanted, exportLayout: true, status: "exporting with the layout files…" };
     case "undo": {
       if (state.history.length === 0) return { ...state, status: "nothing to undo" };
       const overrides = state.history[state.history.length - 1];

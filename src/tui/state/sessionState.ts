@@ -89,6 +89,8 @@ export interface SessionState {
   schemesError: string | null;
   /** set by `e`: export once the plan for this request is ready */
   exportWanted: number | null;
+  /** the wanted export also writes the layout files (key l on the Levels screen) */
+  exportLayout?: boolean;
   /** set by `s` (or quit-and-save): write the session file */
   saveWanted: boolean;
   /** quit once pending writes are done */

@@ -8,7 +8,7 @@ import { syntheticPlan, SYNTHETIC_SETTINGS } from "./syntheticPlan.js";
 
 export interface FakeServices extends SessionServices {
   planCalls: PlanOverrides[];
-  exports: { overrides: PlanOverrides; levels: number }[];
+  exports: { overrides: PlanOverrides; levels: number; layout?: true }[];
   saves: PlanOverrides[];
 }
 
@@ -16,7 +16,7 @@ const tick = () => new Promise<void>((r) => setImmediate(r));
 
 export function fakeServices(): FakeServices {
   const planCalls: PlanOverrides[] = [];
-  const exports: { overrides: PlanOverrides; levels: number }[] = [];
+  const exports: { overrides: PlanOverrides; levels: number; layout?: true }[] = [];
   const saves: PlanOverrides[] = [];
   return {
     planCalls,
@@ -51,10 +51,10 @@ export function fakeServices(): FakeServices {
         notes: ["a note"],
       };
     },
-    async exportPlan(plan, overrides) {
+    async exportPlan(plan, overrides, _view, options) {
       await tick();
-      exports.push({ overrides, levels: plan.settings.levels ?? -1 });
-      return ["/out/build-list.csv", "/out/session.json"];
+      exports.push({ overrides, levels: plan.settings.levels ?? -1, ...(options?.layout ? { layout: true as const } : {}) });
+      return options?.layout ? ["/out/build-list.csv", "/out/layout.dxf", "/out/session.json"] : ["/out/build-list.csv", "/out/session.json"];
     },
     async saveChoices(overrides) {
       await tick();
