@@ -255,7 +255,7 @@ export interface Plan {
 
 /** One requirement the plan misses: its figure and the limit it should meet. */
 export interface MissedRequirement {
-  /** "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process" */
+  /** "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process" | "homogenization" */
   what: RequirementName;
   value: number;
   limit: number;
@@ -263,7 +263,7 @@ export interface MissedRequirement {
   text: string;
 }
 
-export type RequirementName = "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process";
+export type RequirementName = "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process" | "homogenization";
 
 export interface Verdict {
   buildable: boolean;

@@ -173,6 +173,7 @@ const UNIT: Record<RequirementName, (x: number) => string> = {
   bandwidth: (x) => `${Number((x * 100).toPrecision(3))} %`,
   anisotropy: (x) => `${Number(x.toPrecision(3))}`,
   process: (x) => `${x}`,
+  homogenization: (x) => `${Number((x * 100).toPrecision(3))} % of cells coarse`,
 };
 
 /** "recipes: 432 → 0 cells without recipe (met); loss: 6.02 → 2.1 dB (met)". */

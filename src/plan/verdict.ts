@@ -11,7 +11,13 @@
  *   (non-resonant cells count as broadband);
  * - `anisotropy`: the largest in-plane anisotropy ratio of the targets against `maxAnisotropy`;
  * - `process`: levels whose recipe the process cannot tell from a neighbouring level's
- *   (`unresolvable`, limit 0), and any feature below the process's smallest feature.
+ *   (`unresolvable`, limit 0), and any feature below the process's smallest feature;
+ * - `homogenization`: the fraction of cells flagged `coarse` (limit 0) — cells whose pitch is above
+ *   λ/10 in their densest material and, for rods and holes along z, whose lowest band departs from
+ *   the long-wavelength index by more than the tolerance. Their effective-medium values, on which
+ *   every other figure rests, are not to be trusted, so a coarse plan is not called buildable.
+ *   (`uncertain` cells — the two mixing models disagree — stay a flag and a caution: the recipe
+ *   may be right, a full-wave unit-cell simulation decides.)
  *
  * A requirement the design does not state (no loss budget, no bandwidth, no process) is not
  * checked. Each miss carries its figure, its limit and a plain sentence.
@@ -55,6 +61,10 @@ export function planVerdict(inp: VerdictInput): Verdict {
     missed.push({ what: "process", value: unresolvable, limit: 0, text: `${unresolvable} levels differ from a neighbouring level by less than the process can make (unresolvable)` });
   } else if (f.processMinFeatureM !== null && f.smallestFeatureM !== null && f.smallestFeatureM < f.processMinFeatureM * (1 - 1e-9)) {
     missed.push({ what: "process", value: f.smallestFeatureM, limit: f.processMinFeatureM, text: `smallest feature ${num(f.smallestFeatureM * 1e6)} µm below the process limit of ${num(f.processMinFeatureM * 1e6)} µm` });
+  }
+  const coarse = f.flagCounts.coarse ?? 0;
+  if (coarse > 0) {
+    missed.push({ what: "homogenization", value: coarse / inp.cells, limit: 0, text: `${coarse} of ${inp.cells} cells (${pct(coarse / inp.cells)}) are coarse: the pitch is above λ/10 in their densest material (for rods and holes along z, their lowest band departs from the long-wavelength index by more than the tolerance); a finer pitch or a lower-index material helps` });
   }
   return { buildable: missed.length === 0, missed };
 }

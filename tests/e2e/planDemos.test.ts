@@ -5,7 +5,7 @@
  * allows.
  */
 import { describe, it, expect } from "vitest";
-import { mkdtemp, readFile, readdir } from "node:fs/promises";
+import { mkdtemp, writeFile, readFile, readdir } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { parse } from "csv-parse/sync";
@@ -110,7 +110,26 @@ describe("verdicts of the demos", () => {
     const s = JSON.parse(io.out());
     expect(s.verdict).toEqual({ buildable: true, missed: [] });
     expect(s.maxRelError).toBeLessThanOrEqual(s.tolerance);
+    // its cells homogenize: none is coarse (the verdict would miss "homogenization")
+    expect(s.flags.coarse).toBe(0);
   }, 60_000);
+
+  it("coarse cells are a missed requirement: the same demo at 28 GHz exits 2 naming homogenization", async () => {
+    const d = JSON.parse(await readFile("demo-designs/plan-mmwave-printed-bend.json", "utf8"));
+    d.frequency = "28 GHz"; // 1.2 mm is λ/6.4 in resin of ε 2.8 (rule of thumb, common practice: λ/10)
+    const dir = await mkdtemp(join(tmpdir(), "cw-e2e-"));
+    const path = join(dir, "bend28.json");
+    await writeFile(path, JSON.stringify(d));
+    const io = bufferIo();
+    const code = await runCli(["plan", path, "--out", join(dir, "out"), "--json"], io);
+    expect(code).toBe(EXIT_NOT_BUILDABLE);
+    const s = JSON.parse(io.out());
+    const miss = s.verdict.missed.find((m: { what: string }) => m.what === "homogenization");
+    expect(miss).toBeDefined();
+    expect(miss.limit).toBe(0);
+    expect(Math.abs(miss.value - s.flags.coarse / s.cells)).toBeLessThan(1e-12);
+    expect(s.flags.coarse).toBe(s.cells);
+  }, 120_000);
 });
 
 describe("the imported-field demo", () => {

@@ -131,8 +131,8 @@ describe("STL of the printed strut lattice (npm start demo, stereolithography)",
     expect(buf.length).toBe(84 + 50 * a.triangles);
     expect(a.badEdges).toBe(0);
     expect(a.unpairedDirected).toBe(0);
-    // default height: whole cells within half the free-space wavelength, c/(2·28 GHz) = 5.35 mm → 4 cells
-    const layers = 4;
+    // the design's realization.height, 6 mm: five cells of 1.2 mm
+    const layers = 5;
     const heightMm = layers * pitch;
     expectClose(a.max[2], heightMm, { rel: 1e-6, label: "top" });
     expectClose(a.min[2], 0, { abs: 1e-6, label: "bottom" });

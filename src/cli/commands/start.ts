@@ -10,7 +10,7 @@ import type { Command, ParsedArgs } from "../command.js";
 import { COMMANDS } from "./index.js";
 import { DEFAULT_OUT_DIR, runPlanCommand } from "./plan.js";
 
-/** The built-in demo: a printed millimetre-wave beam bend that plans cleanly. */
+/** The built-in demo: a printed 12 GHz beam bend that meets its own requirements (exit 0). */
 export const START_DEMO = fileURLToPath(new URL("../../../demo-designs/plan-mmwave-printed-bend.json", import.meta.url));
 
 export const command: Command = {
