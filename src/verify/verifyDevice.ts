@@ -19,21 +19,18 @@ import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
 import { InputError } from "../core/errors.js";
 import { formatDuration, solveSeconds } from "../core/timeEstimate.js";
 import { DEFAULT_SOLVER_BYTES, formatBytes, solveCost } from "./assemble.js";
-import { gridForWindow, inPml, type FdfdGrid } from "./fdfdGrid.js";
+import { inPml, type FdfdGrid } from "./fdfdGrid.js";
+import { DEFAULT_ACCURACY, ladderGrids, MAX_AUTO_UNKNOWNS, MAX_RESOLUTION, MAX_RUNGS } from "./ladderGrids.js";
 import { gridWavenumberAt, type Illumination } from "./illumination.js";
 import { crossSections, farField, fluxBox, relativeDifference, type NodeBox } from "./metrics.js";
 import { richardson } from "./richardson.js";
 import type { Scene, ScenePolarization } from "./scene.js";
 import { solveScene, type SceneSolution } from "./solve.js";
 
-export const DEFAULT_ACCURACY = 0.02;
+export { DEFAULT_ACCURACY, MAX_AUTO_UNKNOWNS, MAX_RESOLUTION, MAX_RUNGS, MIN_STEPS_ACROSS } from "./ladderGrids.js";
 export const MIN_RESOLUTION = 6;
-export const MAX_RESOLUTION = 200;
-export const MAX_RUNGS = 5;
 /** A device smaller than this fraction of the background wavelength is refused (nothing to resolve). */
 export const SMALLEST_DEVICE_WAVELENGTHS = 0.01;
-/** Steps across the device's smaller side on the coarsest rung (a small device is resolved by its size, not only by the wavelength). */
-export const MIN_STEPS_ACROSS = 16;
 /** Angular samples of far-field patterns (one per degree). */
 export const PATTERN_ANGLES = 360;
 
@@ -67,6 +64,8 @@ export interface VerifyInput {
   marginM?: number;
   /** compute the bistatic pattern of each case (radial devices) */
   pattern?: boolean;
+  /** memory one solve may use, bytes (default DEFAULT_SOLVER_BYTES; the sweep gives each worker its share) */
+  solverBytes?: number;
   onProgress?: (step: string, fraction: number) => void;
   /** told once, before the first solve: estimated seconds of the planned solves and what they are */
   onEstimate?: (seconds: number, what: string) => void;
@@ -127,13 +126,6 @@ export interface VerifyResult {
   notes: string[];
 }
 
-function ladderStart(accuracy: number): number {
-  return Math.min(48, Math.max(8, Math.round(12 * Math.sqrt(DEFAULT_ACCURACY / accuracy))));
-}
-
-/** Largest grid the ladder adds on its own to reach the accuracy (a requested grid may be larger, up to the memory limit). */
-export const MAX_AUTO_UNKNOWNS = 1.2e6;
-
 /** Whether grid g fits the solver's memory (assemble.ts); the figure over its limit when not. */
 export function gridFits(g: FdfdGrid, limitBytes = DEFAULT_SOLVER_BYTES): { ok: boolean; over: string } {
   const c = solveCost(g);
@@ -177,37 +169,21 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   }
   const marginM = input.marginM ?? lambdaB / 2;
   if (!(marginM >= 0 && Number.isFinite(marginM))) throw new InputError({ where: "--margin", message: `expected a length ≥ 0, got ${marginM}` });
-  let baseRes = 1;
-  let nMax = nb;
-  for (const c of cases) if (c.scene) nMax = Math.max(nMax, c.indexHint);
-  // the coarsest rung also puts at least MIN_STEPS_ACROSS steps across the device's smaller side
-  const across = Math.min(box.maxX - box.minX, box.maxY - box.minY);
-  const makeGrid = (res: number): FdfdGrid => {
-    const h = Math.min(lambda0 / (nMax * res), (across / MIN_STEPS_ACROSS) * (baseRes / res));
-    const pml = Math.min(20, Math.max(10, Math.ceil(lambdaB / (2 * h))));
-    const g = gridForWindow({ minX: box.minX - marginM, maxX: box.maxX + marginM, minY: box.minY - marginM, maxY: box.maxY + marginM }, h, pml);
-    if (input.groundYM !== undefined) {
-      // the ground plane on a row of nodes (Ez) or of faces (Hz): the flat ground's reflection is then grid-exact
-      const shift = polarization === "Ez" ? 0 : 0.5;
-      const j = Math.round((input.groundYM - g.y0) / h - shift);
-      g.y0 = input.groundYM - (j + shift) * h;
-    }
-    return g;
-  };
+  const { nMax, makeGrid, wanted } = ladderGrids({
+    polarization, background, frequencyHz, deviceBox: box, groundYM: input.groundYM, resolution: input.resolution, accuracy, marginM,
+    caseIndexHints: cases.filter((c) => c.scene).map((c) => c.indexHint),
+  });
+  const solverBytes = input.solverBytes ?? DEFAULT_SOLVER_BYTES;
   const refuse = (res: number, g: FdfdGrid, over: string): never => {
     throw new InputError({
       where: input.resolution !== undefined ? "--resolution" : "--accuracy",
-      message: `the grid for ${res} points per wavelength in the densest material (index ${nMax.toPrecision(3)}) is ${g.nx} × ${g.ny} nodes, step ${fmt(g.h)} m, which needs ${over}; ${largestFitting(makeGrid, res)}`,
+      message: `the grid for ${res} points per wavelength in the densest material (index ${nMax.toPrecision(3)}) is ${g.nx} × ${g.ny} nodes, step ${fmt(g.h)} m, which needs ${over}; ${largestFitting(makeGrid, res, solverBytes)}`,
     });
   };
-  let wanted: number[];
-  if (input.resolution !== undefined) wanted = [input.resolution];
-  else { const n0 = ladderStart(accuracy); wanted = [n0, Math.round(n0 * Math.SQRT2), 2 * n0]; }
-  baseRes = input.resolution ?? ladderStart(accuracy);
   const rungs: Rung[] = [];
   for (const res of wanted) {
     const g = makeGrid(res);
-    const fit = gridFits(g);
+    const fit = gridFits(g, solverBytes);
     if (!fit.ok) {
       if (rungs.length >= 2) break; // two rungs still give an estimate (nominal order)
       refuse(res, g, fit.over);
@@ -278,7 +254,7 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
     const res = Math.round(rungs[rungs.length - 1].resolution * Math.SQRT2);
     if (res > MAX_RESOLUTION) break;
     const g = makeGrid(res);
-    if (!gridFits(g).ok || g.nx * g.ny > MAX_AUTO_UNKNOWNS) { notes.push(`a finer rung (${res} points per wavelength, ${g.nx} × ${g.ny} nodes) is beyond what the ladder adds on its own; it stops at ${rungs[rungs.length - 1].resolution}`); break; }
+    if (!gridFits(g, solverBytes).ok || g.nx * g.ny > MAX_AUTO_UNKNOWNS) { notes.push(`a finer rung (${res} points per wavelength, ${g.nx} × ${g.ny} nodes) is beyond what the ladder adds on its own; it stops at ${rungs[rungs.length - 1].resolution}`); break; }
     const r = { resolution: res, g };
     rungs.push(r);
     total += live.length;
@@ -300,11 +276,11 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
 const fmt = (v: number): string => Number(v.toPrecision(3)).toString();
 
 /** The largest resolution below `res` whose grid fits (memory grows about like N² log N in the resolution N, so start from that guess). */
-function largestFitting(makeGrid: (res: number) => FdfdGrid, res: number): string {
+function largestFitting(makeGrid: (res: number) => FdfdGrid, res: number, limitBytes: number): string {
   const need = solveCost(makeGrid(res)).megabytes * 1e6;
-  let r = Math.floor(res * Math.sqrt(DEFAULT_SOLVER_BYTES / need));
+  let r = Math.floor(res * Math.sqrt(limitBytes / need));
   for (let tries = 0; tries < 12 && r >= MIN_RESOLUTION; tries++, r = Math.floor(r * 0.93)) {
-    if (gridFits(makeGrid(r)).ok) return `the largest resolution that fits is about ${r} points per wavelength (or give a smaller --margin)`;
+    if (gridFits(makeGrid(r), limitBytes).ok) return `the largest resolution that fits is about ${r} points per wavelength (or give a smaller --margin)`;
   }
   return `even ${MIN_RESOLUTION} points per wavelength do not fit: the device is too large for the 2D check on this machine`;
 }

@@ -24,6 +24,7 @@ import type { Illumination } from "../../verify/illumination.js";
 import { DEFAULT_ACCURACY } from "../../verify/verifyDevice.js";
 import { METHOD_OPTIONS, runCheck, type CheckResult, type MethodOption } from "../../verify/runCheck.js";
 import { flagOption, stringOption } from "../args.js";
+import { parseSweep, parseThreshold, runVerifySweep, SWEEP_CSV, SWEEP_SVG } from "./verifySweep.js";
 import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_OK } from "../run.js";
@@ -121,7 +122,7 @@ const beamText0 = (args: ParsedArgs): string | undefined => stringOption(args, "
 export const command: Command = {
   name: "verify",
   summary: "2D full-wave check: bare, ideal, reduced and realized devices, converged figures with uncertainties",
-  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--margin L] [--method auto|fdfd|radial] [--json] [--out DIR]",
+  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--margin L] [--method auto|fdfd|radial] [--sweep 'START..STOP:COUNT' [--threshold T]] [--json] [--out DIR]",
   details: [
     "Solves each case with a frequency-domain finite-difference solver (PML on all sides): the bare",
     "hidden object of a cloak (a perfect conductor), the ideal device (scheme full) and the reduced one",
@@ -139,8 +140,10 @@ export const command: Command = {
     { name: "beam", type: "string", valueName: "W[, D]", description: "Gaussian beam of waist W, its axis offset by D across the beam from the device centre" },
     { name: "margin", type: "string", valueName: "L", description: "free space around the device, e.g. '20 mm' (default half a wavelength)" },
     { name: "method", type: "string", valueName: "auto|fdfd|radial", description: "solver: auto (default: radial where the tensors depend on r only, fdfd for the rest), fdfd (finite differences on a grid) or radial (exact, per angular order; cloaks and concentrators, plane waves)" },
+    { name: "sweep", type: "string", valueName: "A..B:N", description: "solve every case at N frequencies from A to B on the grid, e.g. '8 GHz..10 GHz:21' (dispersive recipes re-evaluated at each)" },
+    { name: "threshold", type: "string", valueName: "T", description: "with --sweep: the band is where the realized figure stays within T× the reduced design's at the centre (default 2)" },
     { name: "json", type: "boolean", description: "print the summary as one JSON object on stdout" },
-    { name: "out", type: "string", valueName: "DIR", description: `write ${VERIFY_SVG} (|field| of each case) into DIR` },
+    { name: "out", type: "string", valueName: "DIR", description: `write ${VERIFY_SVG} (|field| of each case) into DIR; with --sweep ${SWEEP_CSV}, ${SWEEP_SVG} and manifest.json` },
   ],
   async run(args: ParsedArgs, io: CliIo): Promise<number> {
     const designPath = args.positionals[0];
@@ -158,6 +161,12 @@ export const command: Command = {
     if (method === "radial" && beamText0(args) !== undefined) throw new InputError({ where: "--beam", message: "the radial method solves plane waves only; use --method fdfd for a beam" });
     for (const o of ["resolution", "margin"]) if (method === "radial" && stringOption(args, o) !== undefined) throw new InputError({ where: `--${o}`, message: "the radial method has no grid; drop this option or use --method fdfd" });
     if (method === "radial" && stringOption(args, "out") !== undefined) throw new InputError({ where: "--out", message: "the radial method draws no field picture; use --method fdfd" });
+    const sweepText = stringOption(args, "sweep");
+    const thresholdText = stringOption(args, "threshold");
+    if (thresholdText !== undefined && sweepText === undefined) throw new InputError({ where: "--threshold", message: "applies to a frequency sweep; give --sweep too" });
+    const sweep = sweepText === undefined ? null : await parseSweep(sweepText);
+    const threshold = parseThreshold(thresholdText);
+    if (sweep && method === "radial") throw new InputError({ where: "--sweep", message: "the sweep runs the grid solver; drop --method radial" });
     const angleText = stringOption(args, "angle");
     const angleDeg = angleText === undefined ? 0 : Number(angleText);
     if (!Number.isFinite(angleDeg)) throw new InputError({ where: "--angle", message: `expected an angle in degrees, got '${angleText}'` });
@@ -196,6 +205,15 @@ export const command: Command = {
       const b = built.deviceBox, cx = (b.minX + b.maxX) / 2, cy = (b.minY + b.maxY) / 2;
       // focus on the device centre's line, shifted across the beam by the offset
       illumination = { kind: "beam", angleRad, waistM: beam.waistM, focusM: [cx - beam.offsetM * Math.sin(angleRad), cy + beam.offsetM * Math.cos(angleRad)] };
+    }
+    if (sweep) {
+      return runVerifySweep(io, {
+        designName: design.name, designFrequencyHz: design.frequencyHz, scheme: s.scheme, range: sweep, threshold, json, outDir: stringOption(args, "out"), notes: built.notes,
+        context: {
+          transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid,
+          ideal, reduced, plan, catalog: plan ? await loadMaterialCatalog() : [], illumination, resolution, accuracy, marginM,
+        },
+      });
     }
     let last = "";
     const warnings: string[] = [];
