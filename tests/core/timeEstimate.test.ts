@@ -15,7 +15,7 @@ import {
 } from "../../src/core/timeEstimate.js";
 import { solveCost } from "../../src/verify/assemble.js";
 import { cylinderScene } from "../../src/verify/cylinderScene.js";
-import { verifyDevice } from "../../src/verify/verifyDevice.js";
+import { verifyDevice, type CaseSpec } from "../../src/verify/verifyDevice.js";
 import { bufferIo } from "../../src/cli/cliIo.js";
 import { runCli } from "../../src/cli/run.js";
 
@@ -58,7 +58,7 @@ describe("verify tells its estimate before the first solve", () => {
     cases: [
       { name: "ideal", scene: cylinderScene("Ez", vacuum, a, { kind: "pec" }), indexHint: 1 },
       { name: "realized", scene: null, reason: "none", indexHint: 0 },
-    ],
+    ] as CaseSpec[],
   });
 
   it("the seconds are the planned grids' solve estimates times the cases solved", () => {

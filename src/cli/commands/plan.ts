@@ -139,6 +139,7 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
   const plan = planFromField(design, field, { materials, processes }, overrides, (stage) => {
     if (!json && stage !== lastStage) { io.stderr(`… ${stage}\n`); lastStage = stage; }
   });
+  if (timeWarning !== null) plan.timeWarning = timeWarning;
   for (const w of plan.warnings) io.stderr(`warning: ${w}\n`);
   if (!plan.verdict.buildable) {
     if (!json) io.stderr("… trying remedies (re-planning)\n");
@@ -159,7 +160,7 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
     process.off("SIGINT", onSigint);
     process.off("SIGTERM", onSigint);
   }
-  if (json) io.stdout(`${JSON.stringify({ ...planSummary(plan, outputs), warnings: [...(timeWarning !== null ? [timeWarning] : []), ...plan.warnings] })}\n`);
+  if (json) io.stdout(`${JSON.stringify(planSummary(plan, outputs))}\n`);
   else io.stdout(humanSummary(plan, outputs));
   return plan.buildable ? EXIT_OK : EXIT_NOT_BUILDABLE;
 }
