@@ -45,6 +45,8 @@ export interface CaseSpec {
   reason?: string;
   /** largest local index of the case's material (for the grid step) */
   indexHint: number;
+  /** largest grid step this case needs on the coarsest rung (drawn inclusions: smallest feature / 8); runCheck.ts solves such a case on its own ladder */
+  maxStepM?: number;
 }
 
 export interface VerifyInput {
@@ -60,6 +62,8 @@ export interface VerifyInput {
   groundYM?: number;
   /** one grid at N points per wavelength (no ladder) */
   resolution?: number;
+  /** largest step on the coarsest rung (finer rungs scale alike), e.g. to put enough steps across drawn inclusions */
+  maxStepM?: number;
   /** relative accuracy the ladder aims at (default 2 %) */
   accuracy?: number;
   /** free space around the device on each side, metres (default half a background wavelength) */
@@ -174,23 +178,8 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   }
   const marginM = input.marginM ?? lambdaB / 2;
   if (!(marginM >= 0 && Number.isFinite(marginM))) throw new InputError({ where: "--margin", message: `expected a length ≥ 0, got ${marginM}` });
-  let baseRes = 1;
-  let nMax = nb;
-  for (const c of cases) if (c.scene) nMax = Math.max(nMax, c.indexHint);
-  // the coarsest rung also puts at least MIN_STEPS_ACROSS steps across the device's smaller side
-  const across = Math.min(box.maxX - box.minX, box.maxY - box.minY);
-  const makeGrid = (res: number): FdfdGrid => {
-    const h = Math.min(lambda0 / (nMax * res), (across / MIN_STEPS_ACROSS) * (baseRes / res));
-    const pml = Math.min(20, Math.max(10, Math.ceil(lambdaB / (2 * h))));
-    const g = gridForWindow({ minX: box.minX - marginM, maxX: box.maxX + marginM, minY: box.minY - marginM, maxY: box.maxY + marginM }, h, pml);
-    if (input.groundYM !== undefined) {
-      // the ground plane on a row of nodes (Ez) or of faces (Hz): the flat ground's reflection is then grid-exact
-      const shift = polarization === "Ez" ? 0 : 0.5;
-      const j = Math.round((input.groundYM - g.y0) / h - shift);
-      g.y0 = input.groundYM - (j + shift) * h;
-    }
-    return g;
-  };
+  const nMax = densestIndex(input);
+  const makeGrid = (res: number): FdfdGrid => rungGrid(input, res);
   const refuse = (res: number, g: FdfdGrid, over: string): never => {
     throw new InputError({
       where: input.resolution !== undefined ? "--resolution" : "--accuracy",
@@ -200,7 +189,6 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   let wanted: number[];
   if (input.resolution !== undefined) wanted = [input.resolution];
   else { const n0 = ladderStart(accuracy); wanted = [n0, Math.round(n0 * Math.SQRT2), 2 * n0]; }
-  baseRes = input.resolution ?? ladderStart(accuracy);
   const rungs: Rung[] = [];
   for (const res of wanted) {
     const g = makeGrid(res);
@@ -276,6 +264,44 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
 }
 
 const fmt = (v: number): string => Number(v.toPrecision(3)).toString();
+
+/** Largest index of the background and every case with a scene (sets the step per wavelength). */
+function densestIndex(input: VerifyInput): number {
+  let nMax = Math.sqrt(input.background.eps * input.background.mu);
+  for (const c of input.cases) if (c.scene) nMax = Math.max(nMax, c.indexHint);
+  return nMax;
+}
+
+/** Points per wavelength of the coarsest rung. */
+export function firstResolution(input: Pick<VerifyInput, "resolution" | "accuracy">): number {
+  return input.resolution ?? ladderStart(input.accuracy ?? DEFAULT_ACCURACY);
+}
+
+/**
+ * The grid of the rung at `res` points per wavelength (see file comment): the step resolves the
+ * densest material, puts MIN_STEPS_ACROSS steps across the device and stays below `maxStepM` on the
+ * coarsest rung, finer rungs scaling alike; the window is the device box plus the margin, plus the PML.
+ */
+export function rungGrid(input: VerifyInput, res: number): FdfdGrid {
+  const box = input.deviceBox;
+  const nb = Math.sqrt(input.background.eps * input.background.mu);
+  const lambda0 = C0 / input.frequencyHz, lambdaB = lambda0 / nb;
+  const marginM = input.marginM ?? lambdaB / 2;
+  const baseRes = firstResolution(input);
+  const nMax = densestIndex(input);
+  // the coarsest rung also puts at least MIN_STEPS_ACROSS steps across the device's smaller side
+  const across = Math.min(box.maxX - box.minX, box.maxY - box.minY);
+  const h = Math.min(lambda0 / (nMax * res), (across / MIN_STEPS_ACROSS) * (baseRes / res), (input.maxStepM ?? Infinity) * (baseRes / res));
+  const pml = Math.min(20, Math.max(10, Math.ceil(lambdaB / (2 * h))));
+  const g = gridForWindow({ minX: box.minX - marginM, maxX: box.maxX + marginM, minY: box.minY - marginM, maxY: box.maxY + marginM }, h, pml);
+  if (input.groundYM !== undefined) {
+    // the ground plane on a row of nodes (Ez) or of faces (Hz): the flat ground's reflection is then grid-exact
+    const shift = input.polarization === "Ez" ? 0 : 0.5;
+    const j = Math.round((input.groundYM - g.y0) / h - shift);
+    g.y0 = input.groundYM - (j + shift) * h;
+  }
+  return g;
+}
 
 /** The largest resolution below `res` whose grid fits (memory grows about like N² log N in the resolution N, so start from that guess). */
 function largestFitting(makeGrid: (res: number) => FdfdGrid, res: number): string {

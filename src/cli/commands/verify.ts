@@ -17,6 +17,7 @@ import { planFromField } from "../../plan/runPlan.js";
 import { resolveSettings } from "../../plan/resolveSettings.js";
 import { reduceField } from "../../reduce/reduceField.js";
 import { deviceCases } from "../../verify/deviceCases.js";
+import { bulkMaterials } from "../../verify/bulkMaterials.js";
 import { fieldSvg } from "../../verify/fieldSvg.js";
 import { formatFrequency, formatLength } from "../../verify/formatQuantity.js";
 import type { Illumination } from "../../verify/illumination.js";
@@ -69,6 +70,11 @@ export function verifySummary(design: string, scheme: string, r: CheckResult, ou
       ladder: c.ladder.map((p) => ({ resolution: p.resolution, stepM: p.stepM, scatteringWidthM: jn(p.scatteringWidthM), vsBare: jn(p.vsBare), deliveredPower: jn(p.deliveredPower) })),
       ...(c.bistaticM ? { bistaticM: Array.from(c.bistaticM, (v) => jn(v) ?? 0) } : {}),
     })),
+    homogenizationError: r.homogenizationError && {
+      relative: jn(r.homogenizationError.relative), uncertainty: jn(r.homogenizationError.uncertainty),
+      vsBareDifference: jn(r.homogenizationError.vsBareDifference), deliveredPowerDifference: jn(r.homogenizationError.deliveredPowerDifference),
+      stepM: r.homogenizationError.stepM, resolutions: r.homogenizationError.resolutions,
+    },
     notes: r.notes,
     outputs,
   };
@@ -102,8 +108,22 @@ export function verifyTable(design: string, scheme: string, r: CheckResult): str
     `  σ_s: scattering width (scattered power / incident intensity), ${r.method === "radial" ? "exact per angular order" : r.method === "fdfd" ? "extrapolated to zero grid step" : "exact (radial) or extrapolated to zero grid step (fdfd)"}; ±: its relative uncertainty${hasBare ? " (against the bare object's σ when that is larger)" : ""}`,
     ...(beam ? ["  delivered: share of the outgoing power inside the ideal device's output lobe; deviation: output direction minus the ideal's"] : []),
     "  field vs ideal: relative difference of the total field from the ideal device's, outside the device's box",
+    ...homogenizationLine(r),
     ...r.notes.map((n) => `  note: ${n}`),
   ].join("\n") + "\n";
+}
+
+/** The plan's homogenization error (realized-geometry against realized) for the human table. */
+function homogenizationLine(r: CheckResult): string[] {
+  const e = r.homogenizationError;
+  if (!e) return [];
+  const pm = e.uncertainty === null ? " (single grid, no uncertainty)" : ` ± ${Number((e.uncertainty * 100).toPrecision(2))} %`;
+  const sign = (v: number): string => (v >= 0 ? "+" : "−") + Math.abs(v).toPrecision(2);
+  return [
+    `  homogenization error of the plan (realized-geometry against realized, same grids): σ_s ${sign(e.relative * 100)} %${pm}` +
+      (e.vsBareDifference !== null ? `, σ/σ_bare ${sign(e.vsBareDifference)}` : "") +
+      (e.deliveredPowerDifference !== null ? `, delivered ${sign(e.deliveredPowerDifference * 100)} points` : ""),
+  ];
 }
 
 /** "2%" or "0.02" → 0.02. */
@@ -176,18 +196,19 @@ export const command: Command = {
     if (isVolumeDevice(field)) throw new InputError({ where: `${design.sourcePath}: $.transform`, message: "the full-wave check is two-dimensional (devices invariant along z); a 3D design cannot be verified" });
     const progress = (text: string): void => io.stderr(`… ${text}\n`);
     const s = resolveSettings(design, overrides);
-    let plan = null;
+    let plan = null, bulk;
     if (design.realization !== undefined) {
       progress("plan (for the realized map)");
       const [materials, processes] = await Promise.all([loadMaterialCatalog(), loadProcessCatalog()]);
       plan = planFromField(design, field, { materials, processes }, overrides);
+      bulk = bulkMaterials(materials, design.frequencyHz, plan);
     }
     const backgroundIndex = s.backgroundIndex === 1 && !design.reduction?.backgroundIndex ? undefined : s.backgroundIndex;
     const ideal = reduceField(field, { polarization: s.polarization, scheme: "full", backgroundIndex });
     const reduced = reduceField(field, { polarization: s.polarization, scheme: s.scheme, unitAxis: s.unitAxis, backgroundIndex });
     const n = reduced.settings.backgroundIndex, z = reduced.settings.backgroundImpedance;
     const background = { eps: n / z, mu: n * z };
-    const built = deviceCases({ transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid, ideal, reduced, plan });
+    const built = deviceCases({ transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid, ideal, reduced, plan, materials: bulk });
     const angleRad = (angleDeg * Math.PI) / 180;
     let illumination: Illumination = { kind: "plane", angleRad };
     if (beam) {
