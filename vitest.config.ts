@@ -6,6 +6,9 @@ export default defineConfig({
     testTimeout: 60_000,
     hookTimeout: 60_000,
     pool: "forks",
+    // the STL reader's helper package ships ES modules with extensionless imports, which Node's
+    // loader refuses; vite's resolver (inline) takes them
+    server: { deps: { inline: ["@amandaghassaei/stl-parser", "@amandaghassaei/3d-mesh-utils"] } },
     reporters: process.env.CELLWRIGHT_JSON_REPORT
       ? ["default", ["json", { outputFile: process.env.CELLWRIGHT_JSON_REPORT }]]
       : ["default"],

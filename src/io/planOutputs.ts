@@ -13,8 +13,8 @@ import { mapsSvg } from "../plan/outputs/svgMaps.js";
 import { planSummary } from "../plan/outputs/planSummary.js";
 import { MANIFEST_NAME, checkOutputFolder, prepareOutputFolder, writeOutputSet, type OutputFile, type WriteSetOptions } from "./outputSet.js";
 
-/** A further file written in the same unit (layout files: GDSII, DXF). */
-export interface ExtraOutput { name: string; data: string | Uint8Array }
+/** A further file written in the same unit (layout files: GDSII, DXF, STL): its data, or chunks streamed (a reused buffer each). */
+export interface ExtraOutput { name: string; data?: string | Uint8Array; chunks?: () => Iterable<Uint8Array> }
 
 export interface WriteOptions extends WriteSetOptions {
   /** further files written in the same set, before summary.json */
@@ -28,7 +28,13 @@ export function planOutputFiles(plan: Plan, finals: (names: string[]) => string[
     { name: "levels.csv", produce: (write) => write(levelsCsvText(plan)) },
     { name: "report.md", produce: (write) => write(reportMarkdown(plan)) },
     { name: "maps.svg", produce: (write) => write(mapsSvg(plan)) },
-    ...extra.map((e): OutputFile => ({ name: e.name, produce: (write) => write(e.data) })),
+    ...extra.map((e): OutputFile => ({
+      name: e.name,
+      produce: async (write) => {
+        if (e.chunks) for (const c of e.chunks()) await write(c);
+        else await write(e.data ?? "");
+      },
+    })),
   ];
   const names = [...files.map((f) => f.name), "summary.json", MANIFEST_NAME];
   files.push({ name: "summary.json", produce: (write) => write(`${JSON.stringify(planSummary(plan, finals(names)), null, 2)}\n`) });

@@ -39,6 +39,8 @@ export interface PlanSettings {
   bandwidth: number | null;
   /** the layer the device is made in (realization.layer); null = bulk materials */
   layer?: LayerSetting | null;
+  /** height of the device along z, metres (realization.height); null = the default of plan/deviceHeight.ts */
+  heightM?: number | null;
 }
 
 export type { LayerReport } from "../cells/slab/layerHost.js";

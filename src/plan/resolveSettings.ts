@@ -36,6 +36,7 @@ export function resolveSettings(design: SettingsSource, overrides: PlanOverrides
     lossBudgetDb: rz.lossBudgetDb ?? null,
     bandwidth: rz.bandwidth ?? null,
     layer: rz.layer ? { coreId: rz.layer.core, thicknessM: rz.layer.thickness, belowId: rz.layer.below, aboveId: rz.layer.above } : null,
+    heightM: rz.height ?? null,
   };
   const out = { ...base };
   for (const [k, v] of Object.entries(overrides)) {

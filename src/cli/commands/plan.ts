@@ -19,6 +19,10 @@ import { planLayout } from "../../plan/layout/layoutShapes.js";
 import { layoutFormats, LAYOUT_FILE } from "../../plan/layout/layoutFormats.js";
 import { gdsiiBytes } from "../../io/layout/gdsiiWriter.js";
 import { dxfText } from "../../io/layout/dxfWriter.js";
+import { STL_MAX_BYTES, stlBytesFor, stlChunks } from "../../io/layout/stlWriter.js";
+import { printedPart } from "../../plan/layout/printedPart.js";
+import { deviceHeight } from "../../plan/deviceHeight.js";
+import type { ExtraOutput } from "../../io/planOutputs.js";
 import type { Plan, PlanOverrides } from "../../plan/planTypes.js";
 import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
@@ -86,18 +90,40 @@ export function humanSummary(plan: Plan, outputs: string[]): string {
   return lines.join("\n") + "\n";
 }
 
-/** The layout files the plan's process takes (plan/layout/layoutFormats.ts); notes go to stderr. */
-function layoutFiles(plan: Plan, io: CliIo): { name: string; data: string | Uint8Array }[] {
-  const layout = planLayout(plan);
+/**
+ * The layout files the plan's process takes (plan/layout/layoutFormats.ts); notes go to stderr.
+ * A printed part whose STL would exceed STL_MAX_BYTES is refused (input error at --layout, with
+ * the estimate) before anything is written.
+ */
+export function layoutFiles(plan: Plan, io: Pick<CliIo, "stderr">): ExtraOutput[] {
   const { formats, note } = layoutFormats(plan.settings.process);
   if (note) io.stderr(`layout: ${note}\n`);
-  for (const n of layout.notDrawn) io.stderr(`layout: level ${n.level} not drawn: ${n.reason}\n`);
-  for (const n of layout.notes) io.stderr(`layout: ${n}\n`);
-  if (layout.levels.length === 0) {
-    if (formats.length) io.stderr("layout: no level has a plan-view shape; no layout file written\n");
-    return [];
+  const out: ExtraOutput[] = [];
+  const flat = formats.filter((f) => f !== "stl");
+  if (flat.length) {
+    const layout = planLayout(plan);
+    for (const n of layout.notDrawn) io.stderr(`layout: level ${n.level} not drawn: ${n.reason}\n`);
+    for (const n of layout.notes) io.stderr(`layout: ${n}\n`);
+    if (layout.levels.length === 0) io.stderr("layout: no level has a plan-view shape; no 2D layout file written\n");
+    else for (const f of flat) out.push({ name: LAYOUT_FILE[f], data: f === "gds" ? gdsiiBytes(layout) : dxfText(layout) });
   }
-  return formats.map((f) => ({ name: LAYOUT_FILE[f], data: f === "gds" ? gdsiiBytes(layout) : dxfText(layout) }));
+  if (formats.includes("stl")) {
+    const h = deviceHeight(plan.settings, plan.grid.pitchM, plan.design.wavelengthM);
+    const part = printedPart(plan, h.heightM, plan.figures.processMinFeatureM);
+    for (const n of part.notDrawn) io.stderr(`layout: level ${n.level} not printed: ${n.reason}\n`);
+    for (const n of part.notes) io.stderr(`layout: ${n}\n`);
+    if (part.refused) io.stderr(`layout: no STL written: ${part.refused}\n`);
+    else {
+      const bytes = stlBytesFor(part.triangles);
+      if (bytes > STL_MAX_BYTES) {
+        throw new InputError({ where: "--layout", message: `the printed part's STL would be about ${Math.round(bytes / 1e6)} MB (${part.triangles} triangles for ${plan.grid.count} cells × ${part.layers} layers), over the ${STL_MAX_BYTES / 1024 / 1024} MB limit: lower realization.height or plan a smaller device` });
+      }
+      const facets = [part.circleVertices ? `circles as ${part.circleVertices}-gons` : "", part.sphereSubdivision ? `spheres as level-${part.sphereSubdivision} icospheres` : ""].filter(Boolean).join(", ");
+      io.stderr(`layout: layout.stl: ${part.triangles} triangles (${(bytes / 1e6).toPrecision(3)} MB), ${part.layers} layer${part.layers === 1 ? "" : "s"}, ${Number((part.heightM * 1e3).toPrecision(6))} mm high (${h.source})${facets ? `; ${facets}` : ""}\n`);
+      out.push({ name: LAYOUT_FILE.stl, chunks: () => stlChunks(part, plan.design.name) });
+    }
+  }
+  return out;
 }
 
 /** Load, plan and write; shared by `plan` and `start`. Returns the exit code. */
@@ -159,7 +185,7 @@ export const command: Command = {
   options: [
     { name: "out", type: "string", valueName: "DIR", description: `output folder (default ./${DEFAULT_OUT_DIR})` },
     { name: "json", type: "boolean", description: "print the summary as one JSON object on stdout" },
-    { name: "layout", type: "boolean", description: "also write the layout for the fab: layout.gds (lithography) and/or layout.dxf (laser, CNC, PCB), by the process" },
+    { name: "layout", type: "boolean", description: "also write the layout for the fab, by the process: layout.gds (lithography), layout.dxf (laser, CNC, PCB), layout.stl (3D printing)" },
     { name: "session", type: "string", valueName: "FILE", description: "take the design and overrides from a saved session file" },
     { name: "levels", type: "string", valueName: "N", description: "largest number of distinct recipes (overrides the design)" },
     { name: "tolerance", type: "string", valueName: "T", description: "largest relative error accepted, e.g. 0.03 (overrides the design)" },

@@ -35,6 +35,8 @@ const shape = {
   bandwidth: z.number().positive().max(2).optional(),
   /** the thin film (or plate pair) the device is made in */
   layer: layerSchema.optional(),
+  /** height of the device along z (the bill of materials and the printed part); default from the process (plan/deviceHeight.ts) */
+  height: positiveQuantity("length").optional(),
 };
 
 export const REALIZATION_KEYS = Object.keys(shape);

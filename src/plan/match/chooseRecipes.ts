@@ -1,7 +1,8 @@
 /**
  * Choosing one recipe per level. Each candidate gets a base score
  *   relError/tolerance + spread/tolerance (beyond the tolerance only) + (loss in dB per free-space
- *   wavelength, 20·log10(e)·2π·Im n)/10 + 1 if resonant + 2 if its homogenization is only "warn",
+ *   wavelength, 20·log10(e)·2π·Im n)/10 + 1 if resonant + 2 if its homogenization is only "warn"
+ *   + IN_PLANE_PENALTY for rods, holes or wires lying in the plane,
  * lower being better; then the plan-wide count of distinct materials is folded in: a few sweeps
  * re-pick each level's recipe with a penalty of MATERIAL_PENALTY for every material no other level
  * already uses, until nothing changes; then "elimination" moves try dropping one material from the
@@ -14,6 +15,14 @@
 import type { Candidate } from "./levelCandidates.js";
 
 export const MATERIAL_PENALTY = 0.3;
+/**
+ * Rods, holes and wires lying in the plane (orientation 1 or 2) cost a quarter of the tolerance's
+ * worth of error more than the same family along z: they have no plan-view layout and are harder to
+ * build in a device invariant along z, so a z recipe whose error is close (within a quarter of the
+ * tolerance, or a little lower loss) is preferred; a clearly better in-plane recipe still wins.
+ */
+export const IN_PLANE_PENALTY = 0.25;
+const AXIAL_FAMILIES = new Set(["rods-in-host", "holes-in-slab", "wire-medium"]);
 /** dB of attenuation per free-space wavelength per unit Im n: 20·log10(e)·2π. */
 const DB_PER_WAVELENGTH = (20 / Math.LN10) * 2 * Math.PI;
 export const RUNNERS_UP = 5;
@@ -24,7 +33,8 @@ export function baseScore(c: Candidate, tolerance: number): number {
     Math.max(0, c.spread - tolerance) / tolerance +
     (DB_PER_WAVELENGTH * c.indexIm) / 10 +
     (c.resonant ? 1 : 0) +
-    (c.homogenization === "warn" ? 2 : 0)
+    (c.homogenization === "warn" ? 2 : 0) +
+    (AXIAL_FAMILIES.has(c.family) && c.orientation !== null && c.orientation !== "z" ? IN_PLANE_PENALTY : 0)
   );
 }
 

@@ -1,0 +1,298 @@
+/**
+ * The printed part (layout.stl) read back with @amandaghassaei/stl-parser (a general-purpose npm
+ * STL reader, dev dependency), checked against the build list: the triangle count each shape and
+ * face must give, the bounding box of the device's cells and height, watertightness (after merging
+ * equal vertices every edge is used by exactly two triangles, once in each direction: a closed,
+ * consistently oriented surface), a positive enclosed volume, and each level's printed volume
+ * fraction against its fill fraction. Volumes come from the divergence theorem with F = (0, 0, z):
+ * V = Σ z̄·A_xy over the triangles (A_xy the signed area of the triangle's projection), which also
+ * gives the volume inside any vertical prism from the triangles inside it (the prism's walls have
+ * n_z = 0), so each cell column's printed volume is the sum over the triangles above its square.
+ */
+import { describe, it, expect, beforeAll } from "vitest";
+import { mkdtemp, readFile, writeFile } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { parse } from "csv-parse/sync";
+import { parseSTL } from "@amandaghassaei/stl-parser";
+import { runCli } from "../../src/cli/run.js";
+import { bufferIo } from "../../src/cli/cliIo.js";
+import { expectClose } from "../helpers/close.js";
+import { loadDesign } from "../../src/io/design/loadDesign.js";
+import { loadFieldForDesign } from "../../src/io/fieldCsv.js";
+import { loadMaterialCatalog } from "../../src/io/materialCatalog.js";
+import { loadProcessCatalog } from "../../src/io/processCatalog.js";
+import { planFromField } from "../../src/plan/runPlan.js";
+import { printedPart } from "../../src/plan/layout/printedPart.js";
+import { stlChunks } from "../../src/io/layout/stlWriter.js";
+import type { Plan, Recipe } from "../../src/plan/planTypes.js";
+
+type Row = Record<string, string>;
+
+interface Analysis {
+  triangles: number;
+  headerCount: number;
+  min: number[];
+  max: number[];
+  badEdges: number;
+  unpairedDirected: number;
+  volumeMm3: number;
+  /** printed volume per cell column, keyed "i,j" of the cell square the triangle lies over */
+  columnMm3: Map<string, number>;
+}
+
+/** Read an STL with the independent parser and measure it (pitch and lattice origin in mm). */
+function analyse(buf: Buffer, pitchMm: number, x0Mm: number, y0Mm: number): Analysis {
+  const raw = parseSTL(buf);
+  // as read: three vertices per triangle, not indexed
+  const v = Float64Array.from(raw.vertices);
+  const n = v.length / 9;
+  const headerCount = buf.readUInt32LE(80);
+  let volume = 0;
+  const columnMm3 = new Map<string, number>();
+  for (let t = 0; t < n; t++) {
+    const a = 9 * t, b = a + 3, c = a + 6;
+    const ax = v[a], ay = v[a + 1], az = v[a + 2], bx = v[b], by = v[b + 1], bz = v[b + 2], cx = v[c], cy = v[c + 1], cz = v[c + 2];
+    volume += (ax * (by * cz - bz * cy) - ay * (bx * cz - bz * cx) + az * (bx * cy - by * cx)) / 6;
+    const axy = ((bx - ax) * (cy - ay) - (by - ay) * (cx - ax)) / 2;
+    if (axy === 0) continue;
+    const zBar = (az + bz + cz) / 3;
+    const i = Math.round(((ax + bx + cx) / 3 - x0Mm) / pitchMm), j = Math.round(((ay + by + cy) / 3 - y0Mm) / pitchMm);
+    const key = `${i},${j}`;
+    columnMm3.set(key, (columnMm3.get(key) ?? 0) + zBar * axy);
+  }
+  const merged = raw.mergeVertices();
+  const f = merged.facesIndices;
+  const undirected = new Map<string, number>();
+  const directed = new Set<string>();
+  let duplicateDirected = 0;
+  for (let t = 0; t < f.length / 3; t++) {
+    for (let k = 0; k < 3; k++) {
+      const p = f[3 * t + k], q = f[3 * t + ((k + 1) % 3)];
+      const key = p < q ? `${p},${q}` : `${q},${p}`;
+      undirected.set(key, (undirected.get(key) ?? 0) + 1);
+      if (directed.has(`${p},${q}`)) duplicateDirected++;
+      directed.add(`${p},${q}`);
+    }
+  }
+  let badEdges = 0;
+  for (const c of undirected.values()) if (c !== 2) badEdges++;
+  let unpairedDirected = duplicateDirected;
+  for (const d of directed) { const [p, q] = d.split(","); if (!directed.has(`${q},${p}`)) unpairedDirected++; }
+  return { triangles: n, headerCount, min: [...raw.boundingBox.min], max: [...raw.boundingBox.max], badEdges, unpairedDirected, volumeMm3: volume, columnMm3 };
+}
+
+async function planWithLayout(design: string): Promise<{ out: string; rows: Row[]; levels: Row[]; code: number; err: string; summary: Record<string, unknown> }> {
+  const out = await mkdtemp(join(tmpdir(), "cw-stl-"));
+  const io = bufferIo();
+  const code = await runCli(["plan", design, "--out", out, "--layout", "--json"], io);
+  const rows: Row[] = parse(await readFile(join(out, "build-list.csv"), "utf8"), { columns: true });
+  const levels: Row[] = parse(await readFile(join(out, "levels.csv"), "utf8"), { columns: true });
+  return { out, rows, levels, code, err: io.err(), summary: JSON.parse(io.out()) };
+}
+
+/** Lattice indices of the build list's cells (positions are multiples of the pitch from cell (0, 0)). */
+function lattice(rows: Row[], pitchMm: number): { x0: number; y0: number; key: (r: Row) => string; byKey: Map<string, Row> } {
+  const r0 = rows[0];
+  const x0 = Number(r0.x_mm) - Number(r0.i) * pitchMm, y0 = Number(r0.y_mm) - Number(r0.j) * pitchMm;
+  const key = (r: Row): string => `${r.i},${r.j}`;
+  return { x0, y0, key, byKey: new Map(rows.map((r) => [key(r), r])) };
+}
+
+/** Each level's printed volume over its cells' volume (a² × height), from the STL's columns. */
+function levelFractions(a: Analysis, rows: Row[], printed: (r: Row) => boolean, pitchMm: number, heightMm: number, key: (r: Row) => string): Map<number, { drawn: number; cells: Row[] }> {
+  const out = new Map<number, { drawn: number; cells: Row[] }>();
+  for (const r of rows) {
+    if (!printed(r)) continue;
+    const l = Number(r.level);
+    const e = out.get(l) ?? { drawn: 0, cells: [] };
+    e.drawn += a.columnMm3.get(key(r)) ?? 0;
+    e.cells.push(r);
+    out.set(l, e);
+  }
+  for (const e of out.values()) e.drawn /= e.cells.length * pitchMm * pitchMm * heightMm;
+  return out;
+}
+
+const NEIGHBOURS = [[1, 0], [-1, 0], [0, 1], [0, -1]];
+
+describe("STL of the printed strut lattice (npm start demo, stereolithography)", () => {
+  let r: Awaited<ReturnType<typeof planWithLayout>>;
+  beforeAll(async () => { r = await planWithLayout("demo-designs/plan-mmwave-printed-bend.json"); }, 120_000);
+
+  it("is a closed, consistently oriented surface whose count, box and level fractions match the build list", async () => {
+    expect(r.code, r.err).toBe(0);
+    expect((r.summary.outputs as string[]).some((p) => p.endsWith("layout.stl"))).toBe(true);
+    const pitch = 1.2; // mm, the design's grid.pitch
+    const L = lattice(r.rows, pitch);
+    const buf = await readFile(join(r.out, "layout.stl"));
+    const a = analyse(buf, pitch, L.x0, L.y0);
+    expect(a.headerCount).toBe(a.triangles);
+    expect(buf.length).toBe(84 + 50 * a.triangles);
+    expect(a.badEdges).toBe(0);
+    expect(a.unpairedDirected).toBe(0);
+    // default height: whole cells within half the free-space wavelength, c/(2·28 GHz) = 5.35 mm → 4 cells
+    const layers = 4;
+    const heightMm = layers * pitch;
+    expectClose(a.max[2], heightMm, { rel: 1e-6, label: "top" });
+    expectClose(a.min[2], 0, { abs: 1e-6, label: "bottom" });
+    // the struts reach every cell face: the box is the cells' squares
+    const xs = r.rows.map((x) => Number(x.x_mm)), ys = r.rows.map((x) => Number(x.y_mm));
+    expectClose(a.min[0], Math.min(...xs) - pitch / 2, { abs: 1e-4, label: "x min" });
+    expectClose(a.max[0], Math.max(...xs) + pitch / 2, { abs: 1e-4, label: "x max" });
+    expectClose(a.min[1], Math.min(...ys) - pitch / 2, { abs: 1e-4, label: "y min" });
+    expectClose(a.max[1], Math.max(...ys) + pitch / 2, { abs: 1e-4, label: "y max" });
+    // count: each cell and layer 6 arms × 4 sides × 2; a face to a cell of another level a frame
+    // of 8; a face to no cell the strut's end, 2; top and bottom ends 2 each
+    let expected = 0;
+    for (const row of r.rows) {
+      expected += layers * 48 + 4;
+      for (const [di, dj] of NEIGHBOURS) {
+        const nb = L.byKey.get(`${Number(row.i) + di},${Number(row.j) + dj}`);
+        if (!nb) expected += 2 * layers;
+        else if (di + dj > 0 && nb.level !== row.level) expected += 8 * layers;
+      }
+    }
+    expect(a.triangles).toBe(expected);
+    expect(a.volumeMm3).toBeGreaterThan(0);
+    // each level's solid fraction against its fill fraction (levels.csv), and against the strut
+    // identity f = 3x² − 2x³, x = w/a (three square bars through the node, inclusion–exclusion).
+    // Tolerance: widths are rounded to 80 nm (1e-6 of the largest coordinate) and vertices to
+    // float32: about 4e-4 relative on the fill at the thinnest strut.
+    const fr = levelFractions(a, r.rows, () => true, pitch, heightMm, L.key);
+    expect(fr.size).toBe(r.levels.length);
+    for (const lv of r.levels) {
+      const got = fr.get(Number(lv.level))!;
+      expectClose(got.drawn, Number(lv.fill_fraction), { rel: 1e-3, label: `level ${lv.level} printed fraction` });
+      const x = Number(got.cells[0].width_mm) / pitch;
+      expectClose(got.drawn, 3 * x * x - 2 * x * x * x, { rel: 2e-3, label: `level ${lv.level} strut identity` });
+    }
+    const total = [...a.columnMm3.values()].reduce((s, x) => s + x, 0);
+    expectClose(total, a.volumeMm3, { rel: 1e-6, label: "columns add up to the enclosed volume" });
+  });
+});
+
+describe("STL of rods and holes along z in a printed part", () => {
+  it("resin rods in air: one closed prism per cell, equal in area to the rod", async () => {
+    const r = await planWithLayout("tests/io/layout-fixtures/printed-rods.json");
+    expect([0, 2]).toContain(r.code);
+    const pitch = 1.5;
+    const L = lattice(r.rows, pitch);
+    const a = analyse(await readFile(join(r.out, "layout.stl")), pitch, L.x0, L.y0);
+    expect(a.badEdges).toBe(0);
+    expect(a.unpairedDirected).toBe(0);
+    const printed = (x: Row): boolean => x.family === "rods-in-host" && x.orientation === "along_z";
+    const cells = r.rows.filter(printed);
+    expect(cells.length).toBeGreaterThan(0);
+    const n = Number(/circles as (\d+)-gons/.exec(r.err)?.[1]);
+    // walls 2N, two caps of N − 2 each
+    expect(a.triangles).toBe(cells.length * (4 * n - 4));
+    // default height: 3 cells of 1.5 mm within c/(2·28 GHz)
+    const heightMm = 4.5;
+    expectClose(a.max[2] - a.min[2], heightMm, { rel: 1e-6, label: "height" });
+    const fr = levelFractions(a, r.rows, printed, pitch, heightMm, L.key);
+    for (const [level, got] of fr) {
+      // square lattice: fill = πr²/a² (the polygon has the circle's area)
+      const rad = Number(got.cells[0].radius_mm);
+      expectClose(got.drawn, (Math.PI * rad * rad) / (pitch * pitch), { rel: 1e-3, label: `level ${level} rod area` });
+      expectClose(got.drawn, Number(r.levels.find((x) => Number(x.level) === level)!.fill_fraction), { rel: 1e-3, label: `level ${level} fill` });
+    }
+  }, 120_000);
+
+  it("resin with air holes: the cells join into one plate, holes cut through, unprinted cells left open", async () => {
+    const r = await planWithLayout("tests/io/layout-fixtures/printed-holes.json");
+    const pitch = 1.5;
+    const L = lattice(r.rows, pitch);
+    const a = analyse(await readFile(join(r.out, "layout.stl")), pitch, L.x0, L.y0);
+    expect(a.badEdges).toBe(0);
+    expect(a.unpairedDirected).toBe(0);
+    const printed = (x: Row): boolean => x.family === "holes-in-slab" && x.orientation === "along_z";
+    const cells = r.rows.filter(printed);
+    expect(cells.length).toBeGreaterThan(0);
+    const n = Number(/circles as (\d+)-gons/.exec(r.err)?.[1]);
+    // hole wall 2N; top and bottom: square minus N-gon, N + 4 each; a side with no printed cell: 2
+    let expected = 0;
+    for (const row of cells) {
+      expected += 2 * n + 2 * (n + 4);
+      for (const [di, dj] of NEIGHBOURS) {
+        const nb = L.byKey.get(`${Number(row.i) + di},${Number(row.j) + dj}`);
+        if (!nb || !printed(nb)) expected += 2;
+      }
+    }
+    expect(a.triangles).toBe(expected);
+    const heightMm = 4.5;
+    const fr = levelFractions(a, r.rows, printed, pitch, heightMm, L.key);
+    for (const [level, got] of fr) {
+      expectClose(got.drawn, 1 - Number(r.levels.find((x) => Number(x.level) === level)!.fill_fraction), { rel: 1e-3, label: `level ${level} resin fraction` });
+    }
+  }, 120_000);
+});
+
+describe("STL of spheres, voids and cubes (recipes set by hand on a planned device)", () => {
+  async function handPlan(): Promise<Plan> {
+    const design = await loadDesign("tests/io/layout-fixtures/printed-rods.json");
+    const [field, materials, processes] = await Promise.all([loadFieldForDesign(design), loadMaterialCatalog(), loadProcessCatalog()]);
+    return planFromField(design, field, { materials, processes }, {});
+  }
+
+  /** Set the levels' recipes (null: an empty cell of air), write the STL, check it closes and each printed level's fraction. */
+  async function checkPart(plan: Plan, recipes: ({ recipe: Partial<Recipe>; printed: number } | null)[]): Promise<void> {
+    const a = plan.grid.pitchM;
+    const base = plan.levels[0].recipe!;
+    recipes.forEach((r, l) => {
+      plan.levels[l].recipe = r ? { ...base, lattice: "cubic", orientation: null, ...r.recipe } : { ...base, family: "solid", host: "air", inclusion: "", lattice: "cubic", orientation: null, dimensions: {}, fillFraction: 0 };
+    });
+    const part = printedPart(plan, 2 * a, 0.15e-3);
+    expect(part.refused).toBeNull();
+    expect(part.layers).toBe(2);
+    const chunks: Uint8Array[] = [];
+    for (const c of stlChunks(part, "hand-set recipes")) chunks.push(c.slice());
+    const buf = Buffer.concat(chunks);
+    const aMm = a * 1e3;
+    const an = analyse(buf, aMm, plan.grid.originXM * 1e3, plan.grid.originYM * 1e3);
+    expect(an.badEdges).toBe(0);
+    expect(an.unpairedDirected).toBe(0);
+    expect(an.headerCount).toBe(part.triangles);
+    recipes.forEach((r, l) => {
+      let v = 0, cells = 0;
+      for (let c = 0; c < plan.grid.count; c++) {
+        if (plan.level[c] !== l) continue;
+        cells++;
+        v += an.columnMm3.get(`${plan.grid.i[c]},${plan.grid.j[c]}`) ?? 0;
+      }
+      expect(cells).toBeGreaterThan(0);
+      // icospheres are scaled to the sphere's volume; float32 vertices and the 40 nm dimension
+      // quantum move the fraction by well under 1e-3
+      expectClose(v / (cells * aMm * aMm * 2 * aMm), r ? r.printed : 0, { rel: 1e-3, abs: 1e-12, label: `level ${l + 1} printed fraction` });
+    });
+  }
+
+  it("loose spheres, sphere voids and cube voids close and hold their volume", async () => {
+    const plan = await handPlan();
+    const a = plan.grid.pitchM;
+    const r1 = 0.3 * a, r2 = 0.35 * a, s3 = 0.5 * a;
+    const sphere = (r: number): number => (4 / 3) * Math.PI * (r / a) ** 3;
+    const looseSpheres = { recipe: { family: "spheres-in-host", host: "air", inclusion: "photopolymer-resin", dimensions: { radius_m: r1 }, fillFraction: sphere(r1) }, printed: sphere(r1) };
+    const sphereVoids = { recipe: { family: "spheres-in-host", host: "photopolymer-resin", inclusion: "air", dimensions: { radius_m: r2 }, fillFraction: sphere(r2) }, printed: 1 - sphere(r2) };
+    const cubeVoids = { recipe: { family: "cubes-in-host", host: "photopolymer-resin", inclusion: "air", dimensions: { side_m: s3 }, fillFraction: (s3 / a) ** 3 }, printed: 1 - (s3 / a) ** 3 };
+    const struts = (w: number) => ({ recipe: { family: "strut-lattice", host: "air", inclusion: "photopolymer-resin", dimensions: { width_m: w * a }, fillFraction: 3 * w * w - 2 * w ** 3 }, printed: 3 * w * w - 2 * w ** 3 });
+    await checkPart(plan, [looseSpheres, sphereVoids, cubeVoids]);
+    // empty cells on either side of solid cells, and struts meeting solid cells and each other
+    await checkPart(plan, [null, sphereVoids, struts(0.3)]);
+    await checkPart(plan, [struts(0.4), cubeVoids, null]);
+    await checkPart(plan, [struts(0.2), struts(0.45), { recipe: { family: "solid", host: "photopolymer-resin", inclusion: "", dimensions: {}, fillFraction: 1 }, printed: 1 }]);
+  }, 120_000);
+
+  it("refuses a part whose STL would be too large, with the estimate, and writes nothing", async () => {
+    const d = JSON.parse(await readFile("demo-designs/plan-mmwave-printed-bend.json", "utf8"));
+    d.realization.height = "2 m";
+    const dir = await mkdtemp(join(tmpdir(), "cw-stl-big-"));
+    const path = join(dir, "tall.json");
+    await writeFile(path, JSON.stringify(d));
+    const io = bufferIo();
+    const code = await runCli(["plan", path, "--out", join(dir, "out"), "--layout"], io);
+    expect(code).toBe(1);
+    expect(io.err()).toMatch(/--layout: the printed part's STL would be about \d+ MB \(\d+ triangles for 1537 cells × 1667 layers\), over the 256 MB limit/);
+    await expect(readFile(join(dir, "out", "summary.json"))).rejects.toThrow();
+  }, 120_000);
+});
