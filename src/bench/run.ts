@@ -4,6 +4,7 @@
  */
 const benches: { name: string; module: string; fn: string }[] = [
   { name: "tensor engine", module: "./fieldBench.js", fn: "fieldBench" },
+  { name: "polygon regions (even-odd row fill)", module: "./polygonBench.js", fn: "polygonBench" },
   { name: "whole plan", module: "./planBench.js", fn: "planBench" },
   { name: "verify solver (sparse direct, nested dissection)", module: "./solverBench.js", fn: "solverBench" },
   { name: "verify of each demo (default accuracy)", module: "./verifyBench.js", fn: "verifyBench" },

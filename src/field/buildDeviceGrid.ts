@@ -25,11 +25,20 @@ function axis(min: number, max: number, centre: number, pitch: number): { first:
   return { first, n: Math.max(0, last - first + 1) };
 }
 
+/** A row of the point test at once: out[i] = contains(x0M + i·pitchM, yM, zM) ? 1 : 0. */
+export type ContainsRow = (out: Uint8Array, yM: number, zM: number, x0M: number, pitchM: number) => void;
+
 /**
- * Build the device grid. `contains` is called once per lattice point.
+ * Build the device grid. `contains` is called once per lattice point, or `containsRow` (when
+ * given, e.g. for a large polygon) once per lattice row with the same answers.
  * Throws InputError at `where` when the lattice would be too large.
  */
-export function buildDeviceGrid(bounds: Bounds3, contains: (x: number, y: number, z: number) => boolean, req: GridRequest): DeviceGrid {
+export function buildDeviceGrid(
+  bounds: Bounds3,
+  contains: (x: number, y: number, z: number) => boolean,
+  req: GridRequest,
+  containsRow?: ContainsRow,
+): DeviceGrid {
   const p = req.pitchM;
   const ox = req.origin ? req.origin[0] : 0.5 * (bounds.minX + bounds.maxX);
   const oy = req.origin ? req.origin[1] : 0.5 * (bounds.minY + bounds.maxY);
@@ -51,13 +60,15 @@ export function buildDeviceGrid(bounds: Bounds3, contains: (x: number, y: number
   const is = new Int32Array(total), js = new Int32Array(total), ks = new Int32Array(req.dimension === 3 ? total : 0);
   const xs = new Float64Array(total), ys = new Float64Array(total), zs = new Float64Array(req.dimension === 3 ? total : 0);
   let count = 0;
+  const row = containsRow ? new Uint8Array(ax.n) : null;
   for (let k = 0; k < az.n; k++) {
     const z = z0 + k * p;
     for (let j = 0; j < ay.n; j++) {
       const y = y0 + j * p;
+      if (row) containsRow!(row, y, z, x0, p);
       for (let i = 0; i < ax.n; i++) {
         const x = x0 + i * p;
-        if (!contains(x, y, z)) continue;
+        if (row ? row[i] === 0 : !contains(x, y, z)) continue;
         is[count] = i; js[count] = j; xs[count] = x; ys[count] = y;
         if (req.dimension === 3) { ks[count] = k; zs[count] = z; }
         count++;

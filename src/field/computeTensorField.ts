@@ -64,7 +64,7 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   const dimension = transform.dimension === 3 && !design.grid.slice ? 3 : 2;
   const grid = buildDeviceGrid(transform.bounds, transform.contains, {
     pitchM: design.grid.pitchM, origin: design.grid.origin, dimension, where: `${file}: $.grid.pitch`,
-  });
+  }, transform.containsRow);
   const n = grid.count;
   // estimate before allocating the per-cell arrays: refuse what the machine cannot hold
   const tooMany = budget ? cellBudgetProblem(n, design.grid.pitchM, dimension, budget) : null;

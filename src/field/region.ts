@@ -6,6 +6,7 @@ import type { BoundarySamples } from "./tensorField.js";
 import type { Bounds3 } from "./transforms/transform.js";
 import { circleBoundary, edgeBoundary, joinBoundaries } from "./transforms/circleBoundary.js";
 import { INNER_SLACK, OUTER_SLACK } from "./transforms/transform.js";
+import { polygonIndex } from "./polygonIndex.js";
 
 export type RegionSpec =
   | { shape: "circle"; centerM: [number, number]; radiusM: number }
@@ -16,7 +17,52 @@ export type RegionSpec =
 export interface Region {
   bounds: Bounds3;
   contains(xM: number, yM: number): boolean;
+  /** optional fast row test: out[i] = contains(x0M + i·pitchM, yM) ? 1 : 0 for i < out.length */
+  containsRow?(out: Uint8Array, yM: number, x0M: number, pitchM: number): void;
   sampleBoundary(count: number): BoundarySamples;
+}
+
+/** Polygons with more vertices than half the requested boundary samples are sampled by arc length. */
+function polygonBoundary(xs: Float64Array, ys: Float64Array, ccw: boolean, count: number, insetM: number): BoundarySamples {
+  const n = xs.length;
+  let perimeter = 0;
+  for (let k = 0; k < n; k++) perimeter += Math.hypot(xs[(k + 1) % n] - xs[k], ys[(k + 1) % n] - ys[k]);
+  const parts: BoundarySamples[] = [];
+  if (2 * n <= count) {
+    // at least two samples on every edge (corners are where edges meet)
+    for (let k = 0; k < n; k++) {
+      const m = (k + 1) % n;
+      const dx = xs[m] - xs[k], dy = ys[m] - ys[k], len = Math.hypot(dx, dy);
+      if (len === 0) continue;
+      // outward normal: right of the edge for a counter-clockwise polygon
+      const nx = ccw ? dy / len : -dy / len, ny = ccw ? -dx / len : dx / len;
+      parts.push(edgeBoundary(xs[k], ys[k], xs[m], ys[m], nx, ny, Math.max(2, Math.round((count * len) / perimeter)), insetM));
+    }
+    return joinBoundaries(parts);
+  }
+  // many short edges: `count` samples evenly spaced along the perimeter, each on its own edge
+  // with that edge's normal (two per edge would make the boundary cost grow with the vertices)
+  const samples = Math.max(4, Math.floor(count));
+  const out: BoundarySamples = {
+    xM: new Float64Array(samples), yM: new Float64Array(samples), normalX: new Float64Array(samples), normalY: new Float64Array(samples),
+  };
+  let k = 0, before = 0, len = Math.hypot(xs[1 % n] - xs[0], ys[1 % n] - ys[0]);
+  for (let s = 0; s < samples; s++) {
+    const at = ((s + 0.5) / samples) * perimeter;
+    while ((before + len < at || len === 0) && k < n - 1) {
+      before += len; k++;
+      const m = (k + 1) % n;
+      len = Math.hypot(xs[m] - xs[k], ys[m] - ys[k]);
+    }
+    const m = (k + 1) % n;
+    const dx = xs[m] - xs[k], dy = ys[m] - ys[k];
+    const t = len > 0 ? Math.min(1, Math.max(0, (at - before) / len)) : 0.5;
+    const nx = len > 0 ? (ccw ? dy / len : -dy / len) : 0, ny = len > 0 ? (ccw ? -dx / len : dx / len) : 0;
+    out.xM[s] = xs[k] + t * dx - nx * insetM;
+    out.yM[s] = ys[k] + t * dy - ny * insetM;
+    out.normalX[s] = nx; out.normalY[s] = ny;
+  }
+  return out;
 }
 
 /** Build the point test, bounds and boundary sampler of a region. */
@@ -63,44 +109,22 @@ export function makeRegion(spec: RegionSpec): Region {
       const n = pts.length;
       const xs = new Float64Array(n), ys = new Float64Array(n);
       for (let k = 0; k < n; k++) { xs[k] = pts[k][0]; ys[k] = pts[k][1]; }
-      let area2 = 0;
+      let area2 = 0, minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity;
       for (let k = 0; k < n; k++) {
         const m = (k + 1) % n;
         area2 += xs[k] * ys[m] - xs[m] * ys[k];
+        minX = Math.min(minX, xs[k]); maxX = Math.max(maxX, xs[k]); minY = Math.min(minY, ys[k]); maxY = Math.max(maxY, ys[k]);
       }
       const ccw = area2 > 0;
-      const bounds = {
-        minX: Math.min(...xs), maxX: Math.max(...xs), minY: Math.min(...ys), maxY: Math.max(...ys), minZ: 0, maxZ: 0,
-      };
+      const bounds = { minX, maxX, minY, maxY, minZ: 0, maxZ: 0 };
       const inset = 1e-9 * Math.max(bounds.maxX - bounds.minX, bounds.maxY - bounds.minY);
+      // even–odd rule, half-open in y (field/polygonIndex.ts); self-intersecting polygons allowed
+      const index = polygonIndex(xs, ys);
       return {
         bounds,
-        // even–odd ray casting
-        contains: (x, y) => {
-          let inside = false;
-          for (let k = 0, m = n - 1; k < n; m = k++) {
-            const yk = ys[k], ym = ys[m];
-            if ((yk > y) !== (ym > y)) {
-              const xCross = xs[k] + ((y - yk) * (xs[m] - xs[k])) / (ym - yk);
-              if (x < xCross) inside = !inside;
-            }
-          }
-          return inside;
-        },
-        sampleBoundary: (count) => {
-          let perimeter = 0;
-          for (let k = 0; k < n; k++) perimeter += Math.hypot(xs[(k + 1) % n] - xs[k], ys[(k + 1) % n] - ys[k]);
-          const parts: BoundarySamples[] = [];
-          for (let k = 0; k < n; k++) {
-            const m = (k + 1) % n;
-            const dx = xs[m] - xs[k], dy = ys[m] - ys[k], len = Math.hypot(dx, dy);
-            if (len === 0) continue;
-            // outward normal: right of the edge for a counter-clockwise polygon
-            const nx = ccw ? dy / len : -dy / len, ny = ccw ? -dx / len : dx / len;
-            parts.push(edgeBoundary(xs[k], ys[k], xs[m], ys[m], nx, ny, Math.max(2, Math.round((count * len) / perimeter)), inset));
-          }
-          return joinBoundaries(parts);
-        },
+        contains: (x, y) => index.contains(x, y),
+        containsRow: (out, y, x0, pitch) => index.containsRow(out, y, x0, pitch),
+        sampleBoundary: (count) => polygonBoundary(xs, ys, ccw, count, inset),
       };
     }
   }

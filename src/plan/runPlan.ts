@@ -271,7 +271,7 @@ export function planFromField(
 }
 
 /** The declared layer's mode at the design frequency (the ids were checked by checkIds). */
-function layerFor(l: LayerSetting, polarization: "Ez" | "Hz", catalog: readonly Material[], frequencyHz: number): LayerReport {
+export function layerFor(l: LayerSetting, polarization: "Ez" | "Hz", catalog: readonly Material[], frequencyHz: number): LayerReport {
   const phase = (id: string) => {
     const m = catalog.find((x) => x.id === id)!;
     return { id, eps: evaluateMaterial(m, frequencyHz).eps, isMetal: m.class === "metal" };

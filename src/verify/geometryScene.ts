@@ -77,6 +77,8 @@ export interface GeometrySceneInput {
   polarization: ScenePolarization;
   background: { eps: number; mu: number };
   hidden: HiddenDisk | null;
+  /** further conductors every case stands on (a carpet's bump) */
+  extraConductors?: readonly Conductor[];
 }
 
 export type GeometrySceneResult =
@@ -151,7 +153,7 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
     normalX[c] = Math.abs(Math.cos(nrm)) >= Math.abs(Math.sin(nrm)) ? 1 : 0;
   }
   const bounds = deviceBounds(g);
-  const conductors: Conductor[] = [];
+  const conductors: Conductor[] = [...(input.extraConductors ?? [])];
   if (input.hidden) {
     const [cx, cy] = input.hidden.centerM, r = input.hidden.radiusM;
     conductors.push(diskConductor(input.hidden.centerM, r));

@@ -30,7 +30,8 @@ import type { TransformSpec } from "../field/transformSpec.js";
 import type { FdfdGrid } from "./fdfdGrid.js";
 import type { Illumination } from "./illumination.js";
 import { radialCases, radialGeometry, type RadialCaseResult } from "./radialCases.js";
-import { DEFAULT_ACCURACY, firstResolution, gridFits, MAX_AUTO_UNKNOWNS, rungGrid, verifyDevice, type CaseResult, type CaseSpec, type VerifyInput, type VerifyResult } from "./verifyDevice.js";
+import { ladderGrids } from "./ladderGrids.js";
+import { DEFAULT_ACCURACY, gridFits, MAX_AUTO_UNKNOWNS, verifyDevice, type CaseResult, type CaseSpec, type VerifyInput, type VerifyResult } from "./verifyDevice.js";
 
 export type MethodOption = "auto" | "fdfd" | "radial";
 export const METHOD_OPTIONS: readonly MethodOption[] = ["auto", "fdfd", "radial"];
@@ -111,7 +112,13 @@ function geometryRun(input: CheckInput, drawn: CaseSpec, main: Omit<CheckResult,
   if (!realizedSpec || !realizedMain) return { result: unavailableCase(drawn.name, "the realized (homogenized) case was not computed, so there is nothing to compare the drawn structure with"), error: null };
   const gridInput: VerifyInput = { ...input, cases: [realizedSpec, drawn], maxStepM: drawn.maxStepM, pattern: input.pattern };
   const tooLarge = (scale: number): string | null => {
-    const g = rungGrid({ ...gridInput, maxStepM: drawn.maxStepM! * scale }, firstResolution(gridInput));
+    const nb = Math.sqrt(input.background.eps * input.background.mu);
+    const lad = ladderGrids({
+      polarization: input.polarization, background: input.background, frequencyHz: input.frequencyHz, deviceBox: input.deviceBox, groundYM: input.groundYM,
+      resolution: input.resolution, accuracy: input.accuracy ?? DEFAULT_ACCURACY, marginM: input.marginM ?? C0 / (input.frequencyHz * nb) / 2,
+      maxStepM: drawn.maxStepM! * scale, caseIndexHints: [realizedSpec.indexHint, drawn.indexHint],
+    });
+    const g = lad.makeGrid(lad.wanted[0]);
     const fit = gridFits(g);
     if (!fit.ok) return `${g.nx} × ${g.ny} nodes, ${fit.over}`;
     if (g.nx * g.ny > MAX_AUTO_UNKNOWNS) return `${g.nx} × ${g.ny} nodes (about ${formatBytes(solveCost(g).megabytes * 1e6)}), more than the ${(MAX_AUTO_UNKNOWNS / 1e6).toPrecision(2)} million nodes the check solves on its own`;
@@ -203,6 +210,6 @@ function mergeRuns(input: CheckInput, radial: RadialCaseResult[], grid: VerifyRe
     grid: grid?.grid ?? null, resolutions: grid?.resolutions ?? [], accuracy,
     densestIndex: grid?.densestIndex ?? nb, backgroundIndex: nb, marginM: grid?.marginM ?? 0,
     illumination: input.illumination ?? { kind: "plane", angleRad: 0 },
-    cases, deviceMask: grid?.deviceMask ?? new Uint8Array(0), notes,
+    cases, deviceMask: grid?.deviceMask ?? new Uint8Array(0), groundYM: null, notes,
   };
 }

@@ -248,6 +248,27 @@ describe("memory is estimated before allocating", () => {
   });
 });
 
+describe("large polygon regions do not wait", () => {
+  it("reduce on a self-intersecting polygon of 100 000 points completes (it hung past 60 s)", async () => {
+    // vertices at pseudo-random angles and radii (fixed sequence): nearly every edge crosses many others
+    let seed = 12345;
+    const rnd = (): number => (seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648;
+    const points: [number, number][] = [];
+    for (let k = 0; k < 100_000; k++) {
+      const t = 2 * Math.PI * rnd(), r = 0.02 + 0.03 * rnd();
+      points.push([r * Math.cos(t), r * Math.sin(t)]);
+    }
+    const d = demo("field-expression.json");
+    d.transform.region = { polygon: points };
+    d.grid.pitch = "4 mm";
+    const r = await ok(["reduce", put("bigpolygon.json", d), "--json"]);
+    expect(r.code, r.err).toBe(0);
+    const out = JSON.parse(r.out);
+    expect(out.cells).toBeGreaterThan(0);
+    expect(out.schemes[0].boundarySamples).toBeGreaterThan(0);
+  });
+});
+
 describe("found by the generated cases", () => {
   it("an empty reduction object names the missing scheme, not 'got undefined'", async () => {
     const d = demo("field-radial-cloak.json");

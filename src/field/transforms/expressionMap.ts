@@ -16,11 +16,13 @@ export function expressionMap(spec: ExpressionSpec): Transform {
   const f = spec.compiled;
   const v = new Float64Array(6);
   const scale = Math.max(region.bounds.maxX - region.bounds.minX, region.bounds.maxY - region.bounds.minY) || 1;
+  const regionRow = region.containsRow;
   return {
     kind: "expression",
     dimension: 2,
     bounds: region.bounds,
     contains: (x, y) => region.contains(x, y),
+    ...(regionRow ? { containsRow: (out: Uint8Array, y: number, _z: number, x0: number, pitch: number) => regionRow(out, y, x0, pitch) } : {}),
     forward(out, x, y, z) {
       // start from the virtual point itself (most maps are near the identity somewhere)
       let px = x, py = y;

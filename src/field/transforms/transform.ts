@@ -29,6 +29,12 @@ export interface Transform {
   bounds: Bounds3;
   /** true when the physical point lies inside the device region (open at singular boundaries) */
   contains(xM: number, yM: number, zM: number): boolean;
+  /**
+   * Optional: `contains` for a whole row of lattice points at once, for kinds whose point test is
+   * cheaper per row (large polygons): out[i] = contains(x0M + i·pitchM, yM, zM) ? 1 : 0 for
+   * i < out.length, with x computed exactly so.
+   */
+  containsRow?(out: Uint8Array, yM: number, zM: number, x0M: number, pitchM: number): void;
   /** virtual → physical: writes x' into out[0..2]; returns false where the virtual point has no image in the device */
   forward(out: Float64Array, xM: number, yM: number, zM: number): boolean;
   /** physical → virtual (G): writes x into out[0..2]; returns false outside the device */

@@ -1,0 +1,146 @@
+/**
+ * `verify --sweep "8 GHz..10 GHz:21"`: the full-wave check at every frequency of a sweep (the bare
+ * object, ideal, reduced and realized devices, dispersive recipes re-evaluated at each frequency),
+ * the band where the realized device stays within --threshold of the reduced design at the centre,
+ * and with --out the files verify-sweep.csv and verify-sweep.svg written as one output set
+ * (manifest.json last). Frequencies run on worker threads (sweepPool.ts), as many as the cores,
+ * the frequencies and the memory budget allow (sweepConcurrency.ts).
+ */
+import { availableParallelism } from "node:os";
+import { resolve } from "node:path";
+import { InputError } from "../../core/errors.js";
+import { memoryBudget } from "../../io/memoryLimit.js";
+import { checkOutputFolder, prepareOutputFolder, writeOutputSet, type OutputFile } from "../../io/outputSet.js";
+import { parseQuantity } from "../../io/quantity.js";
+import { formatFrequency } from "../../verify/formatQuantity.js";
+import { planSweepPool, sweepPeakBytes, workerBaselineBytes } from "../../verify/sweep/sweepConcurrency.js";
+import { sweepCsvText } from "../../verify/sweep/sweepCsv.js";
+import { MAX_SWEEP_POINTS, sweepFrequencies } from "../../verify/sweep/sweepFrequencies.js";
+import type { SweepContext } from "../../verify/sweep/sweepPoint.js";
+import { summarizeSweep, sweepJson, sweepSeries, sweepTable } from "../../verify/sweep/sweepSummary.js";
+import { sweepSvg } from "../../verify/sweep/sweepSvg.js";
+import type { CliIo } from "../cliIo.js";
+import { EXIT_INTERRUPTED, EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
+import { runSweepPool } from "../sweepPool.js";
+
+export const SWEEP_CSV = "verify-sweep.csv";
+export const SWEEP_SVG = "verify-sweep.svg";
+/** Default --threshold: the realized figure within a factor 2 of the reduced design's at the centre. */
+export const DEFAULT_SWEEP_THRESHOLD = 2;
+
+export interface SweepRange { startHz: number; stopHz: number; count: number }
+
+const FORM = "expected 'START..STOP:COUNT', e.g. '8 GHz..10 GHz:21' (COUNT frequencies from START to STOP, both included)";
+
+/** Parse --sweep text "START..STOP:COUNT" with the project's quantity parser. */
+export async function parseSweep(text: string, where = "--sweep"): Promise<SweepRange> {
+  const m = /^\s*(.+?)\s*\.\.\s*(.+?)\s*:\s*([^:]+?)\s*$/.exec(text);
+  if (!m) throw new InputError({ where, message: `${FORM}; got '${text}'` });
+  const count = Number(m[3]);
+  if (!Number.isInteger(count) || count < 1 || count > MAX_SWEEP_POINTS) {
+    throw new InputError({ where, message: `expected COUNT a whole number from 1 to ${MAX_SWEEP_POINTS} (${FORM}); got '${m[3]}'` });
+  }
+  const startHz = await parseQuantity(m[1], "frequency", `${where} (start)`);
+  const stopHz = await parseQuantity(m[2], "frequency", `${where} (stop)`);
+  if (!(startHz > 0)) throw new InputError({ where, message: `expected a start frequency above 0, got '${m[1]}'` });
+  if (count === 1 && stopHz !== startHz) throw new InputError({ where, message: `one frequency needs START = STOP (e.g. '9 GHz..9 GHz:1'); got '${text}'` });
+  if (count > 1 && !(stopHz > startHz)) throw new InputError({ where, message: `expected STOP above START (${FORM}); got '${text}'` });
+  return { startHz, stopHz, count };
+}
+
+/** Parse --threshold: a factor above 1 (default 2). */
+export function parseThreshold(text: string | undefined): number {
+  if (text === undefined) return DEFAULT_SWEEP_THRESHOLD;
+  const t = text.trim().replace(/^[x×]\s*|\s*[x×]$/g, "");
+  const v = Number(t);
+  if (!(v > 1) || !Number.isFinite(v)) throw new InputError({ where: "--threshold", message: `expected a factor above 1, e.g. 2 (the realized figure within 2× the reduced design's at the centre); got '${text}'` });
+  return v;
+}
+
+/** ", band 8.48 GHz … 8.51 GHz" for the plot's subtitle (empty without a band). */
+function r0band(r: { band: { lowHz: number | null; highHz: number | null } | null }): string {
+  const b = r.band;
+  return b && b.lowHz !== null && b.highHz !== null ? `; band ${formatFrequency(b.lowHz)} … ${formatFrequency(b.highHz)}` : "";
+}
+
+export interface SweepRun {
+  designName: string;
+  designFrequencyHz: number;
+  scheme: string;
+  context: SweepContext;
+  range: SweepRange;
+  threshold: number;
+  json: boolean;
+  outDir: string | undefined;
+  /** notes from building the cases (at the design frequency) */
+  notes: string[];
+}
+
+/** Run the sweep and print (see file comment). Returns the exit code (2 when a figure is not converged). */
+export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> {
+  const { context, range } = run;
+  const frequencies = sweepFrequencies(range.startHz, range.stopHz, range.count);
+  const names = [SWEEP_CSV, SWEEP_SVG];
+  // a folder that cannot take the outputs is refused before minutes of solving
+  if (run.outDir !== undefined) await checkOutputFolder(resolve(io.cwd, run.outDir), names);
+  const progress = (text: string): void => io.stderr(`… ${text}\n`);
+  const budget = memoryBudget("verify");
+  const peaks = frequencies.map((f) => ({ frequencyHz: f, ...sweepPeakBytes(context, f) }));
+  const pool = planSweepPool(peaks, availableParallelism(), budget.budgetBytes, budget.source, workerBaselineBytes(context.grid.count));
+  if ("refusal" in pool) throw new InputError({ where: "--sweep", message: pool.refusal });
+  const notes = [...run.notes];
+  if (pool.note) notes.push(pool.note);
+  progress(`sweep: ${frequencies.length} frequenc${frequencies.length === 1 ? "y" : "ies"} from ${formatFrequency(frequencies[0])} to ${formatFrequency(frequencies[frequencies.length - 1])}, ${pool.workers} at a time`);
+  const controller = new AbortController();
+  const onSigint = (): void => controller.abort();
+  process.once("SIGINT", onSigint);
+  process.once("SIGTERM", onSigint);
+  let outputs: string[] = [];
+  let result;
+  let threads = 0;
+  try {
+    const ran = await runSweepPool({ ...context, solverBytes: pool.solverBytes }, frequencies, {
+      workers: pool.workers, signal: controller.signal, formatHz: formatFrequency,
+      onDone: (done, total, f) => progress(`sweep: ${done} of ${total} done (${formatFrequency(f)})`),
+    });
+    threads = ran.threads;
+    result = summarizeSweep(ran.points, { designFrequencyHz: run.designFrequencyHz, threshold: run.threshold, beam: context.illumination.kind === "beam" });
+    result.notes = [...new Set([...notes, ...result.notes])];
+    if (ran.threads === 0 && pool.workers > 1) result.notes.push("the worker file is not built (running from the sources): frequencies were solved one after the other");
+    if (run.outDir !== undefined) {
+      const folder = await prepareOutputFolder(resolve(io.cwd, run.outDir), names);
+      const hasBare = result.points[0].cases.some((c) => c.name === "bare" && c.available);
+      const subtitle = `${result.figure.label} against frequency; ${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${r0band(result)}`;
+      const r = result;
+      const files: OutputFile[] = [
+        { name: SWEEP_CSV, produce: (write) => write(sweepCsvText(r.points, { hasBare, beam: context.illumination.kind === "beam" })) },
+        { name: SWEEP_SVG, produce: (write) => write(sweepSvg(r.frequenciesHz, sweepSeries(r), r.figure, r.band, run.designName, subtitle)) },
+      ];
+      outputs = await writeOutputSet(folder, files, { signal: controller.signal });
+    }
+  } catch (err) {
+    if ((err as Error).name === "AbortError") { io.stderr("interrupted; no output was written\n"); return EXIT_INTERRUPTED; }
+    throw err;
+  } finally {
+    process.off("SIGINT", onSigint);
+    process.off("SIGTERM", onSigint);
+  }
+  for (const note of result.notes) io.stderr(`note: ${note}\n`);
+  const sweep = { ...sweepJson(result, run.threshold), workers: pool.workers, threads };
+  const ladder = context.resolution !== undefined ? `one grid at ${context.resolution} points per wavelength` : `grid ladder per frequency, accuracy ${Number(((context.accuracy ?? 0.02) * 100).toPrecision(3))} %`;
+  if (run.json) {
+    io.stdout(`${JSON.stringify({
+      design: run.designName, method: "fdfd", polarization: context.polarization, scheme: run.scheme, frequencyHz: run.designFrequencyHz,
+      illumination: context.illumination.kind === "plane"
+        ? { kind: "plane", angleDeg: (context.illumination.angleRad * 180) / Math.PI }
+        : { kind: "beam", angleDeg: (context.illumination.angleRad * 180) / Math.PI, waistM: context.illumination.waistM, focusM: context.illumination.focusM },
+      accuracy: context.resolution !== undefined ? null : context.accuracy ?? 0.02,
+      resolution: context.resolution ?? null,
+      sweep, notes: result.notes, outputs,
+    })}\n`);
+  } else {
+    const header = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}; FDFD, ${ladder}; ${pool.workers} frequenc${pool.workers === 1 ? "y" : "ies"} at a time`;
+    io.stdout(sweepTable(run.designName, header, result, run.threshold) + (outputs.length ? `outputs:\n${outputs.map((p) => `  ${p}`).join("\n")}\n` : ""));
+  }
+  return sweep.converged ? EXIT_OK : EXIT_NOT_BUILDABLE;
+}

@@ -1,0 +1,98 @@
+/**
+ * One frequency of the sweep: the cases of the full-wave check rebuilt at f and solved on their own
+ * ladder (verifyDevice.ts). Ideal and reduced maps are frequency-independent tensors, but the device's
+ * electrical size changes, so they are solved again at every f, and so is the bare object (each
+ * ratio is to the bare object at the same frequency). The realized map takes each recipe's values
+ * at f (recipeAtFrequency.ts: dispersive materials, wire media, split rings). Pure: the shell runs
+ * these on worker threads, one frequency per task, from a SweepContext that is plain data (it
+ * crosses the thread boundary by structured clone).
+ *
+ * Cost: one verifyDevice per frequency (every case on every rung); memory: that of its finest rung.
+ */
+import type { DeviceGrid } from "../../field/deviceGrid.js";
+import type { TransformSpec } from "../../field/transformSpec.js";
+import type { Material } from "../../media/material.js";
+import type { Plan } from "../../plan/planTypes.js";
+import type { ReducedField } from "../../reduce/reducedField.js";
+import { deviceCases } from "../deviceCases.js";
+import type { Illumination } from "../illumination.js";
+import type { ScenePolarization } from "../scene.js";
+import { verifyDevice, type CaseName } from "../verifyDevice.js";
+import { planAtFrequency } from "./recipeAtFrequency.js";
+
+/** Cases a sweep solves, in this order (others, such as realized-geometry, stay at the design frequency). */
+export const SWEEP_CASES: readonly CaseName[] = ["bare", "ideal", "reduced", "realized"];
+
+/** Everything a sweep point needs: plain data (no functions), so it can be sent to a worker. */
+export interface SweepContext {
+  transform: TransformSpec;
+  fieldBackground: { eps: number; mu: number };
+  background: { eps: number; mu: number };
+  polarization: ScenePolarization;
+  grid: DeviceGrid;
+  ideal: ReducedField;
+  reduced: ReducedField;
+  /** the plan of the realization at the design frequency, or null */
+  plan: Plan | null;
+  /** the material catalog the plan was made with (to re-evaluate recipes); empty without a plan */
+  catalog: Material[];
+  illumination: Illumination;
+  resolution?: number;
+  accuracy?: number;
+  marginM?: number;
+  /** memory one solve may use (the worker's share), bytes */
+  solverBytes?: number;
+  /** a carpet design checked in free space (verify --scene free); otherwise it stands on its ground plane */
+  freeSpace?: boolean;
+}
+
+/** The figures of one case at one frequency (null where they do not apply). */
+export interface SweepCaseFigures {
+  name: CaseName;
+  available: boolean;
+  reason: string | null;
+  scatteringWidthM: number | null;
+  absorptionWidthM: number | null;
+  vsBare: number | null;
+  deliveredPower: number | null;
+  deviationDeg: number | null;
+  /** relative uncertainty of the headline figure (null on a single grid) */
+  uncertainty: number | null;
+  converged: boolean | null;
+}
+
+export interface SweepPoint {
+  frequencyHz: number;
+  cases: SweepCaseFigures[];
+  resolutions: number[];
+  grid: { nx: number; ny: number; stepM: number };
+  notes: string[];
+}
+
+/** Solve the sweep's cases at one frequency (see file comment). Throws what verifyDevice throws. */
+export function solveSweepPoint(ctx: SweepContext, frequencyHz: number, onProgress?: (step: string, fraction: number) => void): SweepPoint {
+  const plan = ctx.plan ? planAtFrequency(ctx.plan, ctx.catalog, frequencyHz) : null;
+  const built = deviceCases({
+    transform: ctx.transform, fieldBackground: ctx.fieldBackground, background: ctx.background, polarization: ctx.polarization,
+    grid: ctx.grid, ideal: ctx.ideal, reduced: ctx.reduced, plan, freeSpace: ctx.freeSpace,
+  });
+  const cases = built.cases.filter((c) => SWEEP_CASES.includes(c.name));
+  const r = verifyDevice({
+    polarization: ctx.polarization, background: ctx.background, frequencyHz, deviceBox: built.deviceBox, cases,
+    illumination: ctx.illumination, resolution: ctx.resolution, accuracy: ctx.accuracy, marginM: ctx.marginM, solverBytes: ctx.solverBytes,
+    groundYM: built.ground?.groundYM,
+    onProgress,
+  });
+  const fin = (v: number | null): number | null => (v !== null && Number.isFinite(v) ? v : null);
+  return {
+    frequencyHz,
+    cases: r.cases.map((c) => ({
+      name: c.name, available: c.available, reason: c.reason,
+      scatteringWidthM: fin(c.scatteringWidthM), absorptionWidthM: fin(c.absorptionWidthM), vsBare: fin(c.vsBare),
+      deliveredPower: fin(c.deliveredPower), deviationDeg: fin(c.deviationDeg), uncertainty: fin(c.uncertainty), converged: c.converged,
+    })),
+    resolutions: r.resolutions,
+    grid: { nx: r.grid.nx, ny: r.grid.ny, stepM: r.grid.h },
+    notes: [...built.notes, ...r.notes],
+  };
+}

@@ -1,0 +1,41 @@
+/**
+ * `verify --sweep` from the compiled command line (dist/cli/main.js, built by `npm test`'s pretest
+ * step): the frequencies run on worker threads (dist/cli/sweepWorker.js) and give exactly the
+ * figures of the same sweep solved in this thread from the sources.
+ */
+import { describe, expect, it } from "vitest";
+import { spawnSync } from "node:child_process";
+import { existsSync, mkdtempSync, rmSync } from "node:fs";
+import { availableParallelism, tmpdir } from "node:os";
+import { join, resolve } from "node:path";
+import { bufferIo } from "../../src/cli/cliIo.js";
+import { runCli } from "../../src/cli/run.js";
+import { checkOutputSet } from "../../src/io/outputSet.js";
+
+const BIN = resolve("dist/cli/main.js");
+const CLOAK = resolve("demo-designs/field-radial-cloak.json");
+const ARGS = ["verify", CLOAK, "--sweep", "9 GHz..9.8 GHz:2", "--resolution", "8", "--margin", "8 mm", "--json"];
+
+describe("verify --sweep from the built command line", () => {
+  it("runs the frequencies on worker threads and matches the in-thread sweep", async () => {
+    expect(existsSync(BIN), "dist/ is missing: run npm run build").toBe(true);
+    expect(existsSync(resolve("dist/cli/sweepWorker.js")), "the worker is not in dist/").toBe(true);
+    const dir = mkdtempSync(join(tmpdir(), "cw-sweep-built-"));
+    try {
+      const p = spawnSync(process.execPath, [BIN, ...ARGS, "--out", join(dir, "out")], { encoding: "utf8", timeout: 60_000 });
+      expect(p.status, p.stderr).toBe(0);
+      const built = JSON.parse(p.stdout);
+      expect(built.sweep.workers).toBe(Math.min(2, availableParallelism()));
+      expect(built.sweep.threads).toBe(built.sweep.workers > 1 ? built.sweep.workers : 0);
+      expect((await checkOutputSet(join(dir, "out"))).ok).toBe(true);
+      const io = bufferIo(dir);
+      expect(await runCli(ARGS, io), io.err()).toBe(0);
+      const here = JSON.parse(io.out());
+      expect(here.sweep.threads).toBe(0);
+      const strip = (s: Record<string, unknown>) => ({ ...s, threads: undefined, workers: undefined });
+      expect(strip(built.sweep)).toEqual(strip(here.sweep));
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  }, 60_000);
+});
