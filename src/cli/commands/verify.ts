@@ -7,6 +7,7 @@
 import { isVolumeDevice } from "../../field/isVolumeDevice.js";
 import { resolve } from "node:path";
 import { InputError } from "../../core/errors.js";
+import { expectedTimeWarning } from "../../core/timeEstimate.js";
 import { writeFileAtomic } from "../../io/atomicWrite.js";
 import { loadDesign } from "../../io/design/loadDesign.js";
 import { loadFieldForDesign } from "../../io/fieldCsv.js";
@@ -37,7 +38,7 @@ export const VERIFY_SVG = "verify-fields.svg";
 const jn = (v: number | null | undefined): number | null => (v !== null && v !== undefined && Number.isFinite(v) ? v : null);
 
 /** The machine-readable summary printed by --json. */
-export function verifySummary(design: string, scheme: string, r: CheckResult, outputs: string[]): Record<string, unknown> {
+export function verifySummary(design: string, scheme: string, r: CheckResult, outputs: string[], warnings: string[] = []): Record<string, unknown> {
   return {
     design,
     method: r.method,
@@ -80,6 +81,7 @@ export function verifySummary(design: string, scheme: string, r: CheckResult, ou
       stepM: r.homogenizationError.stepM, resolutions: r.homogenizationError.resolutions,
     },
     notes: r.notes,
+    warnings,
     outputs,
   };
 }
@@ -273,6 +275,7 @@ export const command: Command = {
       });
     }
     let last = "";
+    const warnings: string[] = [];
     const gridOption = ["resolution", "margin", "out"].find((o) => stringOption(args, o) !== undefined);
     const result = runCheck({
       method, transform: design.transform, gridOption: gridOption && `--${gridOption}`,
@@ -286,6 +289,10 @@ export const command: Command = {
       accuracy,
       marginM,
       pattern: built.radial,
+      onEstimate: (seconds, what) => {
+        const w = expectedTimeWarning(seconds, what);
+        if (w !== null) { warnings.push(w); io.stderr(`warning: ${w}\n`); }
+      },
       groundYM: ground?.groundYM,
       onProgress: (step, fraction) => {
         const tag = `${step} (${Math.floor(fraction * 10) * 10} % of all solves)`;
@@ -305,7 +312,7 @@ export const command: Command = {
       await writeFileAtomic(path, svg);
       outputs.push(path);
     }
-    if (json) io.stdout(`${JSON.stringify(verifySummary(design.name, s.scheme, result, outputs))}\n`);
+    if (json) io.stdout(`${JSON.stringify(verifySummary(design.name, s.scheme, result, outputs, warnings))}\n`);
     else io.stdout(verifyTable(design.name, s.scheme, result) + (outputs.length ? `outputs:\n${outputs.map((p) => `  ${p}`).join("\n")}\n` : ""));
     return result.cases.some((c) => c.available && c.converged === false) ? 2 : EXIT_OK;
   },
