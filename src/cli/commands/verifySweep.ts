@@ -110,7 +110,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
     if (run.outDir !== undefined) {
       const folder = await prepareOutputFolder(resolve(io.cwd, run.outDir), names);
       const hasBare = result.points[0].cases.some((c) => c.name === "bare" && c.available);
-      const subtitle = `${result.figure.label} against frequency; ${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${r0band(result)}`;
+      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${r0band(result)}`;
       const r = result;
       const files: OutputFile[] = [
         { name: SWEEP_CSV, produce: (write) => write(sweepCsvText(r.points, { hasBare, beam: context.illumination.kind === "beam" })) },
