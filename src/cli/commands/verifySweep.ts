@@ -136,6 +136,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
         : { kind: "beam", angleDeg: (context.illumination.angleRad * 180) / Math.PI, waistM: context.illumination.waistM, focusM: context.illumination.focusM },
       accuracy: context.resolution !== undefined ? null : context.accuracy ?? 0.02,
       resolution: context.resolution ?? null,
+      converged: sweep.converged,
       sweep, notes: result.notes, outputs,
     })}\n`);
   } else {
