@@ -99,12 +99,13 @@ export function assembleSparseOperator(g: FdfdGrid, c: GridCoefficients, stretch
   const cap = 9 * n;
   let rowIdx = new Int32Array(cap), re = new Float64Array(cap), im = new Float64Array(cap);
   const w = new Float64Array(18);
+  const heldScale = 1 / (g.h * g.h);
   let e = 0;
   for (let j = 0; j < g.ny; j++) {
     for (let i = 0; i < g.nx; i++) {
       const id = i + g.nx * j;
       colPtr[id] = e;
-      if (held && held[id]) { rowIdx[e] = id; re[e] = 1; im[e] = 0; e++; continue; }
+      if (held && held[id]) { rowIdx[e] = id; re[e] = heldScale; im[e] = 0; e++; continue; }
       nodeStencil(g, c, stretch, k0, i, j, w);
       for (let dj = -1; dj <= 1; dj++) {
         const nj = j + dj;
@@ -128,6 +129,9 @@ export function assembleSparseOperator(g: FdfdGrid, c: GridCoefficients, stretch
       }
     }
   }
+  // a held row reads heldScale·u = heldScale·f: the same size as the stencil's rows (1/h²), so the
+  // solver's relative pivot test does not mistake it for a zero pivot on fine (optical) grids
+  if (held) for (let id = 0; id < n; id++) if (held[id]) { fRe[id] *= heldScale; fIm[id] *= heldScale; }
   colPtr[n] = e;
   if (e < cap) { rowIdx = rowIdx.slice(0, e); re = re.slice(0, e); im = im.slice(0, e); }
   return { n, colPtr, rowIdx, re, im };

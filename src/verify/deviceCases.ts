@@ -4,16 +4,19 @@
  * continuous map at the solver's own points (continuousScene.ts) — and the realized device from the
  * plan's levels as built (the lattice of cells with each recipe's achieved values and loss). A case
  * that cannot be computed carries the reason instead of a scene; it is never a copy of another case.
+ * A carpet design (carpetGround.ts) stands on its ground plane in every case, and gets two reference
+ * cases first: `flat` (the ground alone) and `bare` (the conducting bump, no cloak).
  */
 import type { DeviceGrid } from "../field/deviceGrid.js";
 import type { TransformSpec } from "../field/transformSpec.js";
 import type { Plan } from "../plan/planTypes.js";
 import type { ReducedField } from "../reduce/reducedField.js";
+import { carpetGround, type CarpetGround } from "./carpetGround.js";
 import { diskConductor, type Conductor } from "./conductor.js";
 import { continuousScene } from "./continuousScene.js";
 import { deviceBounds, deviceScene, type HiddenDisk } from "./deviceScene.js";
 import { largestIndex, mapFromPlan, mapFromReduced } from "./materialMap.js";
-import { SAMPLE_BACKGROUND, type Scene, type ScenePolarization } from "./scene.js";
+import { emptyScene, SAMPLE_BACKGROUND, type Scene, type ScenePolarization } from "./scene.js";
 import type { CaseSpec } from "./verifyDevice.js";
 
 export interface DeviceCasesInput {
@@ -28,6 +31,8 @@ export interface DeviceCasesInput {
   reduced: ReducedField;
   /** the plan of the design's realization; null when the design has none */
   plan: Plan | null;
+  /** true: a carpet design is checked in free space, without its ground plane (default false) */
+  freeSpace?: boolean;
 }
 
 export interface DeviceCases {
@@ -36,6 +41,8 @@ export interface DeviceCases {
   hidden: HiddenDisk | null;
   /** tensors depend on r only in the polar basis (cloaks, concentrators, rotators) */
   radial: boolean;
+  /** carpet designs: the ground plane and the bump every case stands on (carpetGround.ts); null otherwise */
+  ground: CarpetGround | null;
   notes: string[];
 }
 
@@ -57,8 +64,14 @@ export function deviceCases(input: DeviceCasesInput): DeviceCases {
   const { transform, polarization, background, grid, plan } = input;
   const bg = polarization === "Ez" ? { b: background.eps, t: background.mu } : { b: background.mu, t: background.eps };
   const hidden = hiddenObject(transform);
-  const conductors: Conductor[] = hidden ? [diskConductor(hidden.centerM, hidden.radiusM)] : [];
+  const ground = input.freeSpace ? null : carpetGround(transform).ground;
+  const conductors: Conductor[] = hidden ? [diskConductor(hidden.centerM, hidden.radiusM)] : ground ? [ground.bump] : [];
   const box = deviceBounds(grid);
+  if (ground) {
+    const b = ground.bumpBox;
+    box.minX = Math.min(box.minX, b.minX); box.maxX = Math.max(box.maxX, b.maxX);
+    box.minY = Math.min(box.minY, b.minY); box.maxY = Math.max(box.maxY, b.maxY);
+  }
   if (hidden) {
     const [cx, cy] = hidden.centerM, r = hidden.radiusM;
     box.minX = Math.min(box.minX, cx - r); box.maxX = Math.max(box.maxX, cx + r);
@@ -70,6 +83,12 @@ export function deviceCases(input: DeviceCasesInput): DeviceCases {
   if (hidden) {
     const r = hidden.radiusM, [cx, cy] = hidden.centerM;
     cases.push({ name: "bare", scene: bareScene(polarization, background, conductors, { minX: cx - r, maxX: cx + r, minY: cy - r, maxY: cy + r }), indexHint: 0 });
+  }
+  if (ground) {
+    // the flat ground alone (the reference the cloak should reproduce), then the bump alone
+    cases.push({ name: "flat", scene: emptyScene(polarization, background), indexHint: 0 });
+    cases.push({ name: "bare", scene: bareScene(polarization, background, conductors, { ...ground.bumpBox }), indexHint: 0 });
+    notes.push(`ground-plane scene: a perfect conductor below y = ${Number(ground.groundYM.toPrecision(4))} m and under the bottom side (a bump ${Number(ground.heightM.toPrecision(3))} m high); cases flat (ground alone), bare (bump alone), then the cloaks`);
   }
   const sceneOf = (red: ReducedField, map: ReturnType<typeof mapFromReduced>): Scene => {
     if (transform.kind === "imported") return deviceScene(grid, polarization, background, map, hidden);
@@ -85,10 +104,10 @@ export function deviceCases(input: DeviceCasesInput): DeviceCases {
   if (plan) {
     const m = mapFromPlan(plan, bg);
     if (m.missing > 0) notes.push(`realized: ${m.missing} device cells have no recipe and were left as background`);
-    cases.push({ name: "realized", scene: deviceScene(grid, polarization, background, m, hidden), indexHint: largestIndex(m) });
+    cases.push({ name: "realized", scene: deviceScene(grid, polarization, background, m, hidden, ground ? [ground.bump] : []), indexHint: largestIndex(m) });
     cases.push({ name: "realized-geometry", scene: null, reason: "drawing each cell's inclusion at its real size is not available yet; the realized case uses each recipe's effective (homogenized) tensor", indexHint: 0 });
   } else {
     cases.push({ name: "realized", scene: null, reason: "the design has no realization (no \"realization\" key): there is nothing built to check", indexHint: 0 });
   }
-  return { cases, deviceBox: box, hidden, radial: RADIAL_KINDS.includes(transform.kind), notes };
+  return { cases, deviceBox: box, hidden, radial: RADIAL_KINDS.includes(transform.kind), ground, notes };
 }

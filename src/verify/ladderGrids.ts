@@ -61,7 +61,9 @@ export function ladderGrids(input: LadderGridInput): LadderGrids {
   const makeGrid = (res: number): FdfdGrid => {
     const h = Math.min(lambda0 / (nMax * res), (across / MIN_STEPS_ACROSS) * (baseRes / res));
     const pml = Math.min(20, Math.max(10, Math.ceil(lambdaB / (2 * h))));
-    const g = gridForWindow({ minX: box.minX - marginM, maxX: box.maxX + marginM, minY: box.minY - marginM, maxY: box.maxY + marginM }, h, pml);
+    // above a ground plane the window stops two steps below it (everything lower is conductor)
+    const minY = input.groundYM !== undefined ? Math.max(box.minY - marginM, input.groundYM - 2 * h) : box.minY - marginM;
+    const g = gridForWindow({ minX: box.minX - marginM, maxX: box.maxX + marginM, minY, maxY: box.maxY + marginM }, h, pml);
     if (input.groundYM !== undefined) {
       // the ground plane on a row of nodes (Ez) or of faces (Hz): the flat ground's reflection is then grid-exact
       const shift = polarization === "Ez" ? 0 : 0.5;

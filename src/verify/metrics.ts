@@ -114,7 +114,7 @@ export function relativeDifference(aRe: Float64Array, aIm: Float64Array, bRe: Fl
  * grid's own wavenumber K(φ) for k in the phase. Bistatic scattering width σ(φ) = (4/k)|T(φ)|²;
  * (1/2π)∫σ dφ is the scattering width, and σ_ext = −(4/k) Re T(φ_inc) (optical theorem).
  */
-export function farField(sol: SceneSolution, box: NodeBox, anglesRad: Float64Array, gridWavenumber: (angleRad: number) => number): { re: Float64Array; im: Float64Array } {
+export function farField(sol: SceneSolution, box: NodeBox, anglesRad: Float64Array, gridWavenumber: (angleRad: number) => number, withBottom = true): { re: Float64Array; im: Float64Array } {
   const g = sol.grid, h = g.h;
   const u = sol.scatteredRe, v = sol.scatteredIm;
   // faces: midpoint, outward normal, (u, du/dn)
@@ -132,7 +132,7 @@ export function farField(sol: SceneSolution, box: NodeBox, anglesRad: Float64Arr
   }
   for (let i = i0; i <= i1; i++) {
     const x = g.x0 + i * h;
-    add(i + g.nx * j0, i + g.nx * (j0 - 1), x, g.y0 + (j0 - 0.5) * h, 0, -1);
+    if (withBottom) add(i + g.nx * j0, i + g.nx * (j0 - 1), x, g.y0 + (j0 - 0.5) * h, 0, -1);
     add(i + g.nx * j1, i + g.nx * (j1 + 1), x, g.y0 + (j1 + 0.5) * h, 0, 1);
   }
   const m = anglesRad.length;
@@ -154,4 +154,53 @@ export function farField(sol: SceneSolution, box: NodeBox, anglesRad: Float64Arr
     re[a] = -0.25 * h * sIm; im[a] = 0.25 * h * sRe;
   }
   return { re, im };
+}
+
+/**
+ * Far-field amplitude of the scattered field above a perfectly conducting ground plane y = y_g
+ * (the box's bottom row lies on the plane: Ez, the node row on it, where u_s = 0; Hz, the first
+ * open row above the plane of faces). Image theory unfolds the field into the lower half-plane as
+ * u_s(x, 2y_g − y) = s·u_s(x, y), s = −1 for Ez and +1 for Hz (Balanis, "Advanced Engineering
+ * Electromagnetics", 2nd ed., 2012, §7.4); the unfolded contour is the box's left, top and right
+ * sides and their mirror images, which join on the plane, so no face on the plane is needed. The
+ * mirror half's contribution at φ is s·e^{−2iK sinφ·y_g} times the open contour's at −φ, hence
+ *   T(φ) = C(φ) + s·e^{−2iK(φ) sinφ y_g}·C(−φ),
+ * C the sum of farField over the three sides. Valid for 0 < φ < π.
+ */
+export function groundFarField(sol: SceneSolution, box: NodeBox, groundYM: number, sign: 1 | -1, anglesRad: Float64Array, gridWavenumber: (angleRad: number) => number): { re: Float64Array; im: Float64Array } {
+  const m = anglesRad.length;
+  const mirrored = new Float64Array(m);
+  for (let a = 0; a < m; a++) mirrored[a] = -anglesRad[a];
+  const up = farField(sol, box, anglesRad, gridWavenumber, false);
+  const down = farField(sol, box, mirrored, gridWavenumber, false);
+  const re = new Float64Array(m), im = new Float64Array(m);
+  for (let a = 0; a < m; a++) {
+    const ph = -2 * gridWavenumber(anglesRad[a]) * Math.sin(anglesRad[a]) * groundYM;
+    const c = Math.cos(ph), s = Math.sin(ph);
+    re[a] = up.re[a] + sign * (down.re[a] * c - down.im[a] * s);
+    im[a] = up.im[a] + sign * (down.re[a] * s + down.im[a] * c);
+  }
+  return { re, im };
+}
+
+/**
+ * The box for figures above a ground plane: left, right and top as fluxBox (gap nodes inside the
+ * PML), the bottom row on the plane (Ez: the first held row; Hz: the first open row). null when a
+ * side above the plane touches a scatterer node or the ground is not inside the window.
+ */
+export function groundFluxBox(sol: SceneSolution, groundYM: number, gap = 2): NodeBox | null {
+  const g = sol.grid;
+  const ez = sol.scene.polarization === "Ez";
+  const jg = ez ? Math.round((groundYM - g.y0) / g.h) : Math.round((groundYM - g.y0) / g.h + 0.5);
+  const box = { i0: g.pml + gap, i1: g.nx - 1 - g.pml - gap, j0: jg, j1: g.ny - 1 - g.pml - gap };
+  if (box.i0 > box.i1 || box.j0 + 2 > box.j1 || box.j0 < 1) return null;
+  const dev = sol.coefficients.deviceNode;
+  // above the two rows next to the plane (which its cut cells mark), no side may touch the scene
+  for (let j = box.j0 + 2; j <= box.j1 + 1; j++) {
+    for (let i = box.i0 - 1; i <= box.i1 + 1; i++) {
+      const edge = i <= box.i0 || i >= box.i1 || j >= box.j1;
+      if (edge && dev[i + g.nx * j]) return null;
+    }
+  }
+  return box;
 }

@@ -109,6 +109,6 @@ function mergeRuns(input: CheckInput, radial: RadialCaseResult[], grid: VerifyRe
     grid: grid?.grid ?? null, resolutions: grid?.resolutions ?? [], accuracy,
     densestIndex: grid?.densestIndex ?? nb, backgroundIndex: nb, marginM: grid?.marginM ?? 0,
     illumination: input.illumination ?? { kind: "plane", angleRad: 0 },
-    cases, deviceMask: grid?.deviceMask ?? new Uint8Array(0), notes,
+    cases, deviceMask: grid?.deviceMask ?? new Uint8Array(0), groundYM: null, notes,
   };
 }

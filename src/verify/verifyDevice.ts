@@ -21,7 +21,7 @@ import { DEFAULT_SOLVER_BYTES, formatBytes, solveCost } from "./assemble.js";
 import { inPml, type FdfdGrid } from "./fdfdGrid.js";
 import { DEFAULT_ACCURACY, ladderGrids, MAX_AUTO_UNKNOWNS, MAX_RESOLUTION, MAX_RUNGS } from "./ladderGrids.js";
 import { gridWavenumberAt, type Illumination } from "./illumination.js";
-import { crossSections, farField, fluxBox, relativeDifference, type NodeBox } from "./metrics.js";
+import { crossSections, farField, fluxBox, groundFarField, groundFluxBox, relativeDifference, type NodeBox } from "./metrics.js";
 import { richardson } from "./richardson.js";
 import type { Scene, ScenePolarization } from "./scene.js";
 import { solveScene, type SceneSolution } from "./solve.js";
@@ -32,8 +32,11 @@ export const MIN_RESOLUTION = 6;
 export const SMALLEST_DEVICE_WAVELENGTHS = 0.01;
 /** Angular samples of far-field patterns (one per degree). */
 export const PATTERN_ANGLES = 360;
+/** Reflected patterns above a ground plane: directions 0 … 180° in steps of 1/GROUND_STEPS_PER_DEGREE. */
+export const GROUND_STEPS_PER_DEGREE = 4;
+const groundAngles = new Float64Array(180 * GROUND_STEPS_PER_DEGREE).map((_, a) => ((a + 0.5) * Math.PI) / (180 * GROUND_STEPS_PER_DEGREE));
 
-export type CaseName = "bare" | "ideal" | "reduced" | "realized" | "realized-geometry";
+export type CaseName = "flat" | "bare" | "ideal" | "reduced" | "realized" | "realized-geometry";
 
 export interface CaseSpec {
   name: CaseName;
@@ -91,13 +94,13 @@ export interface CaseResult {
   vsBare: number | null;
   /** absorption width on the finest grid, metres (≈ 0 for lossless maps) */
   absorptionWidthM: number | null;
-  /** optical theorem on the finest grid: (σ_ext from the forward far field − σ_s − σ_abs)/σ_s */
+  /** optical theorem on the finest grid: (σ_ext from the forward far field − σ_s − σ_abs)/σ_s; above a ground plane (beams), (P_reflected + P_absorbed − P_incident)/P_incident */
   powerBalance: number | null;
   /** ‖u − u_ideal‖/‖u_ideal‖ outside the device box, finest grid (null for ideal and bare) */
   fieldErrorVsIdeal: number | null;
-  /** beams: fraction of the outgoing power within the ideal device's output lobe */
+  /** beams: fraction of the outgoing power within the ideal device's output lobe; above a ground plane, the share of the incident beam's power reflected within the flat ground's specular lobe */
   deliveredPower: number | null;
-  /** beams: output direction minus the ideal device's, degrees */
+  /** beams: output direction minus the ideal device's, degrees; above a ground plane, the reflected beam's direction minus the specular one */
   deviationDeg: number | null;
   /** bistatic scattering width σ(φ), metres, φ = 0 … 359° from +x (when requested) */
   bistaticM: Float64Array | null;
@@ -120,6 +123,8 @@ export interface VerifyResult {
   illumination: Illumination;
   cases: CaseResult[];
   deviceMask: Uint8Array;
+  /** the ground plane's line when the scene stands on one (carpets), else null */
+  groundYM: number | null;
   notes: string[];
 }
 
@@ -141,9 +146,11 @@ interface RunFigures {
   ext: number | null;
   /** bistatic width σ(φ) per degree */
   pattern: Float64Array | null;
-  /** beams: outgoing power pattern |T_tot(φ)|² and its peak direction */
+  /** beams: outgoing power pattern |T_tot(φ)|² and its peak direction (ground scenes: reflected, over groundAngles) */
   beamPower: Float64Array | null;
   peakDeg: number | null;
+  /** ground scenes: Σ|T|² of the flat ground's reflection over groundAngles (the incident beam's power) */
+  imagePower: number | null;
 }
 
 /** Run the check (see file comment). Throws InputError for bad options, a device too small, or a grid too large. */
@@ -203,11 +210,16 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
       const frac0 = done / total;
       const sol = solveScene(c.scene!, r.g, k0, { illumination: ill, groundYM: input.groundYM, onProgress: (f) => input.onProgress?.(`${c.name} at ${r.resolution} points per wavelength`, frac0 + f / total) });
       done++;
-      boxN ??= fluxBox(sol);
+      boxN ??= input.groundYM === undefined ? fluxBox(sol) : groundFluxBox(sol, input.groundYM);
       if (!boxN) throw new InputError({ where: "--margin", message: "no room between the device and the PML for the power contour; give a larger margin" });
       const cs = crossSections(sol, boxN);
-      let pattern: Float64Array | null = null, ext: number | null = null, beamPower: Float64Array | null = null, peakDeg: number | null = null;
-      if (input.groundYM === undefined) {
+      let pattern: Float64Array | null = null, ext: number | null = null, beamPower: Float64Array | null = null, peakDeg: number | null = null, imagePower: number | null = null;
+      if (input.groundYM !== undefined && ill.kind === "beam") {
+        const gk = (phi: number): number => gridWavenumberAt(kb, r.g.h, phi);
+        const ff = groundFarField(sol, boxN, input.groundYM, polarization === "Ez" ? -1 : 1, groundAngles, gk);
+        const lobe = reflectedLobe(sol, ff, groundAngles, gk, input.groundYM);
+        peakDeg = lobe.peakDeg; beamPower = lobe.totalPower; imagePower = lobe.imagePower;
+      } else if (input.groundYM === undefined) {
         const gk = (phi: number): number => gridWavenumberAt(kb, r.g.h, phi);
         const ff = farField(sol, boxN, angles, gk);
         pattern = new Float64Array(PATTERN_ANGLES);
@@ -221,7 +233,7 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
           peakDeg = lobe.peakDeg; beamPower = lobe.totalPower;
         }
       }
-      row.push({ sol, sigma: cs.scatteringM, abs: cs.absorptionM, ext, pattern, beamPower, peakDeg });
+      row.push({ sol, sigma: cs.scatteringM, abs: cs.absorptionM, ext, pattern, beamPower, peakDeg, imagePower });
     }
     per.push(row);
   };
@@ -247,7 +259,7 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   if (input.resolution !== undefined) notes.push("single grid (--resolution): no convergence ladder, figures carry no uncertainty");
   return {
     method: "fdfd", polarization, frequencyHz, grid: rungs[rungs.length - 1].g, resolutions: rungs.map((r) => r.resolution), accuracy,
-    densestIndex: nMax, backgroundIndex: nb, marginM, illumination: ill, cases: results, deviceMask, notes,
+    densestIndex: nMax, backgroundIndex: nb, marginM, illumination: ill, cases: results, deviceMask, groundYM: input.groundYM ?? null, notes,
   };
 }
 
@@ -302,6 +314,65 @@ function beamLobe(sol: SceneSolution, ff: { re: Float64Array; im: Float64Array }
   return { peakDeg, totalPower: tot };
 }
 
+/**
+ * Reflected beam above a ground plane: T_refl(φ) = T_img(φ) + T_s(φ) for 0 < φ < π, where the flat
+ * ground's reflection is the image beam (illumination.ts: components at −θ with weight s·a(θ),
+ * focus mirrored to (x_f, 2y_g − y_f)), so T_img(φ) = π·s·a(−φ)·e^{−iK r̂·r_img} in the normalization
+ * of farField (as beamLobe). Returns |T_refl|² per angle, its peak direction (degrees), and
+ * Σ|T_img|² (the flat ground's reflected power: the incident beam's power, the reference of the
+ * specular fraction).
+ */
+function reflectedLobe(sol: SceneSolution, ff: { re: Float64Array; im: Float64Array }, angles: Float64Array, gk: (phi: number) => number, groundYM: number): { peakDeg: number; totalPower: Float64Array; imagePower: number } {
+  const comp = sol.incidentComponents!;
+  const ill = sol.illumination as Extract<Illumination, { kind: "beam" }>;
+  const sign = sol.scene.polarization === "Ez" ? -1 : 1;
+  const m = comp.angleRad.length, d = (comp.angleRad[m - 1] - comp.angleRad[0]) / (m - 1);
+  const fx = ill.focusM[0], fy = 2 * groundYM - ill.focusM[1];
+  const tot = new Float64Array(angles.length);
+  let best = 0, bestA = 0, image = 0;
+  for (let a = 0; a < angles.length; a++) {
+    const x = (-angles[a] - comp.angleRad[0]) / d;
+    let dens = 0;
+    if (x >= 0 && x <= m - 1) { const q = Math.floor(x), f = x - q; dens = (comp.re[q] * (1 - f) + (q + 1 < m ? comp.re[q + 1] : 0) * f) / d; }
+    const ph = -gk(angles[a]) * (Math.cos(angles[a]) * fx + Math.sin(angles[a]) * fy);
+    const iRe = sign * Math.PI * dens * Math.cos(ph), iIm = sign * Math.PI * dens * Math.sin(ph);
+    image += iRe * iRe + iIm * iIm;
+    const re = iRe + ff.re[a], im = iIm + ff.im[a];
+    tot[a] = re * re + im * im;
+    if (tot[a] > best) { best = tot[a]; bestA = a; }
+  }
+  const L = angles.length;
+  const y0 = tot[Math.max(0, bestA - 1)], y1 = tot[bestA], y2 = tot[Math.min(L - 1, bestA + 1)];
+  const den = y0 - 2 * y1 + y2;
+  const off = den !== 0 ? (0.5 * (y0 - y2)) / den : 0;
+  const step = (angles[1] - angles[0]) * (180 / Math.PI);
+  const peakDeg = (angles[bestA] * 180) / Math.PI + Math.max(-0.5, Math.min(0.5, off)) * step;
+  return { peakDeg, totalPower: tot, imagePower: image };
+}
+
+/**
+ * Power balance above a ground plane (beams): (P_reflected + P_absorbed − P_incident) / P_incident,
+ * with the far-field powers as widths (2/(πk))·Σ|T|²·Δφ — the normalization in which the flux
+ * figures are widths (σ = (1/2π)∫(4/k)|T|²dφ) — and P_absorbed the absorption width from the flux.
+ * Zero up to discretization when the far-field transformation, the image beam and the flux agree.
+ */
+function groundPowerBalance(f: RunFigures, kb: number): number | null {
+  if (!f.beamPower || f.imagePower === null || !(f.imagePower > 0)) return null;
+  const dphi = groundAngles[1] - groundAngles[0];
+  let refl = 0;
+  for (let a = 0; a < f.beamPower.length; a++) refl += f.beamPower[a];
+  const toWidth = (2 / (Math.PI * kb)) * dphi;
+  const inc = f.imagePower * toWidth;
+  return (refl * toWidth + f.abs - inc) / inc;
+}
+
+/** Share of the incident power reflected within ±halfDeg of centreDeg (reflected pattern over `angles`). */
+function specularFraction(tot: Float64Array, angles: Float64Array, imagePower: number, centreDeg: number, halfDeg: number): number {
+  let inside = 0;
+  for (let a = 0; a < tot.length; a++) if (Math.abs((angles[a] * 180) / Math.PI - centreDeg) <= halfDeg) inside += tot[a];
+  return imagePower > 0 ? inside / imagePower : 0;
+}
+
 /** Half-width of the output lobe counted as delivered: 1.5 × the beam's far-field 1/e² half-angle 2/(k w0), at least 3°. */
 function lobeHalfWidthDeg(ill: Illumination, kb: number): number {
   if (ill.kind !== "beam") return 0;
@@ -331,8 +402,10 @@ function buildResults(
   const kb = (2 * Math.PI * input.frequencyHz / C0) * Math.sqrt(input.background.eps * input.background.mu);
   // beams: the intended output direction is where the ideal device sends the beam, per rung
   const half = lobeHalfWidthDeg(ill, kb);
+  const ground = input.groundYM !== undefined;
   const intended: (number | null)[] = per.map((row) => {
     if (ill.kind !== "beam") return null;
+    if (ground) return -(ill.angleRad * 180) / Math.PI; // the flat ground's specular direction
     const ref = idealIdx >= 0 ? row[idealIdx] : null;
     return ref?.peakDeg ?? (ill.angleRad * 180) / Math.PI;
   });
@@ -353,12 +426,14 @@ function buildResults(
       return {
         resolution: rungs[k].resolution, stepM: rungs[k].g.h, scatteringWidthM: r.sigma,
         vsBare: bareIdx >= 0 && row[bareIdx].sigma > 0 ? r.sigma / row[bareIdx].sigma : null,
-        deliveredPower: tot && intended[k] !== null ? deliveredFraction(tot, intended[k]!, half) : null,
+        deliveredPower: tot && intended[k] !== null
+          ? (ground ? specularFraction(tot, groundAngles, r.imagePower ?? 0, intended[k]!, half) : deliveredFraction(tot, intended[k]!, half))
+          : null,
       };
     });
     const sx = richardson(hs, ladder.map((p) => p.scatteringWidthM));
     const vx = bareIdx >= 0 ? richardson(hs, ladder.map((p) => p.vsBare ?? 0)) : null;
-    const dx = ill.kind === "beam" ? richardson(hs, ladder.map((p) => p.deliveredPower ?? 0)) : null;
+    const dx = ill.kind === "beam" && ladder.every((p) => p.deliveredPower !== null) ? richardson(hs, ladder.map((p) => p.deliveredPower ?? 0)) : null;
     // relative uncertainty: σ against max(σ, σ_bare); delivered power is a fraction (absolute)
     let unc: number | null = null;
     if (sx.uncertainty !== null) {
@@ -383,8 +458,8 @@ function buildResults(
       converged: unc === null ? null : unc <= accuracy,
       vsBare: vx ? vx.value : null,
       absorptionWidthM: f.abs,
-      powerBalance: f.ext !== null && f.sigma > 0 ? (f.ext - f.sigma - f.abs) / f.sigma : null,
-      fieldErrorVsIdeal: ideal && spec.name !== "ideal" && spec.name !== "bare" ? relativeDifference(f.sol.totalRe, f.sol.totalIm, ideal.sol.totalRe, ideal.sol.totalIm, obs) : null,
+      powerBalance: ground ? groundPowerBalance(f, kb) : f.ext !== null && f.sigma > 0 ? (f.ext - f.sigma - f.abs) / f.sigma : null,
+      fieldErrorVsIdeal: ideal && spec.name !== "ideal" && spec.name !== "bare" && spec.name !== "flat" ? relativeDifference(f.sol.totalRe, f.sol.totalIm, ideal.sol.totalRe, ideal.sol.totalIm, obs) : null,
       deliveredPower: dx ? Math.min(1, Math.max(0, dx.value)) : null,
       deviationDeg: deviation,
       bistaticM: input.pattern && ill.kind === "plane" ? f.pattern : null,

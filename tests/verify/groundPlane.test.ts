@@ -9,15 +9,17 @@ import { describe, expect, it } from "vitest";
 import { diskConductor } from "../../src/verify/conductor.js";
 import { cylinderSeries, seriesScatteredField } from "../../src/verify/cylinderSeries.js";
 import { gridForWindow } from "../../src/verify/fdfdGrid.js";
+import { gridWavenumberAt } from "../../src/verify/illumination.js";
+import { groundFarField, groundFluxBox } from "../../src/verify/metrics.js";
 import { SAMPLE_BACKGROUND, SAMPLE_PEC, emptyScene, type Scene } from "../../src/verify/scene.js";
 import { solveScene } from "../../src/verify/solve.js";
 
 const k0 = 2 * Math.PI; // λ0 = 1 m
 const A = 0.25;
 
-function boss(): Scene {
+function boss(polarization: "Ez" | "Hz" = "Ez"): Scene {
   const disk = diskConductor([0, 0], A);
-  return { polarization: "Ez", background: { eps: 1, mu: 1 }, bounds: { minX: -A, maxX: A, minY: -A, maxY: A }, conductors: [disk], sample: (x, y) => (disk.signedDistanceM(x, y) < 0 ? SAMPLE_PEC : SAMPLE_BACKGROUND) };
+  return { polarization, background: { eps: 1, mu: 1 }, bounds: { minX: -A, maxX: A, minY: -A, maxY: A }, conductors: [disk], sample: (x, y) => (disk.signedDistanceM(x, y) < 0 ? SAMPLE_PEC : SAMPLE_BACKGROUND) };
 }
 
 /** Series scattered field of the full cylinder for a unit plane wave travelling along angle φ. */
@@ -60,4 +62,35 @@ describe("ground plane (image theory)", () => {
     }
     expect(Math.sqrt(num / den)).toBeLessThan(0.03);
   });
+
+  for (const pol of ["Ez", "Hz"] as const) {
+    it(`${pol}: the far field above the plane (image-unfolded near-to-far transformation) within 3 % of image theory on the main lobes`, () => {
+      // image theory: T_s(φ) = T_cyl(φ − φ_inc) + s·T_cyl(φ − φ_mirror), s = −1 (Ez) or +1 (Hz), with
+      // T_cyl(ψ) = Σ_n a_n e^{inψ} the exact series of the full cylinder (Balanis 2012, §7.4 and §11.5)
+      const g = gridForWindow({ minX: -0.7, maxX: 0.7, minY: -0.3, maxY: 0.7 }, 1 / 40, 14);
+      g.y0 = pol === "Ez" ? -Math.round(-g.y0 / g.h) * g.h : -(Math.round(-g.y0 / g.h - 0.5) + 0.5) * g.h;
+      const phi = -Math.PI / 3;
+      const sol = solveScene(boss(pol), g, k0, { illumination: { kind: "plane", angleRad: phi }, groundYM: 0 });
+      const box = groundFluxBox(sol, 0)!;
+      expect(box).not.toBeNull();
+      const M = 36, angles = new Float64Array(M).map((_, a) => (Math.PI * (a + 0.5)) / M);
+      const sign = pol === "Ez" ? -1 : 1;
+      const ff = groundFarField(sol, box, 0, sign, angles, (p) => gridWavenumberAt(k0, g.h, p));
+      const s = cylinderSeries({ polarization: pol, radiusM: A, k0, background: { eps: 1, mu: 1 }, interior: { kind: "pec" } });
+      const tCyl = (psi: number): [number, number] => {
+        let re = s.aRe[0], im = s.aIm[0];
+        for (let n = 1; n <= s.order; n++) { re += 2 * s.aRe[n] * Math.cos(n * psi); im += 2 * s.aIm[n] * Math.cos(n * psi); }
+        return [re, im];
+      };
+      let peak = 0;
+      const exact = angles.map((a) => { const [r1, i1] = tCyl(a - phi), [r2, i2] = tCyl(a + phi); const v = Math.hypot(r1 + sign * r2, i1 + sign * i2); peak = Math.max(peak, v); return v; });
+      let checked = 0;
+      for (let a = 0; a < M; a++) {
+        if (exact[a] < 0.3 * peak) continue;
+        checked++;
+        expect(Math.abs(Math.hypot(ff.re[a], ff.im[a]) / exact[a] - 1), `φ = ${(angles[a] * 180 / Math.PI).toFixed(1)}°`).toBeLessThan(0.03);
+      }
+      expect(checked).toBeGreaterThan(5);
+    });
+  }
 });

@@ -17,6 +17,8 @@ import { planFromField } from "../../plan/runPlan.js";
 import { resolveSettings } from "../../plan/resolveSettings.js";
 import { reduceField } from "../../reduce/reduceField.js";
 import { deviceCases } from "../../verify/deviceCases.js";
+import { carpetGround } from "../../verify/carpetGround.js";
+import { SPEED_OF_LIGHT_M_PER_S } from "../../core/physicalConstants.js";
 import { fieldSvg } from "../../verify/fieldSvg.js";
 import { formatFrequency, formatLength } from "../../verify/formatQuantity.js";
 import type { Illumination } from "../../verify/illumination.js";
@@ -51,6 +53,7 @@ export function verifySummary(design: string, scheme: string, r: CheckResult, ou
     densestIndex: r.densestIndex,
     backgroundIndex: r.backgroundIndex,
     marginM: r.marginM,
+    scene: r.groundYM !== null ? { kind: "ground", groundYM: r.groundYM } : { kind: "free" },
     converged: r.cases.every((c) => !c.available || c.converged !== false),
     cases: r.cases.map((c) => ({
       name: c.name,
@@ -82,8 +85,9 @@ export function verifyTable(design: string, scheme: string, r: CheckResult): str
   const unc = (v: number | null): string => (v !== null && v < 1e-4 ? "< 0.01 %" : pct(v));
   const hasBare = r.cases.some((c) => c.name === "bare" && c.available);
   const beam = r.illumination.kind === "beam";
+  const ground = r.groundYM !== null;
   const mixed = r.method === "radial+fdfd";
-  const head = ["case", ...(mixed ? ["solver"] : []), beam ? "σ_s (beam)" : "σ_s", ...(hasBare ? ["σ/σ_bare"] : []), ...(beam ? ["delivered", "deviation"] : []), "±", "field vs ideal", ""];
+  const head = ["case", ...(mixed ? ["solver"] : []), beam ? "σ_s (beam)" : "σ_s", ...(hasBare ? ["σ/σ_bare"] : []), ...(beam ? [ground ? "specular" : "delivered", "deviation"] : []), "±", "field vs ideal", ""];
   const rows = r.cases.map((c) => c.available
     ? [c.name, ...(mixed ? [c.method ?? ""] : []), formatLength(c.scatteringWidthM ?? 0), ...(hasBare ? [f(c.vsBare)] : []), ...(beam ? [pct(c.deliveredPower), c.deviationDeg === null ? "—" : `${c.deviationDeg.toFixed(1)}°`] : []), unc(c.uncertainty), pct(c.fieldErrorVsIdeal), c.converged === false ? "not converged" : ""]
     : [c.name, ...(mixed ? [""] : []), "—", ...(hasBare ? ["—"] : []), ...(beam ? ["—", "—"] : []), "", "", `not computed: ${c.reason}`]);
@@ -101,7 +105,11 @@ export function verifyTable(design: string, scheme: string, r: CheckResult): str
     line(head),
     ...rows.map(line),
     `  σ_s: scattering width (scattered power / incident intensity), ${r.method === "radial" ? "exact per angular order" : r.method === "fdfd" ? "extrapolated to zero grid step" : "exact (radial) or extrapolated to zero grid step (fdfd)"}; ±: its relative uncertainty${hasBare ? " (against the bare object's σ when that is larger)" : ""}`,
-    ...(beam ? ["  delivered: share of the outgoing power inside the ideal device's output lobe; deviation: output direction minus the ideal's"] : []),
+    ...(beam && !ground ? ["  delivered: share of the outgoing power inside the ideal device's output lobe; deviation: output direction minus the ideal's"] : []),
+    ...(ground ? [
+      `  ground plane below y = ${formatLength(r.groundYM!)} (perfect conductor; the bump is part of it in every case but flat)`,
+      "  specular: share of the incident beam's power reflected into the flat ground's specular lobe; deviation: reflected beam's direction minus the specular one",
+    ] : []),
     "  field vs ideal: relative difference of the total field from the ideal device's, outside the device's box",
     ...r.notes.map((n) => `  note: ${n}`),
   ].join("\n") + "\n";
@@ -117,10 +125,21 @@ function parseFraction(text: string, where: string): number {
 
 const beamText0 = (args: ParsedArgs): string | undefined => stringOption(args, "beam");
 
+/** Direction of the default beam above a ground plane: −45° (from the upper left, 45° from the normal). */
+export const DEFAULT_GROUND_ANGLE_RAD = -Math.PI / 4;
+
+/**
+ * Default waist of the beam above a ground plane: its footprint on the ground (half-width w/|sin φ|)
+ * covers at most a quarter of the device's width, between one and three background wavelengths.
+ */
+export function defaultGroundWaist(deviceWidthM: number, angleRad: number, lambdaBackgroundM: number): number {
+  return Math.min(3 * lambdaBackgroundM, Math.max(lambdaBackgroundM, (deviceWidthM * Math.abs(Math.sin(angleRad))) / 4));
+}
+
 export const command: Command = {
   name: "verify",
   summary: "2D full-wave check: bare, ideal, reduced and realized devices, converged figures with uncertainties",
-  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--margin L] [--method auto|fdfd|radial] [--sweep 'START..STOP:COUNT' [--threshold T]] [--json] [--out DIR]",
+  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--scene ground|free] [--margin L] [--method auto|fdfd|radial] [--sweep 'START..STOP:COUNT' [--threshold T]] [--json] [--out DIR]",
   details: [
     "Solves each case with a frequency-domain finite-difference solver (PML on all sides): the bare",
     "hidden object of a cloak (a perfect conductor), the ideal device (scheme full) and the reduced one",
@@ -128,6 +147,10 @@ export const command: Command = {
     "realized device (the plan's levels as built, with their loss) when the design has a realization.",
     "By default a ladder of grids is solved and every figure is extrapolated with an uncertainty;",
     "figures whose uncertainty exceeds --accuracy are marked 'not converged' (exit code 2).",
+    "A carpet design (quasi-conformal, only the bottom side replaced by a bump) stands on a perfectly",
+    "conducting ground plane and is lit by a Gaussian beam from above (default 45° from the normal);",
+    "the cases are then the flat ground, the bump alone, and the cloaks, and the figures are the",
+    "share of the beam reflected into the flat ground's specular lobe and the reflected beam's deviation.",
   ].join("\n"),
   options: [
     { name: "polarization", type: "string", valueName: "Ez|Hz", description: "polarization the device serves (overrides the design)" },
@@ -136,6 +159,7 @@ export const command: Command = {
     { name: "resolution", type: "string", valueName: "N", description: "one grid at N points per wavelength in the densest material (no ladder, no uncertainty)" },
     { name: "angle", type: "string", valueName: "DEG", description: "direction of the incident wave, degrees from +x (default 0)" },
     { name: "beam", type: "string", valueName: "W[, D]", description: "Gaussian beam of waist W, its axis offset by D across the beam from the device centre" },
+    { name: "scene", type: "string", valueName: "ground|free", description: "carpet designs: on their ground plane, lit by a beam from above (ground, default) or in free space (free)" },
     { name: "margin", type: "string", valueName: "L", description: "free space around the device, e.g. '20 mm' (default half a wavelength)" },
     { name: "method", type: "string", valueName: "auto|fdfd|radial", description: "solver: auto (default: radial where the tensors depend on r only, fdfd for the rest), fdfd (finite differences on a grid) or radial (exact, per angular order; cloaks and concentrators, plane waves)" },
     { name: "sweep", type: "string", valueName: "A..B:N", description: "solve every case at N frequencies from A to B on the grid, e.g. '8 GHz..10 GHz:21' (dispersive recipes re-evaluated at each)" },
@@ -170,6 +194,9 @@ export const command: Command = {
     if (!Number.isFinite(angleDeg)) throw new InputError({ where: "--angle", message: `expected an angle in degrees, got '${angleText}'` });
     const marginText = stringOption(args, "margin");
     const marginM = marginText === undefined ? undefined : await parseQuantity(marginText, "length", "--margin");
+    const sceneKind = stringOption(args, "scene");
+    if (sceneKind !== undefined && sceneKind !== "ground" && sceneKind !== "free") throw new InputError({ where: "--scene", message: `expected ground or free, got '${sceneKind}'` });
+    if (method === "radial" && sceneKind === "ground") throw new InputError({ where: "--scene", message: "the radial method has no ground plane; use --method fdfd" });
     const beamText = stringOption(args, "beam");
     let beam: { waistM: number; offsetM: number } | null = null;
     if (beamText !== undefined) {
@@ -196,10 +223,21 @@ export const command: Command = {
     const reduced = reduceField(field, { polarization: s.polarization, scheme: s.scheme, unitAxis: s.unitAxis, backgroundIndex });
     const n = reduced.settings.backgroundIndex, z = reduced.settings.backgroundImpedance;
     const background = { eps: n / z, mu: n * z };
-    const built = deviceCases({ transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid, ideal, reduced, plan });
-    const angleRad = (angleDeg * Math.PI) / 180;
+    const built = deviceCases({ transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid, ideal, reduced, plan, freeSpace: sceneKind === "free" });
+    if (sceneKind === "ground" && !built.ground) throw new InputError({ where: "--scene", message: `the ground-plane scene needs a carpet design: ${carpetGround(design.transform).reason}` });
+    let angleRad = (angleDeg * Math.PI) / 180;
     let illumination: Illumination = { kind: "plane", angleRad };
-    if (beam) {
+    const ground = built.ground;
+    if (ground) {
+      // a carpet on its ground plane is lit by a beam from above (default 45° from the normal, from the upper left)
+      if (angleText === undefined) angleRad = DEFAULT_GROUND_ANGLE_RAD;
+      if (!(Math.sin(angleRad) < -0.05)) throw new InputError({ where: "--angle", message: `above a ground plane the beam must travel downwards: expected an angle between −177° and −3° (e.g. −45°, from the upper left), got ${angleText}` });
+      const b = ground.bumpBox, cx = ground.centreXM;
+      const lambdaB = SPEED_OF_LIGHT_M_PER_S / (design.frequencyHz * n);
+      const waistM = beam?.waistM ?? defaultGroundWaist(b.maxX - b.minX, angleRad, lambdaB);
+      const offsetM = beam?.offsetM ?? 0;
+      illumination = { kind: "beam", angleRad, waistM, focusM: [cx - offsetM * Math.sin(angleRad), ground.groundYM + offsetM * Math.cos(angleRad)] };
+    } else if (beam) {
       const b = built.deviceBox, cx = (b.minX + b.maxX) / 2, cy = (b.minY + b.maxY) / 2;
       // focus on the device centre's line, shifted across the beam by the offset
       illumination = { kind: "beam", angleRad, waistM: beam.waistM, focusM: [cx - beam.offsetM * Math.sin(angleRad), cy + beam.offsetM * Math.cos(angleRad)] };
@@ -209,7 +247,7 @@ export const command: Command = {
         designName: design.name, designFrequencyHz: design.frequencyHz, scheme: s.scheme, range: sweep, threshold, json, outDir: stringOption(args, "out"), notes: built.notes,
         context: {
           transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid,
-          ideal, reduced, plan, catalog: plan ? await loadMaterialCatalog() : [], illumination, resolution, accuracy, marginM,
+          ideal, reduced, plan, catalog: plan ? await loadMaterialCatalog() : [], illumination, resolution, accuracy, marginM, freeSpace: sceneKind === "free",
         },
       });
     }
@@ -227,6 +265,7 @@ export const command: Command = {
       accuracy,
       marginM,
       pattern: built.radial,
+      groundYM: ground?.groundYM,
       onProgress: (step, fraction) => {
         const tag = `${step} (${Math.floor(fraction * 10) * 10} % of all solves)`;
         if (tag !== last) { last = tag; progress(step === "metrics" ? "metrics" : `solve ${tag}`); }

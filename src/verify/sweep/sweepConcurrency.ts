@@ -35,13 +35,13 @@ export function workerBaselineBytes(cells: number): number {
 /** Peak memory of one frequency's check: its wanted rungs, and with the rungs the ladder may add. */
 export function sweepPeakBytes(ctx: SweepContext, frequencyHz: number): { wantedBytes: number; withAddedBytes: number; nodes: number } {
   const plan = ctx.plan ? planAtFrequency(ctx.plan, ctx.catalog, frequencyHz) : null;
-  const built = deviceCases({ transform: ctx.transform, fieldBackground: ctx.fieldBackground, background: ctx.background, polarization: ctx.polarization, grid: ctx.grid, ideal: ctx.ideal, reduced: ctx.reduced, plan });
+  const built = deviceCases({ transform: ctx.transform, fieldBackground: ctx.fieldBackground, background: ctx.background, polarization: ctx.polarization, grid: ctx.grid, ideal: ctx.ideal, reduced: ctx.reduced, plan, freeSpace: ctx.freeSpace });
   const cases = built.cases.filter((c) => SWEEP_CASES.includes(c.name) && c.scene);
   const nb = Math.sqrt(ctx.background.eps * ctx.background.mu);
   const lambdaB = C0 / frequencyHz / nb;
   const l = ladderGrids({
     polarization: ctx.polarization, background: ctx.background, frequencyHz, deviceBox: built.deviceBox, caseIndexHints: cases.map((c) => c.indexHint),
-    resolution: ctx.resolution, accuracy: ctx.accuracy ?? DEFAULT_ACCURACY, marginM: ctx.marginM ?? lambdaB / 2,
+    resolution: ctx.resolution, accuracy: ctx.accuracy ?? DEFAULT_ACCURACY, marginM: ctx.marginM ?? lambdaB / 2, groundYM: built.ground?.groundYM,
   });
   const finest = l.makeGrid(l.wanted[l.wanted.length - 1]);
   return { wantedBytes: ladderPeakBytes(l, false), withAddedBytes: ladderPeakBytes(l, true), nodes: finest.nx * finest.ny };

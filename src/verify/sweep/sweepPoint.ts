@@ -42,6 +42,8 @@ export interface SweepContext {
   marginM?: number;
   /** memory one solve may use (the worker's share), bytes */
   solverBytes?: number;
+  /** a carpet design checked in free space (verify --scene free); otherwise it stands on its ground plane */
+  freeSpace?: boolean;
 }
 
 /** The figures of one case at one frequency (null where they do not apply). */
@@ -72,12 +74,13 @@ export function solveSweepPoint(ctx: SweepContext, frequencyHz: number, onProgre
   const plan = ctx.plan ? planAtFrequency(ctx.plan, ctx.catalog, frequencyHz) : null;
   const built = deviceCases({
     transform: ctx.transform, fieldBackground: ctx.fieldBackground, background: ctx.background, polarization: ctx.polarization,
-    grid: ctx.grid, ideal: ctx.ideal, reduced: ctx.reduced, plan,
+    grid: ctx.grid, ideal: ctx.ideal, reduced: ctx.reduced, plan, freeSpace: ctx.freeSpace,
   });
   const cases = built.cases.filter((c) => SWEEP_CASES.includes(c.name));
   const r = verifyDevice({
     polarization: ctx.polarization, background: ctx.background, frequencyHz, deviceBox: built.deviceBox, cases,
     illumination: ctx.illumination, resolution: ctx.resolution, accuracy: ctx.accuracy, marginM: ctx.marginM, solverBytes: ctx.solverBytes,
+    groundYM: built.ground?.groundYM,
     onProgress,
   });
   const fin = (v: number | null): number | null => (v !== null && Number.isFinite(v) ? v : null);
