@@ -65,6 +65,8 @@ function r0band(r: { band: { lowHz: number | null; highHz: number | null } | nul
 
 export interface SweepRun {
   designName: string;
+  /** the design file (workers load a transform with compiled functions from it again) */
+  designPath: string;
   designFrequencyHz: number;
   scheme: string;
   context: SweepContext;
@@ -100,7 +102,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   let threads = 0;
   try {
     const ran = await runSweepPool({ ...context, solverBytes: pool.solverBytes }, frequencies, {
-      workers: pool.workers, signal: controller.signal, formatHz: formatFrequency,
+      workers: pool.workers, signal: controller.signal, formatHz: formatFrequency, designPath: run.designPath, cwd: io.cwd,
       onDone: (done, total, f) => progress(`sweep: ${done} of ${total} done (${formatFrequency(f)})`),
     });
     threads = ran.threads;
