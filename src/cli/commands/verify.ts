@@ -267,7 +267,7 @@ export const command: Command = {
     }
     if (sweep) {
       return runVerifySweep(io, {
-        designName: design.name, designFrequencyHz: design.frequencyHz, scheme: s.scheme, range: sweep, threshold, json, outDir: stringOption(args, "out"), notes: built.notes,
+        designName: design.name, designPath: design.sourcePath, designFrequencyHz: design.frequencyHz, scheme: s.scheme, range: sweep, threshold, json, outDir: stringOption(args, "out"), notes: built.notes,
         context: {
           transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid,
           ideal, reduced, plan, catalog: plan ? await loadMaterialCatalog() : [], illumination, resolution, accuracy, marginM, freeSpace: sceneKind === "free",
