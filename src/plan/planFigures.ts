@@ -82,24 +82,86 @@ function splitRingFractions(dims: Record<string, number>, a: number): { board: n
   return { board: t / a, metal: (4 * Math.PI * meanM * w * PRINTED_METAL_THICKNESS_M) / (a * a * a) };
 }
 
-export function billOfMaterials(levels: PlanLevel[], cellSize: number, dimension: 2 | 3, isGas: (id: string) => boolean): BillOfMaterialsRow[] {
-  const rows = new Map<string, BillOfMaterialsRow>();
-  const add = (id: string, cells: number, volume: number): void => {
+/** How the bill of materials sizes the order: by the device's height, the materials' classes and the process. */
+export interface BillContext {
+  /** device height along z (2D devices), metres */
+  heightM: number;
+  classOf: (id: string) => string | undefined;
+  process: string | null;
+  /** a declared layer (film) the device is made in */
+  layer: boolean;
+}
+
+const LITHOGRAPHY = new Set(["deep-uv-lithography", "electron-beam-lithography"]);
+const SHEET_PROCESSES = new Set(["laser-cutting", "cnc-milling"]);
+
+/** Area in the unit a buyer reads (m², cm², mm², µm²). */
+function areaQuantity(m2: number): { quantity: number; unit: string } {
+  if (m2 >= 1) return { quantity: m2, unit: "m²" };
+  if (m2 >= 1e-4) return { quantity: m2 * 1e4, unit: "cm²" };
+  if (m2 >= 1e-6) return { quantity: m2 * 1e6, unit: "mm²" };
+  return { quantity: m2 * 1e12, unit: "µm²" };
+}
+
+/** Volume in the unit a buyer reads: litres or millilitres for liquids and resins, cm³ or mm³ otherwise. */
+function volumeQuantity(m3: number, liquid: boolean): { quantity: number; unit: string } {
+  if (liquid && m3 >= 1e-3) return { quantity: m3 * 1e3, unit: "L" };
+  if (liquid && m3 >= 1e-6) return { quantity: m3 * 1e6, unit: "mL" };
+  if (m3 >= 1e-6) return { quantity: m3 * 1e6, unit: "cm³" };
+  return { quantity: m3 * 1e9, unit: "mm³" };
+}
+
+/**
+ * Materials the plan uses (gases left out): cells, volume (m³: 2D cells are a² × the device height,
+ * 3D cells a³) and the quantity a buyer orders — laminates by board area at the board's thickness
+ * (a split ring's board, otherwise the device height); on a lithography process or in a declared
+ * layer, the film's area (the footprint of the cells that use it); on laser cutting or CNC milling
+ * the shaped host by sheet area at the device height; resins and liquids by volume in mL or L;
+ * everything else by volume in cm³ (mm³ when small).
+ */
+export function billOfMaterials(levels: PlanLevel[], cellSize: number, dimension: 2 | 3, isGas: (id: string) => boolean, ctx: BillContext): BillOfMaterialsRow[] {
+  interface Acc { row: BillOfMaterialsRow; areaM2: number; thicknesses: Set<number>; byArea: "board" | "film" | "sheet" | null }
+  const rows = new Map<string, Acc>();
+  const cellFoot = cellSize * cellSize;
+  const cell = dimension === 3 ? cellSize ** 3 : cellFoot * ctx.heightM;
+  const add = (id: string, cells: number, volume: number, asHost: boolean, boardM: number | null): void => {
     if (!id || isGas(id)) return;
-    const r = rows.get(id) ?? { material: id, cells: 0, volume: 0, volumeUnit: dimension === 3 ? "m3" : "m2" };
-    r.cells += cells;
-    r.volume += volume;
-    rows.set(id, r);
+    const cls = ctx.classOf(id);
+    const byArea: Acc["byArea"] = cls === "laminate" ? "board"
+      : (ctx.layer || (ctx.process !== null && LITHOGRAPHY.has(ctx.process))) && asHost ? "film"
+      : ctx.process !== null && SHEET_PROCESSES.has(ctx.process) && asHost && cls !== "metal" ? "sheet"
+      : null;
+    const a = rows.get(id) ?? { row: { material: id, cells: 0, volume: 0, volumeUnit: "m3" as const, order: { quantity: 0, unit: "", what: "" } }, areaM2: 0, thicknesses: new Set<number>(), byArea };
+    a.row.cells += cells;
+    a.row.volume += volume;
+    if (byArea === "board") { const t = boardM ?? ctx.heightM; a.areaM2 += volume / t; a.thicknesses.add(t); }
+    else if (byArea) { a.areaM2 += cells * cellFoot; a.thicknesses.add(ctx.heightM); }
+    rows.set(id, a);
   };
-  const cell = dimension === 3 ? cellSize ** 3 : cellSize ** 2;
   for (const lv of levels) {
     const r = lv.recipe;
     if (!r) continue;
     const ring = splitRingFractions(r.dimensions, cellSize);
     const hostFraction = ring ? ring.board : 1 - r.fillFraction;
     const inclusionFraction = ring ? ring.metal : r.fillFraction;
-    add(r.host, lv.cellCount, hostFraction * cell * lv.cellCount);
-    add(r.inclusion, lv.cellCount, inclusionFraction * cell * lv.cellCount);
+    const board = ring ? r.dimensions.board_thickness_m : null;
+    add(r.host, lv.cellCount, hostFraction * cell * lv.cellCount, true, board);
+    add(r.inclusion, lv.cellCount, inclusionFraction * cell * lv.cellCount, false, null);
   }
-  return [...rows.values()].sort((a, b) => b.volume - a.volume || a.material.localeCompare(b.material));
+  const mm = (m: number): string => (m >= 1e-4 ? `${Number((m * 1e3).toPrecision(4))} mm` : m >= 1e-6 ? `${Number((m * 1e6).toPrecision(4))} µm` : `${Number((m * 1e9).toPrecision(4))} nm`);
+  const out: BillOfMaterialsRow[] = [];
+  for (const a of rows.values()) {
+    const t = [...a.thicknesses].sort((x, y) => x - y).map(mm).join(" / ");
+    if (a.byArea) {
+      const q = areaQuantity(a.areaM2);
+      const what = a.byArea === "board" ? `board area, ${t} thick` : a.byArea === "film" ? `film area (wafer), ${t} thick` : `sheet area, ${t} thick`;
+      a.row.order = { quantity: q.quantity, unit: q.unit, what };
+    } else {
+      const cls = ctx.classOf(a.row.material);
+      const q = volumeQuantity(a.row.volume, cls === "resin" || cls === "liquid");
+      a.row.order = { quantity: q.quantity, unit: q.unit, what: cls === "resin" ? "resin volume" : cls === "liquid" ? "liquid volume" : "material volume" };
+    }
+    out.push(a.row);
+  }
+  return out.sort((a, b) => b.volume - a.volume || a.material.localeCompare(b.material));
 }

@@ -6,6 +6,7 @@ import { countFlags, FLAGS } from "./flags.js";
 import type { EvaluatedMaterial } from "./match/matchContext.js";
 import { VACUUM_ID } from "./match/solidCandidates.js";
 import { billOfMaterials, finiteMedian, worstStraightPath } from "./planFigures.js";
+import { deviceHeight } from "./deviceHeight.js";
 import type { DeviceFigures, PlanLevel, PlanSettings } from "./planTypes.js";
 
 export interface FiguresInput {
@@ -59,6 +60,8 @@ export function planFiguresFor(inp: FiguresInput): DeviceFigures {
     if (Number.isFinite(r.featureM) && (smallest === null || r.featureM < smallest)) smallest = r.featureM;
   }
   const gas = new Set(inp.materials.filter((m) => m.material.class === "gas").map((m) => m.material.id));
+  const classes = new Map(inp.materials.map((m) => [m.material.id, m.material.class as string]));
+  const height = deviceHeight(settings, grid.pitchM, (2 * Math.PI) / inp.k0, levels.some((lv) => lv.recipe?.family === "split-ring"));
   return {
     flagCounts: countFlags(flags),
     flagRegions,
@@ -75,7 +78,8 @@ export function planFiguresFor(inp: FiguresInput): DeviceFigures {
     bandwidthMet: settings.bandwidth === null || minBw === null ? null : minBw >= settings.bandwidth,
     smallestFeatureM: smallest,
     processMinFeatureM: inp.process ? inp.process.minFeatureM : null,
-    billOfMaterials: billOfMaterials(levels, grid.pitchM, grid.dimension, (id) => gas.has(id) || id === VACUUM_ID),
+    billOfMaterials: billOfMaterials(levels, grid.pitchM, grid.dimension, (id) => gas.has(id) || id === VACUUM_ID, { heightM: height.heightM, classOf: (id) => classes.get(id), process: settings.process, layer: !!settings.layer }),
+    height,
     largestAnisotropy: maxAniso,
   };
 }

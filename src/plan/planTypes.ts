@@ -162,9 +162,11 @@ export interface BillOfMaterialsRow {
   material: string;
   /** cells that use this material (as host or inclusion) */
   cells: number;
-  /** volume of the material, m³ (3D) or cross-section area per metre of height, m² (2D) */
+  /** volume of the material, m³ (2D devices: over the device height) */
   volume: number;
-  volumeUnit: "m3" | "m2";
+  volumeUnit: "m3";
+  /** what a buyer orders: board, film or sheet area, or a volume, in a readable unit */
+  order: { quantity: number; unit: string; what: string };
 }
 
 export interface DeviceFigures {
@@ -191,6 +193,8 @@ export interface DeviceFigures {
   smallestFeatureM: number | null;
   processMinFeatureM: number | null;
   billOfMaterials: BillOfMaterialsRow[];
+  /** the device height the bill of materials and the printed part use (plan/deviceHeight.ts) */
+  height: { heightM: number; source: string };
   /** largest in-plane anisotropy ratio of the reduced targets */
   largestAnisotropy: number;
 }
@@ -279,6 +283,10 @@ export interface PlanSummary {
   boundaryReflection: number | null;
   minBandwidth: number | null;
   materials: string[];
+  /** device height along z, metres (realization.height or its default) */
+  heightM: number;
+  /** each material's volume and what a buyer orders (report.md has the same table) */
+  billOfMaterials: { material: string; cells: number; volumeM3: number; order: { quantity: number; unit: string; what: string } }[];
   outputs: string[];
   buildable: boolean;
   verdict: { buildable: boolean; missed: { what: RequirementName; value: number; limit: number }[] };

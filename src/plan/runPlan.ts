@@ -28,7 +28,7 @@ import { isConstant, quantizeTargets } from "./quantize/quantizeTargets.js";
 import { reductionNotes } from "./reductionNotes.js";
 import { resolveSettings, type SettingsSource } from "./resolveSettings.js";
 import { planVerdict } from "./verdict.js";
-import { markUnresolvable } from "./levelSteps.js";
+import { markUnresolvable, mergeUnresolvable } from "./levelSteps.js";
 import { RUNNERS_UP } from "./match/chooseRecipes.js";
 
 export interface PlanCatalogs {
@@ -164,7 +164,7 @@ export function planFromField(
 
   // 3. regions
   onProgress?.("regions", 0);
-  const { region, regions } = findRegions(grid, level);
+  let { region, regions } = findRegions(grid, level);
 
   // 4. matching, per level
   const evaluated = evaluateMaterials(catalogs.materials, settings.materials, f);
@@ -228,11 +228,30 @@ export function planFromField(
     };
   });
   markUnresolvable(levels, ctx.process?.minFeatureM ?? null);
+  // level steps the process cannot make: merged where the tolerance allows (levelSteps.ts)
+  const steps = mergeUnresolvable(levels, level, targets, settings.tolerance, ctx.process?.minFeatureM ?? null);
+  if (steps.removed.length) {
+    const newIndex = new Int32Array(levels.length).fill(-1);
+    for (let l = 0, m = 0; l < levels.length; l++) if (!steps.removed.includes(l)) newIndex[l] = m++;
+    for (let c = 0; c < n; c++) if (level[c] >= 0) level[c] = newIndex[level[c]];
+    for (const l of [...steps.removed].reverse()) { levels.splice(l, 1); perLevel.splice(l, 1); chosen.splice(l, 1); searches.splice(l, 1); }
+    floorlessQuantizationError(targets, level, levels.map((lv) => lv.target), quantizationError);
+    levels.forEach((lv, l) => { lv.index = l + 1; lv.cellCount = 0; lv.maxQuantizationError = 0; });
+    for (let c = 0; c < n; c++) {
+      const lv = levels[level[c]];
+      if (!lv) continue;
+      lv.cellCount++;
+      if (quantizationError[c] > lv.maxQuantizationError) lv.maxQuantizationError = quantizationError[c];
+    }
+    ({ region, regions } = findRegions(grid, level));
+    markUnresolvable(levels, ctx.process?.minFeatureM ?? null);
+  }
 
   // 5. flags and achieved errors
   onProgress?.("flags", 0);
   const { flags, relError, zeroTargetAbsError, warnings } = computeFlags({ reduced, targets, comps, level, levels, searches, perLevel, chosen, settings, materials, capped: FLAG_CAPPED, undefinedFlag: FLAG_UNDEFINED });
   if (nValid < n) warnings.push(noTargetWarning(grid, valid, n - nValid));
+  warnings.push(...steps.notes);
 
   // 6. device-level figures
   onProgress?.("figures", 0);

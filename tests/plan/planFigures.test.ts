@@ -48,18 +48,43 @@ describe("worstStraightPath", () => {
 });
 
 describe("billOfMaterials", () => {
+  it("orders resin by volume in mL and a lithography film by its area", async () => {
+    const { billOfMaterials } = await import("../../src/plan/planFigures.js");
+    const classes: Record<string, string> = { "photopolymer-resin": "resin", "silicon-nir": "semiconductor" };
+    const classOf = (id: string): string | undefined => classes[id];
+    // 1000 cells of 1.2 mm, 4.8 mm high, struts at fill 0.25: 1000 × 1.2² × 4.8 mm³ × 0.25 = 1.728 mL
+    const struts = { family: "strut-lattice", host: "air", inclusion: "photopolymer-resin", fillFraction: 0.25, dimensions: {} } as never;
+    const [resin] = billOfMaterials([{ recipe: struts, cellCount: 1000 } as never], 1.2e-3, 2, (id) => id === "air", { heightM: 4.8e-3, classOf, process: "stereolithography", layer: false });
+    expect(resin.order).toEqual({ quantity: expect.any(Number), unit: "mL", what: "resin volume" });
+    expectClose(resin.order.quantity, 1.728, { rel: 1e-12, label: "resin mL" });
+    // 400 cells of 0.5 µm holes in a 220 nm silicon film: film area 400 × 0.25 µm² = 100 µm²
+    const holes = { family: "holes-in-slab", host: "silicon-nir", inclusion: "air", fillFraction: 0.3, dimensions: {} } as never;
+    const [si] = billOfMaterials([{ recipe: holes, cellCount: 400 } as never], 0.5e-6, 2, (id) => id === "air", { heightM: 220e-9, classOf, process: "electron-beam-lithography", layer: true });
+    expect(si.order.unit).toBe("µm²");
+    expect(si.order.what).toBe("film area (wafer), 220 nm thick");
+    expectClose(si.order.quantity, 100, { rel: 1e-12, label: "film area" });
+    expectClose(si.volume, 0.7 * 400 * 0.25e-12 * 220e-9, { rel: 1e-12, label: "silicon volume" });
+  });
+
   it("counts a printed split-ring cell's board and copper from its dimensions, not the ring's area fraction", async () => {
     const { billOfMaterials, PRINTED_METAL_THICKNESS_M } = await import("../../src/plan/planFigures.js");
     const a = 2.5e-3;
     const dims = { ring_radius_m: 0.7e-3, ring_width_m: 0.1e-3, ring_gap_m: 0.1e-3, board_thickness_m: 0.5e-3, split_gap_m: 0.1e-3 };
     const recipe = { family: "split-ring", host: "ptfe-ceramic-10", inclusion: "copper", lattice: "cubic", orientation: "1", fillFraction: 0.11, dimensions: dims } as never;
-    const rows = billOfMaterials([{ recipe, cellCount: 10 } as never], a, 2, (id) => id === "air");
+    const h = 4e-3;
+    const classes: Record<string, string> = { "ptfe-ceramic-10": "laminate", copper: "metal" };
+    const rows = billOfMaterials([{ recipe, cellCount: 10 } as never], a, 2, (id) => id === "air", { heightM: h, classOf: (id) => classes[id], process: "pcb-etching", layer: false });
     const board = rows.find((r) => r.material === "ptfe-ceramic-10")!;
     const copper = rows.find((r) => r.material === "copper")!;
-    // 2D: cross-section per metre of height; the board is a slab t thick across the cell
-    expectClose(board.volume, 10 * 0.5e-3 * a, { rel: 1e-12, label: "board" });
+    // 2D: over the device height h; the board is a slab t thick across the cell
+    expectClose(board.volume, 10 * 0.5e-3 * a * h, { rel: 1e-12, label: "board" });
+    // ordered as board area at its own thickness: volume / t = 10 cells × a × h = 1 cm²
+    expect(board.order.unit).toBe("cm²");
+    expect(board.order.what).toBe("board area, 0.5 mm thick");
+    expectClose(board.order.quantity, (10 * a * h) * 1e4, { rel: 1e-12, label: "board area" });
     // two strips, mean radii r + w/2 and r + 1.5w + d: length 2π(2r + 2w + d), one ring per a of height
     const perRing = 2 * Math.PI * (2 * 0.7e-3 + 2 * 0.1e-3 + 0.1e-3) * 0.1e-3 * PRINTED_METAL_THICKNESS_M;
-    expectClose(copper.volume, (10 * perRing) / a, { rel: 1e-12, label: "copper" });
+    expectClose(copper.volume, (10 * perRing * h) / a, { rel: 1e-12, label: "copper" });
+    expect(copper.order.unit).toBe("mm³");
   });
 });

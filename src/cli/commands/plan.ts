@@ -21,7 +21,6 @@ import { gdsiiBytes } from "../../io/layout/gdsiiWriter.js";
 import { dxfText } from "../../io/layout/dxfWriter.js";
 import { STL_MAX_BYTES, stlBytesFor, stlChunks } from "../../io/layout/stlWriter.js";
 import { printedPart } from "../../plan/layout/printedPart.js";
-import { deviceHeight } from "../../plan/deviceHeight.js";
 import type { ExtraOutput } from "../../io/planOutputs.js";
 import type { Plan, PlanOverrides } from "../../plan/planTypes.js";
 import { flagOption, stringOption } from "../args.js";
@@ -108,7 +107,7 @@ export function layoutFiles(plan: Plan, io: Pick<CliIo, "stderr">): ExtraOutput[
     else for (const f of flat) out.push({ name: LAYOUT_FILE[f], data: f === "gds" ? gdsiiBytes(layout) : dxfText(layout) });
   }
   if (formats.includes("stl")) {
-    const h = deviceHeight(plan.settings, plan.grid.pitchM, plan.design.wavelengthM);
+    const h = plan.figures.height;
     const part = printedPart(plan, h.heightM, plan.figures.processMinFeatureM);
     for (const n of part.notDrawn) io.stderr(`layout: level ${n.level} not printed: ${n.reason}\n`);
     for (const n of part.notes) io.stderr(`layout: ${n}\n`);

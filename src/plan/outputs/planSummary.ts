@@ -17,6 +17,8 @@ export function planSummary(plan: Plan, outputs: string[]): PlanSummary {
     boundaryReflection: f.boundaryReflection,
     minBandwidth: f.minBandwidth,
     materials,
+    heightM: f.height.heightM,
+    billOfMaterials: f.billOfMaterials.map((b) => ({ material: b.material, cells: b.cells, volumeM3: b.volume, order: { ...b.order } })),
     outputs,
     buildable: plan.buildable,
     verdict: { buildable: plan.verdict.buildable, missed: plan.verdict.missed.map(({ what, value, limit }) => ({ what, value, limit })) },

@@ -115,9 +115,9 @@ export function reportMarkdown(plan: Plan): string {
   L.push("## Bill of materials", "");
   if (f.billOfMaterials.length === 0) L.push("No material is used (no cell has a recipe).");
   else {
-    const unit = f.billOfMaterials[0].volumeUnit === "m2" ? "cross-section (m² per metre of height)" : "volume (m³)";
-    L.push(`| material | cells | ${unit} |`, "|---|---:|---:|");
-    for (const b of f.billOfMaterials) L.push(`| ${b.material} | ${b.cells} | ${fmt(b.volume, 4)} |`);
+    if (plan.grid.dimension === 2) L.push(`Device height ${si(f.height.heightM, "m")}: ${f.height.source}.`, "");
+    L.push("| material | cells | volume | order |", "|---|---:|---:|---|");
+    for (const b of f.billOfMaterials) L.push(`| ${b.material} | ${b.cells} | ${fmt(b.volume * 1e6, 4)} cm³ | ${fmt(b.order.quantity, 3)} ${b.order.unit} (${b.order.what}) |`);
   }
   L.push("");
   if (plan.warnings.length) {

@@ -119,6 +119,7 @@ export function syntheticPlan(settings: Partial<PlanSettings> = {}): Plan {
       smallestFeatureM: 0.0002,
       processMinFeatureM: null,
       billOfMaterials: [],
+      height: { heightM: 1e-3, source: "test" },
       largestAnisotropy: 3,
     },
     buildable: false,
