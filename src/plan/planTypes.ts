@@ -249,6 +249,8 @@ export interface Plan {
   remedies: RemedyResult | null;
   /** warnings for the report and stderr */
   warnings: string[];
+  /** the shell's time estimate when above the warning threshold (core/timeEstimate.ts); summary only */
+  timeWarning?: string;
   /** the declared layer's mode (realization.layer), or null for bulk materials */
   layer?: LayerReport | null;
 }
@@ -303,4 +305,6 @@ export interface PlanSummary {
   polarization: Polarization;
   scheme: SchemeName;
   tolerance: number;
+  /** the time estimate when above 10 s, then the plan's warnings (as on stderr) */
+  warnings: string[];
 }

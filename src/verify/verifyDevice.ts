@@ -17,6 +17,7 @@
  */
 import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
 import { InputError } from "../core/errors.js";
+import { formatDuration, solveSeconds } from "../core/timeEstimate.js";
 import { DEFAULT_SOLVER_BYTES, formatBytes, solveCost } from "./assemble.js";
 import { inPml, type FdfdGrid } from "./fdfdGrid.js";
 import { DEFAULT_ACCURACY, ladderGrids, MAX_AUTO_UNKNOWNS, MAX_RESOLUTION, MAX_RUNGS } from "./ladderGrids.js";
@@ -69,6 +70,8 @@ export interface VerifyInput {
   /** memory one solve may use, bytes (default DEFAULT_SOLVER_BYTES; the sweep gives each worker its share) */
   solverBytes?: number;
   onProgress?: (step: string, fraction: number) => void;
+  /** told once, before the first solve: estimated seconds of the planned solves and what they are */
+  onEstimate?: (seconds: number, what: string) => void;
 }
 
 export interface LadderPoint {
@@ -195,6 +198,25 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
     rungs.push({ resolution: res, g });
   }
   const notes: string[] = [];
+  const live0 = cases.filter((c) => c.scene !== null).length;
+  if (input.onEstimate && live0 > 0) {
+    // the planned rungs, and the finer ones the ladder may add (the same rule as below)
+    const costOf = (g: FdfdGrid): number => { const c = solveCost(g); return live0 * solveSeconds(c.work, c.unknowns); };
+    let planned = 0;
+    for (const r of rungs) planned += costOf(r.g);
+    let atMost = planned, grids = rungs.length, res = rungs[rungs.length - 1].resolution, last = rungs[rungs.length - 1].g;
+    while (input.resolution === undefined && grids < MAX_RUNGS) {
+      res = Math.round(res * Math.SQRT2);
+      if (res > MAX_RESOLUTION) break;
+      const g = makeGrid(res);
+      if (!gridFits(g).ok || g.nx * g.ny > MAX_AUTO_UNKNOWNS) break;
+      atMost += costOf(g); grids++; last = g;
+    }
+    const solves = (n: number): string => `${live0 * n} solve${live0 * n === 1 ? "" : "s"}`;
+    input.onEstimate(atMost, grids > rungs.length
+      ? `up to ${solves(grids)} (${live0} case${live0 === 1 ? "" : "s"} on up to ${grids} grids, the finest ${last.nx} × ${last.ny} nodes; about ${formatDuration(planned)} if the first ${rungs.length} converge)`
+      : `${solves(grids)} (${live0} case${live0 === 1 ? "" : "s"} on ${grids} grid${grids === 1 ? "" : "s"}, the finest ${last.nx} × ${last.ny} nodes)`);
+  }
   const ill = input.illumination ?? { kind: "plane", angleRad: 0 };
   const k0 = (2 * Math.PI * frequencyHz) / C0;
   const kb = k0 * nb;

@@ -5,6 +5,7 @@
  * (nothing written).
  */
 import { InputError } from "../../core/errors.js";
+import { expectedTimeWarning, planSeconds } from "../../core/timeEstimate.js";
 import { loadDesign } from "../../io/design/loadDesign.js";
 import { loadFieldForDesign } from "../../io/fieldCsv.js";
 import { loadMaterialCatalog } from "../../io/materialCatalog.js";
@@ -131,10 +132,13 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
   // a folder that cannot take the outputs is refused before minutes of planning
   await preparePlanOutputs(resolve(io.cwd, outDir));
   const [field, materials, processes] = await Promise.all([loadFieldForDesign(design), loadMaterialCatalog(), loadProcessCatalog()]);
+  const timeWarning = expectedTimeWarning(planSeconds(field.grid.count), `planning ${field.grid.count.toExponential(2)} cells and writing the outputs`);
+  if (timeWarning !== null) io.stderr(`warning: ${timeWarning}\n`);
   let lastStage = "";
   const plan = planFromField(design, field, { materials, processes }, overrides, (stage) => {
     if (!json && stage !== lastStage) { io.stderr(`… ${stage}\n`); lastStage = stage; }
   });
+  if (timeWarning !== null) plan.timeWarning = timeWarning;
   for (const w of plan.warnings) io.stderr(`warning: ${w}\n`);
   if (!plan.verdict.buildable) {
     if (!json) io.stderr("… trying remedies (re-planning)\n");

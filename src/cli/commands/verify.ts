@@ -7,6 +7,7 @@
 import { isVolumeDevice } from "../../field/isVolumeDevice.js";
 import { resolve } from "node:path";
 import { InputError } from "../../core/errors.js";
+import { expectedTimeWarning } from "../../core/timeEstimate.js";
 import { writeFileAtomic } from "../../io/atomicWrite.js";
 import { loadDesign } from "../../io/design/loadDesign.js";
 import { loadFieldForDesign } from "../../io/fieldCsv.js";
@@ -36,7 +37,7 @@ export const VERIFY_SVG = "verify-fields.svg";
 const jn = (v: number | null | undefined): number | null => (v !== null && v !== undefined && Number.isFinite(v) ? v : null);
 
 /** The machine-readable summary printed by --json. */
-export function verifySummary(design: string, scheme: string, r: CheckResult, outputs: string[]): Record<string, unknown> {
+export function verifySummary(design: string, scheme: string, r: CheckResult, outputs: string[], warnings: string[] = []): Record<string, unknown> {
   return {
     design,
     method: r.method,
@@ -74,6 +75,7 @@ export function verifySummary(design: string, scheme: string, r: CheckResult, ou
       ...(c.bistaticM ? { bistaticM: Array.from(c.bistaticM, (v) => jn(v) ?? 0) } : {}),
     })),
     notes: r.notes,
+    warnings,
     outputs,
   };
 }
@@ -244,7 +246,7 @@ export const command: Command = {
     }
     if (sweep) {
       return runVerifySweep(io, {
-        designName: design.name, designFrequencyHz: design.frequencyHz, scheme: s.scheme, range: sweep, threshold, json, outDir: stringOption(args, "out"), notes: built.notes,
+        designName: design.name, designPath: design.sourcePath, designFrequencyHz: design.frequencyHz, scheme: s.scheme, range: sweep, threshold, json, outDir: stringOption(args, "out"), notes: built.notes,
         context: {
           transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid,
           ideal, reduced, plan, catalog: plan ? await loadMaterialCatalog() : [], illumination, resolution, accuracy, marginM, freeSpace: sceneKind === "free",
@@ -252,6 +254,7 @@ export const command: Command = {
       });
     }
     let last = "";
+    const warnings: string[] = [];
     const gridOption = ["resolution", "margin", "out"].find((o) => stringOption(args, o) !== undefined);
     const result = runCheck({
       method, transform: design.transform, gridOption: gridOption && `--${gridOption}`,
@@ -265,6 +268,10 @@ export const command: Command = {
       accuracy,
       marginM,
       pattern: built.radial,
+      onEstimate: (seconds, what) => {
+        const w = expectedTimeWarning(seconds, what);
+        if (w !== null) { warnings.push(w); io.stderr(`warning: ${w}\n`); }
+      },
       groundYM: ground?.groundYM,
       onProgress: (step, fraction) => {
         const tag = `${step} (${Math.floor(fraction * 10) * 10} % of all solves)`;
@@ -284,7 +291,7 @@ export const command: Command = {
       await writeFileAtomic(path, svg);
       outputs.push(path);
     }
-    if (json) io.stdout(`${JSON.stringify(verifySummary(design.name, s.scheme, result, outputs))}\n`);
+    if (json) io.stdout(`${JSON.stringify(verifySummary(design.name, s.scheme, result, outputs, warnings))}\n`);
     else io.stdout(verifyTable(design.name, s.scheme, result) + (outputs.length ? `outputs:\n${outputs.map((p) => `  ${p}`).join("\n")}\n` : ""));
     return result.cases.some((c) => c.available && c.converged === false) ? 2 : EXIT_OK;
   },

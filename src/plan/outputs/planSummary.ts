@@ -26,5 +26,6 @@ export function planSummary(plan: Plan, outputs: string[]): PlanSummary {
     polarization: plan.settings.polarization,
     scheme: plan.settings.scheme,
     tolerance: plan.settings.tolerance,
+    warnings: [...(plan.timeWarning !== undefined ? [plan.timeWarning] : []), ...plan.warnings],
   };
 }

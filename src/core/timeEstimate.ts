@@ -1,0 +1,58 @@
+/**
+ * How long a command will take, estimated before the work starts, so a user who asked for a large
+ * grid or a fine ladder hears "expect about N s" instead of waiting without a word. Seconds of one
+ * core on an idle machine (other work sharing the cores makes it longer); a rough figure, good to
+ * a factor of about two, never used to decide anything.
+ *
+ * The rates come from `npm run bench` (src/bench), measured on the 2-core development machine
+ * (Node 20):
+ * - plan: the whole plan (field, reduction, levels, matching, all outputs written), CPU time of
+ *   the process at 1.05 × 10⁶ cells (bench/plan-bend-1e6.json; the "whole plan" bench), minus the
+ *   start-up; the fixed part is start-up, catalogs and matching, which do not grow with the cells.
+ * - verify: one solve on an FDFD grid = the sparse factorization (its operation count, `work` of
+ *   verify/assemble.ts `solveCost`; 1.8 s per 10⁹, fitted to the CPU seconds of the solver bench
+ *   at 400² and 700² nodes: 1.9 s at 0.63 × 10⁹ work, 8.4 s at 3.4 × 10⁹) + a cost per grid node
+ *   for everything else one case on one grid does (assembly, sampling the scene from the map, the
+ *   solve and its residual, the far field): 22 µs, from `verify --resolution 24` and `48` of
+ *   demo-designs/field-radial-cloak.json (3 cases on 209² and 377² nodes: 1.1 s and 4.1 s of CPU
+ *   per solve, start-up removed).
+ * Pure.
+ */
+
+/** CPU seconds per device cell of a whole `plan`. */
+export const PLAN_SECONDS_PER_CELL = 3.4e-6;
+/** CPU seconds of a `plan` that do not grow with the cells (start-up, catalogs, matching). */
+export const PLAN_SECONDS_FIXED = 0.6;
+/** CPU seconds per complex operation of the sparse factorization. */
+export const SOLVER_SECONDS_PER_OPERATION = 1.8e-9;
+/** CPU seconds per grid node of one verify solve, besides the factorization. */
+export const SOLVER_SECONDS_PER_NODE = 2.2e-5;
+/** Estimates above this many seconds are said to the user. */
+export const WARN_ABOVE_SECONDS = 10;
+
+/** Estimated seconds of a whole `plan` of `cells` device cells. */
+export function planSeconds(cells: number): number {
+  return PLAN_SECONDS_FIXED + cells * PLAN_SECONDS_PER_CELL;
+}
+
+/** Estimated seconds of one verify solve on a grid of `unknowns` nodes whose factorization costs `work` complex operations. */
+export function solveSeconds(work: number, unknowns: number): number {
+  return work * SOLVER_SECONDS_PER_OPERATION + unknowns * SOLVER_SECONDS_PER_NODE;
+}
+
+/** "40 s", "3 min", "1.5 h": rounded to what a person plans around. */
+export function formatDuration(seconds: number): string {
+  if (seconds < 20) return `${Math.max(1, Math.round(seconds))} s`;
+  if (seconds < 90) return `${5 * Math.round(seconds / 5)} s`;
+  if (seconds < 5400) return `${Math.round(seconds / 60)} min`;
+  return `${Number((seconds / 3600).toPrecision(2))} h`;
+}
+
+/**
+ * The warning for an estimate, or null when it is at most WARN_ABOVE_SECONDS (or not a finite
+ * positive figure): "expect about 40 s for <what> (one core; rates measured by npm run bench)".
+ */
+export function expectedTimeWarning(seconds: number, what: string): string | null {
+  if (!(seconds > WARN_ABOVE_SECONDS) || !Number.isFinite(seconds)) return null;
+  return `expect about ${formatDuration(seconds)} for ${what} (estimate for one idle core, from the rates npm run bench measures)`;
+}
