@@ -14,7 +14,6 @@ import { orientationCode } from "./orientationText.js";
 import type { Plan } from "../planTypes.js";
 import { flagList } from "../flags.js";
 import { csvField, fmt } from "./csvText.js";
-import { writeNumber } from "./numberBytes.js";
 
 /** Dimension keys (metres, "radius_m") used by any level's recipe, sorted by name. */
 export function dimensionColumns(plan: Plan): string[] {
@@ -111,12 +110,6 @@ class RowBytes {
     }
   }
 
-  /** fmt(v, digits) (csvText.ts), written without making a string (numberBytes.ts) */
-  number(v: number, digits: number): void {
-    if (this.at + 32 > this.buf.length) this.grow(32);
-    this.at = writeNumber(this.buf, this.at, v, digits);
-  }
-
   byte(b: number): void {
     if (this.at + 1 > this.buf.length) this.grow(1);
     this.buf[this.at++] = b;
@@ -175,6 +168,16 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
   const noAchieved = ",".repeat(m);
   // family, host, inclusion, lattice, orientation, fill_fraction, dimensions…, loss_tangent
   const noRecipe = ",".repeat(6 + dimensionColumns(plan).length + 1);
+  // repeated values (constant components, isotropic axes, neighbouring cells) reuse their text
+  const lastV = new Float64Array(m + 3).fill(NaN);
+  const lastS: string[] = new Array(m + 3).fill("");
+  const num = (col: number, v: number, digits: number): string => {
+    if (v === lastV[col]) return lastS[col];
+    const t = fmt(v, digits);
+    lastV[col] = v;
+    lastS[col] = t;
+    return t;
+  };
   const degPerRad = 180 / Math.PI;
   for (let c = 0; c < g.count; c++) {
     const lv = plan.level[c];
@@ -186,14 +189,14 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
     out.text(xs[gi]); out.byte(COMMA);
     out.text(ys[gj]); out.byte(COMMA);
     if (three) { out.text(zs[g.k[c]]); out.byte(COMMA); }
-    out.number(plan.axisAngleRad[c] * degPerRad, 4); out.byte(COMMA);
+    out.text(num(0, plan.axisAngleRad[c] * degPerRad, 4)); out.byte(COMMA);
     out.int(plan.region[c] + 1); out.byte(COMMA);
     if (lv >= 0) out.int(lv + 1);
-    for (let k = 0; k < m; k++) { out.byte(COMMA); out.number(plan.targets[k][c], 6); }
+    for (let k = 0; k < m; k++) { out.byte(COMMA); out.text(num(3 + k, plan.targets[k][c], 6)); }
     out.text(lv >= 0 ? achieved[lv] : noAchieved);
-    out.byte(COMMA); out.number(plan.relError[c], 4);
-    out.byte(COMMA); out.number(plan.quantizationError[c], 4);
-    out.byte(COMMA); out.number(plan.zeroTargetAbsError[c], 4);
+    out.byte(COMMA); out.text(num(1, plan.relError[c], 4));
+    out.byte(COMMA); out.text(num(2, plan.quantizationError[c], 4));
+    out.byte(COMMA); out.text(fmt(plan.zeroTargetAbsError[c], 4));
     out.text(lv >= 0 ? recipe[lv] : noRecipe);
     out.byte(COMMA); out.text(flagList(plan.flags[c]));
     out.byte(NEWLINE);
