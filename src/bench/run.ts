@@ -8,6 +8,7 @@ const benches: { name: string; module: string; fn: string }[] = [
   { name: "whole plan", module: "./planBench.js", fn: "planBench" },
   { name: "verify solver (sparse direct, nested dissection)", module: "./solverBench.js", fn: "solverBench" },
   { name: "verify of each demo (default accuracy)", module: "./verifyBench.js", fn: "verifyBench" },
+  { name: "verify --sweep on worker threads", module: "./sweepBench.js", fn: "sweepBench" },
 ];
 
 const log = (line: string): void => {

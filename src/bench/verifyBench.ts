@@ -1,7 +1,8 @@
 /**
  * `npm run bench`: the time of one full `cellwright verify` of each 2D demo at the default accuracy
  * (the grid ladder, every case, extrapolation), run in-process through the command line, median of
- * three runs, with the rungs used and the figures' convergence. Nothing here decides pass or fail.
+ * three runs, with the method (the default auto: radial or grid), the rungs used and the figures'
+ * convergence. Nothing here decides pass or fail.
  */
 import { readdirSync } from "node:fs";
 import { join } from "node:path";
@@ -24,7 +25,8 @@ export async function verifyBench(log: (line: string) => void): Promise<void> {
       if (code > 2) { summary = `failed (exit ${code}): ${io.err().split("\n").filter(Boolean).pop()}`; break; }
       try {
         const s = JSON.parse(io.out());
-        summary = `exit ${code}, rungs ${s.resolutions.join("/")}, finest ${s.grid.nx}×${s.grid.ny}, converged ${s.converged}`;
+        const grid = s.grid ? `, rungs ${s.resolutions.join("/")}, finest ${s.grid.nx}×${s.grid.ny}` : "";
+        summary = `exit ${code}, method ${s.method}${grid}, converged ${s.converged}`;
       } catch {
         summary = `exit ${code}: ${io.err().split("\n").filter(Boolean).pop()}`;
         break;

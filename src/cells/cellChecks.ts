@@ -34,11 +34,19 @@ export function phaseIndex(p: CellPhase): number {
   return p.class === "metal" ? 0 : Math.abs(cSqrt(p.eps).re);
 }
 
-/** Homogenization check with n_max over the given phases and effective values (ε·μ). */
+/**
+ * Homogenization check with n_max over the given phases and effective values (ε·μ). An effective
+ * value counts by its propagating index Re √(εμ): a wire medium below its plasma frequency (ε < 0,
+ * μ = 1) carries no wave along the check's direction — it is evanescent, not short-wavelength — so
+ * its |ε| sets no wavelength, and the size criterion is the pitch against the wavelength in the
+ * propagating phases (the host; for wire media the local model needs a ≪ λ there: Belov et al.,
+ * "Strong spatial dispersion in wire media in the very large wavelength limit", Phys. Rev. B 67,
+ * 113103 (2003)). This is the planner's rule too (refractiveIndex(ε).re, plan/match).
+ */
 export function homogenizationFor(pitchM: number, frequencyHz: number, phases: CellPhase[], effective: Complex[]): HomogenizationCheck & { nMax: number } {
   let nMax = 1;
   for (const p of phases) nMax = Math.max(nMax, phaseIndex(p));
-  for (const e of effective) if (Number.isFinite(cAbs(e))) nMax = Math.max(nMax, Math.sqrt(cAbs(e)));
+  for (const e of effective) if (Number.isFinite(cAbs(e))) nMax = Math.max(nMax, cSqrt(e).re);
   return { ...homogenizationCheck(pitchM, frequencyHz, nMax), nMax };
 }
 

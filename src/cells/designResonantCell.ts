@@ -13,9 +13,9 @@ import type { CellFamily } from "./cellFamily.js";
 import { homogenizationFor, homogenizationNote, matchError, processCheckFor, shapedPhases, toleranceAbs } from "./cellChecks.js";
 import type { CellDesign, CellDesignRequest, RingReport, SplitRingSizes, WireReport } from "./cellDesignTypes.js";
 import { passivityBandwidthBound } from "./passivity.js";
-import { EPS0 } from "./physicalConstants.js";
+import { C0, EPS0 } from "./physicalConstants.js";
 import { printedDefaultSizeM, printedMeanRadiusM, printedOuterRadiusM } from "./printedRing.js";
-import { defaultRingStyle, designSplitRing, splitRingBandwidth, splitRingResponse, type SplitRingGeometry, type SplitRingResponse } from "./splitRing.js";
+import { defaultRingStyle, designSplitRing, ringModelSpread, splitRingBandwidth, splitRingResponse, type SplitRingGeometry, type SplitRingResponse } from "./splitRing.js";
 import { cellAreaM2 } from "./lattice.js";
 import { MIN_RADIUS_RATIO, wireTableMaxRatio, bandwidthWithinTolerance, radiusForTarget, wireMediumResponse } from "./wireMedium.js";
 
@@ -33,7 +33,7 @@ export function designResonantCell(req: CellDesignRequest, family: CellFamily): 
   return family.id === "wire-medium" ? designWireCell(req, family) : designRingCell(req, family);
 }
 
-function finish(req: CellDesignRequest, family: CellFamily, parts: Omit<CellDesign, "familyId" | "lattice" | "pitchM" | "frequencyHz" | "hostId" | "inclusionId" | "valid" | "processCheck" | "homogenization" | "spread" | "tolerance">, effective: Complex[]): CellDesign {
+function finish(req: CellDesignRequest, family: CellFamily, parts: Omit<CellDesign, "familyId" | "lattice" | "pitchM" | "frequencyHz" | "hostId" | "inclusionId" | "valid" | "processCheck" | "homogenization" | "spread" | "tolerance">, effective: Complex[], modelSpread = 0): CellDesign {
   const tolerance = req.tolerance ?? DEFAULT_TOLERANCE;
   const reasons = [...parts.reasons];
   const notes = [...parts.notes];
@@ -59,7 +59,8 @@ function finish(req: CellDesignRequest, family: CellFamily, parts: Omit<CellDesi
     tolerance,
     processCheck,
     homogenization,
-    spread: { parallel: 0, perpendicular: 0, max: 0, uncertain: false },
+    // μ's model spread (printed rings: the two standard loop inductances) counts in max
+    spread: { parallel: 0, perpendicular: 0, max: modelSpread, uncertain: modelSpread > tolerance },
     valid: reasons.length === 0,
     reasons,
     notes,
@@ -106,6 +107,11 @@ function designWireCell(req: CellDesignRequest, family: CellFamily): CellDesign 
   else if (!resp.plasma.thinWireApplies) notes.push(`thick wires (r/a = ${fmt(radiusM / pitchM)}): the thin-wire formula is off by ${pct(Math.abs(resp.plasma.thinWireRelDiff))}; the lattice value is used`);
   if (sigma / (w * EPS0) < 100) notes.push(`the metal is not a good conductor at this frequency (σ/ωε₀ = ${fmt(sigma / (w * EPS0))}); the wire model assumes one`);
   if (resp.gammaRadPerS > 0.1 * w) notes.push(`strong damping (γ/ω = ${fmt(resp.gammaRadPerS / w)}): thin wires of this metal are lossy`);
+  if (resp.eps.re < 0) {
+    // below the plasma frequency: no propagating index along the wires' field, the field decays over δ
+    const decayM = C0 / (w * Math.sqrt(-resp.eps.re));
+    notes.push(`below the plasma frequency (ε' < 0): no propagating wave, the field decays over δ = ${fmt(decayM)} m (pitch/δ = ${fmt(pitchM / decayM)}); the cell size is judged against the wavelength in the host (Belov et al. 2003)${pitchM > decayM ? "; the decay within one cell makes the effective ε an idealization near surfaces" : ""}`);
+  }
   const report: WireReport = {
     kind: "wire-medium",
     radiusM,
@@ -203,6 +209,8 @@ function designRingCell(req: CellDesignRequest, family: CellFamily): CellDesign 
     }
     : { ringRadiusM: r, ringWidthM: c, ringGapM: d, stackSpacingM: geometry.stackSpacingM ?? a };
   const smallestGap = Math.min(d, printed ? geometry.splitGapM ?? d : Infinity, wall > 0 ? wall : Infinity);
+  const spread = ringModelSpread(geometry, resp, sigma, frequencyHz, host.eps);
+  if (printed) notes.push(`model spread ${pct(spread)}: μ with the flat-strip loop inductance μ₀r0(ln(8r0/c) − ½) instead of Grover's round-wire loop with radius c/4 (the working value)`);
   return finish(req, family, {
     fill: resp.fill,
     dimensions,
@@ -214,7 +222,7 @@ function designRingCell(req: CellDesignRequest, family: CellFamily): CellDesign 
     resonance: report,
     reasons,
     notes,
-  }, [host.eps, cMul(host.eps, resp.mu)]);
+  }, [host.eps, cMul(host.eps, resp.mu)], spread);
 }
 
 /** Printed rings evaluated as given: defaults as in solvePrintedRing, radius the largest that fits. */

@@ -90,6 +90,24 @@ export function ringInductanceH(meanRadiusM: number, stripWidthM: number): numbe
   return lg > 0 ? MU0 * meanRadiusM * lg : NaN;
 }
 
+/**
+ * The other standard inductance of a flat ring of mean radius r0 and strip width c:
+ *   L = μ₀ r0 (ln(8r0/c) − 1/2)
+ * as used in the printed split-ring circuit models (Marqués, Medina, Rafii-El-Idrissi, Phys. Rev. B
+ * 65, 144440 (2002); Baena et al., IEEE Trans. Microw. Theory Tech. 53, 1451 (2005) — from memory).
+ * It exceeds ringInductanceH by μ₀r0(2 − ln 4 − 1/2) = 0.114·μ₀r0 (about 4 % for r0/c near 5),
+ * which moves the resonance by about 2 % and μ' near resonance by up to ~10 %. Neither has a better
+ * claim for a printed strip, so the planner carries the difference as the model's uncertainty
+ * (ringModelSpread in splitRing.ts). NaN when ln(8r0/c) ≤ 1/2.
+ */
+export function flatRingInductanceH(meanRadiusM: number, stripWidthM: number): number {
+  const lg = Math.log((8 * meanRadiusM) / stripWidthM) - 0.5;
+  return lg > 0 ? MU0 * meanRadiusM * lg : NaN;
+}
+
+/** Which ring inductance a circuit uses: `loop` (ringInductanceH, the working value) or `strip` (flatRingInductanceH). */
+export type RingInductanceModel = "loop" | "strip";
+
 export interface PrintedRingCircuit {
   meanRadiusM: number;
   /** ε_eff of the strip pair */
@@ -119,12 +137,12 @@ export function printedRingStrength(meanRadiusM: number, pitchM: number, stackSp
 }
 
 /** The LC circuit of a printed ring on a board of relative permittivity epsSub (real part). */
-export function printedRingCircuit(g: PrintedRingGeometry, epsSub: number): PrintedRingCircuit {
+export function printedRingCircuit(g: PrintedRingGeometry, epsSub: number, inductance: RingInductanceModel = "loop"): PrintedRingCircuit {
   const r0 = printedMeanRadiusM(g);
   const epsEff = coplanarStripsEffectivePermittivity(epsSub, g.ringWidthM, g.ringGapM, g.boardThicknessM);
   const cPul = coplanarStripsCapacitancePerM(g.ringWidthM, g.ringGapM, epsEff);
   const cs = (TWO_PI * r0 * cPul) / 4;
-  const l = ringInductanceH(r0, g.ringWidthM);
+  const l = inductance === "loop" ? ringInductanceH(r0, g.ringWidthM) : flatRingInductanceH(r0, g.ringWidthM);
   return {
     meanRadiusM: r0,
     effectivePermittivity: epsEff,

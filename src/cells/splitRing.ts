@@ -166,6 +166,23 @@ export function splitRingResponse(g: SplitRingGeometry, conductivitySPerM: numbe
   };
 }
 
+/**
+ * Model spread of a ring design: printed rings have two standard loop inductances of equal
+ * standing (printedRing.ts: Grover's round-wire loop with the strip's equivalent radius c/4, the
+ * working value, and the flat-strip form of the printed-ring circuit models); the same geometry
+ * evaluated with the other one gives μ_alt, and the spread is |μ_alt − μ| / |μ| (complex, no floor:
+ * the relative error's own definition). Split cylinders have one published model: 0.
+ */
+export function ringModelSpread(g: SplitRingGeometry, response: SplitRingResponse, conductivitySPerM: number, frequencyHz: number, hostEps: number | Complex = 1): number {
+  if (g.ringStyle !== "printed") return 0;
+  const eps = asComplex(hostEps);
+  const alt = printedRingCircuit(g, eps.re, "strip");
+  const gamma = printedRingDampingRadPerS(g, alt, conductivitySPerM, frequencyHz, eps.im);
+  const muAlt = lorentzMu(alt.strength, alt.resonanceHz, gamma, frequencyHz);
+  const d = Math.hypot(muAlt.re - response.mu.re, muAlt.im - response.mu.im), m = Math.hypot(response.mu.re, response.mu.im);
+  return m > 0 && Number.isFinite(d) ? d / m : Infinity;
+}
+
 /** Band around the design frequency where Re μ stays within ±toleranceAbs of targetMu (Γ held fixed). */
 export function splitRingBandwidth(r: SplitRingResponse, frequencyHz: number, targetMu: number, toleranceAbs: number): ToleranceBand {
   return toleranceBand((f) => lorentzMu(r.fill, r.resonanceHz, r.gammaRadPerS, f).re, frequencyHz, targetMu, toleranceAbs);

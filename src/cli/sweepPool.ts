@@ -15,6 +15,23 @@ import { solveSweepPoint, type SweepContext, type SweepPoint } from "../verify/s
 
 export interface SweepTask { index: number; frequencyHz: number }
 
+/** What a worker starts with: the context, its transform null when it must be loaded again from the design. */
+export interface WorkerData {
+  context: Omit<SweepContext, "transform"> & { transform: SweepContext["transform"] | null };
+  designPath: string;
+  cwd: string;
+}
+
+/** The worker's start data: the transform is sent when it clones, else loaded again from the design file. */
+function workerData(context: SweepContext, designPath: string, cwd: string): WorkerData {
+  try {
+    structuredClone(context.transform);
+    return { context, designPath, cwd };
+  } catch {
+    return { context: { ...context, transform: null }, designPath, cwd };
+  }
+}
+
 export type ErrorData =
   | { kind: "input"; issues: InputIssue[] }
   | { kind: "numerical"; where: string; message: string; unknown: number }
@@ -45,6 +62,9 @@ export function sweepWorkerFile(): string | null {
 
 export interface PoolOptions {
   workers: number;
+  /** the design file, for workers that must load a transform again (it holds compiled functions) */
+  designPath: string;
+  cwd: string;
   /** called after each frequency is done */
   onDone?: (done: number, total: number, frequencyHz: number) => void;
   /** aborting terminates the workers and rejects with an AbortError */
@@ -76,6 +96,7 @@ export async function runSweepPool(context: SweepContext, frequenciesHz: readonl
   const points = new Array<SweepPoint | undefined>(n);
   const pool: Worker[] = [];
   let next = 0, done = 0;
+  const start = workerData(context, options.designPath, options.cwd);
   try {
     await new Promise<void>((resolve, reject) => {
       let failed = false;
@@ -86,7 +107,7 @@ export async function runSweepPool(context: SweepContext, frequenciesHz: readonl
         if (next < n) { const index = next++; w.postMessage({ index, frequencyHz: frequenciesHz[index] } satisfies SweepTask); }
       };
       for (let k = 0; k < workers; k++) {
-        const w = new Worker(file, { workerData: { context } });
+        const w = new Worker(file, { workerData: start });
         pool.push(w);
         w.on("message", (m: { index: number; point?: SweepPoint; error?: ErrorData }) => {
           if (m.error) { fail(errorFromData(m.error, options.formatHz(frequenciesHz[m.index]))); return; }

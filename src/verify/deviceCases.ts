@@ -14,6 +14,7 @@ import type { ReducedField } from "../reduce/reducedField.js";
 import { carpetGround, type CarpetGround } from "./carpetGround.js";
 import { diskConductor, type Conductor } from "./conductor.js";
 import { continuousScene } from "./continuousScene.js";
+import { FEATURE_STEPS, geometryScene, type BulkMaterial } from "./geometryScene.js";
 import { deviceBounds, deviceScene, type HiddenDisk } from "./deviceScene.js";
 import { largestIndex, mapFromPlan, mapFromReduced } from "./materialMap.js";
 import { emptyScene, SAMPLE_BACKGROUND, type Scene, type ScenePolarization } from "./scene.js";
@@ -31,6 +32,8 @@ export interface DeviceCasesInput {
   reduced: ReducedField;
   /** the plan of the design's realization; null when the design has none */
   plan: Plan | null;
+  /** bulk materials at the design frequency by id (the plan's values), to draw the inclusions; absent: no realized-geometry case */
+  materials?: ReadonlyMap<string, BulkMaterial>;
   /** true: a carpet design is checked in free space, without its ground plane (default false) */
   freeSpace?: boolean;
 }
@@ -105,7 +108,15 @@ export function deviceCases(input: DeviceCasesInput): DeviceCases {
     const m = mapFromPlan(plan, bg);
     if (m.missing > 0) notes.push(`realized: ${m.missing} device cells have no recipe and were left as background`);
     cases.push({ name: "realized", scene: deviceScene(grid, polarization, background, m, hidden, ground ? [ground.bump] : []), indexHint: largestIndex(m) });
-    cases.push({ name: "realized-geometry", scene: null, reason: "drawing each cell's inclusion at its real size is not available yet; the realized case uses each recipe's effective (homogenized) tensor", indexHint: 0 });
+    if (!input.materials) cases.push({ name: "realized-geometry", scene: null, reason: "no material values to draw the inclusions with", indexHint: 0 });
+    else {
+      const d = geometryScene({ plan, materials: input.materials, polarization, background, hidden, extraConductors: ground ? [ground.bump] : [] });
+      if (!d.ok) cases.push({ name: "realized-geometry", scene: null, reason: d.reason, indexHint: 0 });
+      else {
+        notes.push(...d.notes);
+        cases.push({ name: "realized-geometry", scene: d.scene, indexHint: d.indexHint, maxStepM: d.smallestFeatureM / FEATURE_STEPS });
+      }
+    }
   } else {
     cases.push({ name: "realized", scene: null, reason: "the design has no realization (no \"realization\" key): there is nothing built to check", indexHint: 0 });
   }

@@ -37,6 +37,8 @@ export interface LadderGridInput {
   resolution?: number;
   accuracy: number;
   marginM: number;
+  /** largest step on the coarsest rung (finer rungs scale alike): drawn inclusions need it */
+  maxStepM?: number;
 }
 
 export interface LadderGrids {
@@ -59,7 +61,7 @@ export function ladderGrids(input: LadderGridInput): LadderGrids {
   const baseRes = input.resolution ?? ladderStart(input.accuracy);
   const across = Math.min(box.maxX - box.minX, box.maxY - box.minY);
   const makeGrid = (res: number): FdfdGrid => {
-    const h = Math.min(lambda0 / (nMax * res), (across / MIN_STEPS_ACROSS) * (baseRes / res));
+    const h = Math.min(lambda0 / (nMax * res), (across / MIN_STEPS_ACROSS) * (baseRes / res), (input.maxStepM ?? Infinity) * (baseRes / res));
     const pml = Math.min(20, Math.max(10, Math.ceil(lambdaB / (2 * h))));
     // above a ground plane the window stops two steps below it (everything lower is conductor)
     const minY = input.groundYM !== undefined ? Math.max(box.minY - marginM, input.groundYM - 2 * h) : box.minY - marginM;

@@ -46,6 +46,8 @@ export interface CaseSpec {
   reason?: string;
   /** largest local index of the case's material (for the grid step) */
   indexHint: number;
+  /** largest grid step this case needs on the coarsest rung (drawn inclusions: smallest feature / 8); runCheck.ts solves such a case on its own ladder */
+  maxStepM?: number;
 }
 
 export interface VerifyInput {
@@ -61,6 +63,8 @@ export interface VerifyInput {
   groundYM?: number;
   /** one grid at N points per wavelength (no ladder) */
   resolution?: number;
+  /** largest step on the coarsest rung (finer rungs scale alike), e.g. to put enough steps across drawn inclusions */
+  maxStepM?: number;
   /** relative accuracy the ladder aims at (default 2 %) */
   accuracy?: number;
   /** free space around the device on each side, metres (default half a background wavelength) */
@@ -177,7 +181,7 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   const marginM = input.marginM ?? lambdaB / 2;
   if (!(marginM >= 0 && Number.isFinite(marginM))) throw new InputError({ where: "--margin", message: `expected a length ≥ 0, got ${marginM}` });
   const { nMax, makeGrid, wanted } = ladderGrids({
-    polarization, background, frequencyHz, deviceBox: box, groundYM: input.groundYM, resolution: input.resolution, accuracy, marginM,
+    polarization, background, frequencyHz, deviceBox: box, groundYM: input.groundYM, resolution: input.resolution, accuracy, marginM, maxStepM: input.maxStepM,
     caseIndexHints: cases.filter((c) => c.scene).map((c) => c.indexHint),
   });
   const solverBytes = input.solverBytes ?? DEFAULT_SOLVER_BYTES;

@@ -32,6 +32,23 @@ describe("cell: solved values, layer and wire cut-off in --json", () => {
     expect(out.thinWireForms.thickWireHz).toBeGreaterThan(out.plasmaFrequencyHz);
   });
 
+  it("wire medium below its plasma frequency (ε' = −30): the size check uses the propagating phases' wavelength, not |ε| as an index", async () => {
+    // ε < 0 carries no wave (Belov et al., Phys. Rev. B 67, 113103 (2003): the local wire-medium model
+    // needs a ≪ λ in the host); 4 mm at 10 GHz is 0.133 λ0, and the densest propagating phase is the
+    // cell's ε across the wires (Maxwell Garnett, ≈ 1.72): 4 mm · 1.31 / 30 mm = 0.175 — above λ/10, below λ/4
+    const r = await cellJson(["wire-medium", "--target", "-30", "--pitch", "4 mm", "--frequency", "10 GHz"]);
+    expect(r.code, r.err).toBe(0);
+    expect(r.out.valid).toBe(true);
+    expect(r.out.homogenization.status).toBe("warn");
+    expectClose(r.out.homogenization.nMax, Math.sqrt(r.out.achieved.perpendicular.re), { rel: 1e-6 });
+    expectClose(r.out.homogenization.ratio, (4e-3 * r.out.homogenization.nMax * 10e9) / 299792458, { rel: 1e-9 });
+    // the decay length c/(ω√|ε'|) = 0.87 mm is stated
+    expect(r.out.notes.join(" ")).toMatch(/decays over δ = 0\.000871/);
+    // a positive effective ε still counts by its index: a ε' = 0.5 wire medium at 12 mm pitch (0.4 λ0) is refused
+    const coarse = await cellJson(["wire-medium", "--target", "0.5", "--pitch", "12 mm", "--frequency", "10 GHz"]);
+    expect(coarse.out.homogenization.status).toBe("refuse");
+  });
+
   it("--frequency and --wavelength are exclusive; --layer-* come all together", async () => {
     const io = bufferIo();
     expect(await runCli(["cell", "rods-in-host", "--pitch", "1 mm", "--frequency", "10 GHz", "--wavelength", "3 cm", "--host", "air", "--inclusion", "alumina-96", "--fill", "0.2"], io)).toBe(1);

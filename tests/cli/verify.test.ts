@@ -134,6 +134,10 @@ describe("verify --method auto (the default)", () => {
     expect(by.realized.method).toBe("fdfd");
     expect(by.realized.methodReason).toMatch(/not radial/);
     expect(by.realized.ladder.length).toBeGreaterThanOrEqual(3);
+    // split rings have no drawable z-invariant section: the drawn case says why, and there is no homogenization error
+    expect(by["realized-geometry"]).toMatchObject({ available: false, method: null });
+    expect(by["realized-geometry"].reason).toMatch(/levels? [\d, ]+: split-ring cells are resonant metal structures/);
+    expect(s.homogenizationError).toBeNull();
     // σ/σ_bare of the grid case is taken against the grid's bare object, rung by rung
     for (const p of by.realized.ladder) expectClose(p.vsBare * by.bare.scatteringWidthM, p.scatteringWidthM, { rel: 0.1, label: `rung ${p.resolution}: grid bare within 10 % of the exact one` });
     expect(s.grid).not.toBeNull();

@@ -15,6 +15,9 @@ import { checkOutputSet } from "../../src/io/outputSet.js";
 const BIN = resolve("dist/cli/main.js");
 const CLOAK = resolve("demo-designs/field-radial-cloak.json");
 const ARGS = ["verify", CLOAK, "--sweep", "9 GHz..9.8 GHz:2", "--resolution", "8", "--margin", "8 mm", "--json"];
+// an expression map: its transform holds compiled functions, which do not cross to a worker; the workers load it again
+const EXPRESSION = resolve("demo-designs/field-expression.json");
+const EXPR_ARGS = ["verify", EXPRESSION, "--sweep", "14 GHz..16 GHz:2", "--resolution", "6", "--json"];
 
 describe("verify --sweep from the built command line", () => {
   it("runs the frequencies on worker threads and matches the in-thread sweep", async () => {
@@ -22,7 +25,7 @@ describe("verify --sweep from the built command line", () => {
     expect(existsSync(resolve("dist/cli/sweepWorker.js")), "the worker is not in dist/").toBe(true);
     const dir = mkdtempSync(join(tmpdir(), "cw-sweep-built-"));
     try {
-      const p = spawnSync(process.execPath, [BIN, ...ARGS, "--out", join(dir, "out")], { encoding: "utf8", timeout: 60_000 });
+      const p = spawnSync(process.execPath, [BIN, ...ARGS, "--out", join(dir, "out")], { encoding: "utf8", timeout: 110_000 });
       expect(p.status, p.stderr).toBe(0);
       const built = JSON.parse(p.stdout);
       expect(built.sweep.workers).toBe(Math.min(2, availableParallelism()));
@@ -37,5 +40,16 @@ describe("verify --sweep from the built command line", () => {
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
-  }, 60_000);
+  }, 120_000);
+
+  it("a design whose transform cannot be cloned (expression map) is loaded again by the workers", async () => {
+    const p = spawnSync(process.execPath, [BIN, ...EXPR_ARGS], { encoding: "utf8", timeout: 170_000 });
+    expect(p.status, p.stderr).toBe(0);
+    const built = JSON.parse(p.stdout);
+    expect(built.sweep.threads).toBe(built.sweep.workers > 1 ? built.sweep.workers : 0);
+    const io = bufferIo();
+    expect(await runCli(EXPR_ARGS, io), io.err()).toBe(0);
+    const strip = (s: Record<string, unknown>) => ({ ...s, threads: undefined, workers: undefined });
+    expect(strip(built.sweep)).toEqual(strip(JSON.parse(io.out()).sweep));
+  }, 180_000);
 });

@@ -18,6 +18,7 @@ import { planFromField } from "../../plan/runPlan.js";
 import { resolveSettings } from "../../plan/resolveSettings.js";
 import { reduceField } from "../../reduce/reduceField.js";
 import { deviceCases } from "../../verify/deviceCases.js";
+import { bulkMaterials } from "../../verify/bulkMaterials.js";
 import { carpetGround } from "../../verify/carpetGround.js";
 import { SPEED_OF_LIGHT_M_PER_S } from "../../core/physicalConstants.js";
 import { fieldSvg } from "../../verify/fieldSvg.js";
@@ -74,6 +75,11 @@ export function verifySummary(design: string, scheme: string, r: CheckResult, ou
       ladder: c.ladder.map((p) => ({ resolution: p.resolution, stepM: p.stepM, scatteringWidthM: jn(p.scatteringWidthM), vsBare: jn(p.vsBare), deliveredPower: jn(p.deliveredPower) })),
       ...(c.bistaticM ? { bistaticM: Array.from(c.bistaticM, (v) => jn(v) ?? 0) } : {}),
     })),
+    homogenizationError: r.homogenizationError && {
+      relative: jn(r.homogenizationError.relative), uncertainty: jn(r.homogenizationError.uncertainty),
+      vsBareDifference: jn(r.homogenizationError.vsBareDifference), deliveredPowerDifference: jn(r.homogenizationError.deliveredPowerDifference),
+      stepM: r.homogenizationError.stepM, resolutions: r.homogenizationError.resolutions,
+    },
     notes: r.notes,
     warnings,
     outputs,
@@ -113,8 +119,22 @@ export function verifyTable(design: string, scheme: string, r: CheckResult): str
       "  specular: share of the incident beam's power reflected into the flat ground's specular lobe; deviation: reflected beam's direction minus the specular one",
     ] : []),
     "  field vs ideal: relative difference of the total field from the ideal device's, outside the device's box",
+    ...homogenizationLine(r),
     ...r.notes.map((n) => `  note: ${n}`),
   ].join("\n") + "\n";
+}
+
+/** The plan's homogenization error (realized-geometry against realized) for the human table. */
+function homogenizationLine(r: CheckResult): string[] {
+  const e = r.homogenizationError;
+  if (!e) return [];
+  const pm = e.uncertainty === null ? " (single grid, no uncertainty)" : ` ± ${Number((e.uncertainty * 100).toPrecision(2))} %`;
+  const sign = (v: number): string => (v >= 0 ? "+" : "−") + Math.abs(v).toPrecision(2);
+  return [
+    `  homogenization error of the plan (realized-geometry against realized, same grids): σ_s ${sign(e.relative * 100)} %${pm}` +
+      (e.vsBareDifference !== null ? `, σ/σ_bare ${sign(e.vsBareDifference)}` : "") +
+      (e.deliveredPowerDifference !== null ? `, delivered ${sign(e.deliveredPowerDifference * 100)} points` : ""),
+  ];
 }
 
 /** "2%" or "0.02" → 0.02. */
@@ -214,18 +234,19 @@ export const command: Command = {
     if (isVolumeDevice(field)) throw new InputError({ where: `${design.sourcePath}: $.transform`, message: "the full-wave check is two-dimensional (devices invariant along z); a 3D design cannot be verified" });
     const progress = (text: string): void => io.stderr(`… ${text}\n`);
     const s = resolveSettings(design, overrides);
-    let plan = null;
+    let plan = null, bulk;
     if (design.realization !== undefined) {
       progress("plan (for the realized map)");
       const [materials, processes] = await Promise.all([loadMaterialCatalog(), loadProcessCatalog()]);
       plan = planFromField(design, field, { materials, processes }, overrides);
+      bulk = bulkMaterials(materials, design.frequencyHz, plan);
     }
     const backgroundIndex = s.backgroundIndex === 1 && !design.reduction?.backgroundIndex ? undefined : s.backgroundIndex;
     const ideal = reduceField(field, { polarization: s.polarization, scheme: "full", backgroundIndex });
     const reduced = reduceField(field, { polarization: s.polarization, scheme: s.scheme, unitAxis: s.unitAxis, backgroundIndex });
     const n = reduced.settings.backgroundIndex, z = reduced.settings.backgroundImpedance;
     const background = { eps: n / z, mu: n * z };
-    const built = deviceCases({ transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid, ideal, reduced, plan, freeSpace: sceneKind === "free" });
+    const built = deviceCases({ transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid, ideal, reduced, plan, materials: bulk, freeSpace: sceneKind === "free" });
     if (sceneKind === "ground" && !built.ground) throw new InputError({ where: "--scene", message: `the ground-plane scene needs a carpet design: ${carpetGround(design.transform).reason}` });
     let angleRad = (angleDeg * Math.PI) / 180;
     let illumination: Illumination = { kind: "plane", angleRad };
@@ -246,7 +267,7 @@ export const command: Command = {
     }
     if (sweep) {
       return runVerifySweep(io, {
-        designName: design.name, designFrequencyHz: design.frequencyHz, scheme: s.scheme, range: sweep, threshold, json, outDir: stringOption(args, "out"), notes: built.notes,
+        designName: design.name, designPath: design.sourcePath, designFrequencyHz: design.frequencyHz, scheme: s.scheme, range: sweep, threshold, json, outDir: stringOption(args, "out"), notes: built.notes,
         context: {
           transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid,
           ideal, reduced, plan, catalog: plan ? await loadMaterialCatalog() : [], illumination, resolution, accuracy, marginM, freeSpace: sceneKind === "free",

@@ -65,6 +65,8 @@ function r0band(r: { band: { lowHz: number | null; highHz: number | null } | nul
 
 export interface SweepRun {
   designName: string;
+  /** the design file (workers load a transform with compiled functions from it again) */
+  designPath: string;
   designFrequencyHz: number;
   scheme: string;
   context: SweepContext;
@@ -100,7 +102,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   let threads = 0;
   try {
     const ran = await runSweepPool({ ...context, solverBytes: pool.solverBytes }, frequencies, {
-      workers: pool.workers, signal: controller.signal, formatHz: formatFrequency,
+      workers: pool.workers, signal: controller.signal, formatHz: formatFrequency, designPath: run.designPath, cwd: io.cwd,
       onDone: (done, total, f) => progress(`sweep: ${done} of ${total} done (${formatFrequency(f)})`),
     });
     threads = ran.threads;
@@ -110,7 +112,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
     if (run.outDir !== undefined) {
       const folder = await prepareOutputFolder(resolve(io.cwd, run.outDir), names);
       const hasBare = result.points[0].cases.some((c) => c.name === "bare" && c.available);
-      const subtitle = `${result.figure.label} against frequency; ${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${r0band(result)}`;
+      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${r0band(result)}`;
       const r = result;
       const files: OutputFile[] = [
         { name: SWEEP_CSV, produce: (write) => write(sweepCsvText(r.points, { hasBare, beam: context.illumination.kind === "beam" })) },
@@ -136,6 +138,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
         : { kind: "beam", angleDeg: (context.illumination.angleRad * 180) / Math.PI, waistM: context.illumination.waistM, focusM: context.illumination.focusM },
       accuracy: context.resolution !== undefined ? null : context.accuracy ?? 0.02,
       resolution: context.resolution ?? null,
+      converged: sweep.converged,
       sweep, notes: result.notes, outputs,
     })}\n`);
   } else {

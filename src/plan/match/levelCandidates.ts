@@ -13,7 +13,7 @@ import type { CellFamily } from "../../cells/cellFamily.js";
 import type { Lattice } from "../../cells/lattice.js";
 import { checkProcess } from "../../cells/process.js";
 import { homogenizationCheck } from "../../cells/homogenization.js";
-import { designSplitRing, splitRingBandwidth } from "../../cells/splitRing.js";
+import { designSplitRing, ringModelSpread, splitRingBandwidth } from "../../cells/splitRing.js";
 import { printedOuterRadiusM } from "../../cells/printedRing.js";
 import { bandwidthWithinTolerance, wireCutoffError } from "../../cells/wireMedium.js";
 import { largestErrors, relErr } from "../quantize/relativeError.js";
@@ -331,7 +331,8 @@ function splitRing(
     relError: err,
     lossTangent: Math.max(cellEps.re !== 0 ? Math.abs(cellEps.im / cellEps.re) : 0, r.mu.re !== 0 ? Math.abs(r.mu.im / r.mu.re) : Infinity),
     indexIm: indexIm(epsDom, r.mu),
-    spread: 0,
+    // the two standard ring inductances (printed rings) give two values of μ: their spread is the model's uncertainty
+    spread: ringModelSpread(g, r, sigma, ctx.frequencyHz, host.eps),
     bandwidth: band.fractional,
     featureM: Math.min(featureM, gapM),
     resonant: true,

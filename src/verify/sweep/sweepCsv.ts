@@ -1,8 +1,8 @@
 /**
  * verify-sweep.csv: one row per frequency and case, frequencies ascending, cases in SWEEP_CASES
- * order. Columns (units in the names): frequency_hz, case, scattering_width_m, absorption_width_m,
+ * order (flat, bare, ideal, reduced, realized: those the scene has). Columns (units in the names): frequency_hz, case, scattering_width_m, absorption_width_m,
  * then vs_bare (only when the scene has a bare object), delivered_power and deviation_deg (only
- * for a beam), then uncertainty (relative, of the headline figure) and converged (true/false).
+ * for a beam; above a ground plane delivered_power is the specular share), then uncertainty (relative, of the headline figure) and converged (true/false).
  * A field that does not apply is empty (a single grid has no uncertainty); never NaN or Infinity.
  */
 import { csvField, fmt } from "../../plan/outputs/csvText.js";

@@ -21,7 +21,7 @@ import { verifyDevice, type CaseName } from "../verifyDevice.js";
 import { planAtFrequency } from "./recipeAtFrequency.js";
 
 /** Cases a sweep solves, in this order (others, such as realized-geometry, stay at the design frequency). */
-export const SWEEP_CASES: readonly CaseName[] = ["bare", "ideal", "reduced", "realized"];
+export const SWEEP_CASES: readonly CaseName[] = ["flat", "bare", "ideal", "reduced", "realized"];
 
 /** Everything a sweep point needs: plain data (no functions), so it can be sent to a worker. */
 export interface SweepContext {
@@ -63,6 +63,8 @@ export interface SweepCaseFigures {
 
 export interface SweepPoint {
   frequencyHz: number;
+  /** the scene stands on a ground plane (carpets): the beam figure is the specular share */
+  ground: boolean;
   cases: SweepCaseFigures[];
   resolutions: number[];
   grid: { nx: number; ny: number; stepM: number };
@@ -86,6 +88,7 @@ export function solveSweepPoint(ctx: SweepContext, frequencyHz: number, onProgre
   const fin = (v: number | null): number | null => (v !== null && Number.isFinite(v) ? v : null);
   return {
     frequencyHz,
+    ground: built.ground != null,
     cases: r.cases.map((c) => ({
       name: c.name, available: c.available, reason: c.reason,
       scatteringWidthM: fin(c.scatteringWidthM), absorptionWidthM: fin(c.absorptionWidthM), vsBare: fin(c.vsBare),

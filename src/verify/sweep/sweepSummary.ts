@@ -1,6 +1,6 @@
 /**
  * A finished sweep as figures: which figure of merit applies (σ/σ_bare with a hidden object,
- * delivered power for a beam, σ_s otherwise), one series per case, the band (sweepBand.ts), the
+ * delivered power for a beam — the specular share above a ground plane —, σ_s otherwise), one series per case, the band (sweepBand.ts), the
  * `--json` object and the human table. Pure.
  */
 import { formatFrequency, formatLength } from "../formatQuantity.js";
@@ -18,7 +18,8 @@ export interface SweepFigure {
 }
 
 /** The figure of merit of a sweep (see file comment). */
-export function sweepFigure(hasBare: boolean, beam: boolean): SweepFigure {
+export function sweepFigure(hasBare: boolean, beam: boolean, ground = false): SweepFigure {
+  if (beam && ground) return { name: "deliveredPower", label: "specular share (fraction)", unit: "", sense: "higher-is-better" };
   if (beam) return { name: "deliveredPower", label: "delivered power (fraction)", unit: "", sense: "higher-is-better" };
   if (hasBare) return { name: "vsBare", label: "σ/σ_bare", unit: "", sense: "lower-is-better" };
   return { name: "scatteringWidthM", label: "scattering width σ_s", unit: "m", sense: "lower-is-better" };
@@ -40,7 +41,7 @@ export function summarizeSweep(points: readonly SweepPoint[], options: { designF
   const first = sorted[0];
   const caseNames = first.cases.map((c) => c.name);
   const hasBare = first.cases.some((c) => c.name === "bare" && c.available);
-  const figure = sweepFigure(hasBare, options.beam);
+  const figure = sweepFigure(hasBare, options.beam, first.ground);
   const frequenciesHz = sorted.map((p) => p.frequencyHz);
   const series = (name: string): (number | null)[] => sorted.map((p) => figureOf(p.cases.find((c) => c.name === name), figure));
   const realizedThere = first.cases.some((c) => c.name === "realized" && c.available);
@@ -61,7 +62,6 @@ function figureOf(c: SweepCaseFigures | undefined, figure: SweepFigure): number 
 export function sweepSeries(r: SweepResult): SweepSeries[] {
   return r.caseNames
     .filter((name) => r.points[0].cases.find((c) => c.name === name)?.available)
-    .filter((name) => !(name === "bare" && r.figure.name === "deliveredPower"))
     .map((name) => {
       const cs = r.points.map((p) => p.cases.find((c) => c.name === name));
       return { name, values: cs.map((c) => figureOf(c, r.figure)), converged: cs.map((c) => c?.converged ?? null) };

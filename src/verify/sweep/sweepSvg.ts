@@ -117,7 +117,7 @@ export function sweepSvg(frequenciesHz: readonly number[], series: readonly Swee
     ly += 20;
   }
   if (band?.limit != null && Number.isFinite(band.limit)) {
-    out.push(`<line x1="${lx}" x2="${lx + 22}" y1="${ly}" y2="${ly}" stroke="#d95f02" stroke-dasharray="6 4"/><text x="${lx + 28}" y="${ly}" dominant-baseline="middle">limit (${tickText(band.threshold)}× reduced)</text>`);
+    out.push(`<line x1="${lx}" x2="${lx + 22}" y1="${ly}" y2="${ly}" stroke="#d95f02" stroke-dasharray="6 4"/><text x="${lx + 28}" y="${ly}" dominant-baseline="middle">limit (reduced ${band.sense === "lower-is-better" ? "×" : "÷"} ${tickText(band.threshold)})</text>`);
     ly += 20;
   }
   if (band && band.lowHz !== null) {

@@ -14,11 +14,12 @@ import { loadDesign } from "../../../src/io/design/loadDesign.js";
 import { loadFieldForDesign } from "../../../src/io/fieldCsv.js";
 import { loadMaterialCatalog } from "../../../src/io/materialCatalog.js";
 import { loadProcessCatalog } from "../../../src/io/processCatalog.js";
-import { planFromField } from "../../../src/plan/runPlan.js";
+import { layerFor, planFromField } from "../../../src/plan/runPlan.js";
 import type { Plan, Recipe } from "../../../src/plan/planTypes.js";
 import { planAtFrequency, recipeAtFrequency, recipeContext } from "../../../src/verify/sweep/recipeAtFrequency.js";
 import { wireMediumResponse } from "../../../src/cells/wireMedium.js";
 import { evaluateMaterial } from "../../../src/media/material.js";
+import { getCellFamily } from "../../../src/cells/registry.js";
 import { expectClose } from "../../helpers/close.js";
 
 const DEMOS = ["plan-microwave-mast-cloak", "plan-mmwave-printed-bend", "plan-silicon-chip-bend", "plan-concentrator-subunity", "plan-microwave-carpet"];
@@ -91,6 +92,37 @@ describe("dispersive recipes change with frequency", () => {
     const other = plan.components.findIndex((c) => c.kind === "eps" && c.axis === "2");
     const a = recipeAtFrequency(recipe, ctx, 4e9).re[other], b = recipeAtFrequency(recipe, ctx, 8e9).re[other];
     expectClose(a, b, { rel: 1e-3, label: "ε across thin wires" });
+  });
+
+  it("dispersive materials: a Sellmeier slab's holes and a Lorentz solid follow their catalog models at f", async () => {
+    const { plan, catalog } = await planOf("plan-silicon-chip-bend");
+    const ctx = recipeContext(plan, catalog);
+    const holes = plan.levels.map((l) => l.recipe).find((r): r is Recipe => r?.family === "holes-in-slab")!;
+    expect(holes.host).toBe("silicon-nir");
+    const family = getCellFamily("holes-in-slab");
+    const air = catalog.find((m) => m.id === holes.inclusion)!;
+    const eps1 = plan.components.findIndex((c) => c.kind === "eps" && c.axis === "1");
+    const values = [170e12, 193.4e12, 230e12].map((f) => {
+      const v = recipeAtFrequency(holes, ctx, f);
+      // the design declares a silicon layer: its core enters as the slab mode's ε at f (as the planner does)
+      const layer = plan.settings.layer!;
+      expect(layer.coreId).toBe("silicon-nir");
+      const direct = family.effectivePermittivity(layerFor(layer, plan.settings.polarization, catalog, f).coreEps, evaluateMaterial(air, f).eps, holes.fillFraction, holes.lattice, { pitchM: plan.grid.pitchM, frequencyHz: f });
+      expectClose(v.re[eps1], direct.perpendicular.re, { rel: 1e-12, label: `holes across, ${f} Hz` });
+      return v.re[eps1];
+    });
+    // silicon's normal dispersion (Sellmeier: n rises with frequency below the band gap) and the slab
+    // mode's growing confinement both raise the cell's ε with frequency
+    expect(values[0]).toBeLessThan(values[1]);
+    expect(values[1]).toBeLessThan(values[2]);
+    // a solid cell of a Lorentz material (silicon carbide) is that material at f
+    const sic = catalog.find((m) => m.id === "silicon-carbide")!;
+    const solid: Recipe = { ...holes, family: "solid", host: "silicon-carbide", inclusion: "", fillFraction: 0, dimensions: {}, orientation: null };
+    for (const f of [sic.validMinHz, Math.sqrt(sic.validMinHz * sic.validMaxHz), sic.validMaxHz]) {
+      const v = recipeAtFrequency(solid, ctx, f);
+      const e = evaluateMaterial(sic, f).eps;
+      expectClose([v.re[eps1], v.im[eps1]], [e.re, e.im], { rel: 1e-12, abs: 1e-15, label: `SiC at ${f} Hz` });
+    }
   });
 
   it("the mast cloak's split rings follow their Lorentz μ(f): strongly dispersive near the design frequency", async () => {

@@ -35,7 +35,7 @@ describe("sweepSvg", () => {
     expect(svg).toContain("frequency (GHz)");
     expect(svg).toContain(">σ/σ_bare</text>");
     for (const name of ["bare", "reduced", "realized", "band", "not converged"]) expect(svg).toContain(`>${name}</text>`);
-    expect(svg).toContain("limit (2× reduced)");
+    expect(svg).toContain("limit (reduced × 2)");
     expect((svg.match(/<path /g) ?? []).length).toBe(3);
     expect((svg.match(/fill="white" stroke="#d95f02"/g) ?? []).length).toBe(1); // one hollow realized marker
     for (const tick of [">8<", ">9<", ">10<"]) expect(svg).toContain(tick);

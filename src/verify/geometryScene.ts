@@ -1,0 +1,193 @@
+/**
+ * The realized device drawn as the shop builds it (verify's `realized-geometry` case): every cell's
+ * inclusion at its real size and place, in the plan view the layout files draw
+ * (src/plan/layout/layoutShapes.ts), each point taking the bulk material it lies in. The solver's
+ * grid then resolves the inclusions (a step of at most the smallest feature / FEATURE_STEPS on the
+ * coarsest rung), and its sub-pixel averaging (gridCoefficients.ts: arithmetic for the field along
+ * an interface, harmonic across it) handles the inclusion boundaries.
+ *
+ * The 2D solver needs cells that do not vary along z, so only these are drawn:
+ * - rods and holes along z (`orientation` z): a disc of the recipe's radius at the cell centre;
+ * - laminates whose layer normal lies in the plane: one layer of thickness `thickness_m` across the
+ *   cell, its normal along x or y (the lattice axis nearer the cell's principal axis, as the layout);
+ * - solid cells: the cell square of the material.
+ * What the polarization sees per point: Ez — b = ε (the field along z, along the rods), T = μ·I;
+ * Hz — b = μ, T = ε·I (the field in the plane, across the rods). Bulk materials are isotropic.
+ *
+ * Refused, with the reason (never drawn wrong): rods, holes or laminates that vary along z (lying in
+ * the plane, stacked along z) — the section a 2D solve would extrude is a different structure;
+ * spheres and cubes — their section extruded along z is a rod or bar lattice, whose effective medium
+ * is the 2D one, not the 3D one the recipe used (Maxwell Garnett for spheres vs cylinders:
+ * Sihvola, "Electromagnetic Mixing Formulas and Applications", 1999, ch. 3), so the difference
+ * would not be the plan's homogenization error; split rings, wires and printed strut lattices
+ * (resonant metal or 3D printed parts); metal inclusions (their skin depth is far below any grid);
+ * cells without a recipe are background in both realized cases and need no drawing.
+ */
+import type { Complex } from "../core/complex.js";
+import type { Plan, Recipe } from "../plan/planTypes.js";
+import { diskConductor, type Conductor } from "./conductor.js";
+import { deviceBounds, latticeLookup, type HiddenDisk } from "./deviceScene.js";
+import { SAMPLE_BACKGROUND, SAMPLE_MEDIUM, SAMPLE_PEC, S_B, S_TXX, S_TXY, S_TYY, type Scene, type ScenePolarization } from "./scene.js";
+
+/** Grid steps across the smallest drawn feature on the coarsest rung of the ladder (common practice: 8–10 points across a feature). */
+export const FEATURE_STEPS = 8;
+
+/** A bulk material at the design frequency. */
+export interface BulkMaterial {
+  eps: Complex;
+  mu: Complex;
+  /** metals are not drawn (skin depth far below the grid) */
+  isMetal: boolean;
+}
+
+/** How one recipe is drawn in its cell (local coordinates, cell centre at 0). */
+export type CellDrawing =
+  | { kind: "solid"; material: string }
+  | { kind: "disc"; radiusM: number; inside: string; outside: string }
+  /** a layer of `inside` of thickness t centred on the cell, normal along x (`normalX`) or y */
+  | { kind: "layer"; thicknessM: number; normalX: boolean | null; inside: string; outside: string };
+
+/** The drawing of a recipe, or why it has none. `normalX` of a layer is decided per cell (axis angle). */
+export function cellDrawing(r: Recipe): CellDrawing | { reason: string } {
+  if (r.family === "solid") return { kind: "solid", material: r.host };
+  if (r.family === "rods-in-host" || r.family === "holes-in-slab") {
+    const radius = r.dimensions.radius_m;
+    if (!(radius > 0)) return { reason: `${r.family} without a radius` };
+    if (r.orientation !== "z") return { reason: `${r.family} lying in the plane (along axis ${r.orientation}) varies along z: a 2D (z-invariant) solve cannot draw it` };
+    return { kind: "disc", radiusM: radius, inside: r.inclusion || "vacuum", outside: r.host };
+  }
+  if (r.family === "laminate") {
+    const t = r.dimensions.thickness_m;
+    if (!(t > 0)) return { reason: "laminate without a layer thickness" };
+    if (r.orientation === "z") return { reason: "laminate stacked along z varies along z: a 2D (z-invariant) solve cannot draw it" };
+    return { kind: "layer", thicknessM: t, normalX: null, inside: r.inclusion || "vacuum", outside: r.host };
+  }
+  if (r.family === "spheres-in-host" || r.family === "cubes-in-host") {
+    return { reason: `${r.family} are 3D inclusions: their section extruded along z would be a rod lattice with the 2D, not the 3D, effective medium` };
+  }
+  if (r.family === "split-ring" || r.family === "wire-medium") return { reason: `${r.family} cells are resonant metal structures, far below any grid that fits` };
+  if (r.family === "strut-lattice") return { reason: "strut-lattice cells are 3D printed lattices with no z-invariant section" };
+  return { reason: `${r.family} has no drawable 2D section` };
+}
+
+export interface GeometrySceneInput {
+  plan: Pick<Plan, "grid" | "level" | "levels" | "axisAngleRad">;
+  /** bulk materials by id at the design frequency (the plan's own values, layer core included) */
+  materials: ReadonlyMap<string, BulkMaterial>;
+  polarization: ScenePolarization;
+  background: { eps: number; mu: number };
+  hidden: HiddenDisk | null;
+  /** further conductors every case stands on (a carpet's bump) */
+  extraConductors?: readonly Conductor[];
+}
+
+export type GeometrySceneResult =
+  | { ok: true; scene: Scene; smallestFeatureM: number; indexHint: number; notes: string[] }
+  | { ok: false; reason: string };
+
+const VACUUM: BulkMaterial = { eps: { re: 1, im: 0 }, mu: { re: 1, im: 0 }, isMetal: false };
+
+/** "levels 1, 2, 4: why; level 3: why" — one entry per distinct reason. */
+function groupByReason(refused: { level: number; reason: string }[]): string {
+  const by = new Map<string, number[]>();
+  for (const r of refused) by.set(r.reason, [...(by.get(r.reason) ?? []), r.level]);
+  return [...by].map(([why, ls]) => `${ls.length > 1 ? "levels" : "level"} ${ls.join(", ")}: ${why}`).join("; ");
+}
+
+/** Build the drawn scene (see file comment), or say why the plan cannot be drawn. */
+export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
+  const { plan, materials, polarization } = input;
+  const g = plan.grid;
+  const a = g.pitchM;
+  if (g.dimension !== 2) return { ok: false, reason: "the design's cells are 3D" };
+  const used = new Uint8Array(plan.levels.length);
+  for (let c = 0; c < g.count; c++) if (plan.level[c] >= 0) used[plan.level[c]] = 1;
+  const drawings: (CellDrawing | null)[] = [];
+  const refused: { level: number; reason: string }[] = [];
+  const mat = (id: string): BulkMaterial | undefined => (id === "vacuum" ? materials.get(id) ?? VACUUM : materials.get(id));
+  let feature = Infinity, index = 0;
+  const hex = new Set<number>();
+  plan.levels.forEach((lv, l) => {
+    const r = lv.recipe;
+    if (!used[l] || !r) { drawings.push(null); return; }
+    const d = cellDrawing(r);
+    if ("reason" in d) { drawings.push(null); refused.push({ level: lv.index, reason: `${d.reason}` }); return; }
+    const ids = d.kind === "solid" ? [d.material] : [d.inside, d.outside];
+    for (const id of ids) {
+      const m = mat(id);
+      if (!m) { refused.push({ level: lv.index, reason: `material '${id}' has no value at the design frequency` }); drawings.push(null); return; }
+      if (m.isMetal) { refused.push({ level: lv.index, reason: `metal '${id}' (its skin depth is far below any grid that fits)` }); drawings.push(null); return; }
+      index = Math.max(index, Math.sqrt(Math.hypot(m.eps.re, m.eps.im) * Math.hypot(m.mu.re, m.mu.im)));
+    }
+    if (d.kind === "disc") {
+      if (2 * d.radiusM >= a) { refused.push({ level: lv.index, reason: `the discs (radius ${d.radiusM.toPrecision(3)} m) touch or overlap on the device's square cells (pitch ${a.toPrecision(3)} m)` }); drawings.push(null); return; }
+      feature = Math.min(feature, 2 * d.radiusM, a - 2 * d.radiusM);
+      if (r.lattice === "hex") hex.add(lv.index);
+    } else if (d.kind === "layer") {
+      if (d.thicknessM >= a) { refused.push({ level: lv.index, reason: `a layer ${d.thicknessM.toPrecision(3)} m thick fills the ${a.toPrecision(3)} m cell` }); drawings.push(null); return; }
+      feature = Math.min(feature, d.thicknessM, a - d.thicknessM);
+    }
+    drawings.push(d);
+  });
+  if (drawings.every((d) => d === null) && !refused.length) return { ok: false, reason: "no cell of the plan has a recipe: there is nothing to draw" };
+  if (refused.length) return { ok: false, reason: `not every cell can be drawn in 2D — ${groupByReason(refused)}` };
+  if (!Number.isFinite(feature)) feature = a; // solid cells only: the cell is the feature
+  // the discs of neighbouring cells: the widest disc sets the narrowest wall
+  const lut = latticeLookup(g);
+  const n = g.count;
+  // per cell: drawing kind code, radius or thickness, normalX, inside and outside material values
+  const kindOf = new Uint8Array(n), size = new Float64Array(n), normalX = new Uint8Array(n);
+  const inside = new Float64Array(4 * n), outside = new Float64Array(4 * n);
+  const put = (dst: Float64Array, c: number, m: BulkMaterial): void => { dst[4 * c] = m.eps.re; dst[4 * c + 1] = m.eps.im; dst[4 * c + 2] = m.mu.re; dst[4 * c + 3] = m.mu.im; };
+  for (let c = 0; c < n; c++) {
+    const l = plan.level[c];
+    const d = l >= 0 ? drawings[l] : null;
+    if (!d) { kindOf[c] = 0; continue; } // no recipe: background, as in the homogenized realized map
+    if (d.kind === "solid") { kindOf[c] = 1; put(inside, c, mat(d.material)!); continue; }
+    put(inside, c, mat(d.inside)!); put(outside, c, mat(d.outside)!);
+    if (d.kind === "disc") { kindOf[c] = 2; size[c] = d.radiusM; continue; }
+    kindOf[c] = 3; size[c] = d.thicknessM;
+    // the layer normal is the principal axis (2 at axisAngle, 1 across it), snapped to x or y (layoutShapes.ts)
+    const r = plan.levels[l].recipe!;
+    const th = plan.axisAngleRad[c], nrm = r.orientation === "2" ? th : th + Math.PI / 2;
+    normalX[c] = Math.abs(Math.cos(nrm)) >= Math.abs(Math.sin(nrm)) ? 1 : 0;
+  }
+  const bounds = deviceBounds(g);
+  const conductors: Conductor[] = [...(input.extraConductors ?? [])];
+  if (input.hidden) {
+    const [cx, cy] = input.hidden.centerM, r = input.hidden.radiusM;
+    conductors.push(diskConductor(input.hidden.centerM, r));
+    bounds.minX = Math.min(bounds.minX, cx - r); bounds.maxX = Math.max(bounds.maxX, cx + r);
+    bounds.minY = Math.min(bounds.minY, cy - r); bounds.maxY = Math.max(bounds.maxY, cy + r);
+  }
+  const ox = g.originXM, oy = g.originYM;
+  const ez = polarization === "Ez";
+  const scene: Scene = {
+    polarization,
+    background: input.background,
+    bounds,
+    conductors,
+    sample(x, y, out) {
+      for (const cd of conductors) if (cd.signedDistanceM(x, y) < 0) return SAMPLE_PEC;
+      const i = Math.round((x - ox) / a), j = Math.round((y - oy) / a);
+      if (i < 0 || j < 0 || i >= g.nx || j >= g.ny) return SAMPLE_BACKGROUND;
+      const c = lut[i + g.nx * j];
+      if (c < 0 || kindOf[c] === 0) return SAMPLE_BACKGROUND;
+      const lx = x - (ox + i * a), ly = y - (oy + j * a);
+      const k = kindOf[c];
+      const within = k === 1 || (k === 2 ? lx * lx + ly * ly < size[c] * size[c] : Math.abs(normalX[c] ? lx : ly) < size[c] / 2);
+      const src = within ? inside : outside, o = 4 * c;
+      // Ez: b = ε, T = μ·I; Hz: b = μ, T = ε·I
+      const bRe = ez ? src[o] : src[o + 2], bIm = ez ? src[o + 1] : src[o + 3];
+      const tRe = ez ? src[o + 2] : src[o], tIm = ez ? src[o + 3] : src[o + 1];
+      out[S_B] = bRe; out[S_B + 1] = bIm;
+      out[S_TXX] = tRe; out[S_TXX + 1] = tIm;
+      out[S_TYY] = tRe; out[S_TYY + 1] = tIm;
+      out[S_TXY] = 0; out[S_TXY + 1] = 0;
+      return SAMPLE_MEDIUM;
+    },
+  };
+  const notes: string[] = [];
+  if (hex.size) notes.push(`realized-geometry: hexagonal-lattice recipes (levels ${[...hex].join(", ")}) are drawn on the device's square cells with their own radius, as the layout files draw them (area fraction fill × √3/2)`);
+  return { ok: true, scene, smallestFeatureM: feature, indexHint: index, notes };
+}
