@@ -15,8 +15,6 @@ import { loadProcessCatalog } from "../../io/processCatalog.js";
 import { loadSessionFile } from "../../io/sessionFile.js";
 import { planSummary } from "../../plan/outputs/planSummary.js";
 import { planFromField } from "../../plan/runPlan.js";
-import { searchRemedies } from "../../io/planRemedies.js";
-import { layoutFiles } from "../../io/layout/layoutFiles.js";
 import type { Plan, PlanOverrides } from "../../plan/planTypes.js";
 import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
@@ -100,6 +98,8 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
   for (const w of plan.warnings) io.stderr(`warning: ${w}\n`);
   if (!plan.verdict.buildable) {
     if (!json) io.stderr("… trying remedies (re-planning)\n");
+    // loaded only when needed (as the layout writers below): a buildable plan never pays their module load
+    const { searchRemedies } = await import("../../io/planRemedies.js");
     plan.remedies = searchRemedies(plan, design, field, { materials, processes }, overrides);
   }
   const controller = new AbortController();
@@ -109,7 +109,8 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
   process.once("SIGTERM", onSigint);
   let outputs: string[];
   try {
-    outputs = await writePlanOutputs(plan, resolve(io.cwd, outDir), { signal: controller.signal, extra: opts.layout ? layoutFiles(plan, io) : [] });
+    const extra = opts.layout ? (await import("../../io/layout/layoutFiles.js")).layoutFiles(plan, io) : [];
+    outputs = await writePlanOutputs(plan, resolve(io.cwd, outDir), { signal: controller.signal, extra });
   } catch (err) {
     if ((err as Error).name === "AbortError") { io.stderr("interrupted; no output was written\n"); return EXIT_INTERRUPTED; }
     throw err;
