@@ -23,6 +23,8 @@ export interface RadialCaseResult {
   scatteringWidthM: number | null;
   /** σ_s / σ_s(bare) when a bare case was computed */
   vsBare: number | null;
+  /** its absolute uncertainty (σ_s's over σ_bare) */
+  vsBareUncertainty: number | null;
   absorptionWidthM: number | null;
   /** max(tolerance-ladder change, order tail) × σ_s, relative to max(σ_s, σ_bare, 2R) (widthReading.ts, the grid's rule) */
   uncertainty: number | null;
@@ -80,7 +82,7 @@ function sampledCore(scene: Scene, centre: [number, number], coreRadiusM: number
 /** Solve every case of `cases` radially (see file comment); k0 in rad/m. */
 export function radialCases(spec: TransformSpec, cases: CaseSpec[], k0: number, tolerance = 1e-9, incidenceRad = 0): RadialCaseResult[] {
   const geo = radialGeometry(spec);
-  const unavailable = (name: CaseSpec["name"], reason: string): RadialCaseResult => ({ name, available: false, reason, scatteringWidthM: null, vsBare: null, absorptionWidthM: null, uncertainty: null, scatteringWidthUncertaintyM: null, scatteringWidthBelowM: null, bistaticM: null });
+  const unavailable = (name: CaseSpec["name"], reason: string): RadialCaseResult => ({ name, available: false, reason, scatteringWidthM: null, vsBare: null, vsBareUncertainty: null, absorptionWidthM: null, uncertainty: null, scatteringWidthUncertaintyM: null, scatteringWidthBelowM: null, bistaticM: null });
   if ("reason" in geo) return cases.map((c) => unavailable(c.name, geo.reason));
   const results: RadialCaseResult[] = cases.map((c) => {
     if (!c.scene) return unavailable(c.name, c.reason ?? "not computed");
@@ -100,7 +102,7 @@ export function radialCases(spec: TransformSpec, cases: CaseSpec[], k0: number, 
     const s = radialScattering(problem);
     return {
       name: c.name, available: true, reason: null,
-      scatteringWidthM: s.scatteringWidthM, vsBare: null, absorptionWidthM: s.absorptionWidthM,
+      scatteringWidthM: s.scatteringWidthM, vsBare: null, vsBareUncertainty: null, absorptionWidthM: s.absorptionWidthM,
       uncertainty: Math.max(s.convergence.relativeChange, s.convergence.tail),
       scatteringWidthUncertaintyM: null, scatteringWidthBelowM: null,
       bistaticM: patternAt(s.aRe, s.aIm, s.k, incidenceRad),
@@ -113,7 +115,10 @@ export function radialCases(spec: TransformSpec, cases: CaseSpec[], k0: number, 
     if (!r.available) continue;
     const w = widthReading(r.scatteringWidthM!, r.uncertainty! * r.scatteringWidthM!, { referenceM: bare?.scatteringWidthM ?? null, deviceWidthM: 2 * geo.outerRadiusM });
     r.scatteringWidthM = w.valueM;
-    if (bare && bare.scatteringWidthM! > 0) r.vsBare = w.valueM / bare.scatteringWidthM!;
+    if (bare && bare.scatteringWidthM! > 0) {
+      r.vsBare = w.valueM / bare.scatteringWidthM!;
+      r.vsBareUncertainty = w.uncertaintyM! / bare.scatteringWidthM!;
+    }
     r.uncertainty = w.relative;
     r.scatteringWidthUncertaintyM = w.uncertaintyM;
     r.scatteringWidthBelowM = w.belowM;

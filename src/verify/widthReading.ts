@@ -57,7 +57,12 @@ export function widthReading(valueM: number, uncertaintyM: number | null, scale:
   return { valueM: v, uncertaintyM: u, relative: u === null ? null : s > 0 ? u / s : 0, belowM: zero ? top : null };
 }
 
-/** A ratio such as σ/σ_bare extrapolated on its own: never below zero (the width it divides is not). */
-export function clampRatio(v: number | null): number | null {
-  return v === null ? null : Math.max(0, v);
+/**
+ * A figure that cannot leave [lo, hi] (σ/σ_bare ≥ 0, a delivered share in [0, 1]) extrapolated on its
+ * own: clamped into the range, its absolute uncertainty widened to reach the extrapolated value
+ * (as for widths). Example: clampFigure(-0.01, 0.004, 0) → { value: 0, uncertainty: 0.01 }.
+ */
+export function clampFigure(value: number, uncertainty: number | null, lo: number, hi = Infinity): { value: number; uncertainty: number | null } {
+  const v = Math.min(hi, Math.max(lo, value));
+  return { value: v, uncertainty: uncertainty === null ? null : Math.max(Math.abs(uncertainty), Math.abs(v - value)) };
 }

@@ -15,7 +15,7 @@ import { deviceCases } from "../../src/verify/deviceCases.js";
 import { richardson } from "../../src/verify/richardson.js";
 import { emptyScene, SAMPLE_BACKGROUND, SAMPLE_MEDIUM, type Scene } from "../../src/verify/scene.js";
 import { verifyDevice } from "../../src/verify/verifyDevice.js";
-import { clampRatio, widthReading, ZERO_WIDTH_FRACTION } from "../../src/verify/widthReading.js";
+import { clampFigure, widthReading, ZERO_WIDTH_FRACTION } from "../../src/verify/widthReading.js";
 
 const C0 = 299_792_458;
 const f = 10e9, lambda = C0 / f;
@@ -57,10 +57,13 @@ describe("widthReading", () => {
     expect(widthReading(0, 0, { referenceM: null, deviceWidthM: 0 })).toEqual({ valueM: 0, uncertaintyM: 0, relative: 0, belowM: 0 });
   });
 
-  it("ratios are clamped at zero", () => {
-    expect(clampRatio(-0.01)).toBe(0);
-    expect(clampRatio(0.5)).toBe(0.5);
-    expect(clampRatio(null)).toBeNull();
+  it("bounded figures (σ/σ_bare ≥ 0, a share in [0, 1]) are clamped, their uncertainty reaching the extrapolated value", () => {
+    expect(clampFigure(-0.01, 0.004, 0)).toEqual({ value: 0, uncertainty: 0.01 });
+    expect(clampFigure(-0.01, 0.04, 0)).toEqual({ value: 0, uncertainty: 0.04 });
+    expect(clampFigure(0.5, 0.01, 0)).toEqual({ value: 0.5, uncertainty: 0.01 });
+    expect(clampFigure(1.02, 0.01, 0, 1).value).toBe(1);
+    expect(clampFigure(1.02, 0.01, 0, 1).uncertainty).toBeCloseTo(0.02, 12);
+    expect(clampFigure(0.3, null, 0)).toEqual({ value: 0.3, uncertainty: null });
   });
 });
 

@@ -40,9 +40,13 @@ export interface SweepCaseFigures {
   available: boolean;
   reason: string | null;
   scatteringWidthM: number | null;
+  /** absolute uncertainties of the three figures of merit (null: none, a single grid) */
+  scatteringWidthUncertaintyM: number | null;
   absorptionWidthM: number | null;
   vsBare: number | null;
+  vsBareUncertainty: number | null;
   deliveredPower: number | null;
+  deliveredPowerUncertainty: number | null;
   deviationDeg: number | null;
   /** relative uncertainty of the headline figure (null on a single grid) */
   uncertainty: number | null;
@@ -77,8 +81,9 @@ export function solveSweepPoint(ctx: SweepContext, frequencyHz: number, onProgre
     ground: built.ground != null,
     cases: r.cases.map((c) => ({
       name: c.name, available: c.available, reason: c.reason,
-      scatteringWidthM: fin(c.scatteringWidthM), absorptionWidthM: fin(c.absorptionWidthM), vsBare: fin(c.vsBare),
-      deliveredPower: fin(c.deliveredPower), deviationDeg: fin(c.deviationDeg), uncertainty: fin(c.uncertainty), converged: c.converged,
+      scatteringWidthM: fin(c.scatteringWidthM), scatteringWidthUncertaintyM: fin(c.scatteringWidthUncertaintyM),
+      absorptionWidthM: fin(c.absorptionWidthM), vsBare: fin(c.vsBare), vsBareUncertainty: fin(c.vsBareUncertainty),
+      deliveredPower: fin(c.deliveredPower), deliveredPowerUncertainty: fin(c.deliveredPowerUncertainty), deviationDeg: fin(c.deviationDeg), uncertainty: fin(c.uncertainty), converged: c.converged,
     })),
     resolutions: r.resolutions,
     grid: { nx: r.grid.nx, ny: r.grid.ny, stepM: r.grid.h },
