@@ -37,7 +37,7 @@ describe("sweep summary with uncertainties", () => {
     expect(b.meetsLimit).toEqual(["no", "uncertain", "yes", "yes", "no"]);
     expectClose(b.lowRangeHz![1], 9e9 - 0.5e9 * (0.37 / 0.42), { rel: 1e-12 });
     expect(b.lowConverged).toBe(false);
-    const json = sweepJson(r, 2) as { band: Record<string, unknown>; cases: { name: string; vsBareUncertainty: (number | null)[] }[] };
+    const json = sweepJson(r, 2) as unknown as { band: Record<string, unknown>; cases: { name: string; vsBareUncertainty: (number | null)[] }[] };
     expect(json.band.lowRangeHz).toEqual(b.lowRangeHz);
     expect(json.band.lowConverged).toBe(false);
     expect(json.band.meetsLimit).toEqual(["no", "uncertain", "yes", "yes", "no"]);
