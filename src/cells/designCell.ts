@@ -17,7 +17,7 @@
 import { cAbs, cSub } from "../core/complex.js";
 import { ProgrammerError } from "../core/errors.js";
 import { axisClosedForm, axisRule, axisValue, type Axis, type CellFamily, type FillResult } from "./cellFamily.js";
-import { homogenizationFor, homogenizationNote, matchError, processCheckFor, shapedPhases } from "./cellChecks.js";
+import { homogenizationFor, homogenizationNote, matchError, processCheckFor } from "./cellChecks.js";
 import type { CellDesign, CellDesignRequest, CellTarget } from "./cellDesignTypes.js";
 import { designResonantCell } from "./designResonantCell.js";
 import { cellSpread } from "./mixingSpread.js";
@@ -112,7 +112,7 @@ function designMixedCell(req: CellDesignRequest, family: CellFamily): CellDesign
   }
 
   const feature = family.smallestFeatureM(fill, pitchM, lattice, aspect);
-  const processCheck = processCheckFor(req.process, { ...feature, ...(req.heightM !== undefined ? { heightM: req.heightM } : {}) }, shapedPhases(family.fabricatedPhase, host, inclusion));
+  const processCheck = processCheckFor(req.process, family.fabricatedPhase, host.class, inclusion.class, { ...feature, ...(req.heightM !== undefined ? { heightM: req.heightM } : {}) });
   if (processCheck && !processCheck.ok) reasons.push(...processCheck.reasons);
   // a rect cell is judged by its longer spacing
   const homogenization = homogenizationFor(pitchM * Math.max(1, aspect ?? 1), req.frequencyHz, [host, inclusion], [e.parallel, e.perpendicular, ...(e.perpendicularY ? [e.perpendicularY] : [])]);

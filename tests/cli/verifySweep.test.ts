@@ -5,30 +5,21 @@
  * NaN/Infinity/short rows), the output set's manifest, the JSON `sweep` object, and the sweep at
  * the design frequency equal to a plain `verify` there (one pipeline, not a second model).
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { describe, expect, it } from "vitest";
+import { existsSync, readFileSync, readdirSync } from "node:fs";
 import { join } from "node:path";
 import { parse } from "csv-parse/sync";
-import { bufferIo } from "../../src/cli/cliIo.js";
-import { runCli } from "../../src/cli/run.js";
+import { DEMO_DIR, cliInTempDir } from "../helpers/cliInTempDir.js";
 import { parseSweep, parseThreshold } from "../../src/cli/commands/verifySweep.js";
 import { InputError } from "../../src/core/errors.js";
 import { checkOutputSet } from "../../src/io/outputSet.js";
 import { expectClose } from "../helpers/close.js";
 
-const DEMO = join(import.meta.dirname, "..", "..", "demo-designs");
+const DEMO = DEMO_DIR;
 const CLOAK = join(DEMO, "field-radial-cloak.json"); // no realization, 9.4 GHz, Ez
 const MAST = join(DEMO, "plan-microwave-mast-cloak.json"); // split rings, 8.5 GHz, Ez, unit-mu
-let dir = "";
-beforeAll(() => { dir = mkdtempSync(join(tmpdir(), "cw-sweep-")); });
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-async function run(args: string[]) {
-  const io = bufferIo(dir);
-  const code = await runCli(["verify", ...args], io);
-  return { code, out: io.out(), err: io.err() };
-}
+const cli = cliInTempDir("verify", "cw-sweep-");
+const run = cli.run;
 
 describe("--sweep parser", () => {
   it("reads START..STOP:COUNT with units through the quantity parser", async () => {
@@ -65,7 +56,7 @@ describe("--sweep parser", () => {
   });
 
   it("the command refuses a bad sweep or a lone --threshold with exit 1 and writes nothing", async () => {
-    const out = join(dir, "refused");
+    const out = join(cli.dir, "refused");
     for (const args of [
       [CLOAK, "--sweep", "8 GHz..10 GHz", "--out", out],
       [CLOAK, "--threshold", "2", "--out", out],
@@ -83,7 +74,7 @@ describe("--sweep parser", () => {
 
 describe("verify --sweep", () => {
   it("a design without a realization: bare, ideal and reduced at each frequency; CSV, SVG and manifest; no band", async () => {
-    const out = join(dir, "cloak");
+    const out = join(cli.dir, "cloak");
     const r = await run([CLOAK, "--sweep", "9 GHz..9.8 GHz:3", "--resolution", "8", "--margin", "8 mm", "--json", "--out", out]);
     expect(r.code, r.err).toBe(0);
     expect(r.out.trim().split("\n")).toHaveLength(1);
@@ -123,7 +114,7 @@ describe("verify --sweep", () => {
   }, 60_000);
 
   it("the split-ring mast cloak: realized figures move with the rings' resonance; the design frequency equals a plain verify", async () => {
-    const out = join(dir, "mast");
+    const out = join(cli.dir, "mast");
     const r = await run([MAST, "--sweep", "8.4 GHz..8.6 GHz:3", "--resolution", "8", "--json", "--out", out]);
     expect(r.code, r.err).toBe(0);
     const s = JSON.parse(r.out);

@@ -26,7 +26,7 @@ const DEMOS: Record<string, string> = {
   "field-expression.json": "8 mm",
   "field-spherical-cloak.json": "10 mm",
   "plan-microwave-mast-cloak.json": "",
-  "plan-mmwave-printed-bend.json": "3 mm",
+  "plan-printed-bend.json": "3 mm",
   "plan-silicon-chip-bend.json": "",
   "plan-concentrator-subunity.json": "",
 };

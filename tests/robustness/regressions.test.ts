@@ -226,7 +226,7 @@ describe("memory is estimated before allocating", () => {
   });
 
   it("a pitch whose cells exceed the memory budget is refused with the estimate and a pitch that fits", async () => {
-    const d = demo("plan-mmwave-printed-bend.json");
+    const d = demo("plan-printed-bend.json");
     d.grid.pitch = "0.05 mm"; // 8.8e5 cells: about 0.5 GB for plan
     process.env.CELLWRIGHT_MEMORY_LIMIT = "100 MB";
     try {

@@ -22,6 +22,7 @@ import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_INPUT, EXIT_INTERRUPTED, EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
+import { runInterruptible } from "../interruptible.js";
 import { join, resolve } from "node:path";
 
 export const DEFAULT_OUT_DIR = "cellwright-out";
@@ -102,21 +103,11 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
     if (!json) io.stderr("… trying remedies (re-planning)\n");
     plan.remedies = searchRemedies(plan, design, field, { materials, processes }, overrides);
   }
-  const controller = new AbortController();
   // Ctrl+C or a polite kill while writing: stop, remove the temporary files, write nothing.
-  const onSigint = (): void => controller.abort();
-  process.once("SIGINT", onSigint);
-  process.once("SIGTERM", onSigint);
-  let outputs: string[];
-  try {
-    outputs = await writePlanOutputs(plan, resolve(io.cwd, outDir), { signal: controller.signal, extra: opts.layout ? layoutFiles(plan, io) : [] });
-  } catch (err) {
-    if ((err as Error).name === "AbortError") { io.stderr("interrupted; no output was written\n"); return EXIT_INTERRUPTED; }
-    throw err;
-  } finally {
-    process.off("SIGINT", onSigint);
-    process.off("SIGTERM", onSigint);
-  }
+  const written = await runInterruptible(io, (signal) =>
+    writePlanOutputs(plan, resolve(io.cwd, outDir), { signal, extra: opts.layout ? layoutFiles(plan, io) : [] }));
+  if (written.interrupted) return EXIT_INTERRUPTED;
+  const outputs = written.value;
   if (json) io.stdout(`${JSON.stringify(planSummary(plan, outputs))}\n`);
   else io.stdout(humanSummary(plan, outputs));
   return plan.buildable ? EXIT_OK : EXIT_NOT_BUILDABLE;

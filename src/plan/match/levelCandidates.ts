@@ -11,7 +11,7 @@ import { EPS0_F_PER_M } from "../../core/physicalConstants.js";
 import { cAbs, complex, cSub, refractiveIndex, type Complex } from "../../core/complex.js";
 import { axisClosedForm, axisRule, axisSolvedError, axisValue, type CellFamily } from "../../cells/cellFamily.js";
 import type { Lattice } from "../../cells/lattice.js";
-import { checkProcess } from "../../cells/process.js";
+import { processCheckFor } from "../../cells/cellChecks.js";
 import { homogenizationCheck } from "../../cells/homogenization.js";
 import { designSplitRing, ringModelSpread, splitRingBandwidth } from "../../cells/splitRing.js";
 import { printedOuterRadiusM } from "../../cells/printedRing.js";
@@ -132,16 +132,9 @@ function dropFarOff(search: LevelSearch, tolerance: number): LevelSearch {
   return { candidates: kept, refusals: search.refusals };
 }
 
-/** Check the process on the fabricated phase(s); returns reasons (empty when fine). */
+/** Check the process on the part it shapes (cells/cellChecks.ts `processCheckFor`); returns reasons (empty when fine). */
 function processReasons(ctx: MatchContext, family: CellFamily, host: EvaluatedMaterial, inc: EvaluatedMaterial, featureM: number, gapM: number): string[] {
-  if (!ctx.process) return [];
-  const phases = family.fabricatedPhase === "both" ? [host, inc] : family.fabricatedPhase === "host" ? [host] : [inc];
-  const reasons: string[] = [];
-  for (const p of phases) {
-    if (p.material.class === "gas") continue;
-    reasons.push(...checkProcess(ctx.process, { featureM, gapM }, p.material.class).reasons);
-  }
-  return reasons;
+  return processCheckFor(ctx.process ?? undefined, family.fabricatedPhase, host.material.class, inc.material.class, { featureM, gapM })?.reasons ?? [];
 }
 
 function homogenization(ctx: MatchContext, phases: Complex[]): { status: "ok" | "warn" | "refuse"; ratio: number } {
