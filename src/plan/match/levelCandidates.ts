@@ -9,7 +9,7 @@
  */
 import { EPS0_F_PER_M } from "../../core/physicalConstants.js";
 import { cAbs, complex, cSub, refractiveIndex, type Complex } from "../../core/complex.js";
-import type { CellFamily } from "../../cells/cellFamily.js";
+import { axisClosedForm, axisRule, axisSolvedError, axisValue, type CellFamily } from "../../cells/cellFamily.js";
 import type { Lattice } from "../../cells/lattice.js";
 import { processCheckFor } from "../../cells/cellChecks.js";
 import { homogenizationCheck } from "../../cells/homogenization.js";
@@ -67,7 +67,8 @@ export function levelCandidates(target: number[], ctx: MatchContext): LevelSearc
   search.candidates.push(...solidCandidates(target, ctx));
 
   for (const family of ctx.families) {
-    const lattices = family.lattices.filter((l) => ctx.lattice === null || l === ctx.lattice);
+    // rect lattices only when the design asks for them (realization.lattice)
+    const lattices = family.lattices.filter((l) => (ctx.lattice === null && l !== "rect") || l === ctx.lattice);
     if (lattices.length === 0) { refuse(search, `${family.id} has no ${ctx.lattice} lattice`); continue; }
     if (family.id === "split-ring") {
       if (magneticIdx.length === 0) continue; // resonant: only where needed
@@ -200,15 +201,16 @@ function mixed(
   const notes: string[] = [];
   for (const k of epsIdx) {
     const axis = axisFor(family, o, comps[k].axis);
-    const rule = ap.rules[axis];
-    const u = rule === "solved-cell" ? (ap.solvedError?.[axis] ?? 0)
-      : rule === "wire-medium" ? wireUncertainty(ap[axis], host.eps, family.dimensionsFromFill(fill, ctx.pitchM, lattice).radiusM / ctx.pitchM)
+    const rule = axisRule(ap, axis);
+    const value = axisValue(ap, axis);
+    const u = rule === "solved-cell" ? (axisSolvedError(ap, axis) ?? 0)
+      : rule === "wire-medium" ? wireUncertainty(value, host.eps, family.dimensionsFromFill(fill, ctx.pitchM, lattice).radiusM / ctx.pitchM)
       : mixingSpread(rule, family.dimension, host.eps, inc.eps, fill);
     spread = Math.max(spread, Number.isFinite(u) ? u : 1);
-    const closed = ap.closedForm?.[axis];
+    const closed = axisClosedForm(ap, axis);
     if (rule === "solved-cell" && closed) {
-      const d = cAbs(cSub(closed, ap[axis])) / cAbs(ap[axis]);
-      if (d > ctx.tolerance) notes.push(`${axis}: the closed form (${ap.closedForm!.rules[axis]}) differs from the solved cell by ${Number((100 * d).toPrecision(3))} %; the solved value is used`);
+      const d = cAbs(cSub(closed.value, value)) / cAbs(value);
+      if (d > ctx.tolerance) notes.push(`${axis}: the closed form (${closed.rule}) differs from the solved cell by ${Number((100 * d).toPrecision(3))} %; the solved value is used`);
     }
   }
   if (ap.unsolved) notes.push(`not solved (${ap.unsolved}): closed form used`);
