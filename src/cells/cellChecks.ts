@@ -13,19 +13,35 @@ export function matchError(achieved: Complex, target: number): number {
 /** The ±band a tolerance allows around a target: tolerance·max(|target|, 1). */
 export const toleranceAbs = (tolerance: number, target: number): number => tolerance * Math.max(Math.abs(target), 1);
 
-/** Phases the process must shape: gases and liquids are never shaped (they fill what is made). */
-export function shapedPhases(which: FabricatedPhase, host: CellPhase, inclusion: CellPhase): CellPhase[] {
-  const list = which === "both" ? [inclusion, host] : which === "host" ? [host] : [inclusion];
-  return list.filter((p) => p.class !== "gas" && p.class !== "liquid");
+const isFluid = (materialClass: string): boolean => materialClass === "gas" || materialClass === "liquid";
+
+/**
+ * The solid part a process shapes, and its smallest sizes. A gas or liquid phase is never shaped:
+ * where the family's fabricated phase is one (air rods are holes in the host, air spheres are voids),
+ * the process shapes the other phase around it, so the roles of feature (smallest solid part) and gap
+ * (smallest opening) swap. Null when both phases are fluid: there is nothing to shape.
+ * Example: rods of air (diameter 0.3 mm, walls 0.1 mm) in resin → resin, feature 0.1 mm, gap 0.3 mm.
+ */
+export function shapedPart(which: FabricatedPhase, hostClass: string, inclusionClass: string, feature: SmallestFeature): { classes: string[]; feature: SmallestFeature } | null {
+  const named = which === "both" ? [inclusionClass, hostClass] : which === "host" ? [hostClass] : [inclusionClass];
+  const solid = named.filter((c) => !isFluid(c));
+  if (solid.length) return { classes: [...new Set(solid)], feature };
+  const other = which === "host" ? inclusionClass : which === "inclusion" ? hostClass : null;
+  if (other === null || isFluid(other)) return null;
+  return { classes: [other], feature: { featureM: feature.gapM, gapM: feature.featureM } };
 }
 
-/** Process check over every shaped phase (the size reasons once, each unsupported material once). */
-export function processCheckFor(process: Process | undefined, feature: SmallestFeature & { heightM?: number }, phases: CellPhase[]): ProcessCheck | null {
+/**
+ * Process check of the part the process shapes (`shapedPart`): the size reasons once, each material
+ * class the process does not take once. Null without a process.
+ */
+export function processCheckFor(process: Process | undefined, which: FabricatedPhase, hostClass: string, inclusionClass: string, feature: SmallestFeature & { heightM?: number }): ProcessCheck | null {
   if (!process) return null;
+  const part = shapedPart(which, hostClass, inclusionClass, feature);
+  if (part === null) return { ok: false, reasons: [`nothing for ${process.name} to shape: both phases are gas or liquid`] };
   const reasons = new Set<string>();
-  const list = phases.length ? phases : [];
-  if (list.length === 0) for (const r of checkProcess(process, feature, process.materialClasses[0]).reasons) reasons.add(r);
-  for (const p of list) for (const r of checkProcess(process, feature, p.class).reasons) reasons.add(r);
+  const sizes = { ...part.feature, ...(feature.heightM !== undefined ? { heightM: feature.heightM } : {}) };
+  for (const c of part.classes) for (const r of checkProcess(process, sizes, c).reasons) reasons.add(r);
   return { ok: reasons.size === 0, reasons: [...reasons] };
 }
 

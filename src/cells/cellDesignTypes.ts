@@ -24,8 +24,10 @@ export interface CellPhase {
 export interface CellTarget {
   /** Re ε along the family's axis (rods, holes, wires; laminate: in the layer planes) */
   parallel?: number;
-  /** Re ε across it */
+  /** Re ε across it (rect lattices: along the lattice's x axis, spacing a = pitch) */
   perpendicular?: number;
+  /** rect lattices: Re ε across the rods along the lattice's y axis (spacing b = aspect·a) */
+  perpendicularY?: number;
   /** Re μ along the ring axis (split-ring only) */
   mu?: number;
 }
@@ -36,6 +38,8 @@ export type SplitRingSizes = Partial<Omit<SplitRingGeometry, "pitchM">>;
 export interface CellDesignRequest {
   familyId: string;
   lattice: Lattice;
+  /** rect lattices: spacing along y over the pitch (b/a); ignored by the other lattices */
+  aspect?: number;
   pitchM: number;
   frequencyHz: number;
   host: CellPhase;
@@ -81,6 +85,8 @@ export interface RingReport {
 export interface CellDesign {
   familyId: string;
   lattice: Lattice;
+  /** rect lattices: b/a (absent or null on the others) */
+  aspect?: number | null;
   pitchM: number;
   frequencyHz: number;
   hostId: string;
@@ -88,11 +94,12 @@ export interface CellDesign {
   /** fill fraction of the design (the closest reachable one when the target is out of reach); null if none */
   fill: number | null;
   dimensions: Record<string, number>;
-  achieved: { parallel: Complex; perpendicular: Complex; mu: Complex };
+  /** rect lattices add perpendicularY (across the rods along the lattice's y axis) */
+  achieved: { parallel: Complex; perpendicular: Complex; perpendicularY?: Complex; mu: Complex };
   rules: AxisPermittivity["rules"];
   target: CellTarget;
   /** |Re achieved − target| / max(|target|, 1) per targeted value, and the largest */
-  relError: { parallel?: number; perpendicular?: number; mu?: number; max: number };
+  relError: { parallel?: number; perpendicular?: number; perpendicularY?: number; mu?: number; max: number };
   tolerance: number;
   feature: SmallestFeature;
   processCheck: ProcessCheck | null;
@@ -102,9 +109,9 @@ export interface CellDesign {
    * Maxwell Garnett/Bruggeman disagreement; resonant models: their standard forms' spread);
    * uncertain when above the tolerance
    */
-  spread: { parallel: number; perpendicular: number; max: number; uncertain: boolean };
+  spread: { parallel: number; perpendicular: number; perpendicularY?: number; max: number; uncertain: boolean };
   /** the closed-form values where an axis is solved (null for families without a solved axis) */
-  closedForm?: { parallel: Complex; perpendicular: Complex; rules: AxisPermittivity["rules"] } | null;
+  closedForm?: { parallel: Complex; perpendicular: Complex; perpendicularY?: Complex; rules: AxisPermittivity["rules"] } | null;
   resonance?: WireReport | RingReport;
   /** target reached within tolerance, process can make it, cell fine enough to homogenize */
   valid: boolean;

@@ -16,15 +16,15 @@
  */
 import { cAbs, cSub } from "../core/complex.js";
 import { ProgrammerError } from "../core/errors.js";
-import type { Axis, CellFamily, FillResult } from "./cellFamily.js";
-import { homogenizationFor, homogenizationNote, matchError, processCheckFor, shapedPhases } from "./cellChecks.js";
+import { axisClosedForm, axisRule, axisValue, type Axis, type CellFamily, type FillResult } from "./cellFamily.js";
+import { homogenizationFor, homogenizationNote, matchError, processCheckFor } from "./cellChecks.js";
 import type { CellDesign, CellDesignRequest, CellTarget } from "./cellDesignTypes.js";
 import { designResonantCell } from "./designResonantCell.js";
 import { cellSpread } from "./mixingSpread.js";
 import { getCellFamily } from "./registry.js";
 
 export const DEFAULT_TOLERANCE = 0.05;
-const AXES: Axis[] = ["parallel", "perpendicular"];
+const AXES: Axis[] = ["parallel", "perpendicular", "perpendicularY"];
 
 /** Design a cell (see the module comment). Throws ProgrammerError for a malformed request. */
 export function designCell(request: CellDesignRequest): CellDesign {
@@ -46,9 +46,10 @@ function checkRequest(req: CellDesignRequest, family: CellFamily): void {
     if (!(req.fill >= lo && req.fill <= hi)) bad(`fill ${req.fill} outside ${family.id}'s range [${lo}, ${hi}]`);
   }
   const t = req.target ?? {};
-  if (req.fill === undefined && t.parallel === undefined && t.perpendicular === undefined && t.mu === undefined && req.splitRing === undefined) {
+  if (req.fill === undefined && t.parallel === undefined && t.perpendicular === undefined && t.perpendicularY === undefined && t.mu === undefined && req.splitRing === undefined) {
     bad("give a target or a fill");
   }
+  if (t.perpendicularY !== undefined && req.lattice !== "rect") bad("a perpendicularY target needs a rect lattice");
 }
 
 function goldenMin(fn: (x: number) => number, lo: number, hi: number): number {
@@ -74,49 +75,52 @@ function goldenMin(fn: (x: number) => number, lo: number, hi: number): number {
 /** Non-resonant families: fill from the target(s), then the checks. */
 function designMixedCell(req: CellDesignRequest, family: CellFamily): CellDesign {
   const { host, inclusion, lattice, pitchM } = req;
+  const aspect = lattice === "rect" ? req.aspect ?? 1 : undefined;
+  const context = aspect !== undefined ? { aspect } : undefined;
   const tolerance = req.tolerance ?? DEFAULT_TOLERANCE;
   const target: CellTarget = { ...(req.target ?? {}) };
   const reasons: string[] = [];
   const notes: string[] = [];
-  const [lo, hi] = family.fillRange(lattice);
-  const eff = (f: number) => family.effectivePermittivity(host.eps, inclusion.eps, f, lattice);
+  const [lo, hi] = family.fillRange(lattice, aspect);
+  const eff = (f: number) => family.effectivePermittivity(host.eps, inclusion.eps, f, lattice, context);
   const axes = AXES.filter((a) => target[a] !== undefined);
 
   let fill: number;
   if (req.fill !== undefined) fill = req.fill;
   else if (axes.length === 1) {
     const axis = axes[0];
-    const r: FillResult = family.fillForTarget(host.eps, inclusion.eps, target[axis]!, axis, lattice);
+    const r: FillResult = family.fillForTarget(host.eps, inclusion.eps, target[axis]!, axis, lattice, context);
     if (r.inRange) fill = r.fill;
     else {
       reasons.push(r.reason ?? `ε' = ${target[axis]} out of reach`);
-      fill = closestFill(r.ruleFill, lo, hi, (f) => matchError(eff(f)[axis], target[axis]!));
+      fill = closestFill(r.ruleFill, lo, hi, (f) => matchError(axisValue(eff(f), axis), target[axis]!));
     }
   } else {
-    const worst = (f: number) => Math.max(...axes.map((a) => matchError(eff(f)[a], target[a]!)));
+    const worst = (f: number) => Math.max(...axes.map((a) => matchError(axisValue(eff(f), a), target[a]!)));
     fill = goldenMin(worst, lo, hi);
   }
 
   const e = eff(fill);
   const relError: CellDesign["relError"] = { max: 0 };
   for (const a of axes) {
-    relError[a] = matchError(e[a], target[a]!);
+    relError[a] = matchError(axisValue(e, a), target[a]!);
     relError.max = Math.max(relError.max, relError[a]!);
   }
   if (relError.max > tolerance) {
     const worstAxis = axes.reduce((w, a) => (relError[a]! > relError[w]! ? a : w), axes[0]);
-    if (!reasons.length) reasons.push(`${worstAxis} ε' ${fmt(e[worstAxis].re)} misses the target ${target[worstAxis]} by ${pct(relError[worstAxis]!)} (tolerance ${pct(tolerance)})`);
+    if (!reasons.length) reasons.push(`${worstAxis} ε' ${fmt(axisValue(e, worstAxis).re)} misses the target ${target[worstAxis]} by ${pct(relError[worstAxis]!)} (tolerance ${pct(tolerance)})`);
   }
 
-  const feature = family.smallestFeatureM(fill, pitchM, lattice);
-  const processCheck = processCheckFor(req.process, { ...feature, ...(req.heightM !== undefined ? { heightM: req.heightM } : {}) }, shapedPhases(family.fabricatedPhase, host, inclusion));
+  const feature = family.smallestFeatureM(fill, pitchM, lattice, aspect);
+  const processCheck = processCheckFor(req.process, family.fabricatedPhase, host.class, inclusion.class, { ...feature, ...(req.heightM !== undefined ? { heightM: req.heightM } : {}) });
   if (processCheck && !processCheck.ok) reasons.push(...processCheck.reasons);
-  const homogenization = homogenizationFor(pitchM, req.frequencyHz, [host, inclusion], [e.parallel, e.perpendicular]);
+  // a rect cell is judged by its longer spacing
+  const homogenization = homogenizationFor(pitchM * Math.max(1, aspect ?? 1), req.frequencyHz, [host, inclusion], [e.parallel, e.perpendicular, ...(e.perpendicularY ? [e.perpendicularY] : [])]);
   if (homogenization.status === "refuse") reasons.push(homogenizationNote(homogenization));
   else if (homogenization.status === "warn") notes.push(homogenizationNote(homogenization));
   const s = cellSpread(e, host.eps, inclusion.eps, fill);
   const uncertain = s.max > tolerance;
-  const solvedAxes = AXES.filter((a) => e.rules[a] === "solved-cell");
+  const solvedAxes = AXES.filter((a) => (a !== "perpendicularY" || e.perpendicularY !== undefined) && axisRule(e, a) === "solved-cell");
   if (e.unsolved) notes.push(`not covered by the solved cell problem (${e.unsolved}): closed form used`);
   if (uncertain) {
     notes.push(solvedAxes.length && !e.unsolved
@@ -124,22 +128,24 @@ function designMixedCell(req: CellDesignRequest, family: CellFamily): CellDesign
       : `Maxwell Garnett and Bruggeman differ by ${pct(s.max)} at fill ${fmt(fill)}: verify with a full-wave unit-cell simulation`);
   }
   for (const a of solvedAxes) {
-    const c = e.closedForm?.[a];
-    if (!c) continue;
-    const d = cAbs(cSub(c, e[a])) / cAbs(e[a]);
-    if (d > tolerance) notes.push(`${a}: the closed form (${e.closedForm!.rules[a]}) gives ${fmt(c.re)}, ${pct(d)} off the solved ${fmt(e[a].re)}; the solved value is used`);
+    const cf = axisClosedForm(e, a);
+    if (!cf) continue;
+    const v = axisValue(e, a);
+    const d = cAbs(cSub(cf.value, v)) / cAbs(v);
+    if (d > tolerance) notes.push(`${a}: the closed form (${cf.rule}) gives ${fmt(cf.value.re)}, ${pct(d)} off the solved ${fmt(v.re)}; the solved value is used`);
   }
 
   return {
     familyId: family.id,
     lattice,
+    aspect: aspect ?? null,
     pitchM,
     frequencyHz: req.frequencyHz,
     hostId: host.id,
     inclusionId: inclusion.id,
     fill,
-    dimensions: family.dimensionsFromFill(fill, pitchM, lattice),
-    achieved: { parallel: e.parallel, perpendicular: e.perpendicular, mu: { re: 1, im: 0 } },
+    dimensions: family.dimensionsFromFill(fill, pitchM, lattice, aspect),
+    achieved: { parallel: e.parallel, perpendicular: e.perpendicular, ...(e.perpendicularY ? { perpendicularY: e.perpendicularY } : {}), mu: { re: 1, im: 0 } },
     rules: e.rules,
     target,
     relError,
@@ -148,7 +154,7 @@ function designMixedCell(req: CellDesignRequest, family: CellFamily): CellDesign
     processCheck,
     homogenization,
     spread: { ...s, uncertain },
-    closedForm: e.closedForm ? { parallel: e.closedForm.parallel, perpendicular: e.closedForm.perpendicular, rules: e.closedForm.rules } : null,
+    closedForm: e.closedForm ? { parallel: e.closedForm.parallel, perpendicular: e.closedForm.perpendicular, ...(e.closedForm.perpendicularY ? { perpendicularY: e.closedForm.perpendicularY } : {}), rules: e.closedForm.rules } : null,
     valid: reasons.length === 0,
     reasons,
     notes,

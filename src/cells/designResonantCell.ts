@@ -10,7 +10,7 @@ import { type Complex, ONE, cMul } from "../core/complex.js";
 import { ProgrammerError } from "../core/errors.js";
 import { getMixingRule } from "../media/mixing/registry.js";
 import type { CellFamily } from "./cellFamily.js";
-import { homogenizationFor, homogenizationNote, matchError, processCheckFor, shapedPhases, toleranceAbs } from "./cellChecks.js";
+import { homogenizationFor, homogenizationNote, matchError, processCheckFor, toleranceAbs } from "./cellChecks.js";
 import type { CellDesign, CellDesignRequest, RingReport, SplitRingSizes, WireReport } from "./cellDesignTypes.js";
 import { passivityBandwidthBound } from "./passivity.js";
 import { C0, EPS0 } from "./physicalConstants.js";
@@ -43,7 +43,7 @@ function finish(req: CellDesignRequest, family: CellFamily, parts: Omit<CellDesi
     const got = k === "mu" ? parts.achieved.mu.re : parts.achieved[k].re;
     if (!reasons.length) reasons.push(`${k === "mu" ? "μ'" : `${k} ε'`} ${fmt(got)} misses the target ${parts.target[k]} by ${pct(parts.relError[k]!)} (tolerance ${pct(tolerance)})`);
   }
-  const processCheck = processCheckFor(req.process, { ...parts.feature, ...(req.heightM !== undefined ? { heightM: req.heightM } : {}) }, shapedPhases(family.fabricatedPhase, req.host, req.inclusion));
+  const processCheck = processCheckFor(req.process, family.fabricatedPhase, req.host.class, req.inclusion.class, { ...parts.feature, ...(req.heightM !== undefined ? { heightM: req.heightM } : {}) });
   if (processCheck && !processCheck.ok) reasons.push(...processCheck.reasons);
   const homogenization = homogenizationFor(req.pitchM, req.frequencyHz, [req.host], effective);
   if (homogenization.status === "refuse") reasons.push(homogenizationNote(homogenization));

@@ -18,19 +18,22 @@ const pct = (x: number): string => `${g(100 * x, 3)} %`;
 /** Lines describing the design, one fact per line. */
 export function formatCellDesign(d: CellDesign): string[] {
   const out: string[] = [];
-  out.push(`${d.familyId} (${d.lattice} lattice), pitch ${formatLength(d.pitchM)}, ${formatFrequency(d.frequencyHz)}: host ${d.hostId}, ${d.familyId === "wire-medium" || d.familyId === "split-ring" ? "metal" : "inclusion"} ${d.inclusionId}`);
+  out.push(`${d.familyId} (${d.lattice} lattice${d.aspect ? `, aspect b/a ${g(d.aspect)}` : ""}), pitch ${formatLength(d.pitchM)}, ${formatFrequency(d.frequencyHz)}: host ${d.hostId}, ${d.familyId === "wire-medium" || d.familyId === "split-ring" ? "metal" : "inclusion"} ${d.inclusionId}`);
   out.push(`fill fraction     ${d.fill === null ? "none" : g(d.fill, 5)}`);
   const dims = Object.entries(d.dimensions).map(([k, v]) => `${k.replace(/M$/, "")} ${formatLength(v)}`);
   if (dims.length) out.push(`dimensions        ${dims.join(", ")}`);
-  const tgt = (k: "parallel" | "perpendicular" | "mu") => (d.target[k] !== undefined ? `   target ${d.target[k]}   error ${pct(d.relError[k]!)}` : "");
+  const tgt = (k: "parallel" | "perpendicular" | "perpendicularY" | "mu") => (d.target[k] !== undefined ? `   target ${d.target[k]}   error ${pct(d.relError[k]!)}` : "");
   out.push(`ε parallel        ${c(d.achieved.parallel)}   (${d.rules.parallel})${tgt("parallel")}`);
-  out.push(`ε perpendicular   ${c(d.achieved.perpendicular)}   (${d.rules.perpendicular})${tgt("perpendicular")}`);
+  if (d.achieved.perpendicularY) {
+    out.push(`ε perpendicular x ${c(d.achieved.perpendicular)}   (${d.rules.perpendicular})${tgt("perpendicular")}`);
+    out.push(`ε perpendicular y ${c(d.achieved.perpendicularY)}   (${d.rules.perpendicularY ?? d.rules.perpendicular})${tgt("perpendicularY")}`);
+  } else out.push(`ε perpendicular   ${c(d.achieved.perpendicular)}   (${d.rules.perpendicular})${tgt("perpendicular")}`);
   if (d.familyId === "split-ring") out.push(`μ along the rings ${c(d.achieved.mu)}   (Lorentz)${tgt("mu")}`);
   out.push(`smallest feature  ${formatLength(d.feature.featureM)}, gap ${formatLength(d.feature.gapM)}`);
   if (d.processCheck) out.push(`process           ${d.processCheck.ok ? "ok" : d.processCheck.reasons.join("; ")}`);
   out.push(`homogenization    ${d.homogenization.status}: pitch = ${g(d.homogenization.ratio, 3)} λ in the densest material (n = ${g(d.homogenization.nMax, 4)})`);
   if (d.spread.max > 0) out.push(`model uncertainty ${pct(d.spread.max)}${d.closedForm && (d.rules.perpendicular === "solved-cell" || d.rules.parallel === "solved-cell") ? " (solved cell)" : " (MG–Bruggeman spread)"}${d.spread.uncertain ? " (uncertain)" : ""}`);
-  if (d.closedForm) out.push(`closed form       parallel ${c(d.closedForm.parallel)} (${d.closedForm.rules.parallel}), perpendicular ${c(d.closedForm.perpendicular)} (${d.closedForm.rules.perpendicular})`);
+  if (d.closedForm) out.push(`closed form       parallel ${c(d.closedForm.parallel)} (${d.closedForm.rules.parallel}), perpendicular ${c(d.closedForm.perpendicular)} (${d.closedForm.rules.perpendicular})${d.closedForm.perpendicularY ? " on both in-plane axes" : ""}`);
   const r = d.resonance;
   if (r?.kind === "wire-medium") {
     const p = r.plasma;

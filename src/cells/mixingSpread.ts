@@ -8,7 +8,7 @@
  */
 import type { Complex } from "../core/complex.js";
 import { mgBruggemanSpread } from "../media/uncertainty.js";
-import type { AxisPermittivity } from "./cellFamily.js";
+import { axisRule, axisSolvedError, type Axis, type AxisPermittivity } from "./cellFamily.js";
 
 const DIMENSION: Partial<Record<string, 2 | 3>> = {
   "mg-cylinder": 2,
@@ -29,6 +29,8 @@ export function axisSpread(rule: string, host: Complex, inclusion: Complex, fill
 export interface CellSpread {
   parallel: number;
   perpendicular: number;
+  /** rect lattices only */
+  perpendicularY?: number;
   max: number;
 }
 
@@ -37,8 +39,10 @@ export interface CellSpread {
  * on a solved axis, the MG/Bruggeman spread on a closed-form axis.
  */
 export function cellSpread(eff: AxisPermittivity, host: Complex, inclusion: Complex, fill: number): CellSpread {
-  const one = (axis: "parallel" | "perpendicular") => (eff.rules[axis] === "solved-cell" ? eff.solvedError?.[axis] ?? 0 : axisSpread(eff.rules[axis], host, inclusion, fill));
+  const one = (axis: Axis) => (axisRule(eff, axis) === "solved-cell" ? axisSolvedError(eff, axis) ?? 0 : axisSpread(axisRule(eff, axis), host, inclusion, fill));
   const parallel = one("parallel");
   const perpendicular = one("perpendicular");
-  return { parallel, perpendicular, max: Math.max(parallel, perpendicular) };
+  if (eff.perpendicularY === undefined) return { parallel, perpendicular, max: Math.max(parallel, perpendicular) };
+  const perpendicularY = one("perpendicularY");
+  return { parallel, perpendicular, perpendicularY, max: Math.max(parallel, perpendicular, perpendicularY) };
 }

@@ -27,3 +27,8 @@ export function formatFrequency(hz: number, number: (v: number) => string = (v) 
   for (const [scale, unit] of FREQUENCY_UNITS) if (Math.abs(hz) >= scale) return `${number(hz / scale)} ${unit}`;
   return `${number(hz)} Hz`;
 }
+
+/** A count in exponent form; one past the number range reads "more than 1.80e+308". Example: formatCount(1.5e6) → "1.50e+6" */
+export function formatCount(n: number): string {
+  return Number.isFinite(n) ? n.toExponential(2) : `more than ${Number.MAX_VALUE.toExponential(2)}`;
+}

@@ -4,6 +4,8 @@
  * field ≈ 110, reduce ≈ 300, plan ≈ 290 bytes per cell; the figures below double them for the
  * peaks of writing and matching). Pure: the budget itself is found by the shell (io/memoryLimit.ts).
  */
+import { formatCount } from "./formatQuantity.js";
+
 export type MemoryPurpose = "field" | "reduce" | "plan" | "verify";
 
 export const BYTES_PER_CELL: Record<MemoryPurpose, number> = { field: 240, reduce: 600, plan: 600, verify: 600 };
@@ -26,7 +28,7 @@ export function cellBudgetProblem(cells: number, pitchM: number, dimension: 2 | 
   const need = cells * BYTES_PER_CELL[budget.purpose];
   if (need <= budget.budgetBytes) return null;
   const factor = dimension === 3 ? Math.cbrt(need / budget.budgetBytes) : Math.sqrt(need / budget.budgetBytes);
-  return `a pitch of ${pitchM} m gives ${cells.toExponential(2)} cells; ${budget.purpose} needs about ${gb(need)} for them ` +
+  return `a pitch of ${pitchM} m gives ${formatCount(cells)} cells; ${budget.purpose} needs about ${Number.isFinite(need) ? gb(need) : "more memory than can be counted"} for them ` +
     `(${BYTES_PER_CELL[budget.purpose]} bytes per cell), more than ${gb(budget.budgetBytes)} (${budget.source}); ` +
-    `expected a pitch of at least ${Number((pitchM * factor * 1.01).toPrecision(3))} m or a smaller device`;
+    (Number.isFinite(factor) ? `expected a pitch of at least ${Number((pitchM * factor * 1.01).toPrecision(3))} m or a smaller device` : "expected a far coarser pitch or a smaller device");
 }

@@ -6,6 +6,7 @@
 import { InputError } from "../core/errors.js";
 import type { DeviceGrid } from "./deviceGrid.js";
 import type { Bounds3 } from "./transforms/transform.js";
+import { formatCount } from "../core/formatQuantity.js";
 
 /** Largest bounding-box lattice we are willing to scan (cells). */
 export const MAX_LATTICE_CELLS = 5e7;
@@ -50,7 +51,7 @@ export function buildDeviceGrid(
   if (total > MAX_LATTICE_CELLS) {
     throw new InputError({
       where: req.where,
-      message: `a pitch of ${p} m gives ${total.toExponential(2)} lattice cells; expected at most ${MAX_LATTICE_CELLS.toExponential(0)} (use a coarser pitch)`,
+      message: `a pitch of ${p} m gives ${formatCount(total)} lattice cells; expected at most ${MAX_LATTICE_CELLS.toExponential(0)} (use a coarser pitch)`,
     });
   }
   const x0 = ox + ax.first * p, y0 = oy + ay.first * p, z0 = req.dimension === 3 ? oz + az.first * p : 0;

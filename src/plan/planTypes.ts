@@ -9,7 +9,7 @@ import type { RemedyResult } from "./remedies.js";
 
 export type Polarization = "Ez" | "Hz";
 export type SchemeName = "full" | "unit-mu" | "non-magnetic" | "isotropic" | "matched";
-export type LatticeName = "square" | "hex" | "cubic";
+export type LatticeName = "square" | "hex" | "rect" | "cubic";
 
 /** Resolved choices of one plan. Every field has a value (defaults applied). */
 export interface PlanSettings {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { homogenizationCheck } from "../../src/cells/homogenization.js";
 import { checkProcess, type Process } from "../../src/cells/process.js";
+import { processCheckFor, shapedPart } from "../../src/cells/cellChecks.js";
 import { expectClose } from "../helpers/close.js";
 
 const fff: Process = {
@@ -45,5 +46,34 @@ describe("homogenizationCheck", () => {
     expect(homogenizationCheck(0.3 * lambda, 10e9, 1).status).toBe("refuse");
     // n = 2 halves the wavelength in the material
     expect(homogenizationCheck(0.09 * lambda, 10e9, 2).status).toBe("warn");
+  });
+});
+
+describe("processCheckFor: the process shapes the solid phase", () => {
+  // what a printer can make is decided by the solid it deposits (common practice): air rods in a
+  // polymer host are holes, so the polymer walls between them are the smallest solid feature and the
+  // rods' diameter is the opening
+  const airRods = { featureM: 0.5e-3, gapM: 0.1e-3 }; // rod diameter 0.5 mm, wall 0.1 mm
+
+  it("air rods in polymer: the 0.1 mm wall is the feature, checked against the polymer", () => {
+    expect(shapedPart("inclusion", "polymer", "gas", airRods)).toEqual({ classes: ["polymer"], feature: { featureM: 0.1e-3, gapM: 0.5e-3 } });
+    const r = processCheckFor(fff, "inclusion", "polymer", "gas", airRods)!;
+    expect(r.ok).toBe(false);
+    expect(r.reasons).toEqual([expect.stringMatching(/feature 0\.1 mm below the 0\.4 mm minimum/)]);
+  });
+
+  it("polymer rods in air: the rods are the feature, the wall the gap; a foreign solid is named", () => {
+    expect(processCheckFor(fff, "inclusion", "gas", "polymer", airRods)).toEqual({ ok: false, reasons: [expect.stringMatching(/gap 0\.1 mm below the 0\.3 mm minimum/)] });
+    expect(processCheckFor(fff, "inclusion", "gas", "ceramic", { featureM: 1e-3, gapM: 1e-3 })!.reasons).toEqual([expect.stringMatching(/does not take ceramic/)]);
+  });
+
+  it("both phases fluid: nothing to shape is refused, not passed", () => {
+    expect(shapedPart("inclusion", "gas", "liquid", airRods)).toBeNull();
+    expect(processCheckFor(fff, "inclusion", "gas", "liquid", airRods)!.ok).toBe(false);
+  });
+
+  it("a laminate checks each solid layer's class once; no process, no check", () => {
+    expect(shapedPart("both", "polymer", "polymer", airRods)!.classes).toEqual(["polymer"]);
+    expect(processCheckFor(undefined, "both", "polymer", "ceramic", airRods)).toBeNull();
   });
 });

@@ -1,25 +1,16 @@
 /** `cellwright field`: JSON summary, --at, --out, human output, and bad input (one line, exit 1, no file). */
-import { describe, it, expect, beforeAll, afterAll } from "vitest";
-import { mkdtempSync, writeFileSync, rmSync, existsSync, readFileSync, readdirSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { describe, it, expect } from "vitest";
+import { writeFileSync, existsSync, readFileSync, readdirSync } from "node:fs";
 import { join } from "node:path";
 import { expectClose } from "../helpers/close.js";
-import { runCli } from "../../src/cli/run.js";
-import { bufferIo } from "../../src/cli/cliIo.js";
+import { DEMO_DIR, cliInTempDir } from "../helpers/cliInTempDir.js";
 
-const DEMO = join(import.meta.dirname, "..", "..", "demo-designs");
-let dir = "";
-beforeAll(() => { dir = mkdtempSync(join(tmpdir(), "cw-field-")); });
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-async function run(args: string[]) {
-  const io = bufferIo(dir);
-  const code = await runCli(["field", ...args], io);
-  return { code, out: io.out(), err: io.err() };
-}
+const DEMO = DEMO_DIR;
+const cli = cliInTempDir("field", "cw-field-");
+const run = cli.run;
 
 function design(name: string, json: unknown): string {
-  writeFileSync(join(dir, name), JSON.stringify(json, null, 2));
+  writeFileSync(join(cli.dir, name), JSON.stringify(json, null, 2));
   return name;
 }
 
@@ -62,7 +53,7 @@ describe("field --json", () => {
 
 describe("field --out and human output", () => {
   it("writes the per-cell CSV and a summary within 80 columns", async () => {
-    const out = join(dir, "cloak.csv");
+    const out = join(cli.dir, "cloak.csv");
     const r = await run([join(DEMO, "field-radial-cloak.json"), "--out", out]);
     expect(r.code).toBe(0);
     for (const line of r.out.split("\n")) expect(line.length, line).toBeLessThanOrEqual(80);
@@ -89,14 +80,14 @@ describe("bad input: one line naming where, exit 1, no output file", () => {
     ["a folding expression map", () => design("fold.json", { ...ok, transform: { kind: "expression", virtual: { x: "x - x^3/0.02^2", y: "y" }, region: { circle: { radius: "30 mm" } } } }),
       /^error: fold\.json: \$\.transform\.virtual: the map \(x = 'x - x\^3\/0\.02\^2', y = 'y'\) folds \(det J ≤ 0\) at \d+ cells, first cell/],
     ["a malformed CSV row", () => {
-      writeFileSync(join(dir, "bad.csv"), "x_m,y_m,eps_xx,eps_yy,eps_zz,eps_xy,eps_xz,eps_yz\n0,0,1,1,1,0,0,0\n0.002,0,1,1,x1,0,0,0\n");
+      writeFileSync(join(cli.dir, "bad.csv"), "x_m,y_m,eps_xx,eps_yy,eps_zz,eps_xy,eps_xz,eps_yz\n0,0,1,1,1,0,0,0\n0.002,0,1,1,x1,0,0,0\n");
       return design("imp.json", { ...ok, transform: { kind: "imported", file: "bad.csv" } });
     }, /^error: .*bad\.csv:3:5: expected a finite number in column eps_zz, got 'x1'/],
   ];
   for (const [what, make, pattern] of cases) {
     it(what, async () => {
       const file = make();
-      const out = join(dir, `${file}.out.csv`);
+      const out = join(cli.dir, `${file}.out.csv`);
       const r = await run([file, "--out", out]);
       expect(r.code).toBe(1);
       expect(r.out).toBe("");

@@ -2,32 +2,23 @@
  * `cellwright reduce` end to end on the demo designs: the comparison table, --json, --scheme with
  * --out, --at, and refused combinations (one message, exit 1, no file).
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { describe, expect, it } from "vitest";
+import { existsSync, readFileSync, readdirSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
-import { bufferIo } from "../../src/cli/cliIo.js";
-import { runCli } from "../../src/cli/run.js";
+import { DEMO_DIR, cliInTempDir } from "../helpers/cliInTempDir.js";
 import { expectClose } from "../helpers/close.js";
 
-const DEMO = join(import.meta.dirname, "..", "..", "demo-designs");
+const DEMO = DEMO_DIR;
 const CLOAK = join(DEMO, "field-radial-cloak.json"); // linear cloak, a = 20 mm, b = 50 mm, polarization Ez
 const SPHERE = join(DEMO, "field-spherical-cloak.json");
 const IMPORTED = join(DEMO, "field-imported.json");
 const A = 0.02, B = 0.05;
-let dir = "";
-beforeAll(() => { dir = mkdtempSync(join(tmpdir(), "cw-reduce-")); });
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-async function run(args: string[]) {
-  const io = bufferIo(dir);
-  const code = await runCli(["reduce", ...args], io);
-  return { code, out: io.out(), err: io.err() };
-}
+const cli = cliInTempDir("reduce", "cw-reduce-");
+const run = cli.run;
 
 function withKeys(extra: Record<string, unknown>, name: string): string {
   const json = { ...JSON.parse(readFileSync(CLOAK, "utf8")), ...extra };
-  writeFileSync(join(dir, name), JSON.stringify(json));
+  writeFileSync(join(cli.dir, name), JSON.stringify(json));
   return name;
 }
 
@@ -63,7 +54,7 @@ describe("reduce (comparison table)", () => {
   it("a design without a polarization is shown for Ez, with a note on stderr", async () => {
     const json = JSON.parse(readFileSync(CLOAK, "utf8"));
     delete json.polarization;
-    writeFileSync(join(dir, "nopol.json"), JSON.stringify(json));
+    writeFileSync(join(cli.dir, "nopol.json"), JSON.stringify(json));
     const r = await run(["nopol.json"]);
     expect(r.code).toBe(0);
     expect(r.err).toMatch(/showing Ez/);
@@ -114,7 +105,7 @@ describe("reduce --scheme", () => {
     expect(r.code).toBe(0);
     const j = JSON.parse(r.out);
     expect(j.schemes).toHaveLength(1);
-    const text = readFileSync(join(dir, "reduced.csv"), "utf8").trimEnd().split("\n");
+    const text = readFileSync(join(cli.dir, "reduced.csv"), "utf8").trimEnd().split("\n");
     expect(text[0]).toBe("i,j,x_m,y_m,eps_zz,mu_xx,mu_yy,mu_xy,principal_min,principal_max,anisotropy,dropped_anisotropy,scale,eps_min,eps_max,mu_min,mu_max,flags");
     expect(text.length - 1).toBe(j.cells);
     const row = text[1].split(",");
@@ -169,7 +160,7 @@ describe("reduce refuses invalid combinations", () => {
     expect(r.code).toBe(1);
     expect(r.err.trim().split("\n")).toHaveLength(1);
     expect(r.err).toMatch(/--scheme: .*valid for Hz: full, non-magnetic, isotropic, matched/);
-    expect(existsSync(join(dir, "x.csv"))).toBe(false);
+    expect(existsSync(join(cli.dir, "x.csv"))).toBe(false);
   });
   it("non-magnetic with Ez", async () => {
     const r = await run([CLOAK, "--scheme", "non-magnetic"]);
@@ -196,7 +187,7 @@ describe("reduce refuses invalid combinations", () => {
     expect((await run([CLOAK, "--unit-axis", "big"])).err).toMatch(/--unit-axis: expected larger or smaller/);
   });
   it("leaves no temporary files behind", () => {
-    expect(readdirSync(dir).filter((f) => f.endsWith(".tmp"))).toEqual([]);
+    expect(readdirSync(cli.dir).filter((f) => f.endsWith(".tmp"))).toEqual([]);
   });
 });
 

@@ -68,7 +68,7 @@ describe("where a session starts", () => {
   it("opens the built-in demo when no design is given", async () => {
     const dir = await mkdtemp(join(tmpdir(), "cw-sess-"));
     const s = await sessionStart({ positionals: [], options: {} }, ttyIo(dir));
-    expect(s.designPath).toMatch(/demo-designs[\\/]plan-mmwave-printed-bend\.json$/);
+    expect(s.designPath).toMatch(/demo-designs[\\/]plan-printed-bend\.json$/);
     expect(s.outDir).toBe(join(dir, "cellwright-out"));
     expect(s.sessionPath).toBe(join(dir, "cellwright-out", "session.json"));
     expect(s.overrides).toEqual({});
@@ -85,7 +85,7 @@ describe("where a session starts", () => {
     const fresh = await sessionStart({ positionals: [DEMO], options: { out: "out", fresh: true } }, ttyIo(dir));
     expect(fresh.overrides).toEqual({});
     // another design with the same folder: starts fresh and says the file will be replaced
-    const other = join(ROOT, "demo-designs", "plan-mmwave-printed-bend.json");
+    const other = join(ROOT, "demo-designs", "plan-printed-bend.json");
     const s2 = await sessionStart({ positionals: [other], options: { out: "out" } }, ttyIo(dir));
     expect(s2.overrides).toEqual({});
     expect(s2.note).toMatch(/another design/);
@@ -94,7 +94,7 @@ describe("where a session starts", () => {
   it("refuses an explicit session file of another design, or a missing one without a design", async () => {
     const dir = await mkdtemp(join(tmpdir(), "cw-sess-"));
     await saveSessionFile(join(dir, "s.json"), { designPath: DEMO, overrides: {} });
-    const other = join(ROOT, "demo-designs", "plan-mmwave-printed-bend.json");
+    const other = join(ROOT, "demo-designs", "plan-printed-bend.json");
     await expect(sessionStart({ positionals: [other], options: { session: "s.json" } }, ttyIo(dir))).rejects.toBeInstanceOf(InputError);
     await expect(sessionStart({ positionals: [], options: { session: "none.json" } }, ttyIo(dir))).rejects.toBeInstanceOf(InputError);
   });

@@ -2,30 +2,21 @@
  * `cellwright verify` end to end on small demo runs: one JSON object with --json, the SVG with
  * --out, the human table, and refusals (3D design, bad resolution) with exit 1 and nothing written.
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { existsSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { describe, expect, it } from "vitest";
+import { existsSync, readFileSync } from "node:fs";
 import { join } from "node:path";
-import { bufferIo } from "../../src/cli/cliIo.js";
-import { runCli } from "../../src/cli/run.js";
+import { DEMO_DIR, cliInTempDir } from "../helpers/cliInTempDir.js";
 import { cylinderSeries, seriesScatteringWidth } from "../../src/verify/cylinderSeries.js";
 import { expectClose } from "../helpers/close.js";
 
-const DEMO = join(import.meta.dirname, "..", "..", "demo-designs");
+const DEMO = DEMO_DIR;
 const CLOAK = join(DEMO, "field-radial-cloak.json"); // linear cloak a = 20 mm, b = 50 mm, 9.4 GHz, Ez
 const CONCENTRATOR = join(DEMO, "plan-concentrator-subunity.json"); // Hz, non-magnetic, 5.8 GHz
 const SPHERE = join(DEMO, "field-spherical-cloak.json");
 const BEND = join(DEMO, "field-beam-bend.json"); // quarter-turn bend, 10 GHz, Ez
 const MAST = join(DEMO, "plan-microwave-mast-cloak.json"); // reduced Ez cloak a = 25 mm, b = 60 mm, split rings, 8.5 GHz
-let dir = "";
-beforeAll(() => { dir = mkdtempSync(join(tmpdir(), "cw-verify-")); });
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-async function run(args: string[]) {
-  const io = bufferIo(dir);
-  const code = await runCli(["verify", ...args], io);
-  return { code, out: io.out(), err: io.err() };
-}
+const cli = cliInTempDir("verify", "cw-verify-");
+const run = cli.run;
 
 describe("verify command", () => {
   it("--json on the radial cloak: one object; bare, ideal, reduced, and a realized case that says why it is absent", async () => {
@@ -72,14 +63,14 @@ describe("verify command", () => {
     const a = await run([SPHERE, "--out", "none3d"]);
     expect(a.code).toBe(1);
     expect(a.err).toMatch(/3D design cannot be verified/);
-    expect(existsSync(join(dir, "none3d"))).toBe(false);
+    expect(existsSync(join(cli.dir, "none3d"))).toBe(false);
     const b = await run([CLOAK, "--resolution", "4", "--out", "nores"]);
     const d = await run([CLOAK, "--resolution", "10", "--accuracy", "2%"]);
     expect(d.code).toBe(1);
     expect(d.err).toMatch(/--accuracy/);
     expect(b.code).toBe(1);
     expect(b.err).toMatch(/--resolution: expected points per wavelength from 6/);
-    expect(existsSync(join(dir, "nores"))).toBe(false);
+    expect(existsSync(join(cli.dir, "nores"))).toBe(false);
     const c = await run([CLOAK, "--margin", "lots"]);
     expect(c.code).toBe(1);
     expect(c.err).toMatch(/--margin/);

@@ -1,25 +1,15 @@
 /** `verify --method radial` on the demo designs (exact radial solution, no grid). */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { mkdtempSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { describe, expect, it } from "vitest";
 import { join } from "node:path";
-import { bufferIo } from "../../src/cli/cliIo.js";
-import { runCli } from "../../src/cli/run.js";
+import { DEMO_DIR, cliInTempDir } from "../helpers/cliInTempDir.js";
 import { cylinderSeries, seriesScatteringWidth } from "../../src/verify/cylinderSeries.js";
 import { expectClose } from "../helpers/close.js";
 
-const DEMO = join(import.meta.dirname, "..", "..", "demo-designs");
+const DEMO = DEMO_DIR;
 const CLOAK = join(DEMO, "field-radial-cloak.json"); // linear cloak a = 20 mm, b = 50 mm, 9.4 GHz, Ez
 const CONCENTRATOR = join(DEMO, "field-concentrator.json");
-let dir = "";
-beforeAll(() => { dir = mkdtempSync(join(tmpdir(), "cw-verify-radial-")); });
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-async function run(args: string[]) {
-  const io = bufferIo(dir);
-  const code = await runCli(["verify", ...args], io);
-  return { code, out: io.out(), err: io.err() };
-}
+const cli = cliInTempDir("verify", "cw-verify-radial-");
+const run = cli.run;
 
 describe("verify --method radial", () => {
   it("--json: one object; the bare mast equals the PEC series (Balanis 2012, §11.5), the cloak scatters far less, the pattern averages to σ_s and turns with --angle", async () => {

@@ -5,30 +5,21 @@
  * NaN/Infinity/short rows), the output set's manifest, the JSON `sweep` object, and the sweep at
  * the design frequency equal to a plain `verify` there (one pipeline, not a second model).
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { describe, expect, it } from "vitest";
+import { existsSync, readFileSync, readdirSync } from "node:fs";
 import { join } from "node:path";
 import { parse } from "csv-parse/sync";
-import { bufferIo } from "../../src/cli/cliIo.js";
-import { runCli } from "../../src/cli/run.js";
+import { DEMO_DIR, cliInTempDir } from "../helpers/cliInTempDir.js";
 import { parseSweep, parseThreshold } from "../../src/cli/commands/verifySweep.js";
 import { InputError } from "../../src/core/errors.js";
 import { checkOutputSet } from "../../src/io/outputSet.js";
 import { expectClose } from "../helpers/close.js";
 
-const DEMO = join(import.meta.dirname, "..", "..", "demo-designs");
+const DEMO = DEMO_DIR;
 const CLOAK = join(DEMO, "field-radial-cloak.json"); // no realization, 9.4 GHz, Ez
 const MAST = join(DEMO, "plan-microwave-mast-cloak.json"); // split rings, 8.5 GHz, Ez, unit-mu
-let dir = "";
-beforeAll(() => { dir = mkdtempSync(join(tmpdir(), "cw-sweep-")); });
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-async function run(args: string[]) {
-  const io = bufferIo(dir);
-  const code = await runCli(["verify", ...args], io);
-  return { code, out: io.out(), err: io.err() };
-}
+const cli = cliInTempDir("verify", "cw-sweep-");
+const run = cli.run;
 
 describe("--sweep parser", () => {
   it("reads START..STOP:COUNT with units through the quantity parser", async () => {
@@ -65,7 +56,7 @@ describe("--sweep parser", () => {
   });
 
   it("the command refuses a bad sweep or a lone --threshold with exit 1 and writes nothing", async () => {
-    const out = join(dir, "refused");
+    const out = join(cli.dir, "refused");
     for (const args of [
       [CLOAK, "--sweep", "8 GHz..10 GHz", "--out", out],
       [CLOAK, "--threshold", "2", "--out", out],
@@ -83,7 +74,7 @@ describe("--sweep parser", () => {
 
 describe("verify --sweep", () => {
   it("a design without a realization: bare, ideal and reduced at each frequency; CSV, SVG and manifest; no band", async () => {
-    const out = join(dir, "cloak");
+    const out = join(cli.dir, "cloak");
     const r = await run([CLOAK, "--sweep", "9 GHz..9.8 GHz:3", "--resolution", "8", "--margin", "8 mm", "--json", "--out", out]);
     expect(r.code, r.err).toBe(0);
     expect(r.out.trim().split("\n")).toHaveLength(1);
@@ -105,7 +96,7 @@ describe("verify --sweep", () => {
     expect(text).not.toMatch(/NaN|Infinity/);
     const rows: Record<string, string>[] = parse(text, { columns: true });
     const header = text.split("\n")[0].split(",");
-    expect(header).toEqual(["frequency_hz", "case", "scattering_width_m", "absorption_width_m", "vs_bare", "uncertainty", "converged"]);
+    expect(header).toEqual(["frequency_hz", "case", "scattering_width_m", "absorption_width_m", "vs_bare", "uncertainty", "converged", "figure_uncertainty", "meets_limit"]);
     // nFreq × computed cases, every row full length
     expect(rows).toHaveLength(3 * 3);
     for (const line of text.trim().split("\n")) expect(line.split(",")).toHaveLength(header.length);
@@ -123,7 +114,7 @@ describe("verify --sweep", () => {
   }, 60_000);
 
   it("the split-ring mast cloak: realized figures move with the rings' resonance; the design frequency equals a plain verify", async () => {
-    const out = join(dir, "mast");
+    const out = join(cli.dir, "mast");
     const r = await run([MAST, "--sweep", "8.4 GHz..8.6 GHz:3", "--resolution", "8", "--json", "--out", out]);
     expect(r.code, r.err).toBe(0);
     const s = JSON.parse(r.out);
@@ -140,8 +131,13 @@ describe("verify --sweep", () => {
     expect(spread(byName.realized.vsBare)).toBeGreaterThan(3 * spread(byName.reduced.vsBare));
     // loss: the realized rings absorb, the lossless maps do not
     for (const a of byName.realized.absorptionWidthM) expect(a).toBeGreaterThan(0);
-    const rows = parse(readFileSync(join(out, "verify-sweep.csv"), "utf8"), { columns: true });
+    const rows: Record<string, string>[] = parse(readFileSync(join(out, "verify-sweep.csv"), "utf8"), { columns: true });
     expect(rows).toHaveLength(3 * 4);
+    // single grid: no uncertainty, the realized rows say yes/no against the band's limit, the others nothing
+    for (const row of rows) {
+      expect(row.figure_uncertainty).toBe("");
+      expect(row.meets_limit).toBe(row.case === "realized" ? (Number(row.vs_bare) <= s.sweep.band.limit ? "yes" : "no") : "");
+    }
     // the band is reported with the definition's figures
     const b = s.sweep.band;
     expect(b.threshold).toBe(2);
@@ -151,5 +147,7 @@ describe("verify --sweep", () => {
       expect(b.lowHz).toBeLessThanOrEqual(8.5e9);
       expect(b.highHz).toBeGreaterThanOrEqual(8.5e9);
     }
+    expect([b.lowRangeHz, b.highRangeHz, b.lowConverged, b.highConverged, b.limitUncertainty]).toEqual([null, null, null, null, null]);
+    expect(b.meetsLimit).toHaveLength(3);
   }, 120_000);
 });

@@ -16,7 +16,7 @@ import { loadFieldForDesign } from "../../src/io/fieldCsv.js";
 
 const DEMOS = [
   "demo-designs/plan-microwave-mast-cloak.json",
-  "demo-designs/plan-mmwave-printed-bend.json",
+  "demo-designs/plan-printed-bend.json",
   "demo-designs/plan-silicon-chip-bend.json",
   "demo-designs/plan-concentrator-subunity.json",
 ];
@@ -115,7 +115,7 @@ describe("verdicts of the demos", () => {
   }, 60_000);
 
   it("coarse cells are a missed requirement: the same demo at 28 GHz exits 2 naming homogenization", async () => {
-    const d = JSON.parse(await readFile("demo-designs/plan-mmwave-printed-bend.json", "utf8"));
+    const d = JSON.parse(await readFile("demo-designs/plan-printed-bend.json", "utf8"));
     d.frequency = "28 GHz"; // 1.2 mm is λ/6.4 in resin of ε 2.8 (rule of thumb, common practice: λ/10)
     const dir = await mkdtemp(join(tmpdir(), "cw-e2e-"));
     const path = join(dir, "bend28.json");

@@ -118,7 +118,7 @@ const NEIGHBOURS = [[1, 0], [-1, 0], [0, 1], [0, -1]];
 
 describe("STL of the printed strut lattice (npm start demo, stereolithography)", () => {
   let r: Awaited<ReturnType<typeof planWithLayout>>;
-  beforeAll(async () => { r = await planWithLayout("demo-designs/plan-mmwave-printed-bend.json"); }, 120_000);
+  beforeAll(async () => { r = await planWithLayout("demo-designs/plan-printed-bend.json"); }, 120_000);
 
   it("is a closed, consistently oriented surface whose count, box and level fractions match the build list", async () => {
     expect(r.code, r.err).toBe(0);
@@ -284,7 +284,7 @@ describe("STL of spheres, voids and cubes (recipes set by hand on a planned devi
   }, 120_000);
 
   it("refuses a part whose STL would be too large, with the estimate, and writes nothing", async () => {
-    const d = JSON.parse(await readFile("demo-designs/plan-mmwave-printed-bend.json", "utf8"));
+    const d = JSON.parse(await readFile("demo-designs/plan-printed-bend.json", "utf8"));
     d.realization.height = "2 m";
     const dir = await mkdtemp(join(tmpdir(), "cw-stl-big-"));
     const path = join(dir, "tall.json");

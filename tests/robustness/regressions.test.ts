@@ -107,6 +107,11 @@ describe("ordinary mistakes are input errors (exit 1) naming the option or path"
     let r = await ok(["material", "gold", "--wavelength", "1e-300 m"]);
     expect(r.code).toBe(1);
     expect(r.err).toContain("--wavelength");
+    // found by the 10 000-case run (seed 20261202): a frequency whose wavelength overflows printed "Infinity µm"
+    r = await ok(["material", "water", "--frequency", "1e-308"]);
+    expect(r.code).toBe(1);
+    expect(r.err).toContain("--frequency");
+    expect(r.out + r.err).not.toMatch(/Infinity|NaN/);
     // a flat disk (aspect 1e-308) has the depolarization factor 1: a valid, finite mix now
     r = await ok(["mix", "--rule", "mg-ellipsoid", "--aspect", "1e-308", "--host", "1", "--inclusion", "4", "--fill", "0.3", "--json"]);
     expect(r.code).toBe(0);
@@ -226,7 +231,7 @@ describe("memory is estimated before allocating", () => {
   });
 
   it("a pitch whose cells exceed the memory budget is refused with the estimate and a pitch that fits", async () => {
-    const d = demo("plan-mmwave-printed-bend.json");
+    const d = demo("plan-printed-bend.json");
     d.grid.pitch = "0.05 mm"; // 8.8e5 cells: about 0.5 GB for plan
     process.env.CELLWRIGHT_MEMORY_LIMIT = "100 MB";
     try {
@@ -236,6 +241,15 @@ describe("memory is estimated before allocating", () => {
     } finally {
       delete process.env.CELLWRIGHT_MEMORY_LIMIT;
     }
+  });
+
+  it("a pitch of 1e-300 m (cell count past the number range) is refused without 'Infinity'", async () => {
+    // found by the 10 000-case run (seed 20261202): "gives Infinity lattice cells"
+    const d = demo("plan-microwave-mast-cloak.json");
+    d.grid.pitch = 1e-300;
+    const r = await ok(["field", put("tiny.json", d)]);
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/\$\.grid\.pitch: a pitch of 1e-300 m gives more than 1\.80e\+308 lattice cells/);
   });
 
   it("a CSV with one point off the grid blames that point's line", async () => {

@@ -78,5 +78,5 @@ describe("cylindrical cloak, a = λ/2, b = λ, Ez, PEC core", () => {
     const diffs = cases.slice(2).map((lc) => Math.abs(run([bare, lc], c.deviceBox, 24).cases.find((x) => x.name === "realized")!.vsBare! - ref));
     expect(diffs[1]).toBeLessThan(diffs[0]);
     expect(diffs[2]).toBeLessThan(diffs[1]);
-  });
+  }, 240_000); // seven grid solves: about 25 s on an idle machine, past the 60 s default under load
 });

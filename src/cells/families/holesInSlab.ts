@@ -1,6 +1,6 @@
 /**
  * Holes (usually air) through a dielectric slab: rods of the inclusion phase in the slab as host,
- * square or hexagonal lattice. Same geometry as rods-in-host (f = πr²/A, f_max = π/4 or π/(2√3));
+ * square, hexagonal or rectangular lattice. Same geometry as rods-in-host (f = πr²/A, f_max = π/4 or π/(2√3));
  * for the process the wall between holes is the solid feature and the hole is the opening.
  * Maxwell Garnett for cylinders with the slab as host: for a hole phase of lower ε this is the
  * upper Hashin–Shtrikman bound (Milton 2002), suited to isolated holes.
@@ -11,7 +11,7 @@ import { circleLattice } from "./rodsInHost.js";
 
 const spec: MixingFamilySpec = {
   id: "holes-in-slab",
-  description: "holes (e.g. air) through a dielectric slab, square or hexagonal lattice (2D, uniaxial)",
+  description: "holes (e.g. air) through a dielectric slab, square, hexagonal or rectangular lattice (2D; rect: in-plane anisotropic)",
   lattices: circleLattice.lattices,
   dimension: 2,
   isotropic: false,
@@ -20,8 +20,8 @@ const spec: MixingFamilySpec = {
   fillRange: circleLattice.fillRange,
   dimensionsFromFill: circleLattice.dimensionsFromFill,
   fillFromDimensions: circleLattice.fillFromDimensions,
-  smallestFeatureM(fill, pitchM, lattice) {
-    const { diameterM, wallM } = circleLattice.diameterAndWall(fill, pitchM, lattice);
+  smallestFeatureM(fill, pitchM, lattice, aspect) {
+    const { diameterM, wallM } = circleLattice.diameterAndWall(fill, pitchM, lattice, aspect);
     return { featureM: wallM, gapM: diameterM };
   },
   rules: { parallel: "parallel", perpendicular: "mg-cylinder" },

@@ -23,10 +23,11 @@ export function fillWithinRange(
   targetRe: number,
   axis: Axis,
   lattice: Lattice,
+  aspect?: number,
 ): FillResult {
-  const rule = getMixingRule(spec.rules[axis]);
+  const rule = getMixingRule(spec.rules[axis === "perpendicularY" ? "perpendicular" : axis]);
   const inv = rule.inverse(host, inclusion, targetRe, spec.params);
-  const [lo, hi] = spec.fillRange(lattice);
+  const [lo, hi] = spec.fillRange(lattice, aspect);
   if (!Number.isFinite(inv.fill)) {
     return { ...inv, fill: NaN, ruleFill: NaN, inRange: false, reason: inv.reason ?? `no fill fraction of this pair reaches ε' = ${targetRe}` };
   }
@@ -50,8 +51,8 @@ export function mixingFamily(spec: MixingFamilySpec): CellFamily {
       const perp = rules.perpendicular === rules.parallel ? par : getMixingRule(rules.perpendicular).forward(host, inclusion, fill, params);
       return { parallel: par, perpendicular: perp, rules: { ...rules } };
     },
-    fillForTarget(host, inclusion, targetRe, axis, lattice) {
-      return fillWithinRange(spec, host, inclusion, targetRe, axis, lattice);
+    fillForTarget(host, inclusion, targetRe, axis, lattice, context) {
+      return fillWithinRange(spec, host, inclusion, targetRe, axis, lattice, context?.aspect);
     },
   };
 }

@@ -1,5 +1,6 @@
 /**
- * Parallel circular rods of radius r in a host, square or hexagonal lattice of pitch a (2D family).
+ * Parallel circular rods of radius r in a host, square, hexagonal or rectangular lattice of pitch a
+ * (2D family; a rect lattice has spacing b = aspect·a along its y axis).
  * Fill f = πr²/A with A = a² (square) or (√3/2)a² (hex); rods touch at r = a/2, so
  * f_max = π/4 (square) and π/(2√3) (hex) — circle packing in the plane.
  * Field across the rods: Maxwell Garnett for cylinders; along them: the Wiener parallel (arithmetic)
@@ -9,22 +10,31 @@ import { cellAreaM2, type Lattice } from "../lattice.js";
 import type { MixingFamilySpec } from "./mixingFamily.js";
 import { solvedCircleFamily } from "./solvedCircleFamily.js";
 
-/** Geometry shared by rods and holes: circles of radius r on a 2D lattice. */
+/**
+ * Geometry shared by rods and holes: circles of radius r on a 2D lattice. Rect lattices (spacing a =
+ * pitch along x, b = aspect·a along y): f = πr²/(ab), the circles touch at r = min(a, b)/2, and the
+ * dimensions add the spacing along y (`spacingYM`).
+ */
 export const circleLattice = {
-  lattices: ["square", "hex"] as Lattice[],
-  fillRange: (lattice: Lattice): [number, number] => [0, lattice === "hex" ? Math.PI / (2 * Math.sqrt(3)) : Math.PI / 4],
-  dimensionsFromFill: (fill: number, pitchM: number, lattice: Lattice) => ({ radiusM: Math.sqrt((fill * cellAreaM2(pitchM, lattice)) / Math.PI) }),
-  fillFromDimensions: (dims: Record<string, number>, pitchM: number, lattice: Lattice) => (Math.PI * dims.radiusM ** 2) / cellAreaM2(pitchM, lattice),
-  /** circle diameter and the wall between nearest neighbours (spacing a in both lattices) */
-  diameterAndWall(fill: number, pitchM: number, lattice: Lattice): { diameterM: number; wallM: number } {
-    const d = 2 * Math.sqrt((fill * cellAreaM2(pitchM, lattice)) / Math.PI);
-    return { diameterM: d, wallM: Math.max(0, pitchM - d) };
+  lattices: ["square", "hex", "rect"] as Lattice[],
+  fillRange: (lattice: Lattice, aspect = 1): [number, number] =>
+    [0, lattice === "hex" ? Math.PI / (2 * Math.sqrt(3)) : lattice === "rect" ? (Math.PI * Math.min(1, aspect) ** 2) / (4 * aspect) : Math.PI / 4],
+  dimensionsFromFill: (fill: number, pitchM: number, lattice: Lattice, aspect = 1): Record<string, number> => {
+    const radiusM = Math.sqrt((fill * cellAreaM2(pitchM, lattice, aspect)) / Math.PI);
+    return lattice === "rect" ? { radiusM, spacingYM: aspect * pitchM } : { radiusM };
+  },
+  fillFromDimensions: (dims: Record<string, number>, pitchM: number, lattice: Lattice, aspect = 1) => (Math.PI * dims.radiusM ** 2) / cellAreaM2(pitchM, lattice, aspect),
+  /** circle diameter and the wall between nearest neighbours (spacing a, or min(a, b) on rect lattices) */
+  diameterAndWall(fill: number, pitchM: number, lattice: Lattice, aspect = 1): { diameterM: number; wallM: number } {
+    const d = 2 * Math.sqrt((fill * cellAreaM2(pitchM, lattice, aspect)) / Math.PI);
+    const spacing = lattice === "rect" ? pitchM * Math.min(1, aspect) : pitchM;
+    return { diameterM: d, wallM: Math.max(0, spacing - d) };
   },
 };
 
 const spec: MixingFamilySpec = {
   id: "rods-in-host",
-  description: "parallel circular rods in a host, square or hexagonal lattice (2D, uniaxial)",
+  description: "parallel circular rods in a host, square, hexagonal or rectangular lattice (2D; rect: in-plane anisotropic)",
   lattices: circleLattice.lattices,
   dimension: 2,
   isotropic: false,
@@ -33,8 +43,8 @@ const spec: MixingFamilySpec = {
   fillRange: circleLattice.fillRange,
   dimensionsFromFill: circleLattice.dimensionsFromFill,
   fillFromDimensions: circleLattice.fillFromDimensions,
-  smallestFeatureM(fill, pitchM, lattice) {
-    const { diameterM, wallM } = circleLattice.diameterAndWall(fill, pitchM, lattice);
+  smallestFeatureM(fill, pitchM, lattice, aspect) {
+    const { diameterM, wallM } = circleLattice.diameterAndWall(fill, pitchM, lattice, aspect);
     return { featureM: diameterM, gapM: wallM };
   },
   rules: { parallel: "parallel", perpendicular: "mg-cylinder" },

@@ -7,68 +7,127 @@
  * closed form is scaled to meet the solved value at the table's edge (continuous, monotone) and the
  * cell is marked `unsolved`: its uncertainty is then the MG/Bruggeman spread.
  * Along the circles the Wiener mean is exact and stays.
+ *
+ * Rect lattices (aspect b/a in the context): both in-plane values (x: `perpendicular`, y:
+ * `perpendicularY`) come from homogenize/rectCircleTable.ts, a fill table solved on first use per
+ * (contrast, aspect); aspect 1 is the square lattice's shipped table. The same continuation beyond
+ * the solved fills (per component) and the same first-order loss term apply.
  */
-import { cAbs, cDiv, cMul, cSub, type Complex } from "../../core/complex.js";
+import { cAbs, cDiv, cMul, complex, cSub, type Complex } from "../../core/complex.js";
+import { ProgrammerError } from "../../core/errors.js";
 import { getMixingRule } from "../../media/mixing/registry.js";
-import type { AxisPermittivity, CellFamily, FillResult } from "../cellFamily.js";
+import type { Axis, AxisPermittivity, CellContext, CellFamily, FillResult } from "../cellFamily.js";
 import { circleTableValue, solvedInPlane, tableMaxFill, type TableLattice } from "../homogenize/homogenizationTable.js";
+import { RECT_ASPECT_RANGE, rectCircleValue, rectMaxSolvedFill } from "../homogenize/rectCircleTable.js";
 import type { Lattice } from "../lattice.js";
 import { fillWithinRange, mixingFamily, type MixingFamilySpec } from "./mixingFamily.js";
 
 const tableLattice = (l: Lattice): TableLattice | null => (l === "square" || l === "hex" ? l : null);
 
-/** Why the table does not cover (host, inclusion, fill) on `lattice`, or null when it does. */
-export function unsolvedReason(lattice: Lattice, host: Complex, inclusion: Complex, fill: number): string | null {
+/** Largest solved fill of a lattice (rect: per aspect). */
+function solvedMaxFill(lattice: Lattice, aspect: number): number {
+  if (lattice === "rect") return aspect === 1 ? tableMaxFill("square") : rectMaxSolvedFill(aspect);
   const tl = tableLattice(lattice);
-  if (!tl) return `no solved table for a ${lattice} lattice`;
+  return tl ? tableMaxFill(tl) : 0;
+}
+
+/** Why the table does not cover (host, inclusion, fill) on `lattice`, or null when it does. */
+export function unsolvedReason(lattice: Lattice, host: Complex, inclusion: Complex, fill: number, aspect = 1): string | null {
+  if (!tableLattice(lattice) && lattice !== "rect") return `no solved table for a ${lattice} lattice`;
   const u = inclusion.re / host.re;
   if (!(host.re > 0) || !(inclusion.re > 0)) return "a phase with Re ε ≤ 0 (metal) is not in the solved table";
   if (u < 1e-3 || u > 1e3) return `contrast ${Number(u.toPrecision(3))} outside the solved table (10⁻³…10³)`;
-  if (fill > tableMaxFill(tl) + 1e-12) return `fill ${Number(fill.toPrecision(3))} above the solved table's ${tableMaxFill(tl)} (circles nearly touching)`;
+  const fMax = solvedMaxFill(lattice, aspect);
+  if (fill > fMax + 1e-12) return `fill ${Number(fill.toPrecision(3))} above the solved ${Number(fMax.toPrecision(3))} (circles nearly touching)`;
   return null;
+}
+
+/** Aspect of a rect lattice from the context (1 elsewhere); ProgrammerError outside the solver's range. */
+function aspectOf(lattice: Lattice, context?: CellContext): number {
+  if (lattice !== "rect") return 1;
+  const a = context?.aspect ?? 1;
+  if (!(a >= RECT_ASPECT_RANGE[0] && a <= RECT_ASPECT_RANGE[1])) throw new ProgrammerError(`rect lattice aspect ${a} outside ${RECT_ASPECT_RANGE.join("…")}`);
+  return a;
+}
+
+/**
+ * Solved in-plane values (relative to the host, complex; first order in Im u) along x and y, their
+ * error estimate and the loss term's. Rect lattices use the per-aspect table, aspect 1 the square one.
+ */
+function solvedXY(lattice: Lattice, host: Complex, inclusion: Complex, fill: number, aspect: number): { x: Complex; y: Complex; error: number; lossError: number } {
+  if (lattice !== "rect" || aspect === 1) {
+    const s = solvedInPlane(lattice === "rect" ? "square" : (lattice as TableLattice), host, inclusion, fill);
+    return { x: s.eps, y: s.eps, error: s.error, lossError: s.lossError };
+  }
+  const u = cDiv(inclusion, host);
+  const v = rectCircleValue(u.re, aspect, fill);
+  // second-order loss term ½u″²|F″|: estimated as u″²|F′|/u′ (one pole term of F has |F″| ≤ 2|F′|/u′)
+  const lossError = Math.max((u.im * u.im * Math.abs(v.dxx)) / (u.re * Math.abs(v.xx)), (u.im * u.im * Math.abs(v.dyy)) / (u.re * Math.abs(v.yy)));
+  return { x: cMul(host, complex(v.xx, u.im * v.dxx)), y: cMul(host, complex(v.yy, u.im * v.dyy)), error: v.error, lossError };
+}
+
+/** Real solved value along x or y relative to nothing (ε′ in absolute units), for the inverse. */
+function solvedRe(lattice: Lattice, host: Complex, inclusion: Complex, fill: number, aspect: number, axis: "perpendicular" | "perpendicularY"): number {
+  const u = inclusion.re / host.re;
+  if (lattice !== "rect" || aspect === 1) return host.re * circleTableValue(lattice === "rect" ? "square" : (lattice as TableLattice), u, fill).f;
+  const v = rectCircleValue(u, aspect, fill);
+  return host.re * (axis === "perpendicular" ? v.xx : v.yy);
 }
 
 export function solvedCircleFamily(spec: MixingFamilySpec): CellFamily {
   const base = mixingFamily(spec);
   const perpRule = getMixingRule(spec.rules.perpendicular);
   const parRule = getMixingRule(spec.rules.parallel);
+  const solvedLattice = (l: Lattice) => l === "rect" || tableLattice(l) !== null;
   return {
     ...base,
-    effectivePermittivity(host, inclusion, fill, lattice): AxisPermittivity {
+    effectivePermittivity(host, inclusion, fill, lattice, context): AxisPermittivity {
+      const aspect = aspectOf(lattice, context);
+      const rect = lattice === "rect";
       const par = parRule.forward(host, inclusion, fill, spec.params);
       const closedPerp = perpRule.forward(host, inclusion, fill, spec.params);
-      const closedForm = { parallel: par, perpendicular: closedPerp, rules: { ...spec.rules } };
-      const why = unsolvedReason(lattice, host, inclusion, fill);
-      const tl = tableLattice(lattice);
-      if (why && tl && fill > tableMaxFill(tl) && unsolvedReason(lattice, host, inclusion, 0) === null) {
+      const closedForm = { parallel: par, perpendicular: closedPerp, ...(rect ? { perpendicularY: closedPerp } : {}), rules: { ...spec.rules, ...(rect ? { perpendicularY: spec.rules.perpendicular } : {}) } };
+      const closedRules = { ...spec.rules, ...(rect ? { perpendicularY: spec.rules.perpendicular } : {}) };
+      const unsolvedErr = { parallel: 0, perpendicular: NaN, ...(rect ? { perpendicularY: NaN } : {}) };
+      const why = unsolvedReason(lattice, host, inclusion, fill, aspect);
+      const fMax = solvedMaxFill(lattice, aspect);
+      if (why && solvedLattice(lattice) && fill > fMax && unsolvedReason(lattice, host, inclusion, 0, aspect) === null) {
         // beyond the solved fills: the closed form scaled to meet the solved value at the table's
         // edge (continuous and monotone), with the MG/Bruggeman spread as its uncertainty
-        const fMax = tableMaxFill(tl);
-        const edge = solvedInPlane(tl, host, inclusion, fMax).eps;
-        const perp = cMul(edge, cDiv(closedPerp, perpRule.forward(host, inclusion, fMax, spec.params)));
-        return { parallel: par, perpendicular: perp, rules: { ...spec.rules }, closedForm, solvedError: { parallel: 0, perpendicular: NaN }, unsolved: why };
+        const edge = solvedXY(lattice, host, inclusion, fMax, aspect);
+        const ratio = cDiv(closedPerp, perpRule.forward(host, inclusion, fMax, spec.params));
+        return {
+          parallel: par, perpendicular: cMul(edge.x, ratio), ...(rect ? { perpendicularY: cMul(edge.y, ratio) } : {}),
+          rules: closedRules, closedForm, solvedError: unsolvedErr, unsolved: why,
+        };
       }
       if (why) {
-        return { parallel: par, perpendicular: closedPerp, rules: { ...spec.rules }, closedForm, solvedError: { parallel: 0, perpendicular: NaN }, unsolved: why };
+        return { parallel: par, perpendicular: closedPerp, ...(rect ? { perpendicularY: closedPerp } : {}), rules: closedRules, closedForm, solvedError: unsolvedErr, unsolved: why };
       }
-      const s = solvedInPlane(tl!, host, inclusion, fill);
+      const s = solvedXY(lattice, host, inclusion, fill, aspect);
+      const e = s.error + s.lossError;
       return {
         parallel: par,
-        perpendicular: s.eps,
-        rules: { parallel: spec.rules.parallel, perpendicular: "solved-cell" },
+        perpendicular: s.x,
+        ...(rect ? { perpendicularY: s.y } : {}),
+        rules: { parallel: spec.rules.parallel, perpendicular: "solved-cell", ...(rect ? { perpendicularY: "solved-cell" as const } : {}) },
         closedForm,
-        solvedError: { parallel: 0, perpendicular: s.error + s.lossError },
+        solvedError: { parallel: 0, perpendicular: e, ...(rect ? { perpendicularY: e } : {}) },
       };
     },
-    fillForTarget(host, inclusion, targetRe, axis, lattice): FillResult {
-      if (axis === "parallel") return fillWithinRange(spec, host, inclusion, targetRe, axis, lattice);
-      const tl = tableLattice(lattice);
-      const [lo, hi] = spec.fillRange(lattice);
-      const fMax = tl ? Math.min(hi, tableMaxFill(tl)) : lo;
-      const why = unsolvedReason(lattice, host, inclusion, 0);
-      if (!tl || why) return fillWithinRange(spec, host, inclusion, targetRe, axis, lattice);
-      const u = inclusion.re / host.re;
-      const at = (f: number) => host.re * circleTableValue(tl, u, f).f;
+    fillForTarget(host, inclusion, targetRe, axis: Axis, lattice, context): FillResult {
+      const aspect = aspectOf(lattice, context);
+      if (axis === "parallel") return fillWithinRange(spec, host, inclusion, targetRe, axis, lattice, aspect);
+      const inPlane: "perpendicular" | "perpendicularY" = lattice === "rect" ? axis : "perpendicular";
+      const [lo, hi] = spec.fillRange(lattice, aspect);
+      const fMax = Math.min(hi, solvedMaxFill(lattice, aspect));
+      const why = unsolvedReason(lattice, host, inclusion, 0, aspect);
+      if (!solvedLattice(lattice) || why) return fillWithinRange(spec, host, inclusion, targetRe, axis, lattice, aspect);
+      const at = (f: number) => solvedRe(lattice, host, inclusion, f, aspect, inPlane);
+      const value = (f: number) => {
+        const ap = this.effectivePermittivity(host, inclusion, f, lattice, context);
+        return inPlane === "perpendicularY" ? ap.perpendicularY ?? ap.perpendicular : ap.perpendicular;
+      };
       const e0 = at(0), e1 = at(fMax);
       const between = (targetRe - e0) * (targetRe - e1) <= 0;
       if (!between) {
@@ -77,9 +136,9 @@ export function solvedCircleFamily(spec: MixingFamilySpec): CellFamily {
         const inv = perpRule.inverse(host, inclusion, targetRe / scale, spec.params);
         if (Number.isFinite(inv.fill) && inv.fill > fMax && inv.fill <= hi + 1e-12) {
           const fill = Math.min(hi, inv.fill);
-          return { ...inv, fill, achieved: this.effectivePermittivity(host, inclusion, fill, lattice).perpendicular, ruleFill: fill, inRange: true };
+          return { ...inv, fill, achieved: value(fill), ruleFill: fill, inRange: true };
         }
-        const closed = fillWithinRange(spec, host, inclusion, targetRe, axis, lattice);
+        const closed = fillWithinRange(spec, host, inclusion, targetRe, axis, lattice, aspect);
         const achieved = Math.abs(targetRe - e0) < Math.abs(targetRe - e1) ? e0 : e1;
         const reason = Number.isFinite(inv.fill) && inv.fill > hi
           ? `ε' = ${targetRe} needs fill ${Number(inv.fill.toPrecision(4))}, above the geometric limit ${Number(hi.toPrecision(4))} (${spec.limitNote(lattice)})`
@@ -94,9 +153,9 @@ export function solvedCircleFamily(spec: MixingFamilySpec): CellFamily {
         else b = m;
       }
       const fill = Math.min(hi, Math.max(lo, 0.5 * (a + b)));
-      const eff = this.effectivePermittivity(host, inclusion, fill, lattice);
-      const close = cAbs(cSub(eff.perpendicular, { re: targetRe, im: eff.perpendicular.im })) <= 1e-9 * Math.max(1, Math.abs(targetRe));
-      return { fill, achieved: eff.perpendicular, converged: close, iterations: it, ruleFill: fill, inRange: true };
+      const achieved = value(fill);
+      const close = cAbs(cSub(achieved, { re: targetRe, im: achieved.im })) <= 1e-9 * Math.max(1, Math.abs(targetRe));
+      return { fill, achieved, converged: close, iterations: it, ruleFill: fill, inRange: true };
     },
   };
 }

@@ -101,12 +101,27 @@ export function faceEps(epsH: number, epsI: number, theta: number, n2: number): 
   return n2 * harm + (1 - n2) * mean;
 }
 
+/** ∂faceEps/∂epsI (faceEps above, differentiated). */
+export function faceEpsDerivative(epsH: number, epsI: number, theta: number, n2: number): number {
+  if (theta <= 0) return 0;
+  if (theta >= 1) return 1;
+  const harm = 1 / ((1 - theta) / epsH + theta / epsI);
+  return n2 * harm * harm * theta / (epsI * epsI) + (1 - n2) * theta;
+}
+
 export interface CellSolve {
   /** ⟨ε(E₀ + ∇ψ)⟩: the column of ε_eff for E₀ (x and y components) */
   fluxX: number;
   fluxY: number;
   /** ⟨(E₀ + ∇ψ)·ε(E₀ + ∇ψ)⟩ (equals E₀·ε_eff·E₀ at convergence) */
   energy: number;
+  /**
+   * d(energy)/d(epsI) of the discrete problem: ⟨(∂ε_face/∂ε_I)·|E₀ + ∇ψ|²⟩ on the faces. The
+   * energy is stationary in ψ, so this needs no second solve (envelope theorem; the continuum
+   * form is ∂ε_eff/∂ε_I = ⟨|E|²⟩ over the inclusion, Milton 2002, §18.2). For E₀ = x̂ it is
+   * ∂ε_xx/∂ε_I, the derivative the first-order loss term of a lossy inclusion needs.
+   */
+  energyDerivative: number;
   iterations: number;
   /** final ‖r‖/‖b‖ of the preconditioned CG */
   residual: number;
@@ -228,7 +243,8 @@ export function solveCellProblem(faces: CellFaces, w: CellWorkspace, epsH: numbe
     if (it > maxIt) it = maxIt;
   }
   // fluxes and energy
-  let fx = 0, fy = 0, en = 0;
+  let fx = 0, fy = 0, en = 0, den = 0;
+  const { thetaX, thetaY, normalX2, normalY2 } = faces;
   for (let j = 0; j < ny; j++) {
     const jn = j === ny - 1 ? 0 : j + 1;
     for (let i = 0; i < nx; i++) {
@@ -239,7 +255,8 @@ export function solveCellProblem(faces: CellFaces, w: CellWorkspace, epsH: numbe
       fx += epsX[k] * gx;
       fy += epsY[k] * gy;
       en += epsX[k] * gx * gx + epsY[k] * gy * gy;
+      den += faceEpsDerivative(epsH, epsI, thetaX[k], normalX2[k]) * gx * gx + faceEpsDerivative(epsH, epsI, thetaY[k], normalY2[k]) * gy * gy;
     }
   }
-  return { fluxX: fx / n, fluxY: fy / n, energy: en / n, iterations: it, residual: rel, converged: rel < tol || bNorm === 0 };
+  return { fluxX: fx / n, fluxY: fy / n, energy: en / n, energyDerivative: den / n, iterations: it, residual: rel, converged: rel < tol || bNorm === 0 };
 }

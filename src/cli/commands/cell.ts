@@ -11,6 +11,7 @@ import type { CellPhase, CellDesignRequest, CellTarget, SplitRingSizes } from ".
 import { designCell, DEFAULT_TOLERANCE } from "../../cells/designCell.js";
 import { formatCellDesign } from "../../cells/formatCellDesign.js";
 import { parseLattice } from "../../cells/lattice.js";
+import { RECT_ASPECT_RANGE } from "../../cells/homogenize/rectCircleTable.js";
 import { CELL_FAMILIES, getCellFamily } from "../../cells/registry.js";
 import { RING_STYLES, type RingStyle } from "../../cells/splitRing.js";
 import { findMaterial, loadMaterialCatalog } from "../../io/materialCatalog.js";
@@ -80,13 +81,16 @@ const json = (x: unknown): string => JSON.stringify(x, (_k, v) => (typeof v === 
 export const command: Command = {
   name: "cell",
   summary: "design one unit cell: dimensions, effective ε or μ, process and homogenization checks",
-  usage: "cell <family> --pitch P [--lattice square|hex|cubic] (--frequency F | --wavelength L) --host ID --inclusion ID (--fill F | --target EPS) [--axis parallel|perpendicular] [--tolerance T] [--process ID] [--height H] [--layer-core ID --layer-thickness L --layer-below ID --layer-above ID] [--json] (resonant families: see below)",
+  usage: "cell <family> --pitch P [--lattice square|hex|rect|cubic] [--aspect R] (--frequency F | --wavelength L) --host ID --inclusion ID (--fill F | --target EPS) [--axis parallel|perpendicular|perpendicular-y] [--tolerance T] [--process ID] [--height H] [--layer-core ID --layer-thickness L --layer-below ID --layer-above ID] [--json] (resonant families: see below)",
   details: [
     `families: ${CELL_FAMILIES.map((f) => f.id).join(", ")}.`,
     "parallel = field along the rods, holes or wires (in the layer planes of a laminate); perpendicular = across.",
     "--target matches the real part of ε along --axis (default: the family's main axis); the loss follows.",
     "rods-in-host, holes-in-slab (square, hex): the field-across value is the solved periodic cell problem; the",
     "  closed form is shown beside it. Between λ/10 and λ/4 the lowest band is solved (band index, spatial dispersion).",
+    "--lattice rect --aspect R (rods-in-host, holes-in-slab): spacing P along x, R·P along y (R = 0.25…4); the field",
+    "  across the rods has two values, perpendicular (along x) and perpendicular-y (along y), both solved (a fill",
+    "  table per material pair and aspect, solved on first use: 1–5 s). --axis perpendicular-y targets the y value.",
     "--layer-*: the device is made in a film (core, thickness, below, above): the core is mixed with its slab mode",
     "  index (effective-index method; TE modes for a field across the circles, TM along them).",
     "wire-medium: --radius R and/or --target EPS (ε along the wires), --metal ID (default copper), --host ID (default air).",
@@ -101,7 +105,8 @@ export const command: Command = {
   ].join("\n"),
   options: [
     { name: "pitch", type: "string", valueName: "P", description: "cell pitch (lattice constant), e.g. '2 mm'" },
-    { name: "lattice", type: "string", valueName: "L", description: "square, hex or cubic (default: the family's first)" },
+    { name: "lattice", type: "string", valueName: "L", description: "square, hex, rect or cubic (default: the family's first)" },
+    { name: "aspect", type: "string", valueName: "R", description: "rect lattice: spacing along y over the pitch (b/a), 0.25…4" },
     { name: "frequency", type: "string", valueName: "F", description: "design frequency, e.g. '10 GHz'" },
     { name: "wavelength", type: "string", valueName: "L", description: "vacuum wavelength instead of a frequency, e.g. '1550 nm'" },
     { name: "layer-core", type: "string", valueName: "ID", description: "film material the cell is etched in (with the other --layer-* options)" },
@@ -112,7 +117,7 @@ export const command: Command = {
     { name: "inclusion", type: "string", valueName: "ID", description: "inclusion material id" },
     { name: "fill", type: "string", valueName: "F", description: "fill fraction of the inclusion, 0..1 (evaluate)" },
     { name: "target", type: "string", valueName: "EPS", description: "target Re ε (Re μ for split-ring) (design)" },
-    { name: "axis", type: "string", valueName: "A", description: "axis the target applies to: parallel or perpendicular" },
+    { name: "axis", type: "string", valueName: "A", description: "axis the target applies to: parallel, perpendicular (rect: along x) or perpendicular-y (rect)" },
     { name: "tolerance", type: "string", valueName: "T", description: `allowed error on the target (default ${DEFAULT_TOLERANCE})` },
     { name: "process", type: "string", valueName: "ID", description: "fabrication process id (catalogs/processes.csv)" },
     { name: "height", type: "string", valueName: "H", description: "feature height (slab thickness, rod length) for the aspect-ratio limit" },
@@ -134,8 +139,8 @@ export const command: Command = {
     if (familyId === undefined) throw new InputError({ where: "cell", message: `expected a family: ${CELL_FAMILIES.map((f) => f.id).join(", ")}` });
     const family = getCellFamily(familyId, "family");
     const axisGiven = stringOption(args, "axis");
-    if (axisGiven !== undefined && axisGiven !== "parallel" && axisGiven !== "perpendicular") {
-      throw new InputError({ where: "--axis", message: `expected parallel or perpendicular, got '${axisGiven}'` });
+    if (axisGiven !== undefined && axisGiven !== "parallel" && axisGiven !== "perpendicular" && axisGiven !== "perpendicular-y") {
+      throw new InputError({ where: "--axis", message: `expected parallel, perpendicular or perpendicular-y, got '${axisGiven}'` });
     }
     const issues: InputIssue[] = [];
     const need = (name: string, what: string) => {
@@ -170,6 +175,15 @@ export const command: Command = {
     const latticeText = stringOption(args, "lattice");
     const lattice = latticeText === undefined ? family.lattices[0] : parseLattice(latticeText, "--lattice");
     if (!family.lattices.includes(lattice)) throw new InputError({ where: "--lattice", message: `${family.id} takes ${family.lattices.join(" or ")}, not ${lattice}` });
+    const aspectText = stringOption(args, "aspect");
+    if (aspectText !== undefined && lattice !== "rect") throw new InputError({ where: "--aspect", message: "only with --lattice rect" });
+    if (aspectText === undefined && lattice === "rect") throw new InputError({ where: "--aspect", message: "expected the aspect R = b/a of the rect lattice (spacing along y over the pitch), e.g. '2'" });
+    let aspect: number | undefined;
+    if (aspectText !== undefined) {
+      aspect = plainNumber(aspectText, "--aspect", "an aspect ratio b/a such as '2'");
+      if (!(aspect >= RECT_ASPECT_RANGE[0] && aspect <= RECT_ASPECT_RANGE[1])) throw new InputError({ where: "--aspect", message: `expected an aspect ratio in ${RECT_ASPECT_RANGE[0]}…${RECT_ASPECT_RANGE[1]}, got '${aspectText}'` });
+    }
+    if (axisGiven === "perpendicular-y" && lattice !== "rect") throw new InputError({ where: "--axis", message: "perpendicular-y needs --lattice rect" });
     const pitchM = (await positiveLength(args, "pitch"))!;
     const frequencyHz = await designFrequency(args);
     const pitchScale = deviceScaleProblem(pitchM, frequencyHz, "the pitch");
@@ -179,7 +193,7 @@ export const command: Command = {
     if (fillText !== undefined) {
       fill = plainNumber(fillText, "--fill", "a fill fraction in [0, 1]");
       if (fill < 0 || fill > 1) throw new InputError({ where: "--fill", message: `expected a fill fraction in [0, 1], got '${fillText}'` });
-      const [lo, hi] = family.fillRange(lattice);
+      const [lo, hi] = family.fillRange(lattice, aspect);
       if (fill < lo) throw new InputError({ where: "--fill", message: `${fill} is below the smallest fill ${lo} of ${family.id}` });
       if (fill > hi) throw new InputError({ where: "--fill", message: `${fill} is above the geometric limit ${Number(hi.toPrecision(4))} of ${family.id} in a ${lattice} lattice (inclusions touch)` });
     }
@@ -194,9 +208,9 @@ export const command: Command = {
       if (family.id === "split-ring") target.mu = t;
       else {
         const axisText = stringOption(args, "axis") ?? family.defaultAxis;
-        if (axisText !== "parallel" && axisText !== "perpendicular") throw new InputError({ where: "--axis", message: `expected parallel or perpendicular, got '${axisText}'` });
+        if (axisText !== "parallel" && axisText !== "perpendicular" && axisText !== "perpendicular-y") throw new InputError({ where: "--axis", message: `expected parallel, perpendicular or perpendicular-y, got '${axisText}'` });
         if (family.id === "wire-medium" && axisText !== "parallel") throw new InputError({ where: "--axis", message: "a wire medium is designed for ε along the wires (parallel)" });
-        target[axisText] = t;
+        target[axisText === "perpendicular-y" ? "perpendicularY" : axisText] = t;
       }
     }
     const tolText = stringOption(args, "tolerance");
@@ -225,7 +239,7 @@ export const command: Command = {
     } else inclusion = await phase(stringOption(args, "inclusion")!, "--inclusion", frequencyHz, io);
 
     let layer: LayerReport | null = null;
-    const axisUsed = (stringOption(args, "axis") ?? family.defaultAxis) as "parallel" | "perpendicular";
+    const axisUsed = (stringOption(args, "axis") ?? family.defaultAxis) === "parallel" ? "parallel" : "perpendicular";
     if (layerGiven.length === LAYER_FLAGS.length) {
       const coreId = stringOption(args, "layer-core")!;
       const thicknessM = (await positiveLength(args, "layer-thickness"))!;
@@ -247,6 +261,7 @@ export const command: Command = {
     }
     const request: CellDesignRequest = {
       familyId: family.id, lattice, pitchM, frequencyHz, host, inclusion, target, tolerance,
+      ...(aspect !== undefined ? { aspect } : {}),
       ...(fill !== undefined ? { fill } : {}),
       ...(process ? { process } : {}),
       ...(heightM !== undefined ? { heightM } : {}),
@@ -254,6 +269,7 @@ export const command: Command = {
     };
     const design = designCell(request);
     const band = design.homogenization.status !== "ok" ? bandFor(design, host, inclusion, axisUsed) : null;
+    if (lattice === "rect" && design.homogenization.status !== "ok") design.notes.push("the lowest band is not solved for rect lattices: spatial dispersion not checked");
     if (band && !band.bandIndex.inBand) design.notes.push("the design frequency lies above the lowest band's edge: the cell is not homogenizable");
     else if (band && band.spatialDispersion > tolerance) design.notes.push(`spatial dispersion: the band index departs ${Number((100 * band.spatialDispersion).toPrecision(2))} % from the long-wavelength value (tolerance ${tolerance * 100} %)`);
     const wire = design.resonance?.kind === "wire-medium" ? design.resonance.plasma : null;

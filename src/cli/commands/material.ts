@@ -40,6 +40,7 @@ export async function frequencyFromOptions(args: ParsedArgs): Promise<number | u
   if (f !== undefined) {
     const hz = await parseQuantity(f, "frequency", "--frequency");
     if (!(hz > 0)) throw new InputError({ where: "--frequency", message: `expected a frequency > 0, got '${f}'` });
+    if (!Number.isFinite(SPEED_OF_LIGHT / hz)) throw new InputError({ where: "--frequency", message: `a frequency of ${hz} Hz is a wavelength beyond the number range; expected a physical frequency such as '10 GHz'` });
     return hz;
   }
   if (l !== undefined) {

@@ -20,6 +20,7 @@ import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_INPUT, EXIT_INTERRUPTED, EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
+import { runInterruptible } from "../interruptible.js";
 import { join, resolve } from "node:path";
 
 export const DEFAULT_OUT_DIR = "cellwright-out";
@@ -102,22 +103,12 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
     const { searchRemedies } = await import("../../io/planRemedies.js");
     plan.remedies = searchRemedies(plan, design, field, { materials, processes }, overrides);
   }
-  const controller = new AbortController();
+  const layout = opts.layout ? (await import("../../io/layout/layoutFiles.js")).layoutFiles : null;
   // Ctrl+C or a polite kill while writing: stop, remove the temporary files, write nothing.
-  const onSigint = (): void => controller.abort();
-  process.once("SIGINT", onSigint);
-  process.once("SIGTERM", onSigint);
-  let outputs: string[];
-  try {
-    const extra = opts.layout ? (await import("../../io/layout/layoutFiles.js")).layoutFiles(plan, io) : [];
-    outputs = await writePlanOutputs(plan, resolve(io.cwd, outDir), { signal: controller.signal, extra });
-  } catch (err) {
-    if ((err as Error).name === "AbortError") { io.stderr("interrupted; no output was written\n"); return EXIT_INTERRUPTED; }
-    throw err;
-  } finally {
-    process.off("SIGINT", onSigint);
-    process.off("SIGTERM", onSigint);
-  }
+  const written = await runInterruptible(io, (signal) =>
+    writePlanOutputs(plan, resolve(io.cwd, outDir), { signal, extra: layout ? layout(plan, io) : [] }));
+  if (written.interrupted) return EXIT_INTERRUPTED;
+  const outputs = written.value;
   if (json) io.stdout(`${JSON.stringify(planSummary(plan, outputs))}\n`);
   else io.stdout(humanSummary(plan, outputs));
   return plan.buildable ? EXIT_OK : EXIT_NOT_BUILDABLE;

@@ -11,13 +11,13 @@ import { COMMANDS } from "./index.js";
 import { DEFAULT_OUT_DIR, runPlanCommand } from "./plan.js";
 
 /** The built-in demo: a printed 12 GHz beam bend that meets its own requirements (exit 0). */
-export const START_DEMO = fileURLToPath(new URL("../../../demo-designs/plan-mmwave-printed-bend.json", import.meta.url));
+export const START_DEMO = fileURLToPath(new URL("../../../demo-designs/plan-printed-bend.json", import.meta.url));
 
 export const command: Command = {
   name: "start",
   summary: "plan a built-in demo design and show where the outputs are",
   usage: "start [--out DIR] [--json] [--batch]",
-  details: "Plans demo-designs/plan-mmwave-printed-bend.json. On a terminal with the interactive session available, opens it instead (--batch: always plan).",
+  details: "Plans demo-designs/plan-printed-bend.json. On a terminal with the interactive session available, opens it instead (--batch: always plan).",
   options: [
     { name: "out", type: "string", valueName: "DIR", description: `output folder (default ./${DEFAULT_OUT_DIR})` },
     { name: "json", type: "boolean", description: "print the summary as one JSON object on stdout" },

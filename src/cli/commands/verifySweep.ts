@@ -21,6 +21,7 @@ import { summarizeSweep, sweepJson, sweepSeries, sweepTable } from "../../verify
 import { sweepSvg } from "../../verify/sweep/sweepSvg.js";
 import type { CliIo } from "../cliIo.js";
 import { EXIT_INTERRUPTED, EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
+import { runInterruptible } from "../interruptible.js";
 import { runSweepPool } from "../sweepPool.js";
 
 export const SWEEP_CSV = "verify-sweep.csv";
@@ -93,40 +94,29 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   const notes = [...run.notes];
   if (pool.note) notes.push(pool.note);
   progress(`sweep: ${frequencies.length} frequenc${frequencies.length === 1 ? "y" : "ies"} from ${formatFrequency(frequencies[0])} to ${formatFrequency(frequencies[frequencies.length - 1])}, ${pool.workers} at a time`);
-  const controller = new AbortController();
-  const onSigint = (): void => controller.abort();
-  process.once("SIGINT", onSigint);
-  process.once("SIGTERM", onSigint);
-  let outputs: string[] = [];
-  let result;
-  let threads = 0;
-  try {
-    const ran = await runSweepPool({ ...context, solverBytes: pool.solverBytes }, frequencies, {
-      workers: pool.workers, signal: controller.signal, formatHz: formatFrequency, designPath: run.designPath, cwd: io.cwd,
+  const ran = await runInterruptible(io, async (signal) => {
+    const pooled = await runSweepPool({ ...context, solverBytes: pool.solverBytes }, frequencies, {
+      workers: pool.workers, signal, formatHz: formatFrequency, designPath: run.designPath, cwd: io.cwd,
       onDone: (done, total, f) => progress(`sweep: ${done} of ${total} done (${formatFrequency(f)})`),
     });
-    threads = ran.threads;
-    result = summarizeSweep(ran.points, { designFrequencyHz: run.designFrequencyHz, threshold: run.threshold, beam: context.illumination.kind === "beam" });
-    result.notes = [...new Set([...notes, ...result.notes])];
-    if (ran.threads === 0 && pool.workers > 1) result.notes.push("the worker file is not built (running from the sources): frequencies were solved one after the other");
+    const summary = summarizeSweep(pooled.points, { designFrequencyHz: run.designFrequencyHz, threshold: run.threshold, beam: context.illumination.kind === "beam" });
+    summary.notes = [...new Set([...notes, ...summary.notes])];
+    if (pooled.threads === 0 && pool.workers > 1) summary.notes.push("the worker file is not built (running from the sources): frequencies were solved one after the other");
+    let written: string[] = [];
     if (run.outDir !== undefined) {
       const folder = await prepareOutputFolder(resolve(io.cwd, run.outDir), names);
-      const hasBare = result.points[0].cases.some((c) => c.name === "bare" && c.available);
-      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${r0band(result)}`;
-      const r = result;
+      const hasBare = summary.points[0].cases.some((c) => c.name === "bare" && c.available);
+      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${r0band(summary)}`;
       const files: OutputFile[] = [
-        { name: SWEEP_CSV, produce: (write) => write(sweepCsvText(r.points, { hasBare, beam: context.illumination.kind === "beam" })) },
-        { name: SWEEP_SVG, produce: (write) => write(sweepSvg(r.frequenciesHz, sweepSeries(r), r.figure, r.band, run.designName, subtitle)) },
+        { name: SWEEP_CSV, produce: (write) => write(sweepCsvText(summary.points, { hasBare, beam: context.illumination.kind === "beam", figure: summary.figure, meetsLimit: summary.band?.meetsLimit ?? null })) },
+        { name: SWEEP_SVG, produce: (write) => write(sweepSvg(summary.frequenciesHz, sweepSeries(summary), summary.figure, summary.band, run.designName, subtitle)) },
       ];
-      outputs = await writeOutputSet(folder, files, { signal: controller.signal });
+      written = await writeOutputSet(folder, files, { signal });
     }
-  } catch (err) {
-    if ((err as Error).name === "AbortError") { io.stderr("interrupted; no output was written\n"); return EXIT_INTERRUPTED; }
-    throw err;
-  } finally {
-    process.off("SIGINT", onSigint);
-    process.off("SIGTERM", onSigint);
-  }
+    return { result: summary, outputs: written, threads: pooled.threads };
+  });
+  if (ran.interrupted) return EXIT_INTERRUPTED;
+  const { result, outputs, threads } = ran.value;
   for (const note of result.notes) io.stderr(`note: ${note}\n`);
   const sweep = { ...sweepJson(result, run.threshold), workers: pool.workers, threads };
   const ladder = context.resolution !== undefined ? `one grid at ${context.resolution} points per wavelength` : `grid ladder per frequency, accuracy ${Number(((context.accuracy ?? 0.02) * 100).toPrecision(3))} %`;

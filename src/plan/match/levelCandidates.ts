@@ -9,9 +9,9 @@
  */
 import { EPS0_F_PER_M } from "../../core/physicalConstants.js";
 import { cAbs, complex, cSub, refractiveIndex, type Complex } from "../../core/complex.js";
-import type { CellFamily } from "../../cells/cellFamily.js";
+import { axisClosedForm, axisRule, axisSolvedError, axisValue, type CellFamily } from "../../cells/cellFamily.js";
 import type { Lattice } from "../../cells/lattice.js";
-import { checkProcess } from "../../cells/process.js";
+import { processCheckFor } from "../../cells/cellChecks.js";
 import { homogenizationCheck } from "../../cells/homogenization.js";
 import { designSplitRing, ringModelSpread, splitRingBandwidth } from "../../cells/splitRing.js";
 import { printedOuterRadiusM } from "../../cells/printedRing.js";
@@ -67,7 +67,8 @@ export function levelCandidates(target: number[], ctx: MatchContext): LevelSearc
   search.candidates.push(...solidCandidates(target, ctx));
 
   for (const family of ctx.families) {
-    const lattices = family.lattices.filter((l) => ctx.lattice === null || l === ctx.lattice);
+    // rect lattices only when the design asks for them (realization.lattice)
+    const lattices = family.lattices.filter((l) => (ctx.lattice === null && l !== "rect") || l === ctx.lattice);
     if (lattices.length === 0) { refuse(search, `${family.id} has no ${ctx.lattice} lattice`); continue; }
     if (family.id === "split-ring") {
       if (magneticIdx.length === 0) continue; // resonant: only where needed
@@ -131,16 +132,9 @@ function dropFarOff(search: LevelSearch, tolerance: number): LevelSearch {
   return { candidates: kept, refusals: search.refusals };
 }
 
-/** Check the process on the fabricated phase(s); returns reasons (empty when fine). */
+/** Check the process on the part it shapes (cells/cellChecks.ts `processCheckFor`); returns reasons (empty when fine). */
 function processReasons(ctx: MatchContext, family: CellFamily, host: EvaluatedMaterial, inc: EvaluatedMaterial, featureM: number, gapM: number): string[] {
-  if (!ctx.process) return [];
-  const phases = family.fabricatedPhase === "both" ? [host, inc] : family.fabricatedPhase === "host" ? [host] : [inc];
-  const reasons: string[] = [];
-  for (const p of phases) {
-    if (p.material.class === "gas") continue;
-    reasons.push(...checkProcess(ctx.process, { featureM, gapM }, p.material.class).reasons);
-  }
-  return reasons;
+  return processCheckFor(ctx.process ?? undefined, family.fabricatedPhase, host.material.class, inc.material.class, { featureM, gapM })?.reasons ?? [];
 }
 
 function homogenization(ctx: MatchContext, phases: Complex[]): { status: "ok" | "warn" | "refuse"; ratio: number } {
@@ -207,15 +201,16 @@ function mixed(
   const notes: string[] = [];
   for (const k of epsIdx) {
     const axis = axisFor(family, o, comps[k].axis);
-    const rule = ap.rules[axis];
-    const u = rule === "solved-cell" ? (ap.solvedError?.[axis] ?? 0)
-      : rule === "wire-medium" ? wireUncertainty(ap[axis], host.eps, family.dimensionsFromFill(fill, ctx.pitchM, lattice).radiusM / ctx.pitchM)
+    const rule = axisRule(ap, axis);
+    const value = axisValue(ap, axis);
+    const u = rule === "solved-cell" ? (axisSolvedError(ap, axis) ?? 0)
+      : rule === "wire-medium" ? wireUncertainty(value, host.eps, family.dimensionsFromFill(fill, ctx.pitchM, lattice).radiusM / ctx.pitchM)
       : mixingSpread(rule, family.dimension, host.eps, inc.eps, fill);
     spread = Math.max(spread, Number.isFinite(u) ? u : 1);
-    const closed = ap.closedForm?.[axis];
+    const closed = axisClosedForm(ap, axis);
     if (rule === "solved-cell" && closed) {
-      const d = cAbs(cSub(closed, ap[axis])) / cAbs(ap[axis]);
-      if (d > ctx.tolerance) notes.push(`${axis}: the closed form (${ap.closedForm!.rules[axis]}) differs from the solved cell by ${Number((100 * d).toPrecision(3))} %; the solved value is used`);
+      const d = cAbs(cSub(closed.value, value)) / cAbs(value);
+      if (d > ctx.tolerance) notes.push(`${axis}: the closed form (${closed.rule}) differs from the solved cell by ${Number((100 * d).toPrecision(3))} %; the solved value is used`);
     }
   }
   if (ap.unsolved) notes.push(`not solved (${ap.unsolved}): closed form used`);

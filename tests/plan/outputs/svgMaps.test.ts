@@ -39,7 +39,7 @@ const txt = (e: El): string => String(e["#text"] ?? "");
 
 describe("maps.svg of the printed bend (mm)", () => {
   let r: Awaited<ReturnType<typeof planned>>;
-  beforeAll(async () => { r = await planned("demo-designs/plan-mmwave-printed-bend.json"); }, 120_000);
+  beforeAll(async () => { r = await planned("demo-designs/plan-printed-bend.json"); }, 120_000);
 
   it("x ticks sit where their labels say, in millimetres, on a 1-2-5 step", () => {
     const a = 1.2; // mm, the design's pitch

@@ -22,7 +22,7 @@ import { evaluateMaterial } from "../../../src/media/material.js";
 import { getCellFamily } from "../../../src/cells/registry.js";
 import { expectClose } from "../../helpers/close.js";
 
-const DEMOS = ["plan-microwave-mast-cloak", "plan-mmwave-printed-bend", "plan-silicon-chip-bend", "plan-concentrator-subunity", "plan-microwave-carpet"];
+const DEMOS = ["plan-microwave-mast-cloak", "plan-printed-bend", "plan-silicon-chip-bend", "plan-concentrator-subunity", "plan-microwave-carpet"];
 
 async function planOf(name: string): Promise<{ plan: Plan; catalog: Awaited<ReturnType<typeof loadMaterialCatalog>> }> {
   const design = await loadDesign(`demo-designs/${name}.json`);
