@@ -49,7 +49,7 @@ describe("the drawn ladder on the demos (costed, not solved)", () => {
     expect(two.rungs.length).toBe(2);
     expect(two.reason).toBeNull();
     const none = drawnLadderPlan(input, realized, drawn, drawn.featureM!, { seconds: plan.rungs[0].seconds });
-    expect(none.reason).toMatch(/^drawing the inclusions \(smallest feature 500 µm\) needs a ladder of at least 2 grids from 2 steps across the smallest feature; at 3 steps across it: \d+ × \d+ nodes, over the time \(about .* in all, the check spends at most .* on the drawn case\); it would fit with every feature about [\d.]+ times larger/);
+    expect(none.reason).toMatch(/^drawing the inclusions \(smallest feature 500 µm\) needs a ladder of at least 2 grids from 2 steps across the smallest feature; at 3 steps across it: \d+ × \d+ nodes, over the time \(about .* in all, the check spends at most .* on the drawn case; --drawn-time sets it\); it would fit with every feature about [\d.]+ times larger/);
     expect(none.reason).not.toMatch(/\n/);
   }, 60_000);
 
