@@ -48,12 +48,13 @@ function levelFlags(lv: PlanLevel, search: LevelSearch, settings: PlanSettings):
   return m;
 }
 
-export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Float64Array; zeroTargetAbsError: Float64Array; warnings: string[] } {
+export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Float64Array; zeroTargetAbsError: Float64Array | null; warnings: string[] } {
   const { reduced, targets, comps, level, levels, settings } = inp;
   const n = level.length;
   const flags = new Uint16Array(n);
   const relError = new Float64Array(n).fill(NaN);
-  const zeroTargetAbsError = new Float64Array(n).fill(NaN);
+  // made (NaN-filled) at the first cell with a zero target only: usually no cell has one
+  let zeroTargetAbsError: Float64Array | null = null;
   const warnings: string[] = [];
   levels.forEach((lv, l) => { lv.flags = levelFlags(lv, inp.searches[l], settings); });
   // the widest ε range any allowed ordinary pair reaches
@@ -98,7 +99,7 @@ export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Fl
         if (x > e) e = x;
       }
       relError[c] = e;
-      zeroTargetAbsError[c] = z;
+      if (!Number.isNaN(z)) (zeroTargetAbsError ??= new Float64Array(n).fill(NaN))[c] = z;
       if (e > tol || z > tol) f |= F_INEXACT;
     }
     flags[c] = f;

@@ -230,8 +230,11 @@ export interface Plan {
    * components of |achieved − target| / |target|, achieved complex, no floor (NaN when no recipe)
    */
   relError: Float64Array;
-  /** |achieved| of components whose target is exactly zero, largest per cell (NaN when none) */
-  zeroTargetAbsError: Float64Array;
+  /**
+   * |achieved| of components whose target is exactly zero, largest per cell (NaN when none); null
+   * when no cell has such a component (the column is empty): a 10⁶-cell plan then allocates nothing
+   */
+  zeroTargetAbsError: Float64Array | null;
   /** flag bitmask of each cell, bits from plan/flags.ts */
   flags: Uint16Array;
   levels: PlanLevel[];

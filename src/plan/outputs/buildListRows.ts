@@ -85,7 +85,9 @@ function putAscii(buf: Uint8Array, at: number, t: string): number {
 
 /** Bytes made once (per-level and per-index texts) at `at`; returns the position after them. */
 function putBytes(buf: Uint8Array, at: number, b: Uint8Array): number {
-  for (let k = 0; k < b.length; k++) buf[at++] = b[k];
+  const n = b.length;
+  if (n > 24) { buf.set(b, at); return at + n; } // a copy call pays off for long texts (recipes)
+  for (let k = 0; k < n; k++) buf[at++] = b[k];
   return at;
 }
 
@@ -152,6 +154,7 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
   const degPerRad = 180 / Math.PI;
   const { targets, axisAngleRad, region, relError, quantizationError, zeroTargetAbsError, flags, level } = plan;
   const gi = g.i, gj = g.j, gk = g.k;
+  const lastTarget = new Float64Array(m).fill(NaN), lastLength = new Int32Array(m), lastBytes = new Uint8Array(m * NUMBER_BYTES);
   for (let c = 0; c < g.count; c++) {
     const lv = level[c];
     at = putInt(buf, at, c + 1); buf[at++] = COMMA;
@@ -164,11 +167,26 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
     at = putNumber(buf, at, axisAngleRad[c] * degPerRad, 4); buf[at++] = COMMA;
     at = putInt(buf, at, region[c] + 1); buf[at++] = COMMA;
     if (lv >= 0) at = putInt(buf, at, lv + 1);
-    for (let k = 0; k < m; k++) { buf[at++] = COMMA; at = putNumber(buf, at, targets[k][c], 6); }
+    for (let k = 0; k < m; k++) {
+      buf[at++] = COMMA;
+      // a value equal to the column's previous one (a constant component) reuses its bytes
+      const v = targets[k][c];
+      const from = k * NUMBER_BYTES;
+      if (v === lastTarget[k]) {
+        for (let q = 0, len = lastLength[k]; q < len; q++) buf[at++] = lastBytes[from + q];
+      } else {
+        const end = putNumber(buf, at, v, 6);
+        for (let q = at; q < end; q++) lastBytes[from + q - at] = buf[q];
+        lastTarget[k] = v;
+        lastLength[k] = end - at;
+        at = end;
+      }
+    }
     at = putBytes(buf, at, lv >= 0 ? achieved[lv] : noAchieved);
     buf[at++] = COMMA; at = putNumber(buf, at, relError[c], 4);
     buf[at++] = COMMA; at = putNumber(buf, at, quantizationError[c], 4);
-    buf[at++] = COMMA; at = putNumber(buf, at, zeroTargetAbsError[c], 4);
+    buf[at++] = COMMA;
+    if (zeroTargetAbsError) at = putNumber(buf, at, zeroTargetAbsError[c], 4);
     at = putBytes(buf, at, lv >= 0 ? recipe[lv] : noRecipe);
     buf[at++] = COMMA;
     const f = flags[c];
