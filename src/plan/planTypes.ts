@@ -29,8 +29,10 @@ export interface PlanSettings {
   families: string[] | null;
   /** fabrication process id; null = no process limit (flagged in the report) */
   process: string | null;
-  /** lattice; null = every lattice the families support */
+  /** lattice; null = every lattice the families support except rect (rect only when asked for) */
   lattice: LatticeName | null;
+  /** rect lattices: the fixed aspect b/a (realization.aspect); null = the planner tries PLAN_RECT_ASPECTS */
+  aspect?: number | null;
   /** largest in-plane anisotropy ratio accepted (default 10) */
   maxAnisotropy: number;
   /** largest attenuation along the longest straight path, dB; null = not checked */
@@ -87,6 +89,11 @@ export interface Recipe {
   /** inclusion material id ("" for families of one material, e.g. holes-in-slab uses air) */
   inclusion: string;
   lattice: LatticeName;
+  /**
+   * rect lattices: b/a, the spacing along principal axis 2 over that along axis 1 (the lattice's x
+   * axis lies along axis 1); the device cell holds m × n circles (cells/lattice.ts rectTiling)
+   */
+  aspect?: number;
   /**
    * Which way the recipe points, for anisotropic families: the axis of rods, holes, wires and
    * split rings, or a laminate's layer normal — "z", or the in-plane principal axis "1" (smaller

@@ -166,8 +166,12 @@ export function rectTableSeconds(aspect: number): number {
 const CACHE_LIMIT = 48;
 const cache = new Map<string, RectTable>();
 
-/** The table of (u, aspect), solved on first use. */
+/**
+ * The table of (u, aspect), solved on first use. Aspects below 1 are the same cell turned by 90°:
+ * they share the table of 1/aspect (rectCircleValue swaps x and y), so R and 1/R cost one table.
+ */
 export function rectTable(u: number, aspect: number): RectTable {
+  if (aspect < 1) aspect = 1 / aspect;
   const key = `${u}|${aspect}`;
   let t = cache.get(key);
   if (!t) {
@@ -179,7 +183,7 @@ export function rectTable(u: number, aspect: number): RectTable {
 }
 
 /** True when the table of (u, aspect) is already solved (no cost to ask). */
-export const rectTableReady = (u: number, aspect: number): boolean => cache.has(`${u}|${aspect}`);
+export const rectTableReady = (u: number, aspect: number): boolean => aspect === 1 || cache.has(`${u}|${aspect < 1 ? 1 / aspect : aspect}`);
 
 export interface RectValue {
   xx: number;
@@ -193,15 +197,11 @@ export interface RectValue {
 /** F and ∂F/∂u along x and y at `fill` from the (u, aspect) table. */
 export function rectCircleValue(u: number, aspect: number, fill: number): RectValue {
   const t = rectTable(u, aspect);
+  const swap = aspect < 1;
   const inTable = fill >= 0 && fill <= t.maxFill + 1e-12;
   const f = Math.min(t.maxFill, Math.max(0, fill));
   const col = (k: "xx" | "yy" | "dxx" | "dyy") => t.nodes.map((n) => n[k]);
-  return {
-    xx: splineAt(t.fills, col("xx"), t.m2.xx, f),
-    yy: splineAt(t.fills, col("yy"), t.m2.yy, f),
-    dxx: splineAt(t.fills, col("dxx"), t.m2.dxx, f),
-    dyy: splineAt(t.fills, col("dyy"), t.m2.dyy, f),
-    error: t.error,
-    inTable,
-  };
+  const xx = splineAt(t.fills, col("xx"), t.m2.xx, f), yy = splineAt(t.fills, col("yy"), t.m2.yy, f);
+  const dxx = splineAt(t.fills, col("dxx"), t.m2.dxx, f), dyy = splineAt(t.fills, col("dyy"), t.m2.dyy, f);
+  return swap ? { xx: yy, yy: xx, dxx: dyy, dyy: dxx, error: t.error, inTable } : { xx, yy, dxx, dyy, error: t.error, inTable };
 }
