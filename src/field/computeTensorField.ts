@@ -103,12 +103,14 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   const bad: BadCell[] = [];
   let badCount = 0, overflowCount = 0, firstOverflow = -1;
   const { xM, yM, zM } = grid;
+  // a 2D grid's z is 0 in every cell: not read, so its (never written) pages stay untouched
+  const volume = grid.dimension === 3;
   // hoisted array references: the hot loop touches only locals
   const { xx: exx, yy: eyy, zz: ezz, xy: exy, xz: exz, yz: eyz } = eps;
   const { xx: mxx, yy: myy, zz: mzz, xy: mxy, xz: mxz, yz: myz } = mu;
   const [ep0, ep1, ep2] = epsPrincipal, [mp0, mp1, mp2] = muPrincipal;
   for (let c = 0; c < n; c++) {
-    let x = xM[c], y = yM[c], z = zM[c];
+    let x = xM[c], y = yM[c], z = volume ? zM[c] : 0;
     let flagged = 0;
     if (offset > 0) {
       pt[0] = x; pt[1] = y; pt[2] = z;

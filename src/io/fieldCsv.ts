@@ -11,7 +11,6 @@
 import { createReadStream } from "node:fs";
 import { stat } from "node:fs/promises";
 import { relative, isAbsolute } from "node:path";
-import { parse } from "csv-parse";
 import { InputError, unknownWithSuggestion } from "../core/errors.js";
 import { SYM_COMPONENTS, allocSymField } from "../core/symTensor.js";
 import type { TensorField } from "../field/tensorField.js";
@@ -98,6 +97,8 @@ export interface ReadFieldOptions {
  */
 export async function readFieldCsv(path: string, options: ReadFieldOptions = {}): Promise<TensorField> {
   const label = options.label ?? path;
+  // the CSV parser is loaded only when a CSV is read: computed designs never pay for it
+  const { parse } = await import("csv-parse");
   const source = createReadStream(path);
   const parser = source.pipe(
     parse({ info: true, relax_column_count: true, skip_empty_lines: true, trim: true, comment: "#", comment_no_infix: true }),

@@ -138,7 +138,9 @@ export function planFromField(
   const valid = new Uint8Array(n);
   let nValid = 0;
   for (let c = 0; c < n; c++) {
-    axisAngleRad[c] = sym2MajorAngle(xx[c], xy[c], yy[c]);
+    // written only where it is not +0: an isotropic target leaves the array's pages untouched
+    const angle = sym2MajorAngle(xx[c], xy[c], yy[c]);
+    if (angle !== 0 || 1 / angle < 0) axisAngleRad[c] = angle;
     const ok = !(reduced.flags[c] & FLAG_UNDEFINED) && Number.isFinite(targets[0][c]) && Number.isFinite(targets[1][c]) && Number.isFinite(targets[2][c]);
     valid[c] = ok ? 1 : 0;
     if (ok) nValid++;

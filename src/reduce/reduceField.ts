@@ -99,11 +99,17 @@ export function reduceField(field: TensorField, options: ReduceOptions): Reduced
 export function reduceWithSettings(field: TensorField, settings: ReductionSettings): ReducedField {
   const n = field.grid.count;
   const names = componentNames(settings.polarization);
-  const components: Record<string, Float64Array> = {};
-  const arrays = names.map((name) => (components[name] = new Float64Array(n)));
-  const m = arrays.length;
   const planar = settings.polarization !== "3D";
-  const principal: [Float64Array, Float64Array] = [new Float64Array(n), new Float64Array(n)];
+  // An isotropizing scheme in 2D keeps P' = g·I: both in-plane components and both principal
+  // values are g in every cell (NaN together where undefined), so they are one array, and the
+  // off-diagonal one is 0 (written only where it is not +0: NaN in undefined cells), so its
+  // pages are never touched in a defined field.
+  const iso = planar && reductionKernel(settings).scheme.isotropize;
+  const shared = iso ? new Float64Array(n) : null;
+  const components: Record<string, Float64Array> = {};
+  const arrays = names.map((name, k) => (components[name] = shared && (k === 1 || k === 2) ? shared : new Float64Array(n)));
+  const m = arrays.length;
+  const principal: [Float64Array, Float64Array] = shared ? [shared, shared] : [new Float64Array(n), new Float64Array(n)];
   const outOfPlane = arrays[0];
   const ez = settings.polarization === "Ez";
   const epsMin = planar ? (ez ? outOfPlane : principal[0]) : new Float64Array(n);
@@ -131,13 +137,21 @@ export function reduceWithSettings(field: TensorField, settings: ReductionSettin
   const { anisotropy, droppedAnisotropy, scale, flags } = out;
   const capped = field.capped;
   const rc = r.components;
+  const [a0, , , a3] = arrays;
   for (let c = 0; c < n; c++) {
     readSym(eps, field.eps, c);
     readSym(mu, field.mu, c);
     kernel.apply(eps, mu, capped[c] === 1, r);
-    for (let k = 0; k < m; k++) arrays[k][c] = rc[k];
-    p0[c] = r.principalMin;
-    p1[c] = r.principalMax;
+    if (iso) {
+      a0[c] = rc[0];
+      p0[c] = r.principalMin;
+      const xy = rc[3];
+      if (xy !== 0 || 1 / xy < 0) a3[c] = xy;
+    } else {
+      for (let k = 0; k < m; k++) arrays[k][c] = rc[k];
+      p0[c] = r.principalMin;
+      p1[c] = r.principalMax;
+    }
     anisotropy[c] = r.anisotropy;
     droppedAnisotropy[c] = r.droppedAnisotropy;
     scale[c] = r.scale;

@@ -1,13 +1,19 @@
 /**
- * The realized device drawn as the shop builds it (verify's `realized-geometry` case): every cell's
- * inclusion at its real size and place, in the plan view the layout files draw
- * (src/plan/layout/layoutShapes.ts), each point taking the bulk material it lies in. The solver's
+ * The realized device drawn as its recipes mean it to be built (verify's `realized-geometry` case):
+ * every inclusion at its real size and place, in plan view, each point taking the bulk material it
+ * lies in. The solver's
  * grid then resolves the inclusions (a step of at most the smallest feature / FEATURE_STEPS on the
  * coarsest rung), and its sub-pixel averaging (gridCoefficients.ts: arithmetic for the field along
  * an interface, harmonic across it) handles the inclusion boundaries.
  *
  * The 2D solver needs cells that do not vary along z, so only these are drawn:
- * - rods and holes along z (`orientation` z): a disc of the recipe's radius at the cell centre;
+ * - rods and holes along z (`orientation` z): a disc of the recipe's radius; square-lattice recipes
+ *   at their cell centres, hexagonal-lattice ones on the sites of the hexagonal lattice of their
+ *   pitch (src/plan/layout/hexSites.ts: one site per (√3/2)·a², each with the recipe of the cell it
+ *   falls in), so the drawn area fraction is the recipe's fill in both cases. (The layout files
+ *   still place hexagonal recipes one per square cell, area fraction fill × √3/2 — layoutShapes.ts.)
+ *   Discs that touch or overlap anywhere (also where square and hexagonal regions meet) are
+ *   refused; other lattices (rectangular) are refused by name;
  * - laminates whose layer normal lies in the plane: one layer of thickness `thickness_m` across the
  *   cell, its normal along x or y (the lattice axis nearer the cell's principal axis, as the layout);
  * - solid cells: the cell square of the material.
@@ -26,6 +32,8 @@
 import type { Complex } from "../core/complex.js";
 import type { Plan, Recipe } from "../plan/planTypes.js";
 import { diskConductor, type Conductor } from "./conductor.js";
+import { HEX_ROW, hexSites, nearestHexSite } from "../plan/layout/hexSites.js";
+import type { DeviceGrid } from "../field/deviceGrid.js";
 import { deviceBounds, latticeLookup, type HiddenDisk } from "./deviceScene.js";
 import { SAMPLE_BACKGROUND, SAMPLE_MEDIUM, SAMPLE_PEC, S_B, S_TXX, S_TXY, S_TYY, type Scene, type ScenePolarization } from "./scene.js";
 
@@ -88,6 +96,56 @@ export type GeometrySceneResult =
 
 const VACUUM: BulkMaterial = { eps: { re: 1, im: 0 }, mu: { re: 1, im: 0 }, isMetal: false };
 
+/** Per-cell drawing codes of the scene. */
+const K_NONE = 0, K_SOLID = 1, K_DISC = 2, K_LAYER = 3, K_HEX_DISC = 4;
+
+interface DiscCentres { x: Float64Array; y: Float64Array; cell: Int32Array; hexCount: number }
+
+/** Centres of every drawn disc: square-lattice discs at their cell centres, hexagonal ones on the sites of their cells (hexSites.ts). */
+function discCentres(g: DeviceGrid, lut: Int32Array, kindOf: Uint8Array): DiscCentres {
+  const hex = hexSites(g, lut, (c) => kindOf[c] === K_HEX_DISC);
+  let sq = 0;
+  for (let c = 0; c < g.count; c++) if (kindOf[c] === K_DISC) sq++;
+  const m = sq + hex.cell.length;
+  const out: DiscCentres = { x: new Float64Array(m), y: new Float64Array(m), cell: new Int32Array(m), hexCount: hex.cell.length };
+  let k = 0;
+  for (let c = 0; c < g.count; c++) if (kindOf[c] === K_DISC) { out.x[k] = g.xM[c]; out.y[k] = g.yM[c]; out.cell[k++] = c; }
+  out.x.set(hex.xM, k); out.y.set(hex.yM, k); out.cell.set(hex.cell, k);
+  return out;
+}
+
+/**
+ * The narrowest wall between two drawn discs (centre distance − r₁ − r₂; ≤ 0 when they touch or
+ * overlap), where, and their radii. Discs are bucketed by the pitch-sized square they stand in;
+ * radii are below a/2 when the wall is positive, so only neighbours within two buckets can come
+ * closer than a pitch. Infinity for fewer than two discs. O(discs).
+ */
+function narrowestWall(d: DiscCentres, radius: Float64Array, a: number): { value: number; at: [number, number]; radii: number[] } {
+  const m = d.cell.length;
+  let best = Infinity, at: [number, number] = [0, 0], radii: number[] = [];
+  if (m < 2) return { value: best, at, radii };
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (let k = 0; k < m; k++) { minX = Math.min(minX, d.x[k]); maxX = Math.max(maxX, d.x[k]); minY = Math.min(minY, d.y[k]); maxY = Math.max(maxY, d.y[k]); }
+  const bx = Math.floor((maxX - minX) / a) + 1, by = Math.floor((maxY - minY) / a) + 1;
+  const head = new Int32Array(bx * by).fill(-1), next = new Int32Array(m);
+  const bucket = (k: number): number => Math.floor((d.x[k] - minX) / a) + bx * Math.floor((d.y[k] - minY) / a);
+  for (let k = 0; k < m; k++) { const b = bucket(k); next[k] = head[b]; head[b] = k; }
+  for (let k = 0; k < m; k++) {
+    const ib = Math.floor((d.x[k] - minX) / a), jb = Math.floor((d.y[k] - minY) / a), rk = radius[d.cell[k]];
+    for (let q = Math.max(0, jb - 2); q <= Math.min(by - 1, jb + 2); q++) {
+      for (let p = Math.max(0, ib - 2); p <= Math.min(bx - 1, ib + 2); p++) {
+        for (let o = head[p + bx * q]; o >= 0; o = next[o]) {
+          if (o <= k) continue;
+          const ro = radius[d.cell[o]];
+          const w = Math.hypot(d.x[o] - d.x[k], d.y[o] - d.y[k]) - rk - ro;
+          if (w < best) { best = w; at = [(d.x[o] + d.x[k]) / 2, (d.y[o] + d.y[k]) / 2]; radii = [rk, ro]; }
+        }
+      }
+    }
+  }
+  return { value: best, at, radii };
+}
+
 /** "levels 1, 2, 4: why; level 3: why" — one entry per distinct reason. */
 function groupByReason(refused: { level: number; reason: string }[]): string {
   const by = new Map<string, number[]>();
@@ -107,7 +165,7 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
   const refused: { level: number; reason: string }[] = [];
   const mat = (id: string): BulkMaterial | undefined => (id === "vacuum" ? materials.get(id) ?? VACUUM : materials.get(id));
   let feature = Infinity, index = 0;
-  const hex = new Set<number>();
+  const hexLevels = new Set<number>();
   plan.levels.forEach((lv, l) => {
     const r = lv.recipe;
     if (!used[l] || !r) { drawings.push(null); return; }
@@ -121,9 +179,10 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
       index = Math.max(index, Math.sqrt(Math.hypot(m.eps.re, m.eps.im) * Math.hypot(m.mu.re, m.mu.im)));
     }
     if (d.kind === "disc") {
-      if (2 * d.radiusM >= a) { refused.push({ level: lv.index, reason: `the discs (radius ${d.radiusM.toPrecision(3)} m) touch or overlap on the device's square cells (pitch ${a.toPrecision(3)} m)` }); drawings.push(null); return; }
+      if (r.lattice !== "square" && r.lattice !== "hex") { refused.push({ level: lv.index, reason: `a ${r.lattice} lattice is not drawn (square and hexagonal lattices only)` }); drawings.push(null); return; }
+      // the wall to a neighbour of the same level (a − 2r) beside the disc's diameter; mixed neighbours below
       feature = Math.min(feature, 2 * d.radiusM, a - 2 * d.radiusM);
-      if (r.lattice === "hex") hex.add(lv.index);
+      if (r.lattice === "hex") hexLevels.add(l);
     } else if (d.kind === "layer") {
       if (d.thicknessM >= a) { refused.push({ level: lv.index, reason: `a layer ${d.thicknessM.toPrecision(3)} m thick fills the ${a.toPrecision(3)} m cell` }); drawings.push(null); return; }
       feature = Math.min(feature, d.thicknessM, a - d.thicknessM);
@@ -132,8 +191,6 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
   });
   if (drawings.every((d) => d === null) && !refused.length) return { ok: false, reason: "no cell of the plan has a recipe: there is nothing to draw" };
   if (refused.length) return { ok: false, reason: `not every cell can be drawn in 2D — ${groupByReason(refused)}` };
-  if (!Number.isFinite(feature)) feature = a; // solid cells only: the cell is the feature
-  // the discs of neighbouring cells: the widest disc sets the narrowest wall
   const lut = latticeLookup(g);
   const n = g.count;
   // per cell: drawing kind code, radius or thickness, normalX, inside and outside material values
@@ -143,16 +200,25 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
   for (let c = 0; c < n; c++) {
     const l = plan.level[c];
     const d = l >= 0 ? drawings[l] : null;
-    if (!d) { kindOf[c] = 0; continue; } // no recipe: background, as in the homogenized realized map
-    if (d.kind === "solid") { kindOf[c] = 1; put(inside, c, mat(d.material)!); continue; }
+    if (!d) { kindOf[c] = K_NONE; continue; } // no recipe: background, as in the homogenized realized map
+    if (d.kind === "solid") { kindOf[c] = K_SOLID; put(inside, c, mat(d.material)!); continue; }
     put(inside, c, mat(d.inside)!); put(outside, c, mat(d.outside)!);
-    if (d.kind === "disc") { kindOf[c] = 2; size[c] = d.radiusM; continue; }
-    kindOf[c] = 3; size[c] = d.thicknessM;
+    if (d.kind === "disc") { kindOf[c] = hexLevels.has(l) ? K_HEX_DISC : K_DISC; size[c] = d.radiusM; continue; }
+    kindOf[c] = K_LAYER; size[c] = d.thicknessM;
     // the layer normal is the principal axis (2 at axisAngle, 1 across it), snapped to x or y (layoutShapes.ts)
     const r = plan.levels[l].recipe!;
     const th = plan.axisAngleRad[c], nrm = r.orientation === "2" ? th : th + Math.PI / 2;
     normalX[c] = Math.abs(Math.cos(nrm)) >= Math.abs(Math.sin(nrm)) ? 1 : 0;
   }
+  // the discs as built: square-lattice recipes at their cell centres, hexagonal ones on the hexagonal sites
+  const discs = discCentres(g, lut, kindOf);
+  const wall = narrowestWall(discs, size, a);
+  if (wall.value <= 0) {
+    const [x, y] = wall.at;
+    return { ok: false, reason: `discs touch or overlap near (${x.toPrecision(3)} m, ${y.toPrecision(3)} m) (radii ${wall.radii.map((v) => v.toPrecision(3)).join(" and ")} m, pitch ${a.toPrecision(3)} m): the drawn structure would not be the recipes' lattices` };
+  }
+  feature = Math.min(feature, wall.value);
+  if (!Number.isFinite(feature)) feature = a; // solid cells only: the cell is the feature
   const bounds = deviceBounds(g);
   const conductors: Conductor[] = [...(input.extraConductors ?? [])];
   if (input.hidden) {
@@ -163,6 +229,7 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
   }
   const ox = g.originXM, oy = g.originYM;
   const ez = polarization === "Ez";
+  const anyHex = hexLevels.size > 0, site = new Float64Array(2);
   const scene: Scene = {
     polarization,
     background: input.background,
@@ -170,13 +237,26 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
     conductors,
     sample(x, y, out) {
       for (const cd of conductors) if (cd.signedDistanceM(x, y) < 0) return SAMPLE_PEC;
-      const i = Math.round((x - ox) / a), j = Math.round((y - oy) / a);
-      if (i < 0 || j < 0 || i >= g.nx || j >= g.ny) return SAMPLE_BACKGROUND;
-      const c = lut[i + g.nx * j];
-      if (c < 0 || kindOf[c] === 0) return SAMPLE_BACKGROUND;
-      const lx = x - (ox + i * a), ly = y - (oy + j * a);
-      const k = kindOf[c];
-      const within = k === 1 || (k === 2 ? lx * lx + ly * ly < size[c] * size[c] : Math.abs(normalX[c] ? lx : ly) < size[c] / 2);
+      let c = -1, within = false;
+      if (anyHex) {
+        // a hexagonal-lattice disc: the nearest site, if its cell stands on that lattice and the point is within its radius
+        nearestHexSite(x, y, ox, oy, a, site);
+        const si = Math.round((site[0] - ox) / a), sj = Math.round((site[1] - oy) / a);
+        const sc = si >= 0 && sj >= 0 && si < g.nx && sj < g.ny ? lut[si + g.nx * sj] : -1;
+        if (sc >= 0 && kindOf[sc] === K_HEX_DISC) {
+          const dx = x - site[0], dy = y - site[1];
+          if (dx * dx + dy * dy < size[sc] * size[sc]) { c = sc; within = true; }
+        }
+      }
+      if (c < 0) {
+        const i = Math.round((x - ox) / a), j = Math.round((y - oy) / a);
+        if (i < 0 || j < 0 || i >= g.nx || j >= g.ny) return SAMPLE_BACKGROUND;
+        c = lut[i + g.nx * j];
+        if (c < 0 || kindOf[c] === K_NONE) return SAMPLE_BACKGROUND;
+        const lx = x - (ox + i * a), ly = y - (oy + j * a);
+        const k = kindOf[c];
+        within = k === K_SOLID || (k === K_DISC ? lx * lx + ly * ly < size[c] * size[c] : k === K_LAYER ? Math.abs(normalX[c] ? lx : ly) < size[c] / 2 : false);
+      }
       const src = within ? inside : outside, o = 4 * c;
       // Ez: b = ε, T = μ·I; Hz: b = μ, T = ε·I
       const bRe = ez ? src[o] : src[o + 2], bIm = ez ? src[o + 1] : src[o + 3];
@@ -189,6 +269,10 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
     },
   };
   const notes: string[] = [];
-  if (hex.size) notes.push(`realized-geometry: hexagonal-lattice recipes (levels ${[...hex].join(", ")}) are drawn on the device's square cells with their own radius, as the layout files draw them (area fraction fill × √3/2)`);
+  if (anyHex) {
+    let hexCells = 0;
+    for (let c = 0; c < n; c++) if (kindOf[c] === K_HEX_DISC) hexCells++;
+    notes.push(`realized-geometry: hexagonal-lattice recipes (levels ${[...hexLevels].map((l) => plan.levels[l].index).join(", ")}) are drawn on the hexagonal lattice of their pitch (${discs.hexCount} sites where their ${hexCells} cells' area holds ${(hexCells / HEX_ROW).toFixed(1)}: the rows do not tile the outline exactly), each site with the recipe of the cell it falls in; the layout files still place them one per square cell (area fraction fill × √3/2)`);
+  }
   return { ok: true, scene, smallestFeatureM: feature, indexHint: index, notes };
 }

@@ -14,6 +14,7 @@ import { radialProblemFromScene } from "./radialFromScene.js";
 import { radialScattering, type RadialCore } from "./radialSolver.js";
 import { SAMPLE_MEDIUM, S_B, S_TXX, S_TXY, S_TYY, SAMPLE_LENGTH, type Scene } from "./scene.js";
 import type { CaseSpec } from "./verifyDevice.js";
+import { widthReading } from "./widthReading.js";
 
 export interface RadialCaseResult {
   name: CaseSpec["name"];
@@ -22,9 +23,15 @@ export interface RadialCaseResult {
   scatteringWidthM: number | null;
   /** σ_s / σ_s(bare) when a bare case was computed */
   vsBare: number | null;
+  /** its absolute uncertainty (σ_s's over σ_bare) */
+  vsBareUncertainty: number | null;
   absorptionWidthM: number | null;
-  /** max(tolerance-ladder change, order tail) × σ_s / max(σ_s, 1e-6 · 2R): relative, except for widths below 1e-6 of the device's width */
+  /** max(tolerance-ladder change, order tail) × σ_s, relative to max(σ_s, σ_bare, 2R) (widthReading.ts, the grid's rule) */
   uncertainty: number | null;
+  /** absolute uncertainty of σ_s, metres */
+  scatteringWidthUncertaintyM: number | null;
+  /** σ_s cannot be told from zero: below this width, metres (widths below 1e-6 of 2R read as zero), else null */
+  scatteringWidthBelowM: number | null;
   /** bistatic width σ(φ), φ = 0 … 359° from +x, for incidence at `incidenceRad` from +x */
   bistaticM: Float64Array | null;
 }
@@ -75,7 +82,7 @@ function sampledCore(scene: Scene, centre: [number, number], coreRadiusM: number
 /** Solve every case of `cases` radially (see file comment); k0 in rad/m. */
 export function radialCases(spec: TransformSpec, cases: CaseSpec[], k0: number, tolerance = 1e-9, incidenceRad = 0): RadialCaseResult[] {
   const geo = radialGeometry(spec);
-  const unavailable = (name: CaseSpec["name"], reason: string): RadialCaseResult => ({ name, available: false, reason, scatteringWidthM: null, vsBare: null, absorptionWidthM: null, uncertainty: null, bistaticM: null });
+  const unavailable = (name: CaseSpec["name"], reason: string): RadialCaseResult => ({ name, available: false, reason, scatteringWidthM: null, vsBare: null, vsBareUncertainty: null, absorptionWidthM: null, uncertainty: null, scatteringWidthUncertaintyM: null, scatteringWidthBelowM: null, bistaticM: null });
   if ("reason" in geo) return cases.map((c) => unavailable(c.name, geo.reason));
   const results: RadialCaseResult[] = cases.map((c) => {
     if (!c.scene) return unavailable(c.name, c.reason ?? "not computed");
@@ -95,19 +102,26 @@ export function radialCases(spec: TransformSpec, cases: CaseSpec[], k0: number, 
     const s = radialScattering(problem);
     return {
       name: c.name, available: true, reason: null,
-      scatteringWidthM: s.scatteringWidthM, vsBare: null, absorptionWidthM: s.absorptionWidthM,
+      scatteringWidthM: s.scatteringWidthM, vsBare: null, vsBareUncertainty: null, absorptionWidthM: s.absorptionWidthM,
       uncertainty: Math.max(s.convergence.relativeChange, s.convergence.tail),
+      scatteringWidthUncertaintyM: null, scatteringWidthBelowM: null,
       bistaticM: patternAt(s.aRe, s.aIm, s.k, incidenceRad),
     };
   });
   const bare = results.find((r) => r.name === "bare" && r.available);
-  // an invisible device has σ_s ≈ 0, whose relative change means nothing: the uncertainty is taken
-  // relative to the larger of σ_s and 1e-6 of the device's width 2R (a width below that reads as zero)
-  const floorM = 1e-6 * 2 * geo.outerRadiusM;
+  // an invisible device has σ_s ≈ 0, whose relative change means nothing: the uncertainty is read on
+  // the problem's scale, max(σ_s, σ_bare, 2R), and a width below 1e-6 of 2R reads as zero (widthReading.ts)
   for (const r of results) {
     if (!r.available) continue;
-    if (bare && bare.scatteringWidthM! > 0) r.vsBare = r.scatteringWidthM! / bare.scatteringWidthM!;
-    r.uncertainty = (r.uncertainty! * r.scatteringWidthM!) / Math.max(r.scatteringWidthM!, floorM);
+    const w = widthReading(r.scatteringWidthM!, r.uncertainty! * r.scatteringWidthM!, { referenceM: bare?.scatteringWidthM ?? null, deviceWidthM: 2 * geo.outerRadiusM });
+    r.scatteringWidthM = w.valueM;
+    if (bare && bare.scatteringWidthM! > 0) {
+      r.vsBare = w.valueM / bare.scatteringWidthM!;
+      r.vsBareUncertainty = w.uncertaintyM! / bare.scatteringWidthM!;
+    }
+    r.uncertainty = w.relative;
+    r.scatteringWidthUncertaintyM = w.uncertaintyM;
+    r.scatteringWidthBelowM = w.belowM;
   }
   return results;
 }

@@ -31,6 +31,7 @@ import type { FdfdGrid } from "./fdfdGrid.js";
 import type { Illumination } from "./illumination.js";
 import { radialCases, radialGeometry, type RadialCaseResult } from "./radialCases.js";
 import { ladderGrids } from "./ladderGrids.js";
+import { resampleNodes } from "./resampleNodes.js";
 import { DEFAULT_ACCURACY, gridFits, MAX_AUTO_UNKNOWNS, verifyDevice, type CaseResult, type CaseSpec, type VerifyInput, type VerifyResult } from "./verifyDevice.js";
 
 export type MethodOption = "auto" | "fdfd" | "radial";
@@ -100,8 +101,8 @@ export function runCheck(input: CheckInput): CheckResult {
 }
 
 const unavailableCase = (name: CaseSpec["name"], reason: string): CheckCase => ({
-  name, method: null, methodReason: null, available: false, reason, scatteringWidthM: null, uncertainty: null, converged: null, vsBare: null,
-  absorptionWidthM: null, powerBalance: null, fieldErrorVsIdeal: null, deliveredPower: null, deviationDeg: null, bistaticM: null, ladder: [], magnitude: null,
+  name, method: null, methodReason: null, available: false, reason, scatteringWidthM: null, scatteringWidthUncertaintyM: null, scatteringWidthBelowM: null, uncertainty: null, converged: null, vsBare: null, vsBareUncertainty: null,
+  absorptionWidthM: null, powerBalance: null, fieldErrorVsIdeal: null, deliveredPower: null, deliveredPowerUncertainty: null, deviationDeg: null, bistaticM: null, ladder: [], magnitude: null,
 });
 
 /** The drawn case on its own ladder, beside the homogenized realized map (see file comment). */
@@ -142,14 +143,15 @@ function geometryRun(input: CheckInput, drawn: CaseSpec, main: Omit<CheckResult,
   const geo = run.cases.find((c) => c.name === drawn.name)!;
   const hs = hom.ladder.map((p) => p.stepM);
   if (hom.ladder.some((p) => !(p.scatteringWidthM > 0))) {
-    return { result: { ...geo, method: "fdfd", methodReason: "finite differences on the drawn structure's grid", vsBare: null, fieldErrorVsIdeal: null }, error: null };
+    return { result: { ...geo, method: "fdfd", methodReason: "finite differences on the drawn structure's grid", vsBare: null, fieldErrorVsIdeal: null, magnitude: main.grid && geo.magnitude ? resampleNodes(run.grid, geo.magnitude, main.grid) : null }, error: null };
   }
   const ratio = richardson(hs, geo.ladder.map((p, k) => p.scatteringWidthM / hom.ladder[k].scatteringWidthM));
   const vsBare = realizedMain.vsBare === null ? null : realizedMain.vsBare * ratio.value;
   const why = `finite differences on a grid fine enough to draw the inclusions (at least ${FEATURE_STEPS} steps across the smallest feature)`;
   const delivered = geo.deliveredPower !== null && hom.deliveredPower !== null ? geo.deliveredPower - hom.deliveredPower : null;
   return {
-    result: { ...geo, method: "fdfd", methodReason: why, vsBare, fieldErrorVsIdeal: null, ladder: geo.ladder.map((p) => ({ ...p, vsBare: null })) },
+    // |u| of the drawn case on the main grid, for the field picture (null when the main run had no grid)
+    result: { ...geo, method: "fdfd", methodReason: why, vsBare, fieldErrorVsIdeal: null, ladder: geo.ladder.map((p) => ({ ...p, vsBare: null })), magnitude: main.grid && geo.magnitude ? resampleNodes(run.grid, geo.magnitude, main.grid) : null },
     error: {
       relative: ratio.value - 1, uncertainty: ratio.uncertainty,
       vsBareDifference: vsBare === null ? null : vsBare - realizedMain.vsBare!,
@@ -191,9 +193,10 @@ function mergeRuns(input: CheckInput, radial: RadialCaseResult[], grid: VerifyRe
     return {
       name: spec.name, method: none ? null : "radial", methodReason: none ? null : r.available ? RADIAL_WHY : "--method radial",
       available: r.available, reason: r.reason,
-      scatteringWidthM: r.scatteringWidthM, uncertainty: r.uncertainty, converged: r.uncertainty === null ? null : r.uncertainty <= accuracy,
-      vsBare: r.vsBare, absorptionWidthM: r.absorptionWidthM, powerBalance: null, fieldErrorVsIdeal: null,
-      deliveredPower: null, deviationDeg: null, bistaticM: r.bistaticM, ladder: [], magnitude: null,
+      scatteringWidthM: r.scatteringWidthM, scatteringWidthUncertaintyM: r.scatteringWidthUncertaintyM, scatteringWidthBelowM: r.scatteringWidthBelowM, uncertainty: r.uncertainty, converged: r.uncertainty === null ? null : r.uncertainty <= accuracy,
+      vsBare: r.vsBare, vsBareUncertainty: r.vsBareUncertainty,
+      absorptionWidthM: r.absorptionWidthM, powerBalance: null, fieldErrorVsIdeal: null,
+      deliveredPower: null, deliveredPowerUncertainty: null, deviationDeg: null, bistaticM: r.bistaticM, ladder: [], magnitude: null,
     };
   });
   const usedGrid = cases.some((c) => c.method === "fdfd");

@@ -24,6 +24,7 @@ import { DEFAULT_ACCURACY, ladderGrids, MAX_AUTO_UNKNOWNS, MAX_RESOLUTION, MAX_R
 import { gridWavenumberAt, type Illumination } from "./illumination.js";
 import { crossSections, farField, fluxBox, groundFarField, groundFluxBox, relativeDifference, type NodeBox } from "./metrics.js";
 import { richardson } from "./richardson.js";
+import { clampFigure, widthReading } from "./widthReading.js";
 import type { Scene, ScenePolarization } from "./scene.js";
 import { solveScene, type SceneSolution } from "./solve.js";
 
@@ -91,14 +92,20 @@ export interface CaseResult {
   /** false when the case could not be computed (`reason`) */
   available: boolean;
   reason: string | null;
-  /** scattering width σ_s, metres, extrapolated to zero step (plane wave); for a beam, scattered power / peak incident intensity */
+  /** scattering width σ_s ≥ 0, metres, extrapolated to zero step (plane wave); for a beam, scattered power / peak incident intensity (widthReading.ts) */
   scatteringWidthM: number | null;
-  /** relative uncertainty of the case's headline figure (null for a single grid) */
+  /** absolute uncertainty of σ_s, metres (null for a single grid) */
+  scatteringWidthUncertaintyM: number | null;
+  /** σ_s cannot be told from zero: it is below this width, metres (null when it can; widthReading.ts) */
+  scatteringWidthBelowM: number | null;
+  /** relative uncertainty of the case's headline figure: σ_s's against max(σ_s, σ_bare, device width), or the delivered share's (absolute) when larger (null for a single grid) */
   uncertainty: number | null;
   /** uncertainty ≤ accuracy (null for a single grid) */
   converged: boolean | null;
-  /** σ_s / σ_s(bare), extrapolated (null without a bare object) */
+  /** σ_s / σ_s(bare) ≥ 0, extrapolated (null without a bare object) */
   vsBare: number | null;
+  /** absolute uncertainty of vsBare (null without one: no bare object, a single grid) */
+  vsBareUncertainty: number | null;
   /** absorption width on the finest grid, metres (≈ 0 for lossless maps) */
   absorptionWidthM: number | null;
   /** optical theorem on the finest grid: (σ_ext from the forward far field − σ_s − σ_abs)/σ_s; above a ground plane (beams), (P_reflected + P_absorbed − P_incident)/P_incident */
@@ -107,6 +114,8 @@ export interface CaseResult {
   fieldErrorVsIdeal: number | null;
   /** beams: fraction of the outgoing power within the ideal device's output lobe; above a ground plane, the share of the incident beam's power reflected within the flat ground's specular lobe */
   deliveredPower: number | null;
+  /** absolute uncertainty of deliveredPower (null without one) */
+  deliveredPowerUncertainty: number | null;
   /** beams: output direction minus the ideal device's, degrees; above a ground plane, the reflected beam's direction minus the specular one */
   deviationDeg: number | null;
   /** bistatic scattering width σ(φ), metres, φ = 0 … 359° from +x (when requested) */
@@ -438,12 +447,13 @@ function buildResults(
   const bareX = bareIdx >= 0 ? richardson(hs, per.map((row) => row[bareIdx].sigma)) : null;
   const finest = per[per.length - 1];
   const g = rungs[rungs.length - 1].g;
+  const deviceWidthM = Math.max(input.deviceBox.maxX - input.deviceBox.minX, input.deviceBox.maxY - input.deviceBox.minY);
   const obs = outsideMask(g, input.deviceBox);
   const out: CaseResult[] = [];
   for (const spec of cases) {
     const li = live.indexOf(spec);
     if (li < 0) {
-      out.push({ name: spec.name, available: false, reason: spec.reason ?? "not computed", scatteringWidthM: null, uncertainty: null, converged: null, vsBare: null, absorptionWidthM: null, powerBalance: null, fieldErrorVsIdeal: null, deliveredPower: null, deviationDeg: null, bistaticM: null, ladder: [], magnitude: null });
+      out.push({ name: spec.name, available: false, reason: spec.reason ?? "not computed", scatteringWidthM: null, scatteringWidthUncertaintyM: null, scatteringWidthBelowM: null, uncertainty: null, converged: null, vsBare: null, vsBareUncertainty: null, absorptionWidthM: null, powerBalance: null, fieldErrorVsIdeal: null, deliveredPower: null, deliveredPowerUncertainty: null, deviationDeg: null, bistaticM: null, ladder: [], magnitude: null });
       continue;
     }
     const ladder: LadderPoint[] = per.map((row, k) => {
@@ -460,13 +470,12 @@ function buildResults(
     const sx = richardson(hs, ladder.map((p) => p.scatteringWidthM));
     const vx = bareIdx >= 0 ? richardson(hs, ladder.map((p) => p.vsBare ?? 0)) : null;
     const dx = ill.kind === "beam" && ladder.every((p) => p.deliveredPower !== null) ? richardson(hs, ladder.map((p) => p.deliveredPower ?? 0)) : null;
-    // relative uncertainty: σ against max(σ, σ_bare); delivered power is a fraction (absolute)
-    let unc: number | null = null;
-    if (sx.uncertainty !== null) {
-      const ref = Math.max(Math.abs(sx.value), bareX ? Math.abs(bareX.value) : 0);
-      unc = ref > 0 ? sx.uncertainty / ref : 0;
-      if (dx && dx.uncertainty !== null) unc = Math.max(unc, dx.uncertainty);
-    }
+    // σ ≥ 0, its uncertainty relative to max(σ, σ_bare, device width) (widthReading.ts); delivered power is a fraction (absolute)
+    const width = widthReading(sx.value, sx.uncertainty, { referenceM: bareX ? bareX.value : null, deviceWidthM });
+    const ratio = vx ? clampFigure(vx.value, vx.uncertainty, 0) : null;
+    const share = dx ? clampFigure(dx.value, dx.uncertainty, 0, 1) : null;
+    let unc = width.relative;
+    if (unc !== null && share && share.uncertainty !== null) unc = Math.max(unc, share.uncertainty);
     const f = finest[li];
     const mag = new Float64Array(f.sol.totalRe.length);
     for (let k = 0; k < mag.length; k++) mag[k] = Math.hypot(f.sol.totalRe[k], f.sol.totalIm[k]);
@@ -479,14 +488,18 @@ function buildResults(
     }
     out.push({
       name: spec.name, available: true, reason: null,
-      scatteringWidthM: sx.value,
+      scatteringWidthM: width.valueM,
+      scatteringWidthUncertaintyM: width.uncertaintyM,
+      scatteringWidthBelowM: width.belowM,
       uncertainty: unc,
       converged: unc === null ? null : unc <= accuracy,
-      vsBare: vx ? vx.value : null,
+      vsBare: ratio ? ratio.value : null,
+      vsBareUncertainty: ratio ? ratio.uncertainty : null,
       absorptionWidthM: f.abs,
       powerBalance: ground ? groundPowerBalance(f, kb) : f.ext !== null && f.sigma > 0 ? (f.ext - f.sigma - f.abs) / f.sigma : null,
       fieldErrorVsIdeal: ideal && spec.name !== "ideal" && spec.name !== "bare" && spec.name !== "flat" ? relativeDifference(f.sol.totalRe, f.sol.totalIm, ideal.sol.totalRe, ideal.sol.totalIm, obs) : null,
-      deliveredPower: dx ? Math.min(1, Math.max(0, dx.value)) : null,
+      deliveredPower: share ? share.value : null,
+      deliveredPowerUncertainty: share ? share.uncertainty : null,
       deviationDeg: deviation,
       bistaticM: input.pattern && ill.kind === "plane" ? f.pattern : null,
       ladder,

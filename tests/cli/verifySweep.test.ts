@@ -96,7 +96,7 @@ describe("verify --sweep", () => {
     expect(text).not.toMatch(/NaN|Infinity/);
     const rows: Record<string, string>[] = parse(text, { columns: true });
     const header = text.split("\n")[0].split(",");
-    expect(header).toEqual(["frequency_hz", "case", "scattering_width_m", "absorption_width_m", "vs_bare", "uncertainty", "converged"]);
+    expect(header).toEqual(["frequency_hz", "case", "scattering_width_m", "absorption_width_m", "vs_bare", "uncertainty", "converged", "figure_uncertainty", "meets_limit"]);
     // nFreq × computed cases, every row full length
     expect(rows).toHaveLength(3 * 3);
     for (const line of text.trim().split("\n")) expect(line.split(",")).toHaveLength(header.length);
@@ -131,8 +131,13 @@ describe("verify --sweep", () => {
     expect(spread(byName.realized.vsBare)).toBeGreaterThan(3 * spread(byName.reduced.vsBare));
     // loss: the realized rings absorb, the lossless maps do not
     for (const a of byName.realized.absorptionWidthM) expect(a).toBeGreaterThan(0);
-    const rows = parse(readFileSync(join(out, "verify-sweep.csv"), "utf8"), { columns: true });
+    const rows: Record<string, string>[] = parse(readFileSync(join(out, "verify-sweep.csv"), "utf8"), { columns: true });
     expect(rows).toHaveLength(3 * 4);
+    // single grid: no uncertainty, the realized rows say yes/no against the band's limit, the others nothing
+    for (const row of rows) {
+      expect(row.figure_uncertainty).toBe("");
+      expect(row.meets_limit).toBe(row.case === "realized" ? (Number(row.vs_bare) <= s.sweep.band.limit ? "yes" : "no") : "");
+    }
     // the band is reported with the definition's figures
     const b = s.sweep.band;
     expect(b.threshold).toBe(2);
@@ -142,5 +147,7 @@ describe("verify --sweep", () => {
       expect(b.lowHz).toBeLessThanOrEqual(8.5e9);
       expect(b.highHz).toBeGreaterThanOrEqual(8.5e9);
     }
+    expect([b.lowRangeHz, b.highRangeHz, b.lowConverged, b.highConverged, b.limitUncertainty]).toEqual([null, null, null, null, null]);
+    expect(b.meetsLimit).toHaveLength(3);
   }, 120_000);
 });

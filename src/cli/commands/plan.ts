@@ -15,8 +15,6 @@ import { loadProcessCatalog } from "../../io/processCatalog.js";
 import { loadSessionFile } from "../../io/sessionFile.js";
 import { planSummary } from "../../plan/outputs/planSummary.js";
 import { planFromField } from "../../plan/runPlan.js";
-import { searchRemedies } from "../../io/planRemedies.js";
-import { layoutFiles } from "../../io/layout/layoutFiles.js";
 import type { Plan, PlanOverrides } from "../../plan/planTypes.js";
 import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
@@ -101,11 +99,14 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
   for (const w of plan.warnings) io.stderr(`warning: ${w}\n`);
   if (!plan.verdict.buildable) {
     if (!json) io.stderr("… trying remedies (re-planning)\n");
+    // loaded only when needed (as the layout writers below): a buildable plan never pays their module load
+    const { searchRemedies } = await import("../../io/planRemedies.js");
     plan.remedies = searchRemedies(plan, design, field, { materials, processes }, overrides);
   }
+  const layout = opts.layout ? (await import("../../io/layout/layoutFiles.js")).layoutFiles : null;
   // Ctrl+C or a polite kill while writing: stop, remove the temporary files, write nothing.
   const written = await runInterruptible(io, (signal) =>
-    writePlanOutputs(plan, resolve(io.cwd, outDir), { signal, extra: opts.layout ? layoutFiles(plan, io) : [] }));
+    writePlanOutputs(plan, resolve(io.cwd, outDir), { signal, extra: layout ? layout(plan, io) : [] }));
   if (written.interrupted) return EXIT_INTERRUPTED;
   const outputs = written.value;
   if (json) io.stdout(`${JSON.stringify(planSummary(plan, outputs))}\n`);

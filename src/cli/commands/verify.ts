@@ -25,7 +25,7 @@ import { fieldSvg } from "../../verify/fieldSvg.js";
 import { formatFrequency, formatLength } from "../../verify/formatQuantity.js";
 import type { Illumination } from "../../verify/illumination.js";
 import { DEFAULT_ACCURACY } from "../../verify/verifyDevice.js";
-import { METHOD_OPTIONS, runCheck, type CheckResult, type MethodOption } from "../../verify/runCheck.js";
+import { METHOD_OPTIONS, runCheck, type CheckCase, type CheckResult, type MethodOption } from "../../verify/runCheck.js";
 import { flagOption, stringOption } from "../args.js";
 import { parseSweep, parseThreshold, runVerifySweep, SWEEP_CSV, SWEEP_SVG } from "./verifySweep.js";
 import type { CliIo } from "../cliIo.js";
@@ -65,12 +65,16 @@ export function verifySummary(design: string, scheme: string, r: CheckResult, ou
       reason: c.reason,
       scatteringWidthM: jn(c.scatteringWidthM),
       uncertainty: jn(c.uncertainty),
+      scatteringWidthUncertaintyM: jn(c.scatteringWidthUncertaintyM),
+      scatteringWidthBelowM: jn(c.scatteringWidthBelowM),
       converged: c.converged,
       vsBare: jn(c.vsBare),
+      vsBareUncertainty: jn(c.vsBareUncertainty),
       absorptionWidthM: jn(c.absorptionWidthM),
       powerBalance: jn(c.powerBalance),
       fieldErrorVsIdeal: jn(c.fieldErrorVsIdeal),
       deliveredPower: jn(c.deliveredPower),
+      deliveredPowerUncertainty: jn(c.deliveredPowerUncertainty),
       deviationDeg: jn(c.deviationDeg),
       ladder: c.ladder.map((p) => ({ resolution: p.resolution, stepM: p.stepM, scatteringWidthM: jn(p.scatteringWidthM), vsBare: jn(p.vsBare), deliveredPower: jn(p.deliveredPower) })),
       ...(c.bistaticM ? { bistaticM: Array.from(c.bistaticM, (v) => jn(v) ?? 0) } : {}),
@@ -97,7 +101,7 @@ export function verifyTable(design: string, scheme: string, r: CheckResult): str
   const mixed = r.method === "radial+fdfd";
   const head = ["case", ...(mixed ? ["solver"] : []), beam ? "σ_s (beam)" : "σ_s", ...(hasBare ? ["σ/σ_bare"] : []), ...(beam ? [ground ? "specular" : "delivered", "deviation"] : []), "±", "field vs ideal", ""];
   const rows = r.cases.map((c) => c.available
-    ? [c.name, ...(mixed ? [c.method ?? ""] : []), formatLength(c.scatteringWidthM ?? 0), ...(hasBare ? [f(c.vsBare)] : []), ...(beam ? [pct(c.deliveredPower), c.deviationDeg === null ? "—" : `${c.deviationDeg.toFixed(1)}°`] : []), unc(c.uncertainty), pct(c.fieldErrorVsIdeal), c.converged === false ? "not converged" : ""]
+    ? [c.name, ...(mixed ? [c.method ?? ""] : []), widthText(c), ...(hasBare ? [f(c.vsBare)] : []), ...(beam ? [pct(c.deliveredPower), c.deviationDeg === null ? "—" : `${c.deviationDeg.toFixed(1)}°`] : []), unc(c.uncertainty), pct(c.fieldErrorVsIdeal), c.converged === false ? "not converged" : ""]
     : [c.name, ...(mixed ? [""] : []), "—", ...(hasBare ? ["—"] : []), ...(beam ? ["—", "—"] : []), "", "", `not computed: ${c.reason}`]);
   const widths = head.map((h, k) => Math.max(h.length, ...rows.map((row) => (k === head.length - 1 ? 0 : row[k].length))));
   const line = (cells: string[]): string => ("  " + cells.map((c, k) => (k === 0 ? c.padEnd(widths[k]) : k === cells.length - 1 ? c : c.padStart(widths[k]))).join("  ")).trimEnd();
@@ -112,7 +116,8 @@ export function verifyTable(design: string, scheme: string, r: CheckResult): str
     `  solver: ${r.methodReason}`,
     line(head),
     ...rows.map(line),
-    `  σ_s: scattering width (scattered power / incident intensity), ${r.method === "radial" ? "exact per angular order" : r.method === "fdfd" ? "extrapolated to zero grid step" : "exact (radial) or extrapolated to zero grid step (fdfd)"}; ±: its relative uncertainty${hasBare ? " (against the bare object's σ when that is larger)" : ""}`,
+    `  σ_s: scattering width (scattered power / incident intensity), ${r.method === "radial" ? "exact per angular order" : r.method === "fdfd" ? "extrapolated to zero grid step" : "exact (radial) or extrapolated to zero grid step (fdfd)"}; ±: its relative uncertainty, against the largest of σ_s${hasBare ? ", the bare object's σ" : ""} and the device's width`,
+    ...(r.cases.some((c) => c.available && c.scatteringWidthBelowM !== null) ? ["  ≈ 0 (< X): the width cannot be told from zero; X is the largest width the evidence allows (extrapolated value plus its uncertainty, at least 1e-6 of the device's width)"] : []),
     ...(beam && !ground ? ["  delivered: share of the outgoing power inside the ideal device's output lobe; deviation: output direction minus the ideal's"] : []),
     ...(ground ? [
       `  ground plane below y = ${formatLength(r.groundYM!)} (perfect conductor; the bump is part of it in every case but flat)`,
@@ -122,6 +127,11 @@ export function verifyTable(design: string, scheme: string, r: CheckResult): str
     ...homogenizationLine(r),
     ...r.notes.map((n) => `  note: ${n}`),
   ].join("\n") + "\n";
+}
+
+/** σ_s for the table: "≈ 0 (< X)" when the width cannot be told from zero (widthReading.ts). */
+function widthText(c: CheckCase): string {
+  return c.scatteringWidthBelowM !== null ? `≈ 0 (< ${formatLength(c.scatteringWidthBelowM)})` : formatLength(c.scatteringWidthM ?? 0);
 }
 
 /** The plan's homogenization error (realized-geometry against realized) for the human table. */

@@ -108,7 +108,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
       const hasBare = summary.points[0].cases.some((c) => c.name === "bare" && c.available);
       const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${r0band(summary)}`;
       const files: OutputFile[] = [
-        { name: SWEEP_CSV, produce: (write) => write(sweepCsvText(summary.points, { hasBare, beam: context.illumination.kind === "beam" })) },
+        { name: SWEEP_CSV, produce: (write) => write(sweepCsvText(summary.points, { hasBare, beam: context.illumination.kind === "beam", figure: summary.figure, meetsLimit: summary.band?.meetsLimit ?? null })) },
         { name: SWEEP_SVG, produce: (write) => write(sweepSvg(summary.frequenciesHz, sweepSeries(summary), summary.figure, summary.band, run.designName, subtitle)) },
       ];
       written = await writeOutputSet(folder, files, { signal });

@@ -14,6 +14,7 @@ import { orientationCode } from "./orientationText.js";
 import type { Plan } from "../planTypes.js";
 import { flagList } from "../flags.js";
 import { csvField, fmt } from "./csvText.js";
+import { writeDecimal } from "./decimalBytes.js";
 
 /** Dimension keys (metres, "radius_m") used by any level's recipe, sorted by name. */
 export function dimensionColumns(plan: Plan): string[] {
@@ -110,6 +111,26 @@ class RowBytes {
     }
   }
 
+  /** Bytes made once (per-level and per-index texts). */
+  bytes(b: Uint8Array): void {
+    const n = b.length;
+    if (this.at + n > this.buf.length) this.grow(n);
+    const buf = this.buf;
+    let at = this.at;
+    for (let k = 0; k < n; k++) buf[at++] = b[k];
+    this.at = at;
+  }
+
+  /** `fmt(x, digits)` without making a string (decimalBytes.ts; `fmt` where it cannot promise the same bytes). */
+  num(x: number, digits: number): void {
+    if (this.at + 32 > this.buf.length) this.grow(32);
+    if (x === 0) { this.buf[this.at++] = 48; return; }
+    if (!Number.isFinite(x)) return;
+    const end = writeDecimal(this.buf, this.at, x, digits);
+    if (end >= 0) this.at = end;
+    else this.text(fmt(x, digits));
+  }
+
   byte(b: number): void {
     if (this.at + 1 > this.buf.length) this.grow(1);
     this.buf[this.at++] = b;
@@ -158,27 +179,22 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
     inFlight = sent;
   };
   out.text(`${buildListHeader(plan)}\n`);
-  // positions depend on one lattice index each: format them once per index
+  // texts that depend on one lattice index or one level each: made once, as bytes
+  const encoder = new TextEncoder();
+  const enc = (t: string): Uint8Array => encoder.encode(t);
   const perM = designUnit(plan.design.wavelengthM).perM;
-  const xs = Array.from({ length: g.nx }, (_, i) => fmt((g.originXM + i * g.pitchM) * perM));
-  const ys = Array.from({ length: g.ny }, (_, j) => fmt((g.originYM + j * g.pitchM) * perM));
-  const zs = three ? Array.from({ length: g.nz }, (_, k) => fmt((g.originZM + k * g.pitchM) * perM)) : [];
-  const { achieved, recipe } = levelTexts(plan);
+  const xs = Array.from({ length: g.nx }, (_, i) => enc(`${fmt((g.originXM + i * g.pitchM) * perM)},`));
+  const ys = Array.from({ length: g.ny }, (_, j) => enc(`${fmt((g.originYM + j * g.pitchM) * perM)},`));
+  const zs = three ? Array.from({ length: g.nz }, (_, k) => enc(`${fmt((g.originZM + k * g.pitchM) * perM)},`)) : [];
+  const texts = levelTexts(plan);
+  const achieved = texts.achieved.map(enc), recipe = texts.recipe.map(enc);
   const m = plan.components.length;
-  const noAchieved = ",".repeat(m);
+  const noAchieved = enc(",".repeat(m));
   // family, host, inclusion, lattice, orientation, fill_fraction, dimensions…, loss_tangent
-  const noRecipe = ",".repeat(6 + dimensionColumns(plan).length + 1);
-  // repeated values (constant components, isotropic axes, neighbouring cells) reuse their text
-  const lastV = new Float64Array(m + 3).fill(NaN);
-  const lastS: string[] = new Array(m + 3).fill("");
-  const num = (col: number, v: number, digits: number): string => {
-    if (v === lastV[col]) return lastS[col];
-    const t = fmt(v, digits);
-    lastV[col] = v;
-    lastS[col] = t;
-    return t;
-  };
+  const noRecipe = enc(",".repeat(6 + dimensionColumns(plan).length + 1));
+  const flagBytes = new Map<number, Uint8Array>();
   const degPerRad = 180 / Math.PI;
+  const { targets, axisAngleRad, region, relError, quantizationError, zeroTargetAbsError, flags } = plan;
   for (let c = 0; c < g.count; c++) {
     const lv = plan.level[c];
     const gi = g.i[c], gj = g.j[c];
@@ -186,19 +202,25 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
     out.int(gi); out.byte(COMMA);
     out.int(gj); out.byte(COMMA);
     if (three) { out.int(g.k[c]); out.byte(COMMA); }
-    out.text(xs[gi]); out.byte(COMMA);
-    out.text(ys[gj]); out.byte(COMMA);
-    if (three) { out.text(zs[g.k[c]]); out.byte(COMMA); }
-    out.text(num(0, plan.axisAngleRad[c] * degPerRad, 4)); out.byte(COMMA);
-    out.int(plan.region[c] + 1); out.byte(COMMA);
+    out.bytes(xs[gi]);
+    out.bytes(ys[gj]);
+    if (three) out.bytes(zs[g.k[c]]);
+    out.num(axisAngleRad[c] * degPerRad, 4); out.byte(COMMA);
+    out.int(region[c] + 1); out.byte(COMMA);
     if (lv >= 0) out.int(lv + 1);
-    for (let k = 0; k < m; k++) { out.byte(COMMA); out.text(num(3 + k, plan.targets[k][c], 6)); }
-    out.text(lv >= 0 ? achieved[lv] : noAchieved);
-    out.byte(COMMA); out.text(num(1, plan.relError[c], 4));
-    out.byte(COMMA); out.text(num(2, plan.quantizationError[c], 4));
-    out.byte(COMMA); out.text(fmt(plan.zeroTargetAbsError[c], 4));
-    out.text(lv >= 0 ? recipe[lv] : noRecipe);
-    out.byte(COMMA); out.text(flagList(plan.flags[c]));
+    for (let k = 0; k < m; k++) { out.byte(COMMA); out.num(targets[k][c], 6); }
+    out.bytes(lv >= 0 ? achieved[lv] : noAchieved);
+    out.byte(COMMA); out.num(relError[c], 4);
+    out.byte(COMMA); out.num(quantizationError[c], 4);
+    out.byte(COMMA); out.num(zeroTargetAbsError[c], 4);
+    out.bytes(lv >= 0 ? recipe[lv] : noRecipe);
+    out.byte(COMMA);
+    const f = flags[c];
+    if (f !== 0) {
+      let t = flagBytes.get(f);
+      if (t === undefined) { t = enc(flagList(f)); flagBytes.set(f, t); }
+      out.bytes(t);
+    }
     out.byte(NEWLINE);
     if (out.at >= BUILD_LIST_CHUNK_BYTES) await flush();
   }

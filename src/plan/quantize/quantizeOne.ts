@@ -29,7 +29,7 @@ export interface Quantized {
 
 /** Sorted distinct values, thinned to at most `limit` evenly spaced order statistics. */
 export function distinctSample(values: Float64Array, limit: number): Float64Array {
-  const sorted = Float64Array.from(values).sort();
+  const sorted = values.slice().sort();
   let n = 0;
   for (let k = 0; k < sorted.length; k++) {
     if (k === 0 || sorted[k] !== sorted[n - 1]) sorted[n++] = sorted[k];

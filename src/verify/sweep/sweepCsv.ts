@@ -2,15 +2,24 @@
  * verify-sweep.csv: one row per frequency and case, frequencies ascending, cases in SWEEP_CASES
  * order (flat, bare, ideal, reduced, realized: those the scene has). Columns (units in the names): frequency_hz, case, scattering_width_m, absorption_width_m,
  * then vs_bare (only when the scene has a bare object), delivered_power and deviation_deg (only
- * for a beam; above a ground plane delivered_power is the specular share), then uncertainty (relative, of the headline figure) and converged (true/false).
+ * for a beam; above a ground plane delivered_power is the specular share), then uncertainty (relative, of the headline figure) and converged (true/false),
+ * then figure_uncertainty (absolute, of the sweep's figure of merit: vs_bare, delivered_power or
+ * scattering_width_m) and meets_limit (realized rows: yes, no, or uncertain when the band's limit is
+ * within the figure's uncertainty; empty on other rows; sweepBand.ts).
  * A field that does not apply is empty (a single grid has no uncertainty); never NaN or Infinity.
  */
 import { csvField, fmt } from "../../plan/outputs/csvText.js";
+import type { LimitVerdict } from "./sweepBand.js";
 import type { SweepPoint } from "./sweepPoint.js";
+import { uncertaintyOf, type SweepFigure } from "./sweepSummary.js";
 
 export interface SweepCsvLayout {
   hasBare: boolean;
   beam: boolean;
+  /** the sweep's figure of merit (for figure_uncertainty) */
+  figure: SweepFigure;
+  /** the band's verdict per point, in the points' order (null: no band) */
+  meetsLimit: readonly (LimitVerdict | null)[] | null;
 }
 
 /** Column names for a layout, in order. */
@@ -19,7 +28,7 @@ export function sweepCsvColumns(layout: SweepCsvLayout): string[] {
     "frequency_hz", "case", "scattering_width_m", "absorption_width_m",
     ...(layout.hasBare ? ["vs_bare"] : []),
     ...(layout.beam ? ["delivered_power", "deviation_deg"] : []),
-    "uncertainty", "converged",
+    "uncertainty", "converged", "figure_uncertainty", "meets_limit",
   ];
 }
 
@@ -28,7 +37,7 @@ const num = (v: number | null, digits = 8): string => (v === null ? "" : fmt(v, 
 /** The whole CSV text (header + nFreq × nCases rows), only the computed cases. */
 export function sweepCsvText(points: readonly SweepPoint[], layout: SweepCsvLayout): string {
   const lines = [sweepCsvColumns(layout).join(",")];
-  for (const p of points) {
+  for (const [k, p] of points.entries()) {
     for (const c of p.cases) {
       if (!c.available) continue;
       lines.push([
@@ -36,6 +45,7 @@ export function sweepCsvText(points: readonly SweepPoint[], layout: SweepCsvLayo
         ...(layout.hasBare ? [num(c.vsBare)] : []),
         ...(layout.beam ? [num(c.deliveredPower), num(c.deviationDeg, 6)] : []),
         num(c.uncertainty, 4), c.converged === null ? "" : String(c.converged),
+        num(uncertaintyOf(c, layout.figure), 4), c.name === "realized" ? layout.meetsLimit?.[k] ?? "" : "",
       ].join(","));
     }
   }

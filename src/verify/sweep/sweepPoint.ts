@@ -9,31 +9,21 @@
  *
  * Cost: one verifyDevice per frequency (every case on every rung); memory: that of its finest rung.
  */
-import type { DeviceGrid } from "../../field/deviceGrid.js";
-import type { TransformSpec } from "../../field/transformSpec.js";
 import type { Material } from "../../media/material.js";
-import type { Plan } from "../../plan/planTypes.js";
-import type { ReducedField } from "../../reduce/reducedField.js";
-import { deviceCases } from "../deviceCases.js";
+import { deviceCases, type DeviceCasesInput } from "../deviceCases.js";
 import type { Illumination } from "../illumination.js";
-import type { ScenePolarization } from "../scene.js";
 import { verifyDevice, type CaseName } from "../verifyDevice.js";
 import { planAtFrequency } from "./recipeAtFrequency.js";
 
 /** Cases a sweep solves, in this order (others, such as realized-geometry, stay at the design frequency). */
 export const SWEEP_CASES: readonly CaseName[] = ["flat", "bare", "ideal", "reduced", "realized"];
 
-/** Everything a sweep point needs: plain data (no functions), so it can be sent to a worker. */
-export interface SweepContext {
-  transform: TransformSpec;
-  fieldBackground: { eps: number; mu: number };
-  background: { eps: number; mu: number };
-  polarization: ScenePolarization;
-  grid: DeviceGrid;
-  ideal: ReducedField;
-  reduced: ReducedField;
-  /** the plan of the realization at the design frequency, or null */
-  plan: Plan | null;
+/**
+ * Everything a sweep point needs: the inputs of deviceCases (without the drawn case's bulk
+ * materials, which the sweep does not solve) plus the sweep's own. Plain data (no functions), so it
+ * can be sent to a worker.
+ */
+export type SweepContext = Omit<DeviceCasesInput, "materials"> & {
   /** the material catalog the plan was made with (to re-evaluate recipes); empty without a plan */
   catalog: Material[];
   illumination: Illumination;
@@ -42,9 +32,7 @@ export interface SweepContext {
   marginM?: number;
   /** memory one solve may use (the worker's share), bytes */
   solverBytes?: number;
-  /** a carpet design checked in free space (verify --scene free); otherwise it stands on its ground plane */
-  freeSpace?: boolean;
-}
+};
 
 /** The figures of one case at one frequency (null where they do not apply). */
 export interface SweepCaseFigures {
@@ -52,9 +40,13 @@ export interface SweepCaseFigures {
   available: boolean;
   reason: string | null;
   scatteringWidthM: number | null;
+  /** absolute uncertainties of the three figures of merit (null: none, a single grid) */
+  scatteringWidthUncertaintyM: number | null;
   absorptionWidthM: number | null;
   vsBare: number | null;
+  vsBareUncertainty: number | null;
   deliveredPower: number | null;
+  deliveredPowerUncertainty: number | null;
   deviationDeg: number | null;
   /** relative uncertainty of the headline figure (null on a single grid) */
   uncertainty: number | null;
@@ -73,11 +65,9 @@ export interface SweepPoint {
 
 /** Solve the sweep's cases at one frequency (see file comment). Throws what verifyDevice throws. */
 export function solveSweepPoint(ctx: SweepContext, frequencyHz: number, onProgress?: (step: string, fraction: number) => void): SweepPoint {
-  const plan = ctx.plan ? planAtFrequency(ctx.plan, ctx.catalog, frequencyHz) : null;
-  const built = deviceCases({
-    transform: ctx.transform, fieldBackground: ctx.fieldBackground, background: ctx.background, polarization: ctx.polarization,
-    grid: ctx.grid, ideal: ctx.ideal, reduced: ctx.reduced, plan, freeSpace: ctx.freeSpace,
-  });
+  const { catalog, illumination: _i, resolution: _r, accuracy: _a, marginM: _m, solverBytes: _s, ...caseInput } = ctx;
+  const plan = ctx.plan ? planAtFrequency(ctx.plan, catalog, frequencyHz) : null;
+  const built = deviceCases({ ...caseInput, plan });
   const cases = built.cases.filter((c) => SWEEP_CASES.includes(c.name));
   const r = verifyDevice({
     polarization: ctx.polarization, background: ctx.background, frequencyHz, deviceBox: built.deviceBox, cases,
@@ -91,8 +81,9 @@ export function solveSweepPoint(ctx: SweepContext, frequencyHz: number, onProgre
     ground: built.ground != null,
     cases: r.cases.map((c) => ({
       name: c.name, available: c.available, reason: c.reason,
-      scatteringWidthM: fin(c.scatteringWidthM), absorptionWidthM: fin(c.absorptionWidthM), vsBare: fin(c.vsBare),
-      deliveredPower: fin(c.deliveredPower), deviationDeg: fin(c.deviationDeg), uncertainty: fin(c.uncertainty), converged: c.converged,
+      scatteringWidthM: fin(c.scatteringWidthM), scatteringWidthUncertaintyM: fin(c.scatteringWidthUncertaintyM),
+      absorptionWidthM: fin(c.absorptionWidthM), vsBare: fin(c.vsBare), vsBareUncertainty: fin(c.vsBareUncertainty),
+      deliveredPower: fin(c.deliveredPower), deliveredPowerUncertainty: fin(c.deliveredPowerUncertainty), deviationDeg: fin(c.deviationDeg), uncertainty: fin(c.uncertainty), converged: c.converged,
     })),
     resolutions: r.resolutions,
     grid: { nx: r.grid.nx, ny: r.grid.ny, stepM: r.grid.h },

@@ -44,9 +44,14 @@ export function summarizeSweep(points: readonly SweepPoint[], options: { designF
   const figure = sweepFigure(hasBare, options.beam, first.ground);
   const frequenciesHz = sorted.map((p) => p.frequencyHz);
   const series = (name: string): (number | null)[] => sorted.map((p) => figureOf(p.cases.find((c) => c.name === name), figure));
+  const uncertainties = (name: string): (number | null)[] => sorted.map((p) => uncertaintyOf(p.cases.find((c) => c.name === name), figure));
   const realizedThere = first.cases.some((c) => c.name === "realized" && c.available);
   const band = realizedThere
-    ? sweepBand({ frequenciesHz, realized: series("realized"), reduced: series("reduced"), sense: figure.sense, threshold: options.threshold, designFrequencyHz: options.designFrequencyHz })
+    ? sweepBand({
+      frequenciesHz, realized: series("realized"), reduced: series("reduced"), sense: figure.sense, threshold: options.threshold, designFrequencyHz: options.designFrequencyHz,
+      realizedUncertainty: uncertainties("realized"), reducedUncertainty: uncertainties("reduced"),
+      realizedConverged: sorted.map((p) => p.cases.find((c) => c.name === "realized")?.converged ?? null),
+    })
     : null;
   const notes: string[] = [];
   for (const p of sorted) for (const n of p.notes) if (!notes.includes(n)) notes.push(n);
@@ -56,6 +61,14 @@ export function summarizeSweep(points: readonly SweepPoint[], options: { designF
 function figureOf(c: SweepCaseFigures | undefined, figure: SweepFigure): number | null {
   if (!c || !c.available) return null;
   return c[figure.name];
+}
+
+/** The absolute uncertainty of a case's figure of merit (null: none, a single grid). */
+export function uncertaintyOf(c: SweepCaseFigures | undefined, figure: SweepFigure): number | null {
+  if (!c || !c.available) return null;
+  if (figure.name === "vsBare") return c.vsBareUncertainty;
+  if (figure.name === "deliveredPower") return c.deliveredPowerUncertainty;
+  return c.scatteringWidthUncertaintyM;
 }
 
 /** One plotted series per computed case. */
@@ -92,12 +105,21 @@ export function sweepJson(r: SweepResult, threshold: number): Record<string, unk
         deviationDeg: col(name, "deviationDeg"),
         uncertainty: col(name, "uncertainty"),
         converged: col(name, "converged"),
+        scatteringWidthUncertaintyM: col(name, "scatteringWidthUncertaintyM"),
+        vsBareUncertainty: col(name, "vsBareUncertainty"),
+        deliveredPowerUncertainty: col(name, "deliveredPowerUncertainty"),
       };
     }),
     resolutions: r.points.map((p) => p.resolutions),
     band: b
-      ? { lowHz: b.lowHz, highHz: b.highHz, openLow: b.openLow, openHigh: b.openHigh, threshold: b.threshold, centreHz: b.centreHz, reference: b.reference, limit: b.limit, sense: b.sense, reason: b.reason }
-      : { lowHz: null, highHz: null, openLow: false, openHigh: false, threshold, centreHz: null, reference: null, limit: null, sense: r.figure.sense, reason: "the design has no realized case" },
+      ? {
+        lowHz: b.lowHz, highHz: b.highHz, openLow: b.openLow, openHigh: b.openHigh, threshold: b.threshold, centreHz: b.centreHz, reference: b.reference, limit: b.limit, sense: b.sense, reason: b.reason,
+        lowRangeHz: b.lowRangeHz, highRangeHz: b.highRangeHz, lowConverged: b.lowConverged, highConverged: b.highConverged, mayVanish: b.mayVanish, limitUncertainty: b.limitUncertainty, meetsLimit: b.meetsLimit,
+      }
+      : {
+        lowHz: null, highHz: null, openLow: false, openHigh: false, threshold, centreHz: null, reference: null, limit: null, sense: r.figure.sense, reason: "the design has no realized case",
+        lowRangeHz: null, highRangeHz: null, lowConverged: null, highConverged: null, mayVanish: false, limitUncertainty: null, meetsLimit: r.frequenciesHz.map(() => null),
+      },
     converged: r.points.every((p) => p.cases.every((c) => !c.available || c.converged !== false)),
   };
 }
@@ -108,9 +130,19 @@ export function bandSentence(r: SweepResult, threshold: number): string {
   if (!b) return `no band: the design has no realized case (threshold ${threshold}×)`;
   const what = b.sense === "lower-is-better" ? `at most ${fmtFig(b.limit, r.figure)} (${b.threshold}× the reduced design's ${fmtFig(b.reference, r.figure)} at ${formatFrequency(b.centreHz)})` : `at least ${fmtFig(b.limit, r.figure)} (the reduced design's ${fmtFig(b.reference, r.figure)} at ${formatFrequency(b.centreHz)} / ${b.threshold})`;
   if (b.lowHz === null || b.highHz === null) return `no band: ${b.reason}; the realized ${r.figure.label} must be ${what}`;
-  const lo = `${b.openLow ? "≤ " : ""}${formatFrequency(b.lowHz)}`, hi = `${b.openHigh ? "≥ " : ""}${formatFrequency(b.highHz)}`;
+  const range = (x: [number, number] | null, conv: boolean | null): string =>
+    (x && x[1] > x[0] ? ` (${formatFrequency(x[0])} … ${formatFrequency(x[1])})` : "") + (conv === false ? " [not converged]" : "");
+  const lo = `${b.openLow ? "≤ " : ""}${formatFrequency(b.lowHz)}${range(b.lowRangeHz, b.lowConverged)}`;
+  const hi = `${b.openHigh ? "≥ " : ""}${formatFrequency(b.highHz)}${range(b.highRangeHz, b.highConverged)}`;
   const frac = b.lowHz > 0 ? ` (${Number(((100 * (b.highHz - b.lowHz)) / b.centreHz).toPrecision(3))} % of the centre${b.openLow || b.openHigh ? ", at least" : ""})` : "";
-  return `band: ${lo} … ${hi}${frac}, where the realized ${r.figure.label} stays ${what}${b.openLow || b.openHigh ? "; ≤/≥: the band reaches the end of the sweep" : ""}`;
+  const ranged = b.lowRangeHz !== null && (b.lowRangeHz[1] > b.lowRangeHz[0] || b.highRangeHz![1] > b.highRangeHz![0]);
+  return [
+    `band: ${lo} … ${hi}${frac}, where the realized ${r.figure.label} stays ${what}${b.openLow || b.openHigh ? "; ≤/≥: the band reaches the end of the sweep" : ""}`,
+    ...(ranged ? ["(in brackets: where each edge can lie within the figures' uncertainties)"] : []),
+    ...(b.lowConverged === false || b.highConverged === false ? ["[not converged]: a sweep point at that edge is not converged to the accuracy asked"] : []),
+    ...(b.mayVanish ? ["within its uncertainty the realized figure at the centre may miss the limit: the band may vanish"] : []),
+    ...(b.lowRangeHz === null ? ["edges without uncertainty (a single grid per frequency)"] : []),
+  ].join("\n  ");
 }
 
 function fmtFig(v: number | null, figure: SweepFigure): string {

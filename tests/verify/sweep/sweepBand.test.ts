@@ -80,7 +80,60 @@ describe("sweepBand", () => {
     expect([b.lowHz, b.highHz, b.openLow, b.openHigh]).toEqual([9e9, 9e9, true, true]);
   });
 
+  it("without uncertainties (a single grid) the edges have no range and every point is yes or no", () => {
+    const b = sweepBand({ frequenciesHz: fs, realized: [0.9, 0.5, 0.2, 0.4, 0.8], reduced: [0.35, 0.32, 0.3, 0.31, 0.33], sense: "lower-is-better", threshold: 2, designFrequencyHz: 9e9, realizedUncertainty: [null, null, null, null, null], realizedConverged: [null, null, null, null, null] });
+    expect([b.lowRangeHz, b.highRangeHz, b.lowConverged, b.highConverged, b.mayVanish]).toEqual([null, null, null, null, false]);
+    expect(b.meetsLimit).toEqual(["no", "yes", "yes", "yes", "no"]);
+  });
+
+  it("an edge between two uncertain points is as uncertain as they are: its range is the band's edge with every margin at its optimistic and at its pessimistic end", () => {
+    // limit 0.6 (± 2 × 0.01 from the reference); realized 0.9 ± 0.05, 0.5 ± 0.05 → margins −0.3 ± 0.07, +0.1 ± 0.07
+    // optimistic: −0.23, +0.17 → 8.5 − 0.5·0.17/0.40; pessimistic: −0.37, +0.03 → 8.5 − 0.5·0.03/0.40
+    const u = [0.05, 0.05, 0.01, 0.01, 0.01];
+    const b = sweepBand({
+      frequenciesHz: fs, realized: [0.9, 0.5, 0.2, 0.4, 0.8], reduced: [0.35, 0.32, 0.3, 0.31, 0.33], sense: "lower-is-better", threshold: 2, designFrequencyHz: 9e9,
+      realizedUncertainty: u, reducedUncertainty: [0.01, 0.01, 0.01, 0.01, 0.01], realizedConverged: [true, true, true, true, true],
+    });
+    expectClose(b.limitUncertainty!, 0.02, { rel: 1e-12 });
+    expectClose(b.lowHz!, 8.375e9, { rel: 1e-12 }); // the nominal edge is unchanged
+    expectClose(b.lowRangeHz![0], 8.5e9 - 0.5e9 * (0.17 / 0.4), { rel: 1e-12 });
+    expectClose(b.lowRangeHz![1], 8.5e9 - 0.5e9 * (0.03 / 0.4), { rel: 1e-12 });
+    // high: 0.4 ± 0.01 and 0.8 ± 0.01 → margins +0.2 ± 0.03, −0.2 ± 0.03
+    expectClose(b.highRangeHz![0], 9.5e9 + 0.5e9 * (0.17 / 0.4), { rel: 1e-12 });
+    expectClose(b.highRangeHz![1], 9.5e9 + 0.5e9 * (0.23 / 0.4), { rel: 1e-12 });
+    expect([b.lowConverged, b.highConverged, b.mayVanish]).toEqual([true, true, false]);
+    expect(b.meetsLimit).toEqual(["no", "yes", "yes", "yes", "no"]);
+  });
+
+  it("a point within its uncertainty of the limit widens the edge past it, and an unconverged point there marks the edge not converged", () => {
+    // 8.5 GHz: 0.58 ± 0.05 against the limit 0.6 (uncertain); 8 GHz fails for sure
+    const b = sweepBand({
+      frequenciesHz: fs, realized: [0.9, 0.58, 0.2, 0.4, 0.8], reduced: [0.3, 0.3, 0.3, 0.3, 0.3], sense: "lower-is-better", threshold: 2, designFrequencyHz: 9e9,
+      realizedUncertainty: [0.01, 0.05, 0.01, 0.01, 0.01], realizedConverged: [true, false, true, true, true],
+    });
+    expect(b.meetsLimit).toEqual(["no", "uncertain", "yes", "yes", "no"]);
+    // pessimistic: 8.5 GHz fails (0.6 − 0.63 < 0) → the edge moves between 8.5 and 9 GHz: margins −0.03, +0.39
+    expectClose(b.lowRangeHz![1], 9e9 - 0.5e9 * (0.39 / 0.42), { rel: 1e-12 });
+    // optimistic: 8.5 GHz works with +0.07, 8 GHz fails with −0.29
+    expectClose(b.lowRangeHz![0], 8.5e9 - 0.5e9 * (0.07 / 0.36), { rel: 1e-12 });
+    expect(b.lowConverged).toBe(false);
+    expect(b.highConverged).toBe(true);
+  });
+
+  it("higher is better: the ranges follow the delivered share's uncertainty; a centre within its uncertainty of the limit may vanish", () => {
+    const b = sweepBand({
+      frequenciesHz: fs, realized: [0.2, 0.5, 0.47, 0.45, 0.3], reduced: [0.8, 0.85, 0.9, 0.85, 0.8], sense: "higher-is-better", threshold: 2, designFrequencyHz: 9e9,
+      realizedUncertainty: [0.03, 0.03, 0.03, 0.03, 0.03], realizedConverged: [true, true, true, true, true],
+    });
+    expectClose(b.limit!, 0.45, { rel: 1e-12 });
+    expect(b.mayVanish).toBe(true); // 0.47 − 0.03 < 0.45
+    expect(b.lowRangeHz![1]).toBe(9e9);
+    expect(b.highRangeHz![0]).toBe(9e9);
+    expect(b.meetsLimit).toEqual(["no", "yes", "uncertain", "uncertain", "no"]);
+  });
+
   it("refuses mismatched, unsorted or empty input and a threshold not above 1", () => {
+    expect(() => sweepBand({ frequenciesHz: [1, 2], realized: [1, 1], reduced: [1, 1], sense: "lower-is-better", threshold: 2, designFrequencyHz: 1, realizedUncertainty: [0.1] })).toThrow(RangeError);
     expect(() => sweepBand({ frequenciesHz: [], realized: [], reduced: [], sense: "lower-is-better", threshold: 2, designFrequencyHz: 1 })).toThrow(RangeError);
     expect(() => sweepBand({ frequenciesHz: [2, 1], realized: [1, 1], reduced: [1, 1], sense: "lower-is-better", threshold: 2, designFrequencyHz: 1 })).toThrow(RangeError);
     expect(() => sweepBand({ frequenciesHz: [1, 2], realized: [1], reduced: [1, 1], sense: "lower-is-better", threshold: 2, designFrequencyHz: 1 })).toThrow(RangeError);

@@ -1,0 +1,94 @@
+import { describe, it, expect } from "vitest";
+import fc from "fast-check";
+import { writeDecimal } from "../../../src/plan/outputs/decimalBytes.js";
+
+/**
+ * The definition (ECMAScript Number.prototype.toPrecision, ECMA-262 §21.1.3.5), trailing zeros
+ * and the exponent's "+" removed — what `fmt` in csvText.ts makes. writeDecimal must give the
+ * same bytes or decline (-1).
+ */
+function reference(x: number, digits: number): string {
+  const s = x.toPrecision(digits);
+  const trim = (t: string) => (t.includes(".") ? t.replace(/0+$/, "").replace(/\.$/, "") : t);
+  if (s.includes("e")) {
+    const [m, e] = s.split("e");
+    return `${trim(m)}e${e.replace("+", "")}`;
+  }
+  return trim(s);
+}
+
+const buf = new Uint8Array(64);
+const decoder = new TextDecoder();
+/** writeDecimal's text at an offset, or null when it declines. */
+function written(x: number, digits: number): string | null {
+  buf.fill(0x7e);
+  const end = writeDecimal(buf, 3, x, digits);
+  if (end < 0) {
+    expect(buf.every((b) => b === 0x7e), `${x} @ ${digits}: declined but wrote`).toBe(true);
+    return null;
+  }
+  expect(buf[2], "nothing written before the offset").toBe(0x7e);
+  expect(buf[end], "nothing written after the end").toBe(0x7e);
+  return decoder.decode(buf.subarray(3, end));
+}
+
+describe("writeDecimal", () => {
+  it("gives toPrecision's trimmed text for any finite non-zero double, or declines (property)", () => {
+    let declined = 0, runs = 0;
+    fc.assert(
+      fc.property(fc.double({ noNaN: true, noDefaultInfinity: true }).filter((x) => x !== 0), fc.integer({ min: 1, max: 8 }), (x, d) => {
+        runs++;
+        const t = written(x, d);
+        if (t === null) { declined++; return; }
+        expect(t, `${x} @ ${d}`).toBe(reference(x, d));
+      }),
+      { seed: 13, numRuns: 30000 },
+    );
+    expect(declined).toBeLessThan(runs);
+  });
+
+  it("takes the fast path for build-list values and matches toPrecision there (property)", () => {
+    let declined = 0;
+    fc.assert(
+      fc.property(fc.double({ min: 1e-9, max: 1e9, noNaN: true }).filter((x) => x !== 0), fc.constantFrom(4, 6), fc.boolean(), (x, d, neg) => {
+        const v = neg ? -x : x;
+        const t = written(v, d);
+        if (t === null) { declined++; return; }
+        expect(t, `${v} @ ${d}`).toBe(reference(v, d));
+      }),
+      { seed: 17, numRuns: 50000 },
+    );
+    expect(declined).toBeLessThan(50); // only values within 1e-9 of a decimal half-way point
+  });
+
+  it("rounds at decimal half-way points, powers of ten and notation switches as toPrecision does", () => {
+    const cases: number[] = [1, -1, 10, 100, 1e5, 1e6, 999999.5, 9999995, 0.5, 1.5e-7, 1e-6, 1e-7, 1.23456789e-7,
+      123456.5, 1234565, 0.0001234565, 1e19, 9.99999e19, 9.999995e19, 1e-15, 1.0000005, 0.00012345, 999.95, 0.99995,
+      2.5, 0.125, 1.0000000000000002, 0.9999999999999999, 99999.95, 9.9999995, 123456, 120000, 1e20 - 1e5, 4.35e-7];
+    for (let e = -15; e <= 19; e++) {
+      for (const m of [1, 1.5, 1.23456, 9.999995, 9.9999949, 5.5555555, 7.0000005]) {
+        cases.push(m * 10 ** e, m / 10 ** -e);
+        cases.push(10 ** e * (1 - 2 ** -52), 10 ** e * (1 + 2 ** -52));
+      }
+    }
+    let checked = 0;
+    for (const x of cases) {
+      for (let d = 1; d <= 6; d++) {
+        for (const v of [x, -x]) {
+          const t = written(v, d);
+          if (t === null) continue;
+          checked++;
+          expect(t, `${v} @ ${d}`).toBe(reference(v, d));
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(2000);
+  });
+
+  it("declines what it cannot promise: more than 6 digits, tiny and huge magnitudes", () => {
+    expect(written(1.5, 7)).toBeNull();
+    expect(written(1e-300, 6)).toBeNull();
+    expect(written(1e300, 6)).toBeNull();
+    expect(written(5e-324, 4)).toBeNull();
+  });
+});
