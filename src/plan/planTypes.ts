@@ -264,15 +264,17 @@ export interface Plan {
 
 /** One requirement the plan misses: its figure and the limit it should meet. */
 export interface MissedRequirement {
-  /** "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process" | "homogenization" */
+  /** "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process" | "homogenization" | "model-uncertainty" */
   what: RequirementName;
   value: number;
   limit: number;
   /** a plain sentence for people */
   text: string;
+  /** the levels (1-based) the miss is about, where it is about some levels only */
+  levels?: number[];
 }
 
-export type RequirementName = "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process" | "homogenization";
+export type RequirementName = "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process" | "homogenization" | "model-uncertainty";
 
 export interface Verdict {
   buildable: boolean;
@@ -298,7 +300,7 @@ export interface PlanSummary {
   billOfMaterials: { material: string; cells: number; volumeM3: number; order: { quantity: number; unit: string; what: string } }[];
   outputs: string[];
   buildable: boolean;
-  verdict: { buildable: boolean; missed: { what: RequirementName; value: number; limit: number }[] };
+  verdict: { buildable: boolean; missed: { what: RequirementName; value: number; limit: number; levels?: number[] }[] };
   /** remedies tried by re-planning, best first (absent when not looked for) */
   remedies?: {
     label: string;

@@ -15,9 +15,13 @@
  * - `homogenization`: the fraction of cells flagged `coarse` (limit 0) — cells whose pitch is above
  *   λ/10 in their densest material and, for rods and holes along z, whose lowest band departs from
  *   the long-wavelength index by more than the tolerance. Their effective-medium values, on which
- *   every other figure rests, are not to be trusted, so a coarse plan is not called buildable.
- *   (`uncertain` cells — the two mixing models disagree — stay a flag and a caution: the recipe
- *   may be right, a full-wave unit-cell simulation decides.)
+ *   every other figure rests, are not to be trusted, so a coarse plan is not called buildable;
+ * - `model-uncertainty`: the largest model uncertainty of a used level's recipe (Recipe.spread: the
+ *   solved cell's error estimate, the Maxwell Garnett/Bruggeman spread where no solved model covers
+ *   the cell, the lattice cut-off's error for wire media, the spread of the two standard ring
+ *   inductances for printed split rings) against the tolerance, with the levels above it. Their
+ *   cells carry the `uncertain` flag: the plan cannot promise their values within the tolerance,
+ *   so it is not called buildable until a full-wave unit-cell simulation (or another recipe) settles them.
  *
  * A requirement the design does not state (no loss budget, no bandwidth, no process) is not
  * checked. Each miss carries its figure, its limit and a plain sentence.
@@ -66,7 +70,34 @@ export function planVerdict(inp: VerdictInput): Verdict {
   if (coarse > 0) {
     missed.push({ what: "homogenization", value: coarse / inp.cells, limit: 0, text: `${coarse} of ${inp.cells} cells (${pct(coarse / inp.cells)}) are coarse: the pitch is above λ/10 in their densest material (for rods and holes along z, their lowest band departs from the long-wavelength index by more than the tolerance); a finer pitch or a lower-index material helps` });
   }
+  const uncertain = inp.levels.filter((l) => l.cellCount > 0 && l.recipe !== null && l.recipe.spread > s.tolerance);
+  if (uncertain.length > 0) {
+    const worst = uncertain.reduce((a, b) => (b.recipe!.spread > a.recipe!.spread ? b : a));
+    const ids = uncertain.map((l) => l.index);
+    const cells = uncertain.reduce((acc, l) => acc + l.cellCount, 0);
+    missed.push({
+      what: "model-uncertainty",
+      value: worst.recipe!.spread,
+      limit: s.tolerance,
+      levels: ids,
+      text: `${ids.length === 1 ? "level" : "levels"} ${listText(ids)} (${cells} cells): model uncertainty up to ${pct(worst.recipe!.spread)} (level ${worst.index}, ${worst.recipe!.family}: ${spreadSource(worst.recipe!.family, worst.recipe!.notes)}) against a tolerance of ${pct(s.tolerance)}; a full-wave unit-cell simulation of these cells, or a recipe with a better-known model, settles it`,
+    });
+  }
   return { buildable: missed.length === 0, missed };
+}
+
+/** "1, 2, 5" — at most 12 numbers, then "… (n more)". */
+function listText(ids: number[]): string {
+  return ids.length <= 12 ? ids.join(", ") : `${ids.slice(0, 12).join(", ")} … (${ids.length - 12} more)`;
+}
+
+/** Where a recipe's uncertainty comes from (Recipe.spread), in words. */
+function spreadSource(family: string, notes: readonly string[]): string {
+  if (family === "split-ring") return "the spread between the two standard ring inductances";
+  if (family === "wire-medium") return "the error of the lattice cut-off";
+  if (notes.some((n) => n.startsWith("not solved"))) return "Maxwell Garnett and Bruggeman disagree where no solved model covers the cell";
+  if (family === "rods-in-host" || family === "holes-in-slab") return "the solved cell's error estimate";
+  return "Maxwell Garnett and Bruggeman disagree";
 }
 
 /** Relative size of a miss (how far past its limit, ≥ 0): 0 when met; used to rank remedies. */
