@@ -123,6 +123,14 @@ export interface Recipe {
   bandwidth: number | null;
   /** smallest feature of the cell (inclusion size or wall), metres */
   featureM: number;
+  /** pitch (a rect cell: its longer spacing) over the wavelength in the cell's densest material */
+  pitchRatio?: number;
+  /**
+   * rods and holes along z between λ/10 and λ/4 (runPlan.ts, match/bandCheck.ts): the lowest
+   * band's largest departure from its long-wavelength index, or its anisotropy; Infinity when the
+   * design frequency lies above the band edge
+   */
+  bandDeviation?: number;
   resonant: boolean;
   /** lower is better */
   score: number;
@@ -272,6 +280,11 @@ export interface MissedRequirement {
   text: string;
   /** the levels (1-based) the miss is about, where it is about some levels only */
   levels?: number[];
+  /**
+   * the worst figure behind a miss whose `value` is a count or fraction (homogenization: the worst
+   * band deviation against the tolerance, or the worst pitch ratio against λ/10), and its level
+   */
+  worst?: { figure: "band-deviation" | "pitch-ratio"; value: number; limit: number; level: number };
 }
 
 export type RequirementName = "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process" | "homogenization" | "model-uncertainty";
@@ -300,7 +313,7 @@ export interface PlanSummary {
   billOfMaterials: { material: string; cells: number; volumeM3: number; order: { quantity: number; unit: string; what: string } }[];
   outputs: string[];
   buildable: boolean;
-  verdict: { buildable: boolean; missed: { what: RequirementName; value: number; limit: number; levels?: number[] }[] };
+  verdict: { buildable: boolean; missed: { what: RequirementName; value: number; limit: number; levels?: number[]; worst?: MissedRequirement["worst"] }[] };
   /** remedies tried by re-planning, best first (absent when not looked for) */
   remedies?: {
     label: string;

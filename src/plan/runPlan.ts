@@ -212,6 +212,7 @@ export function planFromField(
     if (!v) return;
     const pct = (x: number) => `${Number((100 * x).toPrecision(2))} %`;
     r.homogenization = v.status;
+    r.bandDeviation = v.band.inBand ? Math.max(v.band.deviation, v.band.anisotropy) : Infinity;
     r.notes = [...r.notes, v.band.inBand
       ? `band index ${v.band.index.map((x) => Number(x.toPrecision(4))).join(" / ")} (principal directions), ${pct(v.band.deviation)} from the long-wavelength value, anisotropy ${pct(v.band.anisotropy)}`
       : "the design frequency lies above the lowest band's edge: not homogenizable"];

@@ -14,7 +14,9 @@
  *   (`unresolvable`, limit 0), and any feature below the process's smallest feature;
  * - `homogenization`: the fraction of cells flagged `coarse` (limit 0) — cells whose pitch is above
  *   λ/10 in their densest material and, for rods and holes along z, whose lowest band departs from
- *   the long-wavelength index by more than the tolerance. Their effective-medium values, on which
+ *   the long-wavelength index by more than the tolerance — with the coarse levels and the worst
+ *   figure (`worst`: the largest band deviation against the tolerance where the band was solved,
+ *   else the largest pitch ratio against λ/10). Their effective-medium values, on which
  *   every other figure rests, are not to be trusted, so a coarse plan is not called buildable;
  * - `model-uncertainty`: the largest model uncertainty of a used level's recipe (Recipe.spread: the
  *   solved cell's error estimate, the Maxwell Garnett/Bruggeman spread where no solved model covers
@@ -27,6 +29,8 @@
  * checked. Each miss carries its figure, its limit and a plain sentence.
  */
 import type { DeviceFigures, MissedRequirement, PlanLevel, PlanSettings, Verdict } from "./planTypes.js";
+import { F_COARSE } from "./flags.js";
+import { HOMOGENIZATION_OK } from "../cells/homogenization.js";
 
 export interface VerdictInput {
   cells: number;
@@ -68,7 +72,18 @@ export function planVerdict(inp: VerdictInput): Verdict {
   }
   const coarse = f.flagCounts.coarse ?? 0;
   if (coarse > 0) {
-    missed.push({ what: "homogenization", value: coarse / inp.cells, limit: 0, text: `${coarse} of ${inp.cells} cells (${pct(coarse / inp.cells)}) are coarse: the pitch is above λ/10 in their densest material (for rods and holes along z, their lowest band departs from the long-wavelength index by more than the tolerance); a finer pitch or a lower-index material helps` });
+    const worst = worstCoarseness(inp.levels, s.tolerance);
+    const worstText = worst === null ? ""
+      : worst.figure === "band-deviation"
+        ? `; worst: level ${worst.level}, ${Number.isFinite(worst.value) ? `its band index ${pct(worst.value)} off the long-wavelength value (tolerance ${pct(worst.limit)})` : "the design frequency above its lowest band's edge"}`
+        : `; worst: level ${worst.level}, pitch ${num(worst.value)} of the wavelength in its densest material (λ/10 = ${worst.limit})`;
+    const coarseLevels = inp.levels.filter((l) => l.cellCount > 0 && (l.flags & F_COARSE) !== 0).map((l) => l.index);
+    missed.push({
+      what: "homogenization", value: coarse / inp.cells, limit: 0,
+      ...(coarseLevels.length ? { levels: coarseLevels } : {}),
+      ...(worst ? { worst } : {}),
+      text: `${coarse} of ${inp.cells} cells (${pct(coarse / inp.cells)}) are coarse: the pitch is above λ/10 in their densest material (for rods and holes along z, their lowest band departs from the long-wavelength index by more than the tolerance)${worstText}; a finer pitch or a lower-index material helps`,
+    });
   }
   const uncertain = inp.levels.filter((l) => l.cellCount > 0 && l.recipe !== null && l.recipe.spread > s.tolerance);
   if (uncertain.length > 0) {
@@ -84,6 +99,24 @@ export function planVerdict(inp: VerdictInput): Verdict {
     });
   }
   return { buildable: missed.length === 0, missed };
+}
+
+/**
+ * The worst figure behind the coarse levels: a band-checked level's band deviation against the
+ * tolerance wins (it is the measured departure), else the largest pitch ratio against λ/10.
+ */
+function worstCoarseness(levels: readonly PlanLevel[], tolerance: number): NonNullable<MissedRequirement["worst"]> | null {
+  let band: NonNullable<MissedRequirement["worst"]> | null = null, pitch: NonNullable<MissedRequirement["worst"]> | null = null;
+  for (const l of levels) {
+    const r = l.recipe;
+    if (!r || l.cellCount === 0 || (l.flags & F_COARSE) === 0) continue;
+    if (r.bandDeviation !== undefined) {
+      if (!band || r.bandDeviation > band.value) band = { figure: "band-deviation", value: r.bandDeviation, limit: tolerance, level: l.index };
+    } else if (r.pitchRatio !== undefined && (!pitch || r.pitchRatio > pitch.value)) {
+      pitch = { figure: "pitch-ratio", value: r.pitchRatio, limit: HOMOGENIZATION_OK, level: l.index };
+    }
+  }
+  return band ?? pitch;
 }
 
 /** "1, 2, 5" — at most 12 numbers, then "… (n more)". */

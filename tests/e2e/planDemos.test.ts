@@ -143,6 +143,11 @@ describe("verdicts of the demos", () => {
     expect(miss.limit).toBe(0);
     expect(Math.abs(miss.value - s.flags.coarse / s.cells)).toBeLessThan(1e-12);
     expect(s.flags.coarse).toBe(s.cells);
+    // the worst figure: printed struts have no band solve, so the pitch ratio against λ/10 (common practice)
+    expect(miss.worst.figure).toBe("pitch-ratio");
+    expect(miss.worst.limit).toBe(0.1);
+    expect(miss.worst.value).toBeGreaterThan(0.1);
+    expect(miss.levels.length).toBeGreaterThan(0);
   }, 120_000);
 });
 

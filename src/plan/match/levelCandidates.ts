@@ -329,6 +329,7 @@ function mixed(
     score: 0,
     notes,
     homogenization: h.status,
+    pitchRatio: h.ratio,
     orientation: family.isotropic ? null : o,
   });
 }
@@ -416,6 +417,7 @@ function splitRing(
     score: 0,
     notes: design.reasons,
     homogenization: h.status,
+    pitchRatio: h.ratio,
     orientation: comps[mk].axis,
   });
 }
