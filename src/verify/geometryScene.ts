@@ -62,7 +62,6 @@ export function cellDrawing(r: Recipe): CellDrawing | { reason: string } {
     const radius = r.dimensions.radius_m;
     if (!(radius > 0)) return { reason: `${r.family} without a radius` };
     if (r.orientation !== "z") return { reason: `${r.family} lying in the plane (along axis ${r.orientation}) varies along z: a 2D (z-invariant) solve cannot draw it` };
-    if (r.lattice === "rect") return { reason: `${r.family} on a rect lattice (several circles per cell) is not drawn yet` };
     return { kind: "disc", radiusM: radius, inside: r.inclusion || "vacuum", outside: r.host };
   }
   if (r.family === "laminate") {
