@@ -14,7 +14,8 @@ import type { ReducedField } from "../reduce/reducedField.js";
 import { carpetGround, type CarpetGround } from "./carpetGround.js";
 import { diskConductor, type Conductor } from "./conductor.js";
 import { continuousScene } from "./continuousScene.js";
-import { FEATURE_STEPS, geometryScene, type BulkMaterial } from "./geometryScene.js";
+import { DRAWN_STEPS, drawnStepFeature } from "./drawnLadder.js";
+import { geometryScene, type BulkMaterial } from "./geometryScene.js";
 import { deviceBounds, deviceScene, type HiddenDisk } from "./deviceScene.js";
 import { largestIndex, mapFromPlan, mapFromReduced } from "./materialMap.js";
 import { emptyScene, SAMPLE_BACKGROUND, type Scene, type ScenePolarization } from "./scene.js";
@@ -114,7 +115,9 @@ export function deviceCases(input: DeviceCasesInput): DeviceCases {
       if (!d.ok) cases.push({ name: "realized-geometry", scene: null, reason: d.reason, indexHint: 0 });
       else {
         notes.push(...d.notes);
-        cases.push({ name: "realized-geometry", scene: d.scene, indexHint: d.indexHint, maxStepM: d.smallestFeatureM / FEATURE_STEPS });
+        // the step follows the smallest feature, at most a quarter pitch (a disc's outline wants ≥ 8 steps per pitch)
+        const featureM = drawnStepFeature(d.smallestFeatureM, grid.pitchM);
+        cases.push({ name: "realized-geometry", scene: d.scene, indexHint: d.indexHint, maxStepM: featureM / DRAWN_STEPS[0], featureM });
       }
     }
   } else {

@@ -2,13 +2,16 @@
  * SVG picture of |u| (total field magnitude) for several cases side by side on one colour scale,
  * with the device outline. Pure: returns the SVG text. Each panel is at most `maxPixels` squares
  * across (block means of the FDFD nodes, PML cropped); runs of equal colour along a row are merged
- * into one rectangle to keep the file small.
+ * into one rectangle to keep the file small. NaN values mean "not solved there" (the drawn case's
+ * window is smaller than the main grid's) and are drawn grey.
  */
 import type { FdfdGrid } from "./fdfdGrid.js";
 
 /** Colour stops (dark blue → teal → yellow), our own perceptually ordered ramp. */
 const STOPS: [number, number, number][] = [[20, 24, 82], [33, 102, 172], [38, 166, 154], [153, 204, 82], [250, 226, 60], [255, 255, 224]];
 const LEVELS = 32;
+/** Colour of pixels without data (a case solved on a smaller window than the picture's). */
+const NO_DATA = "#d9d9d9";
 
 function colour(t: number): string {
   const x = Math.min(1, Math.max(0, t)) * (STOPS.length - 1);
@@ -46,18 +49,20 @@ export function fieldSvg(g: FdfdGrid, panels: FieldPanel[], mask: Uint8Array, op
           for (let p2 = 0; p2 < block; p2++) {
             const i = g.pml + a * block + p2, j = g.pml + b * block + q;
             if (i >= g.nx - g.pml || j >= g.ny - g.pml) continue;
-            s += p.magnitude[i + g.nx * j]; cnt++;
+            const v = p.magnitude[i + g.nx * j];
+            if (Number.isNaN(v)) continue; // no data there (a case solved on a smaller window)
+            s += v; cnt++;
             if (mask[i + g.nx * j]) d = 1;
           }
         }
-        out[a + pw * b] = cnt ? s / cnt : 0;
+        out[a + pw * b] = cnt ? s / cnt : NaN;
         dev[a + pw * b] = d;
       }
     }
     return { out, dev };
   });
   if (!(vmax > 0)) {
-    for (const m of means) for (let k = 0; k < m.out.length; k++) if (!m.dev[k]) vmax = Math.max(vmax, m.out[k]);
+    for (const m of means) for (let k = 0; k < m.out.length; k++) if (!m.dev[k] && !Number.isNaN(m.out[k])) vmax = Math.max(vmax, m.out[k]);
     vmax = Math.min(vmax || 1, 3);
   }
   const width = Math.max(panels.length * panelW + (panels.length + 1) * gap, Math.ceil((options.title?.length ?? 0) * 7.2) + 2 * gap);
@@ -76,10 +81,12 @@ export function fieldSvg(g: FdfdGrid, panels: FieldPanel[], mask: Uint8Array, op
       const y = y0 + (ph - 1 - b) * px;
       let a = 0;
       while (a < pw) {
-        const lv = Math.round(Math.min(1, out[a + pw * b] / vmax) * (LEVELS - 1));
+        // level −1: no data (drawn grey)
+        const level = (v: number): number => (Number.isNaN(v) ? -1 : Math.round(Math.min(1, v / vmax) * (LEVELS - 1)));
+        const lv = level(out[a + pw * b]);
         let e = a + 1;
-        while (e < pw && Math.round(Math.min(1, out[e + pw * b] / vmax) * (LEVELS - 1)) === lv) e++;
-        parts.push(`<rect x="${x0 + a * px}" y="${y}" width="${(e - a) * px}" height="${px}" fill="${colour(lv / (LEVELS - 1))}"/>`);
+        while (e < pw && level(out[e + pw * b]) === lv) e++;
+        parts.push(`<rect x="${x0 + a * px}" y="${y}" width="${(e - a) * px}" height="${px}" fill="${lv < 0 ? NO_DATA : colour(lv / (LEVELS - 1))}"/>`);
         a = e;
       }
       for (let a2 = 0; a2 < pw; a2++) {

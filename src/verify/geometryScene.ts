@@ -2,8 +2,8 @@
  * The realized device drawn as its recipes mean it to be built (verify's `realized-geometry` case):
  * every inclusion at its real size and place, in plan view, each point taking the bulk material it
  * lies in. The solver's
- * grid then resolves the inclusions (a step of at most the smallest feature / FEATURE_STEPS on the
- * coarsest rung), and its sub-pixel averaging (gridCoefficients.ts: arithmetic for the field along
+ * grid then resolves the inclusions (drawnLadder.ts: 2, 3 and 4.5 steps across the smallest drawn
+ * feature), and its sub-pixel averaging (gridCoefficients.ts: arithmetic for the field along
  * an interface, harmonic across it) handles the inclusion boundaries.
  *
  * The 2D solver needs cells that do not vary along z, so only these are drawn:
@@ -36,9 +36,6 @@ import { HEX_ROW, hexSites, nearestHexSite } from "../plan/layout/hexSites.js";
 import type { DeviceGrid } from "../field/deviceGrid.js";
 import { deviceBounds, latticeLookup, type HiddenDisk } from "./deviceScene.js";
 import { SAMPLE_BACKGROUND, SAMPLE_MEDIUM, SAMPLE_PEC, S_B, S_TXX, S_TXY, S_TYY, type Scene, type ScenePolarization } from "./scene.js";
-
-/** Grid steps across the smallest drawn feature on the coarsest rung of the ladder (common practice: 8–10 points across a feature). */
-export const FEATURE_STEPS = 8;
 
 /** A bulk material at the design frequency. */
 export interface BulkMaterial {

@@ -12,27 +12,27 @@
  * from the ideal device needs the ideal on the grid too, so it is null when the ideal was radial.
  *
  * The `realized-geometry` case (inclusions drawn at their size, geometryScene.ts) needs a grid fine
- * enough to draw them (`maxStepM`), far finer than the other cases need, so it gets a ladder of its
- * own on which the homogenized `realized` map is solved again: per rung the ratio
+ * enough to draw them, far finer than the other cases need, so it gets a ladder of its own
+ * (drawnLadder.ts: steps from the smallest drawn feature, costed and told before anything is
+ * solved) on which the homogenized `realized` map is solved again: per rung the ratio
  * ρ = σ_geometry/σ_realized compares like with like, is extrapolated (Richardson) with its
  * uncertainty, and ρ − 1 is the plan's homogenization error. The geometry case's σ/σ_bare is the
- * realized case's times ρ. A grid that does not fit is not run: the case says how large it would be
- * and how much coarser the features would have to be.
+ * realized case's times ρ. A ladder that does not fit is not run: the case says how large its grids
+ * would be (nodes, memory, time, the limit) and how much coarser the features would have to be.
  * Pure: no files, no clock.
  */
 import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
 import { InputError } from "../core/errors.js";
-import { formatBytes, solveCost } from "./assemble.js";
+import { formatBytes } from "./assemble.js";
 import { formatLength } from "./formatQuantity.js";
-import { FEATURE_STEPS } from "./geometryScene.js";
+import { DRAWN_STEPS, drawnLadderPlan, type DrawnLadderPlan } from "./drawnLadder.js";
 import { richardson } from "./richardson.js";
 import type { TransformSpec } from "../field/transformSpec.js";
 import type { FdfdGrid } from "./fdfdGrid.js";
 import type { Illumination } from "./illumination.js";
 import { radialCases, radialGeometry, type RadialCaseResult } from "./radialCases.js";
-import { ladderGrids } from "./ladderGrids.js";
 import { resampleNodes } from "./resampleNodes.js";
-import { DEFAULT_ACCURACY, gridFits, MAX_AUTO_UNKNOWNS, verifyDevice, type CaseResult, type CaseSpec, type VerifyInput, type VerifyResult } from "./verifyDevice.js";
+import { DEFAULT_ACCURACY, verifyDevice, type CaseResult, type CaseSpec, type LadderPoint, type VerifyInput, type VerifyResult } from "./verifyDevice.js";
 
 export type MethodOption = "auto" | "fdfd" | "radial";
 export const METHOD_OPTIONS: readonly MethodOption[] = ["auto", "fdfd", "radial"];
@@ -65,9 +65,18 @@ export interface HomogenizationError {
   vsBareDifference: number | null;
   /** beams: delivered power of the drawn structure minus the homogenized map's, finest grid */
   deliveredPowerDifference: number | null;
-  /** the grid step of the coarsest rung and the smallest drawn feature, metres */
+  /** the grid step of the coarsest rung, metres */
   stepM: number;
+  /** points per wavelength in the densest material on each rung */
   resolutions: number[];
+  /** grid step of each rung (coarsest first), metres */
+  stepsM: number[];
+  /** grid steps across the smallest drawn feature on each rung */
+  stepsAcrossFeature: number[];
+  /** the smallest drawn feature, metres */
+  featureM: number;
+  /** σ_geometry/σ_realized on each rung (the ladder the error is extrapolated from) */
+  ratios: number[];
 }
 
 export interface CheckInput extends VerifyInput {
@@ -75,6 +84,8 @@ export interface CheckInput extends VerifyInput {
   transform: TransformSpec;
   /** the option that asks for the grid (--resolution, --margin, --out), if any: auto then takes the grid */
   gridOption?: string | null;
+  /** estimated seconds the drawn case may take (default MAX_DRAWN_SECONDS; 0: not run) */
+  drawnSeconds?: number;
 }
 
 /** Why the radial solver cannot take this run as a whole (null when it can). */
@@ -92,11 +103,19 @@ const RADIAL_WHY = "exact radial solver: the tensors depend on r only and are di
 export function runCheck(input: CheckInput): CheckResult {
   const drawn = input.cases.find((c) => c.scene !== null && c.maxStepM !== undefined);
   if (!drawn) return { ...runMain(input), homogenizationError: null };
+  // the drawn ladder is chosen and costed before anything is solved, and its estimate told first
+  const realizedSpec = input.cases.find((c) => c.name === "realized" && c.scene !== null);
+  const plan = input.drawnSeconds === 0 ? { rungs: [], seconds: 0, marginM: 0, reason: "not run (--drawn-time 0)" }
+    : realizedSpec && input.method !== "radial" ? drawnLadderPlan(input, realizedSpec, drawn, drawn.featureM ?? drawn.maxStepM! * DRAWN_STEPS[0], { seconds: input.drawnSeconds }) : null;
+  if (plan && plan.reason === null && input.onEstimate) {
+    const last = plan.rungs[plan.rungs.length - 1].grid;
+    input.onEstimate(plan.seconds, `realized-geometry: ${2 * plan.rungs.length} solves (the drawn structure and the homogenized map on ${plan.rungs.length} grids, the finest ${last.nx} × ${last.ny} nodes, about ${formatBytes(Math.max(...plan.rungs.map((r) => r.bytes)))} for the solver)`);
+  }
   const main = runMain({ ...input, cases: input.cases.map((c) => (c === drawn ? { name: c.name, scene: null, reason: "solved on its own grid", indexHint: 0 } : c)) });
   const at = main.cases.findIndex((c) => c.name === drawn.name);
-  const { result, error } = geometryRun(input, drawn, main);
+  const { result, error } = geometryRun(input, { ...drawn, featureM: drawn.featureM ?? drawn.maxStepM! * DRAWN_STEPS[0] }, main, plan);
   main.cases[at] = result;
-  if (result.available && error) main.notes.push(`realized-geometry: drawn on its own ladder (${error!.resolutions.join(", ")} points per wavelength, step ${formatLength(error!.stepM)} on the coarsest, at least ${FEATURE_STEPS} steps across the smallest feature), with the realized map solved again on it for the homogenization error`);
+  if (result.available && error) main.notes.push(`realized-geometry: drawn on grids of its own (${error.stepsAcrossFeature.join(", ")} steps across the smallest feature, ${formatLength(error.featureM)}; steps ${error.stepsM.map((h) => formatLength(h)).join(", ")}), with the realized map solved again on each for the homogenization error; σ ratio per grid ${error.ratios.map((r) => r.toFixed(4)).join(", ")}`);
   return { ...main, homogenizationError: error };
 }
 
@@ -105,58 +124,54 @@ const unavailableCase = (name: CaseSpec["name"], reason: string): CheckCase => (
   absorptionWidthM: null, powerBalance: null, fieldErrorVsIdeal: null, deliveredPower: null, deliveredPowerUncertainty: null, deviationDeg: null, bistaticM: null, ladder: [], magnitude: null,
 });
 
-/** The drawn case on its own ladder, beside the homogenized realized map (see file comment). */
-function geometryRun(input: CheckInput, drawn: CaseSpec, main: Omit<CheckResult, "homogenizationError">): { result: CheckCase; error: HomogenizationError | null } {
+/** The drawn case on its own ladder (drawnLadder.ts), beside the homogenized realized map (see file comment). */
+function geometryRun(input: CheckInput, drawn: CaseSpec, main: Omit<CheckResult, "homogenizationError">, plan: DrawnLadderPlan | null): { result: CheckCase; error: HomogenizationError | null } {
   if (input.method === "radial") return { result: unavailableCase(drawn.name, "--method radial: drawn inclusions are not an r-only map; use --method auto or fdfd"), error: null };
   const realizedSpec = input.cases.find((c) => c.name === "realized" && c.scene !== null);
   const realizedMain = main.cases.find((c) => c.name === "realized" && c.available);
-  if (!realizedSpec || !realizedMain) return { result: unavailableCase(drawn.name, "the realized (homogenized) case was not computed, so there is nothing to compare the drawn structure with"), error: null };
-  const gridInput: VerifyInput = { ...input, cases: [realizedSpec, drawn], maxStepM: drawn.maxStepM, pattern: input.pattern };
-  const tooLarge = (scale: number): string | null => {
-    const nb = Math.sqrt(input.background.eps * input.background.mu);
-    const lad = ladderGrids({
-      polarization: input.polarization, background: input.background, frequencyHz: input.frequencyHz, deviceBox: input.deviceBox, groundYM: input.groundYM,
-      resolution: input.resolution, accuracy: input.accuracy ?? DEFAULT_ACCURACY, marginM: input.marginM ?? C0 / (input.frequencyHz * nb) / 2,
-      maxStepM: drawn.maxStepM! * scale, caseIndexHints: [realizedSpec.indexHint, drawn.indexHint],
-    });
-    const g = lad.makeGrid(lad.wanted[0]);
-    const fit = gridFits(g);
-    if (!fit.ok) return `${g.nx} × ${g.ny} nodes, ${fit.over}`;
-    if (g.nx * g.ny > MAX_AUTO_UNKNOWNS) return `${g.nx} × ${g.ny} nodes (about ${formatBytes(solveCost(g).megabytes * 1e6)}), more than the ${(MAX_AUTO_UNKNOWNS / 1e6).toPrecision(2)} million nodes the check solves on its own`;
-    return null;
+  if (!realizedSpec || !realizedMain || !plan) return { result: unavailableCase(drawn.name, "the realized (homogenized) case was not computed, so there is nothing to compare the drawn structure with"), error: null };
+  if (plan.reason !== null) return { result: unavailableCase(drawn.name, plan.reason), error: null };
+  const hom: LadderPoint[] = [], geo: LadderPoint[] = [];
+  let last: VerifyResult | null = null;
+  for (const [k, rung] of plan.rungs.entries()) {
+    let run: VerifyResult;
+    try {
+      run = verifyDevice({
+        ...input, cases: [realizedSpec, drawn], resolution: rung.resolution, maxStepM: drawn.featureM! / rung.stepsAcross, marginM: plan.marginM, onEstimate: undefined,
+        onProgress: input.onProgress && ((step, f) => input.onProgress!(`realized-geometry grid ${k + 1} of ${plan.rungs.length}: ${step}`, f)),
+      });
+    } catch (e) {
+      if (e instanceof InputError) return { result: unavailableCase(drawn.name, `the drawn structure's grid was refused: ${e.issues.map((i) => i.message).join("; ")}`), error: null };
+      throw e;
+    }
+    hom.push(run.cases[0].ladder[0]); geo.push(run.cases[1].ladder[0]);
+    last = run;
+  }
+  const hs = geo.map((p) => p.stepM);
+  const g = last!.cases[1];
+  const why = `finite differences on grids that draw every inclusion (${plan.rungs.map((r) => r.stepsAcross).join(", ")} steps across the smallest feature, ${formatLength(drawn.featureM!)})`;
+  const ladder = geo.map((p) => ({ ...p, vsBare: null }));
+  const magnitude = main.grid && g.magnitude ? resampleNodes(last!.grid, g.magnitude, main.grid) : null;
+  const sx = richardson(hs, geo.map((p) => p.scatteringWidthM));
+  const uncertainty = sx.uncertainty === null ? null : Math.abs(sx.value) > 0 ? sx.uncertainty / Math.abs(sx.value) : 0;
+  const base: CheckCase = {
+    ...g, method: "fdfd", methodReason: why, scatteringWidthM: sx.value, uncertainty, converged: uncertainty === null ? null : uncertainty <= (input.accuracy ?? DEFAULT_ACCURACY),
+    vsBare: null, fieldErrorVsIdeal: null, ladder, magnitude,
   };
-  const over = tooLarge(1);
-  if (over !== null) {
-    let scale = 1;
-    for (let k = 0; k < 80 && tooLarge(scale) !== null; k++) scale *= 1.1;
-    const fits = tooLarge(scale) === null ? `it would fit with every feature about ${scale.toPrecision(2)} times larger (a pitch ${scale.toPrecision(2)} times coarser), a smaller device or a smaller --margin` : "no feature size makes it fit on this machine";
-    return { result: unavailableCase(drawn.name, `drawing the inclusions with ${FEATURE_STEPS} grid steps across the smallest feature (a step of ${formatLength(drawn.maxStepM!)}) needs ${over}; ${fits}`), error: null };
-  }
-  let run: VerifyResult;
-  try {
-    run = verifyDevice(gridInput);
-  } catch (e) {
-    if (e instanceof InputError) return { result: unavailableCase(drawn.name, `the drawn structure's grid was refused: ${e.issues.map((i) => i.message).join("; ")}`), error: null };
-    throw e;
-  }
-  const hom = run.cases.find((c) => c.name === "realized")!;
-  const geo = run.cases.find((c) => c.name === drawn.name)!;
-  const hs = hom.ladder.map((p) => p.stepM);
-  if (hom.ladder.some((p) => !(p.scatteringWidthM > 0))) {
-    return { result: { ...geo, method: "fdfd", methodReason: "finite differences on the drawn structure's grid", vsBare: null, fieldErrorVsIdeal: null, magnitude: main.grid && geo.magnitude ? resampleNodes(run.grid, geo.magnitude, main.grid) : null }, error: null };
-  }
-  const ratio = richardson(hs, geo.ladder.map((p, k) => p.scatteringWidthM / hom.ladder[k].scatteringWidthM));
+  if (hom.some((p) => !(p.scatteringWidthM > 0))) return { result: base, error: null };
+  const ratio = richardson(hs, geo.map((p, k) => p.scatteringWidthM / hom[k].scatteringWidthM));
   const vsBare = realizedMain.vsBare === null ? null : realizedMain.vsBare * ratio.value;
-  const why = `finite differences on a grid fine enough to draw the inclusions (at least ${FEATURE_STEPS} steps across the smallest feature)`;
-  const delivered = geo.deliveredPower !== null && hom.deliveredPower !== null ? geo.deliveredPower - hom.deliveredPower : null;
+  const lastHom = last!.cases[0];
+  const delivered = g.deliveredPower !== null && lastHom.deliveredPower !== null ? g.deliveredPower - lastHom.deliveredPower : null;
   return {
-    // |u| of the drawn case on the main grid, for the field picture (null when the main run had no grid)
-    result: { ...geo, method: "fdfd", methodReason: why, vsBare, fieldErrorVsIdeal: null, ladder: geo.ladder.map((p) => ({ ...p, vsBare: null })), magnitude: main.grid && geo.magnitude ? resampleNodes(run.grid, geo.magnitude, main.grid) : null },
+    result: { ...base, vsBare },
     error: {
       relative: ratio.value - 1, uncertainty: ratio.uncertainty,
       vsBareDifference: vsBare === null ? null : vsBare - realizedMain.vsBare!,
       deliveredPowerDifference: delivered,
-      stepM: hs[0], resolutions: run.resolutions,
+      stepM: hs[0], resolutions: hs.map((h) => Math.round(C0 / (input.frequencyHz * last!.densestIndex * h))),
+      stepsM: hs, stepsAcrossFeature: plan.rungs.map((r) => r.stepsAcross), featureM: drawn.featureM!,
+      ratios: geo.map((p, k) => p.scatteringWidthM / hom[k].scatteringWidthM),
     },
   };
 }

@@ -49,6 +49,8 @@ export interface CaseSpec {
   indexHint: number;
   /** largest grid step this case needs on the coarsest rung (drawn inclusions: smallest feature / 8); runCheck.ts solves such a case on its own ladder */
   maxStepM?: number;
+  /** drawn cases: the smallest drawn feature, metres (drawnLadder.ts sizes the case's own grids from it) */
+  featureM?: number;
 }
 
 export interface VerifyInput {

@@ -52,9 +52,10 @@ describe("verify command", () => {
   });
 
   it("the human table for a Hz design with a realization lists the three cases and the realized-geometry case's reason", async () => {
-    const r = await run([CONCENTRATOR, "--resolution", "10", "--margin", "10 mm"]);
+    const r = await run([CONCENTRATOR, "--resolution", "10", "--margin", "10 mm", "--drawn-time", "0"]);
     expect(r.code, r.err).toBe(0);
     expect(r.out).toMatch(/Hz, scheme non-magnetic/);
+    expect(r.out).toMatch(/^  realized-geometry .*not computed: not run \(--drawn-time 0\)$/m);
     for (const name of ["ideal", "reduced", "realized"]) expect(r.out).toMatch(new RegExp(`^  ${name} `, "m"));
     expect(r.out).not.toMatch(/bare/);
   });

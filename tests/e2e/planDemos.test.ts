@@ -19,6 +19,7 @@ const DEMOS = [
   "demo-designs/plan-printed-bend.json",
   "demo-designs/plan-silicon-chip-bend.json",
   "demo-designs/plan-concentrator-subunity.json",
+  "demo-designs/plan-microwave-rod-lens.json",
 ];
 const EXPLAINS = ["norecipe", "inexact", "capped", "unreachable", "narrowband"];
 

@@ -83,6 +83,8 @@ export function verifySummary(design: string, scheme: string, r: CheckResult, ou
       relative: jn(r.homogenizationError.relative), uncertainty: jn(r.homogenizationError.uncertainty),
       vsBareDifference: jn(r.homogenizationError.vsBareDifference), deliveredPowerDifference: jn(r.homogenizationError.deliveredPowerDifference),
       stepM: r.homogenizationError.stepM, resolutions: r.homogenizationError.resolutions,
+      stepsM: r.homogenizationError.stepsM, stepsAcrossFeature: r.homogenizationError.stepsAcrossFeature,
+      featureM: r.homogenizationError.featureM, ratios: r.homogenizationError.ratios.map((v) => jn(v) ?? 0),
     },
     notes: r.notes,
     warnings,
@@ -144,7 +146,18 @@ function homogenizationLine(r: CheckResult): string[] {
     `  homogenization error of the plan (realized-geometry against realized, same grids): σ_s ${sign(e.relative * 100)} %${pm}` +
       (e.vsBareDifference !== null ? `, σ/σ_bare ${sign(e.vsBareDifference)}` : "") +
       (e.deliveredPowerDifference !== null ? `, delivered ${sign(e.deliveredPowerDifference * 100)} points` : ""),
+    `    its ladder: σ_geometry/σ_realized ${e.ratios.map((v) => v.toFixed(4)).join(", ")} at ${e.stepsAcrossFeature.join(", ")} grid steps across ${formatLength(e.featureM)} (steps ${e.stepsM.map((h) => formatLength(h)).join(", ")})`,
   ];
+}
+
+/** --drawn-time: "300", "90 s", "10 min", "1 h" → seconds (a plain number is seconds); undefined when not given. */
+export function parseDrawnTime(text: string | undefined): number | undefined {
+  if (text === undefined) return undefined;
+  const m = /^\s*(\d+(?:\.\d+)?)\s*(s|min|h)?\s*$/.exec(text);
+  if (!m) throw new InputError({ where: "--drawn-time", message: `expected a time such as '10 min', '90 s' or 0, got '${text}'` });
+  const v = Number(m[1]) * (m[2] === "h" ? 3600 : m[2] === "min" ? 60 : 1);
+  if (!(v <= 86_400)) throw new InputError({ where: "--drawn-time", message: `expected at most a day, got '${text}'` });
+  return v;
 }
 
 /** "2%" or "0.02" → 0.02. */
@@ -171,7 +184,7 @@ export function defaultGroundWaist(deviceWidthM: number, angleRad: number, lambd
 export const command: Command = {
   name: "verify",
   summary: "2D full-wave check: bare, ideal, reduced and realized devices, converged figures with uncertainties",
-  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--scene ground|free] [--margin L] [--method auto|fdfd|radial] [--sweep 'START..STOP:COUNT' [--threshold T]] [--json] [--out DIR]",
+  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--scene ground|free] [--margin L] [--drawn-time T] [--method auto|fdfd|radial] [--sweep 'START..STOP:COUNT' [--threshold T]] [--json] [--out DIR]",
   details: [
     "Solves each case with a frequency-domain finite-difference solver (PML on all sides): the bare",
     "hidden object of a cloak (a perfect conductor), the ideal device (scheme full) and the reduced one",
@@ -193,6 +206,7 @@ export const command: Command = {
     { name: "beam", type: "string", valueName: "W[, D]", description: "Gaussian beam of waist W, its axis offset by D across the beam from the device centre" },
     { name: "scene", type: "string", valueName: "ground|free", description: "carpet designs: on their ground plane, lit by a beam from above (ground, default) or in free space (free)" },
     { name: "margin", type: "string", valueName: "L", description: "free space around the device, e.g. '20 mm' (default half a wavelength)" },
+    { name: "drawn-time", type: "string", valueName: "T", description: "estimated time the drawn realized case (realized-geometry) may take, e.g. '10 min' or '90 s' (default 5 min; 0: not run)" },
     { name: "method", type: "string", valueName: "auto|fdfd|radial", description: "solver: auto (default: radial where the tensors depend on r only, fdfd for the rest), fdfd (finite differences on a grid) or radial (exact, per angular order; cloaks and concentrators, plane waves)" },
     { name: "sweep", type: "string", valueName: "A..B:N", description: "solve every case at N frequencies from A to B on the grid, e.g. '8 GHz..10 GHz:21' (dispersive recipes re-evaluated at each)" },
     { name: "threshold", type: "string", valueName: "T", description: "with --sweep: the band is where the realized figure stays within T× the reduced design's at the centre (default 2)" },
@@ -224,6 +238,7 @@ export const command: Command = {
     const angleText = stringOption(args, "angle");
     const angleDeg = angleText === undefined ? 0 : Number(angleText);
     if (!Number.isFinite(angleDeg)) throw new InputError({ where: "--angle", message: `expected an angle in degrees, got '${angleText}'` });
+    const drawnSeconds = parseDrawnTime(stringOption(args, "drawn-time"));
     const marginText = stringOption(args, "margin");
     const marginM = marginText === undefined ? undefined : await parseQuantity(marginText, "length", "--margin");
     const sceneKind = stringOption(args, "scene");
@@ -299,6 +314,7 @@ export const command: Command = {
       accuracy,
       marginM,
       pattern: built.radial,
+      drawnSeconds,
       onEstimate: (seconds, what) => {
         const w = expectedTimeWarning(seconds, what);
         if (w !== null) { warnings.push(w); io.stderr(`warning: ${w}\n`); }
