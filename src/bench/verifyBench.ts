@@ -2,7 +2,8 @@
  * `npm run bench`: the time of one full `cellwright verify` of each 2D demo at the default accuracy
  * (the grid ladder, every case, extrapolation), run in-process through the command line, median of
  * three runs, with the method (the default auto: radial or grid), the rungs used and the figures'
- * convergence. Nothing here decides pass or fail.
+ * convergence, and the drawn case's homogenization error where it ran (the default --drawn-time).
+ * Nothing here decides pass or fail.
  */
 import { readdirSync } from "node:fs";
 import { join } from "node:path";
@@ -26,7 +27,9 @@ export async function verifyBench(log: (line: string) => void): Promise<void> {
       try {
         const s = JSON.parse(io.out());
         const grid = s.grid ? `, rungs ${s.resolutions.join("/")}, finest ${s.grid.nx}×${s.grid.ny}` : "";
-        summary = `exit ${code}, method ${s.method}${grid}, converged ${s.converged}`;
+        const h = s.homogenizationError;
+        const drawn = h ? `, homogenization error ${(100 * h.relative).toFixed(1)} %${h.uncertainty === null ? "" : ` ± ${(100 * h.uncertainty).toFixed(1)} %`} (drawn grids ${h.stepsAcrossFeature.join("/")} steps across ${h.featureM} m)` : "";
+        summary = `exit ${code}, method ${s.method}${grid}, converged ${s.converged}${drawn}`;
       } catch {
         summary = `exit ${code}: ${io.err().split("\n").filter(Boolean).pop()}`;
         break;

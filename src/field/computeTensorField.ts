@@ -38,13 +38,26 @@ export function pointEvaluator(transform: Transform, epsB: number, muB: number):
   };
 }
 
+/** The per-cell arrays a plan does not read (det J, principal values, anisotropy ratios). */
+type Derived = Pick<TensorField, "detJ" | "epsPrincipal" | "muPrincipal" | "epsAnisotropy" | "muAnisotropy">;
+
+export interface FieldOptions {
+  /**
+   * "eager" (default): det J, principal values and anisotropy ratios are computed with the
+   * tensors. "lazy": on first read of any of them, by a second pass of the same arithmetic (same
+   * values); a plan never reads them, so it never pays their five fresh 8-byte-per-cell arrays.
+   */
+  derived?: "eager" | "lazy";
+}
+
 /**
  * Compute the tensor field of a design. For `imported` designs pass the field read by
  * io/fieldCsv.ts (it is returned as is). With a `budget`, a grid whose estimated memory exceeds
- * it is refused at $.grid.pitch before the per-cell arrays are allocated. Throws InputError (where = "<file>: $.transform…") for
+ * it is refused at $.grid.pitch before the per-cell arrays are allocated. `options.derived`: see
+ * FieldOptions. Throws InputError (where = "<file>: $.transform…") for
  * folding or undefined maps, and for grids with no cell inside the device.
  */
-export function computeTensorField(design: FieldDesign, importedField?: TensorField, budget?: CellBudget): TensorField {
+export function computeTensorField(design: FieldDesign, importedField?: TensorField, budget?: CellBudget, options: FieldOptions = {}): TensorField {
   const spec = design.transform;
   if (spec.kind === "imported") {
     if (!importedField) throw new ProgrammerError("imported designs need their field: use loadFieldForDesign");
@@ -89,27 +102,24 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   const planar = transform.dimension === 2;
   const eps = planar ? allocPlanarSymField(n) : allocSymField(n);
   const mu = sameMaterial ? eps : planar ? allocPlanarSymField(n) : allocSymField(n);
-  const detJ = new Float64Array(n);
-  const epsPrincipal: [Float64Array, Float64Array, Float64Array] = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
-  const muPrincipal: [Float64Array, Float64Array, Float64Array] = sameMaterial ? epsPrincipal : [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
-  const epsAnisotropy = new Float64Array(n), muAnisotropy = sameMaterial ? epsAnisotropy : new Float64Array(n);
   const capped = new Uint8Array(n);
   const cap = spec.cap ?? null;
   const offset = "innerOffsetM" in spec && spec.innerOffsetM !== undefined && spec.innerOffsetM > 0 && transform.clampToInnerOffset
     ? spec.innerOffsetM : 0;
 
-  const k = new Float64Array(9), s = new Float64Array(6), te = new Float64Array(6), tm = new Float64Array(6);
+  const k = new Float64Array(9), te = new Float64Array(6), tm = new Float64Array(6), s = new Float64Array(6);
   const ve = new Float64Array(3), vm = new Float64Array(3), pt = new Float64Array(3);
-  const bad: BadCell[] = [];
-  let badCount = 0, overflowCount = 0, firstOverflow = -1;
+  /** det K and the capped/offset flag of the cell last evaluated */
+  const state = new Float64Array(2);
   const { xM, yM, zM } = grid;
   // a 2D grid's z is 0 in every cell: not read, so its (never written) pages stay untouched
   const volume = grid.dimension === 3;
-  // hoisted array references: the hot loop touches only locals
-  const { xx: exx, yy: eyy, zz: ezz, xy: exy, xz: exz, yz: eyz } = eps;
-  const { xx: mxx, yy: myy, zz: mzz, xy: mxy, xz: mxz, yz: myz } = mu;
-  const [ep0, ep1, ep2] = epsPrincipal, [mp0, mp1, mp2] = muPrincipal;
-  for (let c = 0; c < n; c++) {
+  /**
+   * One cell into te, tm (tensors), ve, vm (principal values) and state; returns 0, or 1 for a
+   * folding or undefined map (det K ≤ 0 or not finite), 2 for values beyond the double range.
+   * The same arithmetic for both passes below, so the derived arrays match the tensors exactly.
+   */
+  const evaluate = (c: number): number => {
     let x = xM[c], y = yM[c], z = volume ? zM[c] : 0;
     let flagged = 0;
     if (offset > 0) {
@@ -118,12 +128,8 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     }
     transform.jacobianK(k, x, y, z);
     const det = materialFromK(s, k);
-    if (!(det > 0) || det === Infinity) {
-      if (bad.length < LISTED) bad.push({ cell: c, detK: det });
-      badCount++;
-      continue;
-    }
-    detJ[c] = 1 / det;
+    state[0] = det;
+    if (!(det > 0) || det === Infinity) return 1;
     for (let q = 0; q < 6; q++) { te[q] = epsB * s[q]; tm[q] = muB * s[q]; }
     if (k[2] === 0 && k[5] === 0 && k[6] === 0 && k[7] === 0) {
       // z decouples: the in-plane pair has det = (ε_b K_zz)² exactly, so the smaller value is
@@ -131,35 +137,48 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
       const mean = 0.5 * (te[0] + te[1]), d = 0.5 * (te[0] - te[1]);
       const big = mean + Math.sqrt(d * d + te[3] * te[3]);
       const small = (epsB * k[8]) * (epsB * k[8]) / big;
-      const z = te[2];
-      if (z <= small) { ve[0] = z; ve[1] = small; ve[2] = big; }
-      else if (z <= big) { ve[0] = small; ve[1] = z; ve[2] = big; }
-      else { ve[0] = small; ve[1] = big; ve[2] = z; }
+      const zz = te[2];
+      if (zz <= small) { ve[0] = zz; ve[1] = small; ve[2] = big; }
+      else if (zz <= big) { ve[0] = small; ve[1] = zz; ve[2] = big; }
+      else { ve[0] = small; ve[1] = big; ve[2] = zz; }
     } else {
       principal3(ve, te);
     }
-    if (!(ve[2] < Infinity && ve[0] > -Infinity)) {
-      // a component beyond the double range (e.g. a shift of 1e300 m): no material to report
-      if (firstOverflow < 0) firstOverflow = c;
-      overflowCount++;
-      continue;
-    }
+    // a component beyond the double range (e.g. a shift of 1e300 m): no material to report
+    if (!(ve[2] < Infinity && ve[0] > -Infinity)) return 2;
     vm[0] = ratio * ve[0]; vm[1] = ratio * ve[1]; vm[2] = ratio * ve[2];
     if (cap !== null) {
       if (capPrincipal(te, ve, cap)) flagged = 1;
       if (capPrincipal(tm, vm, cap)) flagged = 1;
     }
+    state[1] = flagged;
+    return 0;
+  };
+
+  const bad: BadCell[] = [];
+  let badCount = 0, overflowCount = 0, firstOverflow = -1;
+  // hoisted array references: the hot loop touches only locals
+  const { xx: exx, yy: eyy, zz: ezz, xy: exy, xz: exz, yz: eyz } = eps;
+  const { xx: mxx, yy: myy, zz: mzz, xy: mxy, xz: mxz, yz: myz } = mu;
+  for (let c = 0; c < n; c++) {
+    const status = evaluate(c);
+    if (status === 1) {
+      if (bad.length < LISTED) bad.push({ cell: c, detK: state[0] });
+      badCount++;
+      continue;
+    }
+    if (status === 2) {
+      if (firstOverflow < 0) firstOverflow = c;
+      overflowCount++;
+      continue;
+    }
     exx[c] = te[0]; eyy[c] = te[1]; ezz[c] = te[2]; exy[c] = te[3];
     if (!planar) { exz[c] = te[4]; eyz[c] = te[5]; }
-    ep0[c] = ve[0]; ep1[c] = ve[1]; ep2[c] = ve[2];
-    epsAnisotropy[c] = ve[2] / ve[0];
     if (!sameMaterial) {
       mxx[c] = tm[0]; myy[c] = tm[1]; mzz[c] = tm[2]; mxy[c] = tm[3];
       if (!planar) { mxz[c] = tm[4]; myz[c] = tm[5]; }
-      mp0[c] = vm[0]; mp1[c] = vm[1]; mp2[c] = vm[2];
-      muAnisotropy[c] = vm[2] / vm[0];
     }
-    capped[c] = flagged;
+    if (state[1] !== 0) capped[c] = 1;
   }
   if (badCount > 0) {
     const where = spec.kind === "expression" ? `${file}: $.transform.virtual` : `${file}: $.transform`;
@@ -174,12 +193,38 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
       message: `the material overflows the number range in ${overflowCount} cell${overflowCount === 1 ? "" : "s"} (first at x = ${xM[c]} m, y = ${yM[c]} m); expected transform parameters of a buildable scale`,
     });
   }
+
+  /** det J, principal values and anisotropy ratios of every cell (a second pass when lazy). */
+  const derive = (): Derived => {
+    const detJ = new Float64Array(n);
+    const epsPrincipal: [Float64Array, Float64Array, Float64Array] = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
+    const muPrincipal: [Float64Array, Float64Array, Float64Array] = sameMaterial ? epsPrincipal : [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
+    const epsAnisotropy = new Float64Array(n), muAnisotropy = sameMaterial ? epsAnisotropy : new Float64Array(n);
+    const [ep0, ep1, ep2] = epsPrincipal, [mp0, mp1, mp2] = muPrincipal;
+    for (let c = 0; c < n; c++) {
+      evaluate(c); // 0 for every cell: the first pass threw otherwise
+      detJ[c] = 1 / state[0];
+      ep0[c] = ve[0]; ep1[c] = ve[1]; ep2[c] = ve[2];
+      epsAnisotropy[c] = ve[2] / ve[0];
+      if (!sameMaterial) {
+        mp0[c] = vm[0]; mp1[c] = vm[1]; mp2[c] = vm[2];
+        muAnisotropy[c] = vm[2] / vm[0];
+      }
+    }
+    return { detJ, epsPrincipal, muPrincipal, epsAnisotropy, muAnisotropy };
+  };
+  let derived: Derived | null = options.derived === "lazy" ? null : derive();
+  const get = (): Derived => (derived ??= derive());
   return {
     source: spec.kind,
     grid,
     background: { eps: epsB, mu: muB },
-    eps, mu, detJ,
-    epsPrincipal, muPrincipal, epsAnisotropy, muAnisotropy,
+    eps, mu,
+    get detJ() { return get().detJ; },
+    get epsPrincipal() { return get().epsPrincipal; },
+    get muPrincipal() { return get().muPrincipal; },
+    get epsAnisotropy() { return get().epsAnisotropy; },
+    get muAnisotropy() { return get().muAnisotropy; },
     capped,
     capValue: cap,
     outerBoundary: transform.sampleOuterBoundary(BOUNDARY_SAMPLES),

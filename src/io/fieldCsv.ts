@@ -208,7 +208,8 @@ function displayPath(file: string): string {
  */
 export async function loadFieldForDesign(design: FieldDesign, purpose: MemoryPurpose = "plan"): Promise<TensorField> {
   const budget = memoryBudget(purpose);
-  if (design.transform.kind !== "imported") return computeTensorField(design, undefined, budget);
+  // a plan never reads det J, the principal values or the anisotropy ratios: made only if read
+  if (design.transform.kind !== "imported") return computeTensorField(design, undefined, budget, { derived: purpose === "plan" ? "lazy" : "eager" });
   // a missing or unreadable file is the user's mistake, named at the design key that points to it
   try {
     const st = await stat(design.transform.file);

@@ -22,7 +22,7 @@ export function searchRemedies(
     let f = field;
     if (change.pitchM !== null) {
       if (design.transform.kind === "imported") return null; // an imported field keeps its own grid
-      f = computeTensorField({ ...design, grid: { ...design.grid, pitchM: change.pitchM } });
+      f = computeTensorField({ ...design, grid: { ...design.grid, pitchM: change.pitchM } }, undefined, undefined, { derived: "lazy" });
     }
     return planFromField(design, f, catalogs, { ...overrides, ...change.overrides });
   }, () => Date.now() - start > budgetMs);

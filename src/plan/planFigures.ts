@@ -20,13 +20,25 @@ export interface LossPath {
  * longest). `indexIm` holds Im n per cell.
  */
 export function worstStraightPath(grid: DeviceGrid, indexIm: Float64Array, k0: number): LossPath {
+  return worstPath(grid, (c) => indexIm[c], k0);
+}
+
+/**
+ * `worstStraightPath` where Im n is one value per level (`levelIndexIm[level[c]]`, 0 for cells
+ * without a level): the same sums, without a per-cell array of them.
+ */
+export function worstStraightPathByLevel(grid: DeviceGrid, level: Int32Array, levelIndexIm: ArrayLike<number>, k0: number): LossPath {
+  return worstPath(grid, (c) => { const l = level[c]; return l >= 0 ? levelIndexIm[l] : 0; }, k0);
+}
+
+function worstPath(grid: DeviceGrid, imOf: (cell: number) => number, k0: number): LossPath {
   const { nx, ny, nz } = grid;
   const rows = new Float64Array(ny * nz), rowN = new Int32Array(ny * nz);
   const cols = new Float64Array(nx * nz), colN = new Int32Array(nx * nz);
   const zl = new Float64Array(grid.dimension === 3 ? nx * ny : 0), zN = new Int32Array(zl.length);
   for (let c = 0; c < grid.count; c++) {
     const i = grid.i[c], j = grid.j[c], k = grid.k[c];
-    const v = indexIm[c];
+    const v = imOf(c);
     rows[k * ny + j] += v; rowN[k * ny + j]++;
     cols[k * nx + i] += v; colN[k * nx + i]++;
     if (zl.length) { zl[j * nx + i] += v; zN[j * nx + i]++; }
@@ -45,19 +57,53 @@ export function worstStraightPath(grid: DeviceGrid, indexIm: Float64Array, k0: n
   return best;
 }
 
-/** Median of the finite entries (NaN when none). */
+/** Below this many finite entries the median copies them; above, it selects within histogram buckets. */
+const MEDIAN_COPY_LIMIT = 1 << 14;
+const LITTLE_ENDIAN = new Uint8Array(Uint32Array.of(1).buffer)[0] === 1;
+
+/**
+ * Median of the finite entries (NaN when none); the mean of the two middle ones for an even
+ * count. Large arrays are not copied: a first pass counts entries per bucket of the top 16 bits
+ * of an order-preserving key of their bit pattern, and only the bucket(s) holding the middle
+ * ranks are copied and searched (selectKth), so 10⁶ errors cost a few hundred kB, not 8 MB.
+ */
 export function finiteMedian(values: Float64Array): number {
   let n = 0;
   for (let c = 0; c < values.length; c++) if (Number.isFinite(values[c])) n++;
   if (n === 0) return NaN;
-  const a = new Float64Array(n);
-  n = 0;
-  for (let c = 0; c < values.length; c++) if (Number.isFinite(values[c])) a[n++] = values[c];
-  if (n % 2) return selectKth(a, (n - 1) >> 1);
-  // even count: the upper middle, then the largest entry below it (all now left of it)
-  const upper = selectKth(a, n / 2);
-  let lower = a[0];
-  for (let c = 1; c < n / 2; c++) if (a[c] > lower) lower = a[c];
+  const kLo = (n - 1) >> 1, kHi = n >> 1;
+  let a: Float64Array, base = 0;
+  if (n < MEDIAN_COPY_LIMIT || !LITTLE_ENDIAN || values.byteOffset % 4 !== 0) {
+    a = new Float64Array(n);
+    let m = 0;
+    for (let c = 0; c < values.length; c++) if (Number.isFinite(values[c])) a[m++] = values[c];
+  } else {
+    const words = new Uint32Array(values.buffer, values.byteOffset, 2 * values.length);
+    // the high word, sign bit set (positives) or every bit flipped (negatives): grows with the value
+    const bucket = (c: number): number => {
+      const hi = words[2 * c + 1];
+      return (hi & 0x80000000 ? ~hi : hi | 0x80000000) >>> 16;
+    };
+    const counts = new Int32Array(1 << 16);
+    for (let c = 0; c < values.length; c++) if (Number.isFinite(values[c])) counts[bucket(c)]++;
+    let bLo = 0, seen = 0;
+    while (seen + counts[bLo] <= kLo) seen += counts[bLo++];
+    base = seen;
+    let bHi = bLo, through = seen + counts[bLo];
+    while (through <= kHi) through += counts[++bHi];
+    a = new Float64Array(through - base);
+    let m = 0;
+    for (let c = 0; c < values.length; c++) {
+      if (!Number.isFinite(values[c])) continue;
+      const b = bucket(c);
+      if (b >= bLo && b <= bHi) a[m++] = values[c];
+    }
+  }
+  const lower = selectKth(a, kLo - base);
+  if (kHi === kLo) return lower;
+  // even count: the smallest entry above the lower middle (all now right of it)
+  let upper = a[kLo - base + 1];
+  for (let c = kLo - base + 2; c < a.length; c++) if (a[c] < upper) upper = a[c];
   return 0.5 * (lower + upper);
 }
 

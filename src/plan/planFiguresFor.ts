@@ -5,7 +5,7 @@ import type { ReducedField } from "../reduce/reducedField.js";
 import { countFlags, FLAGS } from "./flags.js";
 import type { EvaluatedMaterial } from "./match/matchContext.js";
 import { VACUUM_ID } from "./match/solidCandidates.js";
-import { billOfMaterials, finiteMedian, worstStraightPath } from "./planFigures.js";
+import { billOfMaterials, finiteMedian, worstStraightPathByLevel } from "./planFigures.js";
 import { deviceHeight } from "./deviceHeight.js";
 import type { DeviceFigures, PlanLevel, PlanSettings } from "./planTypes.js";
 
@@ -29,16 +29,14 @@ export function planFiguresFor(inp: FiguresInput): DeviceFigures {
   const { grid, level, levels, flags, relError, settings } = inp;
   const n = grid.count;
   const levelIm = levels.map((lv) => lv.recipe?.indexIm ?? 0);
-  const im = new Float64Array(n);
   let maxErr = NaN, maxAniso = 1;
   for (let c = 0; c < n; c++) {
-    if (level[c] >= 0) im[c] = levelIm[level[c]];
     const e = relError[c];
     if (Number.isFinite(e) && !(e <= maxErr)) maxErr = e;
     const a = inp.reduced.anisotropy[c];
     if (Number.isFinite(a) && a > maxAniso) maxAniso = a;
   }
-  const path = worstStraightPath(grid, im, inp.k0);
+  const path = worstStraightPathByLevel(grid, level, levelIm, inp.k0);
   // regions where each flag occurs
   const seen = FLAGS.map(() => new Uint8Array(inp.regionCount));
   for (let c = 0; c < n; c++) {

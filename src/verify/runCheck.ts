@@ -138,7 +138,7 @@ function geometryRun(input: CheckInput, drawn: CaseSpec, main: Omit<CheckResult,
     try {
       run = verifyDevice({
         ...input, cases: [realizedSpec, drawn], resolution: rung.resolution, maxStepM: drawn.featureM! / rung.stepsAcross, marginM: plan.marginM, onEstimate: undefined,
-        onProgress: input.onProgress && ((step, f) => input.onProgress!(`realized-geometry grid ${k + 1} of ${plan.rungs.length}: ${step}`, f)),
+        onProgress: input.onProgress && ((step, f) => input.onProgress!(`realized-geometry grid ${k + 1} of ${plan.rungs.length}: ${step}`, (k + f) / plan.rungs.length)),
       });
     } catch (e) {
       if (e instanceof InputError) return { result: unavailableCase(drawn.name, `the drawn structure's grid was refused: ${e.issues.map((i) => i.message).join("; ")}`), error: null };

@@ -32,4 +32,30 @@ describe("selectKth", () => {
       { seed: 6, numRuns: 3000 },
     );
   });
+  it("median of large arrays (bucketed, no copy) equals the sorted definition, any sign, ties and gaps (property)", () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 17000, max: 40000 }), fc.integer({ min: 0, max: 2 ** 30 }), fc.constantFrom("spread", "narrow", "ties", "signs"),
+        (n, seed, kind) => {
+          let s = seed;
+          const rnd = (): number => ((s = (s * 1103515245 + 12345) % 2147483648) / 2147483648);
+          const xs = new Float64Array(n);
+          for (let c = 0; c < n; c++) {
+            const u = rnd();
+            xs[c] = kind === "spread" ? 10 ** (12 * u - 9)
+              : kind === "narrow" ? 0.0042 + 1e-9 * u // one bucket holds them all
+              : kind === "ties" ? Math.floor(u * 5) * 0.001
+              : (u - 0.5) * 10 ** Math.floor(rnd() * 6 - 3);
+            if (rnd() < 0.01) xs[c] = [NaN, Infinity, -Infinity][c % 3];
+          }
+          const f = Array.from(xs).filter(Number.isFinite).sort((p, q) => p - q);
+          const want = f.length % 2 ? f[(f.length - 1) >> 1] : 0.5 * (f[f.length / 2 - 1] + f[f.length / 2]);
+          const copy = xs.slice();
+          expect(finiteMedian(xs)).toBe(want);
+          expect(xs).toEqual(copy); // the input is left as it was
+        },
+      ),
+      { seed: 8, numRuns: 60 },
+    );
+  });
 });

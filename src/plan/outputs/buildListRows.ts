@@ -61,125 +61,57 @@ function levelTexts(plan: Plan): { achieved: string[]; recipe: string[] } {
 /** Bytes per emitted chunk of the build list (rows are never split between chunks). */
 export const BUILD_LIST_CHUNK_BYTES = 1 << 20;
 
-/**
- * ASCII text into a byte buffer without building strings: a 10⁶-row build list made by string
- * concatenation spends most of its time flattening and encoding ropes (and in the garbage
- * collector). Characters above 127 (never in ids or numbers, possible in a custom catalog) are
- * UTF-8 encoded.
- */
-class RowBytes {
-  buf: Uint8Array = new Uint8Array(BUILD_LIST_CHUNK_BYTES + 65536);
-  at = 0;
-  private encoder: InstanceType<typeof TextEncoder> | null = null;
+const COMMA = 44, NEWLINE = 10, DIGIT_0 = 48;
 
-  text(s: string): void {
-    const n = s.length;
-    if (this.at + 3 * n > this.buf.length) this.grow(3 * n);
-    const buf = this.buf;
-    let at = this.at;
-    for (let k = 0; k < n; k++) {
-      const ch = s.charCodeAt(k);
-      if (ch > 127) {
-        this.at = at;
-        this.encoder ??= new TextEncoder();
-        this.at += this.encoder.encodeInto(s.slice(k), buf.subarray(at)).written;
-        return;
-      }
-      buf[at++] = ch;
-    }
-    this.at = at;
+/** A non-negative integer in decimal at `at`; returns the position after it. */
+function putInt(buf: Uint8Array, at: number, v: number): number {
+  if (v < 10) { buf[at] = DIGIT_0 + v; return at + 1; }
+  if (v > 0x7fffffff) return putAscii(buf, at, String(v));
+  const end = at + (v < 100 ? 2 : v < 1e3 ? 3 : v < 1e4 ? 4 : v < 1e5 ? 5 : v < 1e6 ? 6 : v < 1e7 ? 7 : v < 1e8 ? 8 : v < 1e9 ? 9 : 10);
+  let p = end;
+  for (let t = v | 0; t > 0;) {
+    const q = (t / 10) | 0;
+    buf[--p] = DIGIT_0 + t - q * 10;
+    t = q;
   }
-
-  /** A non-negative integer in decimal. */
-  int(v: number): void {
-    if (this.at + 16 > this.buf.length) this.grow(16);
-    const buf = this.buf;
-    if (v < 10) {
-      buf[this.at++] = 48 + v;
-      return;
-    }
-    if (v > 0x7fffffff) {
-      this.text(String(v));
-      return;
-    }
-    let at = this.at + (v < 100 ? 2 : v < 1e3 ? 3 : v < 1e4 ? 4 : v < 1e5 ? 5 : v < 1e6 ? 6 : v < 1e7 ? 7 : v < 1e8 ? 8 : v < 1e9 ? 9 : 10);
-    this.at = at;
-    for (let t = v | 0; t > 0; ) {
-      const q = (t / 10) | 0;
-      buf[--at] = 48 + t - q * 10;
-      t = q;
-    }
-  }
-
-  /** Bytes made once (per-level and per-index texts). */
-  bytes(b: Uint8Array): void {
-    const n = b.length;
-    if (this.at + n > this.buf.length) this.grow(n);
-    const buf = this.buf;
-    let at = this.at;
-    for (let k = 0; k < n; k++) buf[at++] = b[k];
-    this.at = at;
-  }
-
-  /** `fmt(x, digits)` without making a string (decimalBytes.ts; `fmt` where it cannot promise the same bytes). */
-  num(x: number, digits: number): void {
-    if (this.at + 32 > this.buf.length) this.grow(32);
-    if (x === 0) { this.buf[this.at++] = 48; return; }
-    if (!Number.isFinite(x)) return;
-    const end = writeDecimal(this.buf, this.at, x, digits);
-    if (end >= 0) this.at = end;
-    else this.text(fmt(x, digits));
-  }
-
-  byte(b: number): void {
-    if (this.at + 1 > this.buf.length) this.grow(1);
-    this.buf[this.at++] = b;
-  }
-
-  private grow(extra: number): void {
-    const next = new Uint8Array(Math.max(2 * this.buf.length, this.at + extra));
-    next.set(this.buf.subarray(0, this.at));
-    this.buf = next;
-  }
-
-  /**
-   * The bytes so far, then empty, writing on into the other of two buffers: the caller may hold
-   * the returned view until its emit promise settles (while the next chunk is made), and the
-   * buffers are reused instead of touching fresh memory for every chunk.
-   */
-  take(): Uint8Array {
-    const out = this.buf.subarray(0, this.at);
-    const other = this.spare;
-    this.spare = this.buf;
-    this.buf = other ?? new Uint8Array(this.spare.length);
-    this.at = 0;
-    return out;
-  }
-
-  private spare: Uint8Array | null = null;
+  return end;
 }
 
-const COMMA = 44, NEWLINE = 10;
+/** ASCII text (numbers) at `at`; returns the position after it. */
+function putAscii(buf: Uint8Array, at: number, t: string): number {
+  for (let k = 0; k < t.length; k++) buf[at++] = t.charCodeAt(k);
+  return at;
+}
+
+/** Bytes made once (per-level and per-index texts) at `at`; returns the position after them. */
+function putBytes(buf: Uint8Array, at: number, b: Uint8Array): number {
+  for (let k = 0; k < b.length; k++) buf[at++] = b[k];
+  return at;
+}
+
+/** `fmt(x, digits)` at `at` without making a string (decimalBytes.ts; `fmt` where it cannot promise the same bytes). */
+function putNumber(buf: Uint8Array, at: number, x: number, digits: number): number {
+  if (x === 0) { buf[at] = DIGIT_0; return at + 1; }
+  if (!Number.isFinite(x)) return at;
+  const end = writeDecimal(buf, at, x, digits);
+  return end >= 0 ? end : putAscii(buf, at, fmt(x, digits));
+}
+
+/** Most bytes one number takes (fmt's longest: "-1.23457e-100" and then some). */
+const NUMBER_BYTES = 24;
 
 /**
  * Calls `emit` with successive chunks of the build list as UTF-8 bytes (whole rows, about
  * `BUILD_LIST_CHUNK_BYTES` each, the header first). A chunk's bytes stay valid until the promise
  * `emit` returned for it settles (it should settle once the bytes are written); the next chunk is
- * made meanwhile, and the one after waits for it (back-pressure).
+ * made meanwhile in a second buffer, and the one after waits for it (back-pressure). Rows are
+ * written straight into the buffer — no string per row or per number: a 10⁶-row list made by
+ * string concatenation spends most of its time flattening and encoding ropes and collecting them.
  */
 export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Promise<void> | void): Promise<void> {
   const g = plan.grid;
   const three = g.dimension === 3;
-  const out = new RowBytes();
-  let inFlight: Promise<void> | undefined;
-  const flush = async (): Promise<void> => {
-    const sent = Promise.resolve(emit(out.take()));
-    sent.catch(() => undefined); // a failure is thrown where it is awaited, below or at the end
-    await inFlight; // the buffer now being filled was the one of the chunk before
-    inFlight = sent;
-  };
-  out.text(`${buildListHeader(plan)}\n`);
-  // texts that depend on one lattice index or one level each: made once, as bytes
+  // texts that depend on one lattice index or one level each: made once, as UTF-8 bytes
   const encoder = new TextEncoder();
   const enc = (t: string): Uint8Array => encoder.encode(t);
   const perM = designUnit(plan.design.wavelengthM).perM;
@@ -193,37 +125,61 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
   // family, host, inclusion, lattice, orientation, fill_fraction, dimensions…, loss_tangent
   const noRecipe = enc(",".repeat(6 + dimensionColumns(plan).length + 1));
   const flagBytes = new Map<number, Uint8Array>();
+  const longest = (list: Uint8Array[]): number => list.reduce((a, b) => Math.max(a, b.length), 0);
+  // the most one row can take: the buffer keeps that much room past a chunk
+  const rowBytes = 4 * 11 + 10 + longest(xs) + longest(ys) + longest(zs) + (m + 4) * (NUMBER_BYTES + 1) +
+    longest([...achieved, noAchieved]) + longest([...recipe, noRecipe]) + enc(flagList(0xffff)).length + 2;
+  const size = BUILD_LIST_CHUNK_BYTES + Math.max(65536, rowBytes);
+  // two buffers in turn: the caller may hold one until its emit promise settles
+  let buf: Uint8Array = new Uint8Array(size);
+  let spare: Uint8Array | null = null;
+  let at = 0;
+  let inFlight: Promise<void> | undefined;
+  const flush = async (): Promise<void> => {
+    const sent = Promise.resolve(emit(buf.subarray(0, at)));
+    sent.catch(() => undefined); // a failure is thrown where it is awaited, below or at the end
+    const next: Uint8Array = spare ?? new Uint8Array(size);
+    spare = buf;
+    buf = next;
+    at = 0;
+    await inFlight; // the buffer now being filled was the one of the chunk before
+    inFlight = sent;
+  };
+  const header = enc(`${buildListHeader(plan)}\n`);
+  if (header.length > buf.length) buf = new Uint8Array(header.length);
+  at = putBytes(buf, at, header);
+  if (at >= BUILD_LIST_CHUNK_BYTES) await flush();
   const degPerRad = 180 / Math.PI;
-  const { targets, axisAngleRad, region, relError, quantizationError, zeroTargetAbsError, flags } = plan;
+  const { targets, axisAngleRad, region, relError, quantizationError, zeroTargetAbsError, flags, level } = plan;
+  const gi = g.i, gj = g.j, gk = g.k;
   for (let c = 0; c < g.count; c++) {
-    const lv = plan.level[c];
-    const gi = g.i[c], gj = g.j[c];
-    out.int(c + 1); out.byte(COMMA);
-    out.int(gi); out.byte(COMMA);
-    out.int(gj); out.byte(COMMA);
-    if (three) { out.int(g.k[c]); out.byte(COMMA); }
-    out.bytes(xs[gi]);
-    out.bytes(ys[gj]);
-    if (three) out.bytes(zs[g.k[c]]);
-    out.num(axisAngleRad[c] * degPerRad, 4); out.byte(COMMA);
-    out.int(region[c] + 1); out.byte(COMMA);
-    if (lv >= 0) out.int(lv + 1);
-    for (let k = 0; k < m; k++) { out.byte(COMMA); out.num(targets[k][c], 6); }
-    out.bytes(lv >= 0 ? achieved[lv] : noAchieved);
-    out.byte(COMMA); out.num(relError[c], 4);
-    out.byte(COMMA); out.num(quantizationError[c], 4);
-    out.byte(COMMA); out.num(zeroTargetAbsError[c], 4);
-    out.bytes(lv >= 0 ? recipe[lv] : noRecipe);
-    out.byte(COMMA);
+    const lv = level[c];
+    at = putInt(buf, at, c + 1); buf[at++] = COMMA;
+    at = putInt(buf, at, gi[c]); buf[at++] = COMMA;
+    at = putInt(buf, at, gj[c]); buf[at++] = COMMA;
+    if (three) { at = putInt(buf, at, gk[c]); buf[at++] = COMMA; }
+    at = putBytes(buf, at, xs[gi[c]]);
+    at = putBytes(buf, at, ys[gj[c]]);
+    if (three) at = putBytes(buf, at, zs[gk[c]]);
+    at = putNumber(buf, at, axisAngleRad[c] * degPerRad, 4); buf[at++] = COMMA;
+    at = putInt(buf, at, region[c] + 1); buf[at++] = COMMA;
+    if (lv >= 0) at = putInt(buf, at, lv + 1);
+    for (let k = 0; k < m; k++) { buf[at++] = COMMA; at = putNumber(buf, at, targets[k][c], 6); }
+    at = putBytes(buf, at, lv >= 0 ? achieved[lv] : noAchieved);
+    buf[at++] = COMMA; at = putNumber(buf, at, relError[c], 4);
+    buf[at++] = COMMA; at = putNumber(buf, at, quantizationError[c], 4);
+    buf[at++] = COMMA; at = putNumber(buf, at, zeroTargetAbsError[c], 4);
+    at = putBytes(buf, at, lv >= 0 ? recipe[lv] : noRecipe);
+    buf[at++] = COMMA;
     const f = flags[c];
     if (f !== 0) {
       let t = flagBytes.get(f);
       if (t === undefined) { t = enc(flagList(f)); flagBytes.set(f, t); }
-      out.bytes(t);
+      at = putBytes(buf, at, t);
     }
-    out.byte(NEWLINE);
-    if (out.at >= BUILD_LIST_CHUNK_BYTES) await flush();
+    buf[at++] = NEWLINE;
+    if (at >= BUILD_LIST_CHUNK_BYTES) await flush();
   }
-  if (out.at > 0) await flush();
+  if (at > 0) await flush();
   await inFlight;
 }

@@ -1,5 +1,6 @@
 /**
- * Quantization of ONE target component into levels with simple-statistics' ckmeans (Wang & Song,
+ * Quantization of ONE target component into levels with optimal 1D k-means (ckmeansLadder.ts: the
+ * partitions of simple-statistics' ckmeans, one dynamic programme for every k asked; Wang & Song,
  * "Ckmeans.1d.dp: optimal k-means clustering in one dimension by dynamic programming", R Journal
  * 3(2), 2011): the optimal 1D partition into k contiguous groups.
  *
@@ -12,7 +13,7 @@
  * - Every cell is then assigned to its group by the boundaries between groups, and each group's
  *   level value is the minimax centre of its actual range (minimaxCentre).
  */
-import { ckmeans } from "simple-statistics";
+import { ckmeansLadder, type CkmeansLadder } from "./ckmeansLadder.js";
 import { minimaxCentre, relErr } from "./relativeError.js";
 
 export const SAMPLE_LIMIT = 4000;
@@ -45,6 +46,8 @@ export interface OneSample {
   positive: boolean;
   /** sorted, scaled sample */
   scaled: number[];
+  /** the k-means ladder over `scaled`, made on first use and shared by every k asked */
+  ladder?: CkmeansLadder;
 }
 
 export function oneSample(values: Float64Array): OneSample {
@@ -56,7 +59,8 @@ export function oneSample(values: Float64Array): OneSample {
 
 /** ckmeans groups of the sample, as boundaries between consecutive groups (scaled space). */
 export function sampleBounds(sample: OneSample, k: number): number[] {
-  const groups = ckmeans(sample.scaled, Math.max(1, Math.min(k, sample.scaled.length)));
+  sample.ladder ??= ckmeansLadder(sample.scaled);
+  const groups = sample.ladder.groups(Math.max(1, Math.min(k, sample.scaled.length)));
   const bounds: number[] = [];
   for (let g = 0; g + 1 < groups.length; g++) bounds.push(0.5 * (groups[g][groups[g].length - 1] + groups[g + 1][0]));
   return bounds;
