@@ -13,9 +13,11 @@
  *   verify/assemble.ts `solveCost`; 1.8 s per 10⁹, fitted to the CPU seconds of the solver bench
  *   at 400² and 700² nodes: 1.9 s at 0.63 × 10⁹ work, 8.4 s at 3.4 × 10⁹) + a cost per grid node
  *   for everything else one case on one grid does (assembly, sampling the scene from the map, the
- *   solve and its residual, the far field): 22 µs, from `verify --resolution 24` and `48` of
- *   demo-designs/field-radial-cloak.json (3 cases on 209² and 377² nodes: 1.1 s and 4.1 s of CPU
- *   per solve, start-up removed).
+ *   solve and its residual, the far field): 13 µs, refitted in session 4 (the code had become
+ *   faster: the old 22 µs overestimated by 1.4–1.7×) from `verify --method fdfd --resolution 24`
+ *   and `48` of demo-designs/field-radial-cloak.json (3 cases on 209² and 377² nodes: 0.82 s and
+ *   2.5 s of CPU per solve, start-up removed: 15 and 11 µs per node besides the factorization) and
+ *   `--resolution 33` of plan-microwave-mast-cloak.json (4 cases on 295² nodes: 12 µs).
  * Pure.
  */
 
@@ -26,7 +28,7 @@ export const PLAN_SECONDS_FIXED = 0.6;
 /** CPU seconds per complex operation of the sparse factorization. */
 export const SOLVER_SECONDS_PER_OPERATION = 1.8e-9;
 /** CPU seconds per grid node of one verify solve, besides the factorization. */
-export const SOLVER_SECONDS_PER_NODE = 2.2e-5;
+export const SOLVER_SECONDS_PER_NODE = 1.3e-5;
 /** Estimates above this many seconds are said to the user. */
 export const WARN_ABOVE_SECONDS = 10;
 

@@ -7,6 +7,7 @@
  * (sweep/sweepConcurrency.ts) sizes its worker pool from them, so both read one definition.
  */
 import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
+import { solveSeconds } from "../core/timeEstimate.js";
 import { DEFAULT_SOLVER_BYTES, solveCost } from "./assemble.js";
 import { gridForWindow, type FdfdGrid } from "./fdfdGrid.js";
 import type { ScenePolarization } from "./scene.js";
@@ -80,22 +81,49 @@ export function ladderGrids(input: LadderGridInput): LadderGrids {
 }
 
 /**
+ * The rungs the ladder may add on its own after the rung at `fromRes` when `have` rungs are solved:
+ * ×√2 each, up to MAX_RUNGS, MAX_RESOLUTION, MAX_AUTO_UNKNOWNS and `limitBytes` (verifyDevice.ts
+ * adds them while a figure is not converged).
+ */
+export function addedRungs(l: LadderGrids, fromRes: number, have: number, limitBytes = DEFAULT_SOLVER_BYTES): { resolution: number; grid: FdfdGrid }[] {
+  const out: { resolution: number; grid: FdfdGrid }[] = [];
+  let res = fromRes;
+  for (let rungs = have; rungs < MAX_RUNGS; rungs++) {
+    res = Math.round(res * Math.SQRT2);
+    if (res > MAX_RESOLUTION) break;
+    const grid = l.makeGrid(res);
+    if (solveCost(grid).megabytes * 1e6 > limitBytes || grid.nx * grid.ny > MAX_AUTO_UNKNOWNS) break;
+    out.push({ resolution: res, grid });
+  }
+  return out;
+}
+
+/** Estimated CPU seconds of `cases` solves on grid g (one idle core; core/timeEstimate.ts rates). */
+export function gridSeconds(g: FdfdGrid, cases: number): number {
+  const c = solveCost(g);
+  return cases * solveSeconds(c.work, c.unknowns);
+}
+
+/**
+ * Estimated CPU seconds of one check of `cases` cases on the ladder: `planned` for the wanted rungs,
+ * `atMost` with the rungs the ladder may add (none on a single grid).
+ */
+export function ladderSeconds(l: LadderGrids, cases: number, limitBytes = DEFAULT_SOLVER_BYTES): { planned: number; atMost: number } {
+  let planned = 0;
+  for (const res of l.wanted) planned += gridSeconds(l.makeGrid(res), cases);
+  let atMost = planned;
+  if (l.wanted.length >= 2) for (const r of addedRungs(l, l.wanted[l.wanted.length - 1], l.wanted.length, limitBytes)) atMost += gridSeconds(r.grid, cases);
+  return { planned, atMost };
+}
+
+/**
  * Peak memory of one check's largest solve, bytes: the largest of the wanted rungs, or — when
- * `withAddedRungs` — also of the rungs the ladder may add on its own (×√2 each, up to MAX_RUNGS,
- * MAX_RESOLUTION, MAX_AUTO_UNKNOWNS and `limitBytes`).
+ * `withAddedRungs` — also of the rungs the ladder may add on its own (addedRungs).
  */
 export function ladderPeakBytes(l: LadderGrids, withAddedRungs: boolean, limitBytes = DEFAULT_SOLVER_BYTES): number {
   let peak = 0;
   for (const res of l.wanted) peak = Math.max(peak, solveCost(l.makeGrid(res)).megabytes * 1e6);
   if (!withAddedRungs || l.wanted.length < 2) return peak;
-  let res = l.wanted[l.wanted.length - 1];
-  for (let rungs = l.wanted.length; rungs < MAX_RUNGS; rungs++) {
-    res = Math.round(res * Math.SQRT2);
-    if (res > MAX_RESOLUTION) break;
-    const g = l.makeGrid(res);
-    const bytes = solveCost(g).megabytes * 1e6;
-    if (bytes > limitBytes || g.nx * g.ny > MAX_AUTO_UNKNOWNS) break;
-    peak = Math.max(peak, bytes);
-  }
+  for (const r of addedRungs(l, l.wanted[l.wanted.length - 1], l.wanted.length, limitBytes)) peak = Math.max(peak, solveCost(r.grid).megabytes * 1e6);
   return peak;
 }

@@ -121,7 +121,7 @@ export function runCheck(input: CheckInput): CheckResult {
 
 const unavailableCase = (name: CaseSpec["name"], reason: string): CheckCase => ({
   name, method: null, methodReason: null, available: false, reason, scatteringWidthM: null, scatteringWidthUncertaintyM: null, scatteringWidthBelowM: null, uncertainty: null, converged: null, vsBare: null, vsBareUncertainty: null,
-  absorptionWidthM: null, powerBalance: null, fieldErrorVsIdeal: null, deliveredPower: null, deliveredPowerUncertainty: null, deviationDeg: null, bistaticM: null, ladder: [], magnitude: null,
+  absorptionWidthM: null, powerBalance: null, fieldErrorVsIdeal: null, deliveredPower: null, deliveredPowerUncertainty: null, lobes: null, deviationDeg: null, bistaticM: null, ladder: [], magnitude: null,
 });
 
 /** The drawn case on its own ladder (drawnLadder.ts), beside the homogenized realized map (see file comment). */
@@ -211,7 +211,7 @@ function mergeRuns(input: CheckInput, radial: RadialCaseResult[], grid: VerifyRe
       scatteringWidthM: r.scatteringWidthM, scatteringWidthUncertaintyM: r.scatteringWidthUncertaintyM, scatteringWidthBelowM: r.scatteringWidthBelowM, uncertainty: r.uncertainty, converged: r.uncertainty === null ? null : r.uncertainty <= accuracy,
       vsBare: r.vsBare, vsBareUncertainty: r.vsBareUncertainty,
       absorptionWidthM: r.absorptionWidthM, powerBalance: null, fieldErrorVsIdeal: null,
-      deliveredPower: null, deliveredPowerUncertainty: null, deviationDeg: null, bistaticM: r.bistaticM, ladder: [], magnitude: null,
+      deliveredPower: null, deliveredPowerUncertainty: null, lobes: null, deviationDeg: null, bistaticM: r.bistaticM, ladder: [], magnitude: null,
     };
   });
   const usedGrid = cases.some((c) => c.method === "fdfd");

@@ -17,14 +17,15 @@
  */
 import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
 import { InputError } from "../core/errors.js";
-import { formatDuration, solveSeconds } from "../core/timeEstimate.js";
+import { formatDuration } from "../core/timeEstimate.js";
 import { DEFAULT_SOLVER_BYTES, formatBytes, solveCost } from "./assemble.js";
 import { inPml, type FdfdGrid } from "./fdfdGrid.js";
-import { DEFAULT_ACCURACY, ladderGrids, MAX_AUTO_UNKNOWNS, MAX_RESOLUTION, MAX_RUNGS } from "./ladderGrids.js";
+import { addedRungs, DEFAULT_ACCURACY, gridSeconds, ladderGrids, MAX_AUTO_UNKNOWNS, MAX_RESOLUTION, MAX_RUNGS } from "./ladderGrids.js";
 import { gridWavenumberAt, type Illumination } from "./illumination.js";
 import { crossSections, farField, fluxBox, groundFarField, groundFluxBox, relativeDifference, type NodeBox } from "./metrics.js";
 import { richardson } from "./richardson.js";
 import { clampFigure, widthReading } from "./widthReading.js";
+import { beamLobes, type BeamLobe } from "./beamLobes.js";
 import type { Scene, ScenePolarization } from "./scene.js";
 import { solveScene, type SceneSolution } from "./solve.js";
 
@@ -118,7 +119,9 @@ export interface CaseResult {
   deliveredPower: number | null;
   /** absolute uncertainty of deliveredPower (null without one) */
   deliveredPowerUncertainty: number | null;
-  /** beams: output direction minus the ideal device's, degrees; above a ground plane, the reflected beam's direction minus the specular one */
+  /** beams: the outgoing (above a ground plane: reflected) beam's lobes on the finest grid, beamLobes.ts; more than one when the device splits the beam (null for plane waves) */
+  lobes: BeamLobe[] | null;
+  /** beams: main output direction (the peak; for a split beam the lobes' power-weighted mean) minus the ideal device's, degrees; above a ground plane, the reflected beam's direction minus the specular one */
   deviationDeg: number | null;
   /** bistatic scattering width σ(φ), metres, φ = 0 … 359° from +x (when requested) */
   bistaticM: Float64Array | null;
@@ -164,9 +167,10 @@ interface RunFigures {
   ext: number | null;
   /** bistatic width σ(φ) per degree */
   pattern: Float64Array | null;
-  /** beams: outgoing power pattern |T_tot(φ)|² and its peak direction (ground scenes: reflected, over groundAngles) */
+  /** beams: outgoing power pattern |T_tot(φ)|², its main direction and lobes (ground scenes: reflected, over groundAngles) */
   beamPower: Float64Array | null;
   peakDeg: number | null;
+  lobes: BeamLobe[] | null;
   /** ground scenes: Σ|T|² of the flat ground's reflection over groundAngles (the incident beam's power) */
   imagePower: number | null;
 }
@@ -191,10 +195,11 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   }
   const marginM = input.marginM ?? lambdaB / 2;
   if (!(marginM >= 0 && Number.isFinite(marginM))) throw new InputError({ where: "--margin", message: `expected a length ≥ 0, got ${marginM}` });
-  const { nMax, makeGrid, wanted } = ladderGrids({
+  const ladder = ladderGrids({
     polarization, background, frequencyHz, deviceBox: box, groundYM: input.groundYM, resolution: input.resolution, accuracy, marginM, maxStepM: input.maxStepM,
     caseIndexHints: cases.filter((c) => c.scene).map((c) => c.indexHint),
   });
+  const { nMax, makeGrid, wanted } = ladder;
   const solverBytes = input.solverBytes ?? DEFAULT_SOLVER_BYTES;
   const refuse = (res: number, g: FdfdGrid, over: string): never => {
     throw new InputError({
@@ -216,17 +221,11 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   const live0 = cases.filter((c) => c.scene !== null).length;
   if (input.onEstimate && live0 > 0) {
     // the planned rungs, and the finer ones the ladder may add (the same rule as below)
-    const costOf = (g: FdfdGrid): number => { const c = solveCost(g); return live0 * solveSeconds(c.work, c.unknowns); };
     let planned = 0;
-    for (const r of rungs) planned += costOf(r.g);
-    let atMost = planned, grids = rungs.length, res = rungs[rungs.length - 1].resolution, last = rungs[rungs.length - 1].g;
-    while (input.resolution === undefined && grids < MAX_RUNGS) {
-      res = Math.round(res * Math.SQRT2);
-      if (res > MAX_RESOLUTION) break;
-      const g = makeGrid(res);
-      if (!gridFits(g).ok || g.nx * g.ny > MAX_AUTO_UNKNOWNS) break;
-      atMost += costOf(g); grids++; last = g;
-    }
+    for (const r of rungs) planned += gridSeconds(r.g, live0);
+    let atMost = planned, grids = rungs.length, last = rungs[rungs.length - 1].g;
+    const added = input.resolution === undefined ? addedRungs(ladder, rungs[rungs.length - 1].resolution, rungs.length) : [];
+    for (const r of added) { atMost += gridSeconds(r.grid, live0); grids++; last = r.grid; }
     const solves = (n: number): string => `${live0 * n} solve${live0 * n === 1 ? "" : "s"}`;
     input.onEstimate(atMost, grids > rungs.length
       ? `up to ${solves(grids)} (${live0} case${live0 === 1 ? "" : "s"} on up to ${grids} grids, the finest ${last.nx} × ${last.ny} nodes; about ${formatDuration(planned)} if the first ${rungs.length} converge)`
@@ -250,12 +249,12 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
       boxN ??= input.groundYM === undefined ? fluxBox(sol) : groundFluxBox(sol, input.groundYM);
       if (!boxN) throw new InputError({ where: "--margin", message: "no room between the device and the PML for the power contour; give a larger margin" });
       const cs = crossSections(sol, boxN);
-      let pattern: Float64Array | null = null, ext: number | null = null, beamPower: Float64Array | null = null, peakDeg: number | null = null, imagePower: number | null = null;
+      let pattern: Float64Array | null = null, ext: number | null = null, beamPower: Float64Array | null = null, peakDeg: number | null = null, imagePower: number | null = null, lobes: BeamLobe[] | null = null;
       if (input.groundYM !== undefined && ill.kind === "beam") {
         const gk = (phi: number): number => gridWavenumberAt(kb, r.g.h, phi);
         const ff = groundFarField(sol, boxN, input.groundYM, polarization === "Ez" ? -1 : 1, groundAngles, gk);
         const lobe = reflectedLobe(sol, ff, groundAngles, gk, input.groundYM);
-        peakDeg = lobe.peakDeg; beamPower = lobe.totalPower; imagePower = lobe.imagePower;
+        peakDeg = lobe.peakDeg; beamPower = lobe.totalPower; imagePower = lobe.imagePower; lobes = lobe.lobes;
       } else if (input.groundYM === undefined) {
         const gk = (phi: number): number => gridWavenumberAt(kb, r.g.h, phi);
         const ff = farField(sol, boxN, angles, gk);
@@ -267,10 +266,10 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
           ext = -(4 / kb) * t;
         } else {
           const lobe = beamLobe(sol, ff, angles, kb);
-          peakDeg = lobe.peakDeg; beamPower = lobe.totalPower;
+          peakDeg = lobe.peakDeg; beamPower = lobe.totalPower; lobes = lobe.lobes;
         }
       }
-      row.push({ sol, sigma: cs.scatteringM, abs: cs.absorptionM, ext, pattern, beamPower, peakDeg, imagePower });
+      row.push({ sol, sigma: cs.scatteringM, abs: cs.absorptionM, ext, pattern, beamPower, peakDeg, imagePower, lobes });
     }
     per.push(row);
   };
@@ -321,14 +320,13 @@ function forwardAmplitude(sol: SceneSolution, box: NodeBox, angle: number, gk: (
 /**
  * Beam far field: total outgoing amplitude T_tot(φ) = T_inc(φ) + T_s(φ), where a beam made of plane
  * waves of density a(θ) has T_inc(φ) = π a(φ) e^{−i k r̂·r0} in the normalization of farField.
- * Returns the power pattern |T_tot|² and its peak direction.
+ * Returns the power pattern |T_tot|², its lobes and main direction (beamLobes.ts).
  */
-function beamLobe(sol: SceneSolution, ff: { re: Float64Array; im: Float64Array }, angles: Float64Array, kb: number): { peakDeg: number; totalPower: Float64Array } {
+function beamLobe(sol: SceneSolution, ff: { re: Float64Array; im: Float64Array }, angles: Float64Array, kb: number): { peakDeg: number; totalPower: Float64Array; lobes: BeamLobe[] } {
   const comp = sol.incidentComponents!;
   const ill = sol.illumination as Extract<Illumination, { kind: "beam" }>;
   const m = comp.angleRad.length, d = (comp.angleRad[m - 1] - comp.angleRad[0]) / (m - 1);
   const tot = new Float64Array(angles.length);
-  let best = 0, bestA = 0;
   for (let a = 0; a < angles.length; a++) {
     // density a(φ) by linear interpolation of the components (weights / Δθ)
     let rel = (angles[a] - comp.angleRad[0]) % (2 * Math.PI);
@@ -340,15 +338,9 @@ function beamLobe(sol: SceneSolution, ff: { re: Float64Array; im: Float64Array }
     const iRe = Math.PI * dens * Math.cos(ph), iIm = Math.PI * dens * Math.sin(ph);
     const re = iRe + ff.re[a], im = iIm + ff.im[a];
     tot[a] = re * re + im * im;
-    if (tot[a] > best) { best = tot[a]; bestA = a; }
   }
-  // parabolic refinement of the peak
-  const L = angles.length, y0 = tot[(bestA - 1 + L) % L], y1 = tot[bestA], y2 = tot[(bestA + 1) % L];
-  const den = y0 - 2 * y1 + y2;
-  const off = den !== 0 ? (0.5 * (y0 - y2)) / den : 0;
-  let peakDeg = (bestA + Math.max(-0.5, Math.min(0.5, off))) * (360 / L);
-  if (peakDeg > 180) peakDeg -= 360;
-  return { peakDeg, totalPower: tot };
+  const read = beamLobes(tot, 0, 360 / angles.length, true);
+  return { peakDeg: read.mainDeg, totalPower: tot, lobes: read.lobes };
 }
 
 /**
@@ -359,14 +351,14 @@ function beamLobe(sol: SceneSolution, ff: { re: Float64Array; im: Float64Array }
  * Σ|T_img|² (the flat ground's reflected power: the incident beam's power, the reference of the
  * specular fraction).
  */
-function reflectedLobe(sol: SceneSolution, ff: { re: Float64Array; im: Float64Array }, angles: Float64Array, gk: (phi: number) => number, groundYM: number): { peakDeg: number; totalPower: Float64Array; imagePower: number } {
+function reflectedLobe(sol: SceneSolution, ff: { re: Float64Array; im: Float64Array }, angles: Float64Array, gk: (phi: number) => number, groundYM: number): { peakDeg: number; totalPower: Float64Array; imagePower: number; lobes: BeamLobe[] } {
   const comp = sol.incidentComponents!;
   const ill = sol.illumination as Extract<Illumination, { kind: "beam" }>;
   const sign = sol.scene.polarization === "Ez" ? -1 : 1;
   const m = comp.angleRad.length, d = (comp.angleRad[m - 1] - comp.angleRad[0]) / (m - 1);
   const fx = ill.focusM[0], fy = 2 * groundYM - ill.focusM[1];
   const tot = new Float64Array(angles.length);
-  let best = 0, bestA = 0, image = 0;
+  let image = 0;
   for (let a = 0; a < angles.length; a++) {
     const x = (-angles[a] - comp.angleRad[0]) / d;
     let dens = 0;
@@ -376,15 +368,9 @@ function reflectedLobe(sol: SceneSolution, ff: { re: Float64Array; im: Float64Ar
     image += iRe * iRe + iIm * iIm;
     const re = iRe + ff.re[a], im = iIm + ff.im[a];
     tot[a] = re * re + im * im;
-    if (tot[a] > best) { best = tot[a]; bestA = a; }
   }
-  const L = angles.length;
-  const y0 = tot[Math.max(0, bestA - 1)], y1 = tot[bestA], y2 = tot[Math.min(L - 1, bestA + 1)];
-  const den = y0 - 2 * y1 + y2;
-  const off = den !== 0 ? (0.5 * (y0 - y2)) / den : 0;
-  const step = (angles[1] - angles[0]) * (180 / Math.PI);
-  const peakDeg = (angles[bestA] * 180) / Math.PI + Math.max(-0.5, Math.min(0.5, off)) * step;
-  return { peakDeg, totalPower: tot, imagePower: image };
+  const read = beamLobes(tot, (angles[0] * 180) / Math.PI, ((angles[1] - angles[0]) * 180) / Math.PI, false);
+  return { peakDeg: read.mainDeg, totalPower: tot, imagePower: image, lobes: read.lobes };
 }
 
 /**
@@ -455,7 +441,7 @@ function buildResults(
   for (const spec of cases) {
     const li = live.indexOf(spec);
     if (li < 0) {
-      out.push({ name: spec.name, available: false, reason: spec.reason ?? "not computed", scatteringWidthM: null, scatteringWidthUncertaintyM: null, scatteringWidthBelowM: null, uncertainty: null, converged: null, vsBare: null, vsBareUncertainty: null, absorptionWidthM: null, powerBalance: null, fieldErrorVsIdeal: null, deliveredPower: null, deliveredPowerUncertainty: null, deviationDeg: null, bistaticM: null, ladder: [], magnitude: null });
+      out.push({ name: spec.name, available: false, reason: spec.reason ?? "not computed", scatteringWidthM: null, scatteringWidthUncertaintyM: null, scatteringWidthBelowM: null, uncertainty: null, converged: null, vsBare: null, vsBareUncertainty: null, absorptionWidthM: null, powerBalance: null, fieldErrorVsIdeal: null, deliveredPower: null, deliveredPowerUncertainty: null, lobes: null, deviationDeg: null, bistaticM: null, ladder: [], magnitude: null });
       continue;
     }
     const ladder: LadderPoint[] = per.map((row, k) => {
@@ -502,6 +488,7 @@ function buildResults(
       fieldErrorVsIdeal: ideal && spec.name !== "ideal" && spec.name !== "bare" && spec.name !== "flat" ? relativeDifference(f.sol.totalRe, f.sol.totalIm, ideal.sol.totalRe, ideal.sol.totalIm, obs) : null,
       deliveredPower: share ? share.value : null,
       deliveredPowerUncertainty: share ? share.uncertainty : null,
+      lobes: ill.kind === "beam" ? f.lobes : null,
       deviationDeg: deviation,
       bistaticM: input.pattern && ill.kind === "plane" ? f.pattern : null,
       ladder,

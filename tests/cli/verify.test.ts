@@ -113,6 +113,13 @@ describe("verify --method auto (the default)", () => {
     const sb = JSON.parse(b.out);
     expect(sb.method).toBe("fdfd");
     expect(sb.methodReason).toMatch(/a beam is not a plane wave/);
+    // every beam case lists its lobes (directions, shares of the outgoing power); a plane wave none
+    for (const c of sb.cases.filter((x: { available: boolean }) => x.available)) {
+      expect(c.lobes.length, c.name).toBeGreaterThan(0);
+      for (const l of c.lobes) expect(l.share).toBeGreaterThan(0);
+      expect(c.lobes.reduce((a: number, l: { share: number }) => a + l.share, 0)).toBeLessThanOrEqual(1 + 1e-9);
+    }
+    for (const c of s.cases.filter((x: { available: boolean }) => x.available)) expect(c.lobes).toBeNull();
   });
 
   it("a radial cloak with a realization: bare, ideal and reduced exact, the realized map (square cells) on the grid beside a grid bare object", async () => {

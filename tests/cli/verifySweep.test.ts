@@ -62,10 +62,13 @@ describe("--sweep parser", () => {
       [CLOAK, "--threshold", "2", "--out", out],
       [CLOAK, "--sweep", "8 GHz..10 GHz:3", "--threshold", "0.9", "--out", out],
       [CLOAK, "--sweep", "8 GHz..10 GHz:3", "--method", "radial"],
+      [CLOAK, "--workers", "2", "--out", out],
+      [CLOAK, "--sweep", "8 GHz..10 GHz:3", "--workers", "0", "--out", out],
+      [CLOAK, "--sweep", "8 GHz..10 GHz:3", "--workers", "1.5", "--out", out],
     ]) {
       const r = await run(args);
       expect(r.code, r.err).toBe(1);
-      expect(r.err).toMatch(/error: --(sweep|threshold)/);
+      expect(r.err).toMatch(/error: --(sweep|threshold|workers)/);
       expect(r.out).toBe("");
     }
     expect(existsSync(out)).toBe(false);

@@ -14,9 +14,10 @@
  *   −φ0 and the reflected share equals the incident beam's lobe share above.
  * - The ideal beam shifter (Rahm, Cummer, Schurig, Pendry & Smith, Phys. Rev. Lett. 100, 063903
  *   (2008)) moves the beam sideways without tilting it: deviation ≈ 0.
- * The deviation is the peak of the outgoing power pattern: a beam split symmetrically (a waist-2λ
- * beam on a 1.2λ block) reports one of its two side peaks (15° there), so the symmetric-block case
- * uses a beam narrower than the block.
+ * - A beam wider than a symmetric block is split in two mirror lobes (waist 2λ on a 1.2λ block of
+ *   ε = 2.2): by the same mirror symmetry the lobes sit at ±θ with equal power and the main
+ *   direction (their power-weighted mean, beamLobes.ts) is the axis: deviation 0, two lobes
+ *   reported (it used to report one of the two peaks, 15°).
  */
 import { describe, expect, it } from "vitest";
 import { join } from "node:path";
@@ -88,6 +89,19 @@ describe("beam figures against analytic cases", () => {
     expect(c.scatteringWidthM!).toBeGreaterThan(0.01 * lambda); // the block does scatter
     expect(c.deliveredPower!).toBeLessThan(analyticShare(lambda, lobeHalf(lambda)));
     expect(Math.abs(c.absorptionWidthM!) / c.scatteringWidthM!).toBeLessThan(1e-6);
+  });
+
+  it("a beam wider than a symmetric block splits into two mirror lobes of equal power; the main direction stays on the axis", () => {
+    const side = 1.2 * lambda;
+    const ill: Illumination = { kind: "beam", angleRad: 0, waistM: 2 * lambda, focusM: [0, 0] };
+    const r = beamRun([{ name: "reduced", scene: block(side, 2.2), indexHint: Math.sqrt(2.2) }], ill, { minX: -side / 2, maxX: side / 2, minY: -side / 2, maxY: side / 2 });
+    const c = r.cases[0];
+    expect(c.lobes).toHaveLength(2);
+    const [a, b] = c.lobes!;
+    expect(Math.abs(a.directionDeg + b.directionDeg), "mirror directions").toBeLessThan(0.05);
+    expect(Math.abs(a.directionDeg)).toBeGreaterThan(5); // measured ±15.05° at 12 points per wavelength
+    expectClose(a.share, b.share, { rel: 1e-3, label: "equal lobe powers" });
+    expect(Math.abs(c.deviationDeg!)).toBeLessThan(0.05);
   });
 
   it.each(["Ez", "Hz"] as const)("%s: a beam at −60° on a flat conducting ground leaves at the mirror angle +60° with the incident lobe share (image theory)", (pol) => {

@@ -27,7 +27,7 @@ import type { Illumination } from "../../verify/illumination.js";
 import { DEFAULT_ACCURACY } from "../../verify/verifyDevice.js";
 import { METHOD_OPTIONS, runCheck, type CheckCase, type CheckResult, type MethodOption } from "../../verify/runCheck.js";
 import { flagOption, stringOption } from "../args.js";
-import { parseSweep, parseThreshold, runVerifySweep, SWEEP_CSV, SWEEP_SVG } from "./verifySweep.js";
+import { parseSweep, parseThreshold, parseWorkers, runVerifySweep, SWEEP_CSV, SWEEP_SVG } from "./verifySweep.js";
 import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_OK } from "../run.js";
@@ -76,6 +76,7 @@ export function verifySummary(design: string, scheme: string, r: CheckResult, ou
       deliveredPower: jn(c.deliveredPower),
       deliveredPowerUncertainty: jn(c.deliveredPowerUncertainty),
       deviationDeg: jn(c.deviationDeg),
+      lobes: c.lobes ? c.lobes.map((l) => ({ directionDeg: jn(l.directionDeg), share: jn(l.share) })) : null,
       ladder: c.ladder.map((p) => ({ resolution: p.resolution, stepM: p.stepM, scatteringWidthM: jn(p.scatteringWidthM), vsBare: jn(p.vsBare), deliveredPower: jn(p.deliveredPower) })),
       ...(c.bistaticM ? { bistaticM: Array.from(c.bistaticM, (v) => jn(v) ?? 0) } : {}),
     })),
@@ -125,6 +126,8 @@ export function verifyTable(design: string, scheme: string, r: CheckResult): str
       `  ground plane below y = ${formatLength(r.groundYM!)} (perfect conductor; the bump is part of it in every case but flat)`,
       "  specular: share of the incident beam's power reflected into the flat ground's specular lobe; deviation: reflected beam's direction minus the specular one",
     ] : []),
+    ...r.cases.filter((c) => c.available && c.lobes && c.lobes.length > 1).map((c) =>
+      `  ${c.name}: the beam leaves split into ${c.lobes!.length} lobes, at ${c.lobes!.map((l) => `${l.directionDeg >= 0 ? "+" : "−"}${Math.abs(l.directionDeg).toFixed(1)}° (${Math.round(l.share * 100)} % of the power)`).join(", ")}; its deviation is that of their power-weighted mean direction`),
     "  field vs ideal: relative difference of the total field from the ideal device's, outside the device's box",
     ...homogenizationLine(r),
     ...r.notes.map((n) => `  note: ${n}`),
@@ -184,7 +187,7 @@ export function defaultGroundWaist(deviceWidthM: number, angleRad: number, lambd
 export const command: Command = {
   name: "verify",
   summary: "2D full-wave check: bare, ideal, reduced and realized devices, converged figures with uncertainties",
-  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--scene ground|free] [--margin L] [--drawn-time T] [--method auto|fdfd|radial] [--sweep 'START..STOP:COUNT' [--threshold T]] [--json] [--out DIR]",
+  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--scene ground|free] [--margin L] [--drawn-time T] [--method auto|fdfd|radial] [--sweep 'START..STOP:COUNT' [--threshold T] [--workers N]] [--json] [--out DIR]",
   details: [
     "Solves each case with a frequency-domain finite-difference solver (PML on all sides): the bare",
     "hidden object of a cloak (a perfect conductor), the ideal device (scheme full) and the reduced one",
@@ -210,6 +213,7 @@ export const command: Command = {
     { name: "method", type: "string", valueName: "auto|fdfd|radial", description: "solver: auto (default: radial where the tensors depend on r only, fdfd for the rest), fdfd (finite differences on a grid) or radial (exact, per angular order; cloaks and concentrators, plane waves)" },
     { name: "sweep", type: "string", valueName: "A..B:N", description: "solve every case at N frequencies from A to B on the grid, e.g. '8 GHz..10 GHz:21' (dispersive recipes re-evaluated at each)" },
     { name: "threshold", type: "string", valueName: "T", description: "with --sweep: the band is where the realized figure stays within T× the reduced design's at the centre (default 2)" },
+    { name: "workers", type: "string", valueName: "N", description: "with --sweep: frequencies solved at once, on worker threads (default: from the time estimate, the cores and the memory)" },
     { name: "json", type: "boolean", description: "print the summary as one JSON object on stdout" },
     { name: "out", type: "string", valueName: "DIR", description: `write ${VERIFY_SVG} (|field| of each case) into DIR; with --sweep ${SWEEP_CSV}, ${SWEEP_SVG} and manifest.json` },
   ],
@@ -234,6 +238,9 @@ export const command: Command = {
     if (thresholdText !== undefined && sweepText === undefined) throw new InputError({ where: "--threshold", message: "applies to a frequency sweep; give --sweep too" });
     const sweep = sweepText === undefined ? null : await parseSweep(sweepText);
     const threshold = parseThreshold(thresholdText);
+    const workersText = stringOption(args, "workers");
+    if (workersText !== undefined && sweepText === undefined) throw new InputError({ where: "--workers", message: "applies to a frequency sweep; give --sweep too" });
+    const workers = parseWorkers(workersText);
     if (sweep && method === "radial") throw new InputError({ where: "--sweep", message: "the sweep runs the grid solver; drop --method radial" });
     const angleText = stringOption(args, "angle");
     const angleDeg = angleText === undefined ? 0 : Number(angleText);
@@ -292,7 +299,7 @@ export const command: Command = {
     }
     if (sweep) {
       return runVerifySweep(io, {
-        designName: design.name, designPath: design.sourcePath, designFrequencyHz: design.frequencyHz, scheme: s.scheme, range: sweep, threshold, json, outDir: stringOption(args, "out"), notes: built.notes,
+        designName: design.name, designPath: design.sourcePath, designFrequencyHz: design.frequencyHz, scheme: s.scheme, range: sweep, threshold, json, outDir: stringOption(args, "out"), notes: built.notes, workers,
         context: {
           transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid,
           ideal, reduced, plan, catalog: plan ? await loadMaterialCatalog() : [], illumination, resolution, accuracy, marginM, freeSpace: sceneKind === "free",

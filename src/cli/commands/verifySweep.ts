@@ -6,7 +6,7 @@
  * (manifest.json last). Frequencies run on worker threads (sweepPool.ts), as many as the cores,
  * the frequencies and the memory budget allow (sweepConcurrency.ts).
  */
-import { availableParallelism } from "node:os";
+import { availableParallelism, loadavg } from "node:os";
 import { resolve } from "node:path";
 import { InputError } from "../../core/errors.js";
 import { memoryBudget } from "../../io/memoryLimit.js";
@@ -15,6 +15,8 @@ import { parseQuantity } from "../../io/quantity.js";
 import { formatFrequency } from "../../verify/formatQuantity.js";
 import { planSweepPool, sweepPeakBytes, workerBaselineBytes } from "../../verify/sweep/sweepConcurrency.js";
 import { sweepCsvText } from "../../verify/sweep/sweepCsv.js";
+import { chooseSweepThreads, sweepWallSeconds } from "../../verify/sweep/sweepTime.js";
+import { expectedTimeWarning, formatDuration } from "../../core/timeEstimate.js";
 import { MAX_SWEEP_POINTS, sweepFrequencies } from "../../verify/sweep/sweepFrequencies.js";
 import type { SweepContext } from "../../verify/sweep/sweepPoint.js";
 import { summarizeSweep, sweepJson, sweepSeries, sweepTable } from "../../verify/sweep/sweepSummary.js";
@@ -77,6 +79,16 @@ export interface SweepRun {
   outDir: string | undefined;
   /** notes from building the cases (at the design frequency) */
   notes: string[];
+  /** --workers: threads asked for (undefined: chosen from the time estimate and the memory) */
+  workers?: number;
+}
+
+/** Parse --workers: a whole number of threads from 1 to 64. */
+export function parseWorkers(text: string | undefined): number | undefined {
+  if (text === undefined) return undefined;
+  const v = Number(text.trim());
+  if (!Number.isInteger(v) || v < 1 || v > 64) throw new InputError({ where: "--workers", message: `expected a whole number of threads from 1 to 64, got '${text}'` });
+  return v;
 }
 
 /** Run the sweep and print (see file comment). Returns the exit code (2 when a figure is not converged). */
@@ -89,10 +101,33 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   const progress = (text: string): void => io.stderr(`… ${text}\n`);
   const budget = memoryBudget("verify");
   const peaks = frequencies.map((f) => ({ frequencyHz: f, ...sweepPeakBytes(context, f) }));
-  const pool = planSweepPool(peaks, availableParallelism(), budget.budgetBytes, budget.source, workerBaselineBytes(context.grid.count));
-  if ("refusal" in pool) throw new InputError({ where: "--sweep", message: pool.refusal });
+  const baseline = workerBaselineBytes(context.grid.count);
+  // cores other work keeps busy do not help: without --workers, count only the idle ones (load average)
+  const cores = availableParallelism();
+  const idle = Math.max(1, Math.min(cores, Math.round(cores - loadavg()[0])));
+  const memoryPool = planSweepPool(peaks, run.workers ?? idle, budget.budgetBytes, budget.source, baseline);
+  if ("refusal" in memoryPool) throw new InputError({ where: "--sweep", message: memoryPool.refusal });
   const notes = [...run.notes];
-  if (pool.note) notes.push(pool.note);
+  if (memoryPool.note) notes.push(memoryPool.note);
+  // threads: as many as memory allows when asked for, else from the time estimate (sweepTime.ts)
+  // the ladder may add rungs: plan for the most it may add (a needless pool costs a start-up; a
+  // missing one up to half the time), and warn on that figure as the one-frequency check does
+  const perFrequency = peaks.map((p) => p.secondsAtMost);
+  const chosen = run.workers !== undefined
+    ? { workers: memoryPool.workers, seconds: 0, note: null }
+    : chooseSweepThreads(perFrequency, memoryPool.workers);
+  if (chosen.note) notes.push(chosen.note);
+  else if (run.workers === undefined && idle < Math.min(cores, frequencies.length) && memoryPool.workers === idle) {
+    notes.push(`${cores - idle} of ${cores} cores are busy with other work (load average ${loadavg()[0].toFixed(1)}): ${idle} thread${idle === 1 ? "" : "s"} (--workers N to choose)`);
+  }
+  const pool = chosen.workers === memoryPool.workers ? memoryPool : planSweepPool(peaks, chosen.workers, budget.budgetBytes, budget.source, baseline) as typeof memoryPool;
+  const planned = peaks.reduce((a, p) => a + p.seconds, 0);
+  const atMost = peaks.reduce((a, p) => a + p.secondsAtMost, 0);
+  const estimate = sweepWallSeconds(perFrequency, pool.workers);
+  const what = `${frequencies.length} frequenc${frequencies.length === 1 ? "y" : "ies"} on ${pool.workers} thread${pool.workers === 1 ? "" : "s"} (${atMost > 1.05 * planned ? `${formatDuration(planned)} of solving if the first rungs converge, up to ${formatDuration(atMost)} if the ladders add all their rungs` : `about ${formatDuration(planned)} of solving`})`;
+  const warnings: string[] = [];
+  const warning = expectedTimeWarning(estimate, what);
+  if (warning !== null) { warnings.push(warning); io.stderr(`warning: ${warning}\n`); }
   progress(`sweep: ${frequencies.length} frequenc${frequencies.length === 1 ? "y" : "ies"} from ${formatFrequency(frequencies[0])} to ${formatFrequency(frequencies[frequencies.length - 1])}, ${pool.workers} at a time`);
   const ran = await runInterruptible(io, async (signal) => {
     const pooled = await runSweepPool({ ...context, solverBytes: pool.solverBytes }, frequencies, {
@@ -129,7 +164,9 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
       accuracy: context.resolution !== undefined ? null : context.accuracy ?? 0.02,
       resolution: context.resolution ?? null,
       converged: sweep.converged,
-      sweep, notes: result.notes, outputs,
+      sweep, notes: result.notes, warnings,
+      estimate: { solvingSeconds: planned, solvingSecondsAtMost: atMost, wallSeconds: estimate, threads: pool.workers },
+      outputs,
     })}\n`);
   } else {
     const header = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}; FDFD, ${ladder}; ${pool.workers} frequenc${pool.workers === 1 ? "y" : "ies"} at a time`;

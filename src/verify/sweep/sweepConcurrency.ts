@@ -14,7 +14,7 @@ import { BYTES_PER_CELL } from "../../core/memoryBudget.js";
 import { DEFAULT_SOLVER_BYTES, formatBytes } from "../assemble.js";
 import { formatFrequency } from "../formatQuantity.js";
 import { deviceCases } from "../deviceCases.js";
-import { DEFAULT_ACCURACY, ladderGrids, ladderPeakBytes } from "../ladderGrids.js";
+import { DEFAULT_ACCURACY, ladderGrids, ladderPeakBytes, ladderSeconds } from "../ladderGrids.js";
 import { planAtFrequency } from "./recipeAtFrequency.js";
 import { SWEEP_CASES, type SweepContext } from "./sweepPoint.js";
 
@@ -32,8 +32,12 @@ export function workerBaselineBytes(cells: number): number {
   return WORKER_RUNTIME_BYTES + BYTES_PER_CELL.verify * cells;
 }
 
-/** Peak memory of one frequency's check: its wanted rungs, and with the rungs the ladder may add. */
-export function sweepPeakBytes(ctx: SweepContext, frequencyHz: number): { wantedBytes: number; withAddedBytes: number; nodes: number } {
+/**
+ * What one frequency's check costs, before anything is solved: peak memory of its wanted rungs and
+ * with the rungs the ladder may add, the finest wanted grid's nodes, and the estimated CPU seconds
+ * (ladderSeconds: `seconds` for the wanted rungs, `secondsAtMost` with the added ones).
+ */
+export function sweepPeakBytes(ctx: SweepContext, frequencyHz: number): { wantedBytes: number; withAddedBytes: number; nodes: number; seconds: number; secondsAtMost: number } {
   const plan = ctx.plan ? planAtFrequency(ctx.plan, ctx.catalog, frequencyHz) : null;
   const built = deviceCases({ transform: ctx.transform, fieldBackground: ctx.fieldBackground, background: ctx.background, polarization: ctx.polarization, grid: ctx.grid, ideal: ctx.ideal, reduced: ctx.reduced, plan, freeSpace: ctx.freeSpace });
   const cases = built.cases.filter((c) => SWEEP_CASES.includes(c.name) && c.scene);
@@ -44,7 +48,8 @@ export function sweepPeakBytes(ctx: SweepContext, frequencyHz: number): { wanted
     resolution: ctx.resolution, accuracy: ctx.accuracy ?? DEFAULT_ACCURACY, marginM: ctx.marginM ?? lambdaB / 2, groundYM: built.ground?.groundYM,
   });
   const finest = l.makeGrid(l.wanted[l.wanted.length - 1]);
-  return { wantedBytes: ladderPeakBytes(l, false), withAddedBytes: ladderPeakBytes(l, true), nodes: finest.nx * finest.ny };
+  const time = ladderSeconds(l, cases.length);
+  return { wantedBytes: ladderPeakBytes(l, false), withAddedBytes: ladderPeakBytes(l, true), nodes: finest.nx * finest.ny, seconds: time.planned, secondsAtMost: time.atMost };
 }
 
 export interface PoolPlan {

@@ -42,6 +42,11 @@ function prefix(max: number, unit: string): [number, string] {
 const tickText = (v: number): string => Number(v.toPrecision(6)).toString();
 
 /** The plot (see file comment). */
+/** The band's edge ranges that have a width (none on a single grid). */
+function edgeRanges(band: SweepBand): [number, number][] {
+  return [band.lowRangeHz, band.highRangeHz].filter((r): r is [number, number] => r !== null && r[1] > r[0]);
+}
+
 export function sweepSvg(frequenciesHz: readonly number[], series: readonly SweepSeries[], figure: SweepFigure, band: SweepBand | null, title: string, subtitle = ""): string {
   const W = 720, H = 456, left = 78, right = 170, top = 64, bottom = 58;
   const pw = W - left - right, ph = H - top - bottom;
@@ -70,6 +75,11 @@ export function sweepSvg(frequenciesHz: readonly number[], series: readonly Swee
   if (band && band.lowHz !== null && band.highHz !== null) {
     const a = X(band.lowHz), b = X(band.highHz);
     out.push(`<rect x="${num(a)}" y="${top}" width="${num(Math.max(1, b - a))}" height="${ph}" fill="#fdd49e" fill-opacity="0.45"/>`);
+    // where each edge can lie within the figures' uncertainties (sweepBand.ts)
+    for (const r of edgeRanges(band)) {
+      const ra = X(r[0]), rb = X(r[1]);
+      out.push(`<rect x="${num(ra)}" y="${top}" width="${num(Math.max(1, rb - ra))}" height="${ph}" fill="#999" fill-opacity="0.25"/>`);
+    }
   }
   // axes, ticks, grid
   out.push(`<g stroke="#e4e4e4">`);
@@ -123,6 +133,10 @@ export function sweepSvg(frequenciesHz: readonly number[], series: readonly Swee
   if (band && band.lowHz !== null) {
     out.push(`<rect x="${lx}" y="${ly - 7}" width="22" height="14" fill="#fdd49e" fill-opacity="0.8"/><text x="${lx + 28}" y="${ly}" dominant-baseline="middle">band</text>`);
     ly += 20;
+    if (edgeRanges(band).length > 0) {
+      out.push(`<rect x="${lx}" y="${ly - 7}" width="22" height="14" fill="#999" fill-opacity="0.4"/><text x="${lx + 28}" y="${ly}" dominant-baseline="middle">edge range (uncertainty)</text>`);
+      ly += 20;
+    }
   }
   out.push(`<circle cx="${lx + 11}" cy="${ly}" r="3" fill="white" stroke="#333"/><text x="${lx + 28}" y="${ly}" dominant-baseline="middle">not converged</text>`);
   out.push(`</svg>`);

@@ -39,6 +39,17 @@ describe("sweepSvg", () => {
     expect((svg.match(/<path /g) ?? []).length).toBe(3);
     expect((svg.match(/fill="white" stroke="#d95f02"/g) ?? []).length).toBe(1); // one hollow realized marker
     for (const tick of [">8<", ">9<", ">10<"]) expect(svg).toContain(tick);
+    expect(svg).not.toContain("edge range"); // no uncertainties given
+  });
+
+  it("with uncertainties the edges' ranges are shaded and named in the legend", () => {
+    const fs = [8e9, 8.5e9, 9e9, 9.5e9, 10e9];
+    const realized = [0.9, 0.5, 0.2, 0.4, 0.8], reduced = [0.35, 0.32, 0.3, 0.31, 0.33];
+    const band = sweepBand({ frequenciesHz: fs, realized, reduced, sense: "lower-is-better", threshold: 2, designFrequencyHz: 9e9, realizedUncertainty: [0.05, 0.05, 0.01, 0.01, 0.01] });
+    const svg = sweepSvg(fs, [{ name: "realized", values: realized, converged: [true, true, true, true, true] }], sweepFigure(true, false), band, "t");
+    expect(svg).toContain(">edge range (uncertainty)</text>");
+    expect((svg.match(/fill="#999" fill-opacity="0.25"/g) ?? []).length).toBe(2);
+    expect(svg).not.toMatch(/NaN|Infinity|undefined/);
   });
 
   it("a figure in metres gets an SI-prefixed axis; a gap in a series breaks its line", () => {
