@@ -16,8 +16,9 @@
  * fill between them.
  *
  * Cost (measured on the shared 2-core machine): about 0.1 s a node for R ≤ 2 at n = 16, 1 s at
- * n = 32; a table of RECT_TABLE_NODES nodes 1.3–2.8 s for R = 2…3 with the machine otherwise idle,
- * 6–11 s while a test suite ran beside it (rectTableSeconds is the idle estimate).
+ * n = 32; a table of RECT_TABLE_NODES nodes 1.0–2.8 s for R = 1.5…3 with the n = 16 ladder and
+ * 7.5–20 s with the n = 32 ladder (contrast 50) on a lightly loaded machine, several times that
+ * beside a test suite (`npm run bench`, rectTableBench.ts).
  * Error: the ladder's own estimate, floored by an envelope calibrated on the aspect-1 cell against
  * the shipped square table (itself calibrated on Perrins et al. 1979; tests/cells/homogenize/
  * rectCircleTable.test.ts measures the worst deviation per contrast). Measured: aspect 1 within
@@ -159,12 +160,6 @@ export function buildRectTable(u: number, aspect: number): RectTable {
     converged: nodes.every((n) => n.converged),
     m2: { xx: splineM2(fills, col("xx")), yy: splineM2(fills, col("yy")), dxx: splineM2(fills, col("dxx")), dyy: splineM2(fills, col("dyy")) },
   };
-}
-
-/** Seconds a table is expected to take (for the caller's progress note): measured rates above. */
-export function rectTableSeconds(aspect: number): number {
-  const R = Math.max(aspect, 1 / aspect);
-  return 1.5 * R;
 }
 
 // Bounded cache of solved tables, keyed by contrast and aspect (pure: same inputs, same table).

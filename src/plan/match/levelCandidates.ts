@@ -123,7 +123,7 @@ export function levelCandidates(target: number[], ctx: MatchContext): LevelSearc
   return dropFarOff(search, ctx.tolerance);
 }
 
-/** Fill tables a plan may solve for rect lattices (1–5 s each on the shared machine; see MatchContext). */
+/** Fill tables a plan may solve for rect lattices (1–2 s each, 7–20 s for contrasts beyond 10^±1.5; see MatchContext). */
 export const RECT_TABLES_PER_PLAN = 6;
 
 /**

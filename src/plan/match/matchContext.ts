@@ -30,7 +30,7 @@ export interface MatchContext {
   /** rect lattices: the aspects (b/a) to try, each a tiling of the square device cell */
   aspects?: readonly number[];
   /**
-   * rect lattices: how many fill tables (homogenize/rectCircleTable.ts, 1–5 s each) this plan may
+   * rect lattices: how many fill tables (homogenize/rectCircleTable.ts, 1–20 s each) this plan may
    * still solve; tables already solved cost nothing. Counted, so the result never depends on a clock.
    */
   rectTables?: { left: number };
