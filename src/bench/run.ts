@@ -6,6 +6,7 @@ const benches: { name: string; module: string; fn: string }[] = [
   { name: "tensor engine", module: "./fieldBench.js", fn: "fieldBench" },
   { name: "polygon regions (even-odd row fill)", module: "./polygonBench.js", fn: "polygonBench" },
   { name: "whole plan", module: "./planBench.js", fn: "planBench" },
+  { name: "rect-lattice fill tables (solved on first use)", module: "./rectTableBench.js", fn: "rectTableBench" },
   { name: "verify solver (sparse direct, nested dissection)", module: "./solverBench.js", fn: "solverBench" },
   { name: "verify of each demo (default accuracy)", module: "./verifyBench.js", fn: "verifyBench" },
   { name: "verify --sweep on worker threads", module: "./sweepBench.js", fn: "sweepBench" },

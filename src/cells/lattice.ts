@@ -20,6 +20,28 @@ export function cellAreaM2(pitchM: number, lattice: Lattice, aspect = 1): number
   return lattice === "rect" ? aspect * pitchM * pitchM : pitchM * pitchM;
 }
 
+/**
+ * Rect lattices a plan builds on its square device cells of pitch p: b/a = m/n with m, n ≤ 4, so a
+ * device cell holds m × n circles (spacing a = p/m along the lattice's x axis, b = p/n along y)
+ * and the drawing tiles exactly. The default set the planner tries (aspect 1 is the square lattice).
+ */
+export const PLAN_RECT_ASPECTS: readonly number[] = [1, 1 / 3, 1 / 2, 2 / 3, 3 / 2, 2, 3];
+const MAX_TILE = 4;
+
+/** m, n (≤ 4, lowest terms) with m/n = aspect, or null when no such tiling exists. */
+export function rectTiling(aspect: number): { m: number; n: number } | null {
+  for (let n = 1; n <= MAX_TILE; n++) {
+    for (let m = 1; m <= MAX_TILE; m++) {
+      if (Math.abs(m / n - aspect) <= 1e-9 * aspect) {
+        let a = m, b = n;
+        while (b) [a, b] = [b, a % b];
+        return { m: m / a, n: n / a };
+      }
+    }
+  }
+  return null;
+}
+
 /** Parse a lattice name given by the user; `where` names the flag or JSON path. */
 export function parseLattice(value: string, where: string): Lattice {
   if ((LATTICES as readonly string[]).includes(value)) return value as Lattice;

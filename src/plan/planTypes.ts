@@ -29,8 +29,10 @@ export interface PlanSettings {
   families: string[] | null;
   /** fabrication process id; null = no process limit (flagged in the report) */
   process: string | null;
-  /** lattice; null = every lattice the families support */
+  /** lattice; null = every lattice the families support except rect (rect only when asked for) */
   lattice: LatticeName | null;
+  /** rect lattices: the fixed aspect b/a (realization.aspect); null = the planner tries PLAN_RECT_ASPECTS */
+  aspect?: number | null;
   /** largest in-plane anisotropy ratio accepted (default 10) */
   maxAnisotropy: number;
   /** largest attenuation along the longest straight path, dB; null = not checked */
@@ -88,6 +90,11 @@ export interface Recipe {
   inclusion: string;
   lattice: LatticeName;
   /**
+   * rect lattices: b/a, the spacing along principal axis 2 over that along axis 1 (the lattice's x
+   * axis lies along axis 1); the device cell holds m × n circles (cells/lattice.ts rectTiling)
+   */
+  aspect?: number;
+  /**
    * Which way the recipe points, for anisotropic families: the axis of rods, holes, wires and
    * split rings, or a laminate's layer normal — "z", or the in-plane principal axis "1" (smaller
    * target) or "2" (larger target, at axis_deg from +x). null for isotropic families.
@@ -116,6 +123,14 @@ export interface Recipe {
   bandwidth: number | null;
   /** smallest feature of the cell (inclusion size or wall), metres */
   featureM: number;
+  /** pitch (a rect cell: its longer spacing) over the wavelength in the cell's densest material */
+  pitchRatio?: number;
+  /**
+   * rods and holes along z between λ/10 and λ/4 (runPlan.ts, match/bandCheck.ts): the lowest
+   * band's largest departure from its long-wavelength index, or its anisotropy; Infinity when the
+   * design frequency lies above the band edge
+   */
+  bandDeviation?: number;
   resonant: boolean;
   /** lower is better */
   score: number;
@@ -260,15 +275,22 @@ export interface Plan {
 
 /** One requirement the plan misses: its figure and the limit it should meet. */
 export interface MissedRequirement {
-  /** "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process" | "homogenization" */
+  /** "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process" | "homogenization" | "model-uncertainty" */
   what: RequirementName;
   value: number;
   limit: number;
   /** a plain sentence for people */
   text: string;
+  /** the levels (1-based) the miss is about, where it is about some levels only */
+  levels?: number[];
+  /**
+   * the worst figure behind a miss whose `value` is a count or fraction (homogenization: the worst
+   * band deviation against the tolerance, or the worst pitch ratio against λ/10), and its level
+   */
+  worst?: { figure: "band-deviation" | "pitch-ratio"; value: number; limit: number; level: number };
 }
 
-export type RequirementName = "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process" | "homogenization";
+export type RequirementName = "recipes" | "tolerance" | "loss" | "bandwidth" | "anisotropy" | "process" | "homogenization" | "model-uncertainty";
 
 export interface Verdict {
   buildable: boolean;
@@ -294,7 +316,7 @@ export interface PlanSummary {
   billOfMaterials: { material: string; cells: number; volumeM3: number; order: { quantity: number; unit: string; what: string } }[];
   outputs: string[];
   buildable: boolean;
-  verdict: { buildable: boolean; missed: { what: RequirementName; value: number; limit: number }[] };
+  verdict: { buildable: boolean; missed: { what: RequirementName; value: number; limit: number; levels?: number[]; worst?: MissedRequirement["worst"] }[] };
   /** remedies tried by re-planning, best first (absent when not looked for) */
   remedies?: {
     label: string;

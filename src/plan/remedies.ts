@@ -127,9 +127,9 @@ function pitchText(m: number): string {
 /**
  * Requirements in the order they decide between two verdicts: cells without a recipe first (a plan
  * that builds fewer cells is never "better" because the cells it dropped no longer miss anything),
- * then the error, the process, the loss, the bandwidth and the anisotropy.
+ * then the error, the process, the loss, the bandwidth, the anisotropy and the model uncertainty.
  */
-export const PRIORITY: readonly RequirementName[] = ["recipes", "tolerance", "process", "loss", "bandwidth", "anisotropy"];
+export const PRIORITY: readonly RequirementName[] = ["recipes", "tolerance", "process", "loss", "bandwidth", "anisotropy", "model-uncertainty"];
 
 /** How far past its limit each requirement is (0 when met), in PRIORITY order. */
 function severities(missed: readonly { what: string; value: number; limit: number }[]): number[] {
@@ -174,6 +174,7 @@ const UNIT: Record<RequirementName, (x: number) => string> = {
   anisotropy: (x) => `${Number(x.toPrecision(3))}`,
   process: (x) => `${x}`,
   homogenization: (x) => `${Number((x * 100).toPrecision(3))} % of cells coarse`,
+  "model-uncertainty": (x) => `${Number((x * 100).toPrecision(3))} % model uncertainty`,
 };
 
 /** "recipes: 432 → 0 cells without recipe (met); loss: 6.02 → 2.1 dB (met)". */

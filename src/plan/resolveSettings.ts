@@ -32,6 +32,7 @@ export function resolveSettings(design: SettingsSource, overrides: PlanOverrides
     families: rz.families ? [...rz.families] : null,
     process: rz.process ?? null,
     lattice: rz.lattice ?? null,
+    aspect: rz.aspect ?? null,
     maxAnisotropy: rz.maxAnisotropy ?? DEFAULT_MAX_ANISOTROPY,
     lossBudgetDb: rz.lossBudgetDb ?? null,
     bandwidth: rz.bandwidth ?? null,

@@ -3,6 +3,8 @@
  * flags → device-level figures. Pure (no files, no clock); the command line and the interactive
  * session both call `planFromField`.
  */
+import { PLAN_RECT_ASPECTS } from "../cells/lattice.js";
+import { RECT_TABLES_PER_PLAN } from "./match/levelCandidates.js";
 import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
 import { deviceScaleProblem } from "../core/physicalScale.js";
 import { isVolumeDevice } from "../field/isVolumeDevice.js";
@@ -183,6 +185,8 @@ export function planFromField(
     materialsChosen: settings.materials !== null,
     families,
     lattice: settings.lattice,
+    aspects: settings.lattice !== "rect" ? [] : settings.aspect ? [...new Set([settings.aspect, 1 / settings.aspect])] : PLAN_RECT_ASPECTS,
+    rectTables: { left: RECT_TABLES_PER_PLAN },
     process: settings.process === null ? null : catalogs.processes.find((p) => p.id === settings.process)!,
     bandwidth: settings.bandwidth,
     backgroundIndex: settings.backgroundIndex,
@@ -208,6 +212,7 @@ export function planFromField(
     if (!v) return;
     const pct = (x: number) => `${Number((100 * x).toPrecision(2))} %`;
     r.homogenization = v.status;
+    r.bandDeviation = v.band.inBand ? Math.max(v.band.deviation, v.band.anisotropy) : Infinity;
     r.notes = [...r.notes, v.band.inBand
       ? `band index ${v.band.index.map((x) => Number(x.toPrecision(4))).join(" / ")} (principal directions), ${pct(v.band.deviation)} from the long-wavelength value, anisotropy ${pct(v.band.anisotropy)}`
       : "the design frequency lies above the lowest band's edge: not homogenizable"];

@@ -26,6 +26,19 @@ describe("Levels screen verdict", () => {
   });
 });
 
+describe("Levels screen: model uncertainty", () => {
+  it("shows a model-uncertainty miss like the others, with its levels", () => {
+    const plan = syntheticPlan();
+    plan.verdict = { buildable: false, missed: [{ what: "model-uncertainty", value: 0.3, limit: 0.05, levels: [2, 3], text: "levels 2, 3 (9 cells): model uncertainty up to 30 %" }] };
+    const s0 = initialSessionState({ designPath: "/d/bend.json", outDir: "/d/out", sessionPath: "/d/out/session.json", mapArea: { width: 60, height: 10 } });
+    let s = sessionReducer(s0, { type: "designLoaded", base: SYNTHETIC_SETTINGS, options: { materials: [], families: [], processes: [] } });
+    s = sessionReducer(s, { type: "planReady", seq: 1, plan });
+    const frame = render(<LevelsScreen state={s} width={120} height={30} />).lastFrame() ?? "";
+    expect(frame).toContain("NOT buildable: missed model-uncertainty");
+    expect(frame).toContain("missed model-uncertainty: levels 2, 3 (9 cells): model uncertainty up to 30 %");
+  });
+});
+
 describe("Levels screen at 80 × 24 with a failing plan", () => {
   it("keeps the remedies on screen above six missed requirements, and the column titles apart", () => {
     const plan = syntheticPlan();

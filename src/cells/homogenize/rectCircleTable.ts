@@ -16,11 +16,17 @@
  * fill between them.
  *
  * Cost (measured on the shared 2-core machine): about 0.1 s a node for R ≤ 2 at n = 16, 1 s at
- * n = 32; a table of RECT_TABLE_NODES nodes 1.5–4 s (rectTableSeconds estimates it before building).
+ * n = 32; a table of RECT_TABLE_NODES nodes 1.0–2.8 s for R = 1.5…3 with the n = 16 ladder and
+ * 7.5–20 s with the n = 32 ladder (contrast 50) on a lightly loaded machine, several times that
+ * beside a test suite (`npm run bench`, rectTableBench.ts).
  * Error: the ladder's own estimate, floored by an envelope calibrated on the aspect-1 cell against
  * the shipped square table (itself calibrated on Perrins et al. 1979; tests/cells/homogenize/
- * rectCircleTable.test.ts measures the worst deviation per contrast), plus the spline's error
- * (measured off-node against direct solves in the same test).
+ * rectCircleTable.test.ts measures the worst deviation per contrast). Measured: aspect 1 within
+ * 6e-4…8e-4 of Perrins' closed form at f = 0.5 (contrast 10 and 0.1); Keller's theorem per
+ * component holds to 3.6e-4; the n = 16 ladder agrees with homogenizeCell's n = 32 ladder to
+ * 1.6e-3 at aspect 2. Between nodes the spline differs from direct solves by up to 2.7e-3 (holes in
+ * ε 8, aspect 2, fill 0.33 near the top of the table) — mostly the direct solves' own fill-to-fill
+ * jitter of the same size as their ladder estimate — inside the table's stated error (3.3e-3 there).
  */
 import { ProgrammerError } from "../../core/errors.js";
 import { cellFaces, cellWorkspace, solveCellProblem } from "./cellProblem.js";
@@ -156,18 +162,16 @@ export function buildRectTable(u: number, aspect: number): RectTable {
   };
 }
 
-/** Seconds a table is expected to take (for the caller's progress note): measured rates above. */
-export function rectTableSeconds(aspect: number): number {
-  const R = Math.max(aspect, 1 / aspect);
-  return 1.5 * R;
-}
-
 // Bounded cache of solved tables, keyed by contrast and aspect (pure: same inputs, same table).
 const CACHE_LIMIT = 48;
 const cache = new Map<string, RectTable>();
 
-/** The table of (u, aspect), solved on first use. */
+/**
+ * The table of (u, aspect), solved on first use. Aspects below 1 are the same cell turned by 90°:
+ * they share the table of 1/aspect (rectCircleValue swaps x and y), so R and 1/R cost one table.
+ */
 export function rectTable(u: number, aspect: number): RectTable {
+  if (aspect < 1) aspect = 1 / aspect;
   const key = `${u}|${aspect}`;
   let t = cache.get(key);
   if (!t) {
@@ -179,7 +183,7 @@ export function rectTable(u: number, aspect: number): RectTable {
 }
 
 /** True when the table of (u, aspect) is already solved (no cost to ask). */
-export const rectTableReady = (u: number, aspect: number): boolean => cache.has(`${u}|${aspect}`);
+export const rectTableReady = (u: number, aspect: number): boolean => aspect === 1 || cache.has(`${u}|${aspect < 1 ? 1 / aspect : aspect}`);
 
 export interface RectValue {
   xx: number;
@@ -193,15 +197,11 @@ export interface RectValue {
 /** F and ∂F/∂u along x and y at `fill` from the (u, aspect) table. */
 export function rectCircleValue(u: number, aspect: number, fill: number): RectValue {
   const t = rectTable(u, aspect);
+  const swap = aspect < 1;
   const inTable = fill >= 0 && fill <= t.maxFill + 1e-12;
   const f = Math.min(t.maxFill, Math.max(0, fill));
   const col = (k: "xx" | "yy" | "dxx" | "dyy") => t.nodes.map((n) => n[k]);
-  return {
-    xx: splineAt(t.fills, col("xx"), t.m2.xx, f),
-    yy: splineAt(t.fills, col("yy"), t.m2.yy, f),
-    dxx: splineAt(t.fills, col("dxx"), t.m2.dxx, f),
-    dyy: splineAt(t.fills, col("dyy"), t.m2.dyy, f),
-    error: t.error,
-    inTable,
-  };
+  const xx = splineAt(t.fills, col("xx"), t.m2.xx, f), yy = splineAt(t.fills, col("yy"), t.m2.yy, f);
+  const dxx = splineAt(t.fills, col("dxx"), t.m2.dxx, f), dyy = splineAt(t.fills, col("dyy"), t.m2.dyy, f);
+  return swap ? { xx: yy, yy: xx, dxx: dyy, dyy: dxx, error: t.error, inTable } : { xx, yy, dxx, dyy, error: t.error, inTable };
 }

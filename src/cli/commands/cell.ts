@@ -90,7 +90,7 @@ export const command: Command = {
     "  closed form is shown beside it. Between λ/10 and λ/4 the lowest band is solved (band index, spatial dispersion).",
     "--lattice rect --aspect R (rods-in-host, holes-in-slab): spacing P along x, R·P along y (R = 0.25…4); the field",
     "  across the rods has two values, perpendicular (along x) and perpendicular-y (along y), both solved (a fill",
-    "  table per material pair and aspect, solved on first use: 1–5 s). --axis perpendicular-y targets the y value.",
+    "  table per material pair and aspect, solved on first use: 1–20 s). --axis perpendicular-y targets the y value.",
     "--layer-*: the device is made in a film (core, thickness, below, above): the core is mixed with its slab mode",
     "  index (effective-index method; TE modes for a field across the circles, TM along them).",
     "wire-medium: --radius R and/or --target EPS (ε along the wires), --metal ID (default copper), --host ID (default air).",

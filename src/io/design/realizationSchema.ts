@@ -2,6 +2,7 @@
 import { z } from "zod";
 import { closest } from "../../core/errors.js";
 import { positiveQuantity } from "./quantitySchema.js";
+import { rectTiling } from "../../cells/lattice.js";
 
 export const LAYER_KEYS = ["core", "thickness", "below", "above"];
 
@@ -24,7 +25,14 @@ const shape = {
   families: z.array(z.string()).min(1).optional(),
   /** fabrication process id */
   process: z.string().optional(),
-  lattice: z.enum(["square", "hex", "cubic"]).optional(),
+  lattice: z.enum(["square", "hex", "rect", "cubic"]).optional(),
+  /**
+   * rect lattices: b/a, a ratio m/n of whole numbers up to 4 (m × n circles per device cell); absent:
+   * the planner tries 1, 1/3, 1/2, 2/3, 3/2, 2, 3 (cells/lattice.ts PLAN_RECT_ASPECTS)
+   */
+  aspect: z.number().positive().refine((v) => rectTiling(v) !== null, {
+    message: "expected a ratio m/n of whole numbers from 1 to 4 (m × n circles tile a square cell), e.g. 2, 0.5, 1.5 or 0.75",
+  }).optional(),
   /** largest number of distinct cell recipes */
   levels: z.number().int().min(1).max(256).optional(),
   /** largest relative error accepted on any target component */
@@ -54,6 +62,8 @@ function unknownKeysMessage(keys: readonly string[]): string {
 export const realizationSchema = z.strictObject(shape, {
   error: (issue) =>
     issue.code === "unrecognized_keys" ? unknownKeysMessage((issue as unknown as { keys: string[] }).keys) : undefined,
+}).superRefine((r, ctx) => {
+  if (r.aspect !== undefined && r.lattice !== "rect") ctx.addIssue({ code: "custom", path: ["aspect"], message: "an aspect applies to lattice \"rect\" only" });
 });
 
 export type RealizationSpec = z.infer<typeof realizationSchema>;

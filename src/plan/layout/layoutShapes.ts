@@ -16,9 +16,13 @@
  * rods, holes or wires lying in the plane; laminates stacked along z) have no one-polygon plan view
  * and are listed in `notDrawn` with the reason, never drawn wrong. Cells sit on the device's square
  * grid; a hexagonal-lattice recipe placed there keeps its dimensions, so its area fraction is its
- * fill × √3/2 (said in `notes`).
+ * fill × √3/2 (said in `notes`). A rect-lattice recipe (aspect m/n) tiles the cell exactly: m × n
+ * circles, spacing p/m along the lattice's x axis and p/n along y, the x axis along the grid axis
+ * (x or y) nearer the cell's principal axis 1 — snapped like laminates; the largest angle between
+ * a snapped axis and the principal axis it stands for is said in `notes`.
  */
 import type { Plan, Recipe } from "../planTypes.js";
+import { rectTiling } from "../../cells/lattice.js";
 
 export const CIRCLE_VERTICES = 64;
 
@@ -67,17 +71,41 @@ function rect(cx: number, cy: number, w: number, h: number): Float64Array {
   return Float64Array.from([cx - w / 2, cy - h / 2, cx + w / 2, cy - h / 2, cx + w / 2, cy + h / 2, cx - w / 2, cy + h / 2]);
 }
 
-/** How one level's recipe is drawn in a cell, or why it is not. */
-function shapeOf(r: Recipe, a: number): { draw: ((cx: number, cy: number, axisRad: number) => Float64Array) | null; what: string; fraction: number; reason?: string } {
+/** Does principal axis 1 (at axisRad + π/2; axisRad is axis 2's angle) lie nearer grid x than grid y? */
+const axis1AlongX = (axisRad: number): boolean => Math.abs(Math.cos(axisRad + Math.PI / 2)) >= Math.abs(Math.sin(axisRad + Math.PI / 2));
+
+/** Angle (rad) between principal axis 1 and the grid axis it is snapped to. */
+export function snapAngleRad(axisRad: number): number {
+  const t = axisRad + Math.PI / 2;
+  return Math.acos(Math.min(1, Math.max(Math.abs(Math.cos(t)), Math.abs(Math.sin(t)))));
+}
+
+/** How one level's recipe is drawn in a cell (one or more polygons), or why it is not. */
+function shapeOf(r: Recipe, a: number): { draw: ((cx: number, cy: number, axisRad: number) => Float64Array[]) | null; what: string; fraction: number; reason?: string } {
   const fab = r.family === "holes-in-slab" ? `air holes in ${r.host}` : `${r.inclusion || r.host}`;
   if (r.family === "solid") {
     if (GASES.has(r.host)) return { draw: null, what: r.host, fraction: 0, reason: `solid ${r.host}: an empty cell, nothing to draw` };
-    return { draw: (cx, cy) => rect(cx, cy, a, a), what: `solid ${r.host}`, fraction: 1 };
+    return { draw: (cx, cy) => [rect(cx, cy, a, a)], what: `solid ${r.host}`, fraction: 1 };
   }
   const radius = r.dimensions.radius_m;
   if ((r.family === "holes-in-slab" || r.family === "rods-in-host" || r.family === "wire-medium") && Number.isFinite(radius)) {
     if (r.orientation !== "z") return { draw: null, what: fab, fraction: 0, reason: `${r.family} lying in the plane (along ${r.orientation}) has no one-polygon plan view` };
-    return { draw: (cx, cy) => circle(cx, cy, radius), what: fab, fraction: (Math.PI * radius * radius) / (a * a) };
+    if (r.lattice === "rect") {
+      const t = r.aspect !== undefined ? rectTiling(r.aspect) : null;
+      if (!t) return { draw: null, what: fab, fraction: 0, reason: `rect-lattice recipe without a tiling aspect (${r.aspect})` };
+      return {
+        draw: (cx, cy, axisRad) => {
+          // m circles along the lattice's x axis (principal axis 1), n along y, snapped to the grid
+          const [mx, my] = axis1AlongX(axisRad) ? [t.m, t.n] : [t.n, t.m];
+          const out: Float64Array[] = [];
+          for (let j = 0; j < my; j++) for (let i = 0; i < mx; i++) out.push(circle(cx - a / 2 + ((i + 0.5) * a) / mx, cy - a / 2 + ((j + 0.5) * a) / my, radius));
+          return out;
+        },
+        what: `${fab} (rect lattice ${t.m} × ${t.n} per cell)`,
+        fraction: (t.m * t.n * Math.PI * radius * radius) / (a * a),
+      };
+    }
+    return { draw: (cx, cy) => [circle(cx, cy, radius)], what: fab, fraction: (Math.PI * radius * radius) / (a * a) };
   }
   if (r.family === "laminate" && Number.isFinite(r.dimensions.thickness_m)) {
     if (r.orientation === "z") return { draw: null, what: fab, fraction: 0, reason: "laminate stacked along z: uniform in the plan view" };
@@ -86,7 +114,7 @@ function shapeOf(r: Recipe, a: number): { draw: ((cx: number, cy: number, axisRa
       draw: (cx, cy, axisRad) => {
         // the layer normal is the principal axis (2 at axisRad, 1 across it), snapped to x or y
         const normal = r.orientation === "2" ? axisRad : axisRad + Math.PI / 2;
-        return Math.abs(Math.cos(normal)) >= Math.abs(Math.sin(normal)) ? rect(cx, cy, t, a) : rect(cx, cy, a, t);
+        return [Math.abs(Math.cos(normal)) >= Math.abs(Math.sin(normal)) ? rect(cx, cy, t, a) : rect(cx, cy, a, t)];
       },
       what: `${r.inclusion} layers in ${r.host}`,
       fraction: t / a,
@@ -109,6 +137,7 @@ export function planLayout(plan: Plan): Layout {
     else levels.push({ level: lv.index, what: s.what, polygons: [], areaFraction: s.fraction });
   });
   const byLevel = new Map(levels.map((x) => [x.level, x]));
+  let maxSnap = -1;
   for (let c = 0; c < g.count; c++) {
     const l = plan.level[c];
     if (l < 0) continue;
@@ -116,9 +145,13 @@ export function planLayout(plan: Plan): Layout {
     const s = shapes[l];
     if (!out || !s?.draw) continue;
     const cx = g.originXM + g.i[c] * a, cy = g.originYM + g.j[c] * a;
-    out.polygons.push({ cell: c + 1, cxM: cx, cyM: cy, xy: s.draw(cx, cy, plan.axisAngleRad[c]) });
+    for (const xy of s.draw(cx, cy, plan.axisAngleRad[c])) out.polygons.push({ cell: c + 1, cxM: cx, cyM: cy, xy });
+    if (plan.levels[l].recipe?.lattice === "rect") maxSnap = Math.max(maxSnap, snapAngleRad(plan.axisAngleRad[c]));
   }
   const notes: string[] = [];
+  if (maxSnap >= 0) {
+    notes.push(`rect-lattice cells are drawn with their lattice axes along the grid axes nearer the cells' principal axes: largest misalignment ${Number(((maxSnap * 180) / Math.PI).toPrecision(3))}° (the planned values assume none)`);
+  }
   if (plan.levels.some((lv) => lv.recipe?.lattice === "hex")) {
     notes.push("hexagonal-lattice recipes are drawn on the device's square grid with their own dimensions: their drawn area fraction is fill × √3/2");
   }

@@ -152,6 +152,7 @@ function printedShape(r: Recipe, a: number): { shape: PrintedShape | null; what:
   }
   if ((r.family === "rods-in-host" || r.family === "holes-in-slab") && Number.isFinite(dim("radius_m"))) {
     if (r.orientation !== "z") return { shape: null, what: r.family, fraction: 0, reason: `${r.family} lying in the plane (along ${r.orientation}): not drawn as a printed part yet` };
+    if (r.lattice === "rect") return { shape: null, what: r.family, fraction: 0, reason: `${r.family} on a rect lattice (several circles per cell): not drawn as a printed part yet (the 2D layouts draw it)` };
     const hole = r.family === "holes-in-slab" || incGas;
     if (hole && hostGas) return { shape: null, what: r.family, fraction: 0, reason: "gas in gas: nothing to print" };
     const area = Math.PI * dim("radius_m") ** 2 / (a * a);

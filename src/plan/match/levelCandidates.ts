@@ -20,6 +20,8 @@ import { largestErrors, relErr } from "../quantize/relativeError.js";
 import { solidCandidates } from "./solidCandidates.js";
 import type { Recipe } from "../planTypes.js";
 import { axisFor, orientationsFor, type Direction } from "./componentMapping.js";
+import { rectTableReady } from "../../cells/homogenize/rectCircleTable.js";
+import { rectTiling } from "../../cells/lattice.js";
 import type { EvaluatedMaterial, MatchContext } from "./matchContext.js";
 import { mixingSpread } from "./mixingSpread.js";
 
@@ -44,6 +46,16 @@ function dimensionsToColumns(dims: Record<string, number>): Record<string, numbe
     out[key] = v;
   }
   return out;
+}
+
+/**
+ * A rect recipe names its spacings along the principal axes (the lattice's x along 1, y along 2):
+ * `spacing1M`, `spacing2M` (build-list columns spacing1_m, spacing2_m); other recipes unchanged.
+ */
+function recipeDimensions(dims: Record<string, number>, pitchM: number): Record<string, number> {
+  if (dims.spacingYM === undefined) return dims;
+  const { spacingYM, ...rest } = dims;
+  return { ...rest, spacing1M: pitchM, spacing2M: spacingYM };
 }
 
 function refuse(s: LevelSearch, reason: string): void {
@@ -90,6 +102,7 @@ export function levelCandidates(target: number[], ctx: MatchContext): LevelSearc
       continue;
     }
     for (const lattice of lattices) {
+      if (lattice === "rect") { rectRecipes(search, target, ctx, family, dielectrics, epsIdx); continue; }
       for (const o of orientationsFor(family, inPlaneIsotropic)) {
         for (const host of dielectrics) {
           // the host is the continuous phase: a solid, or air around a self-supporting print
@@ -108,6 +121,43 @@ export function levelCandidates(target: number[], ctx: MatchContext): LevelSearc
     }
   }
   return dropFarOff(search, ctx.tolerance);
+}
+
+/** Fill tables a plan may solve for rect lattices (1–2 s each, 7–20 s for contrasts beyond 10^±1.5; see MatchContext). */
+export const RECT_TABLES_PER_PLAN = 6;
+
+/**
+ * Rods or holes along z on rect lattices (realization.lattice "rect"). For each material pair the
+ * aspect-1 lattice (the square table: free) is tried first; the other aspects only when it misses
+ * the level's target by more than a quarter of the tolerance (an anisotropic target the square
+ * lattice meets only roughly, if at all) and the pair reaches the target at aspect 1 at all. A pair's aspects R and 1/R share one
+ * solved table; a plan solves at most RECT_TABLES_PER_PLAN new ones (a counted refusal beyond).
+ */
+function rectRecipes(s: LevelSearch, target: number[], ctx: MatchContext, family: CellFamily, dielectrics: EvaluatedMaterial[], epsIdx: number[]): void {
+  const aspects = ctx.aspects ?? [];
+  for (const host of dielectrics) {
+    if (host.isFluid || host.material.class === "gas" && !GAS_HOST_FAMILIES.has(family.id)) continue;
+    for (const inc of dielectrics) {
+      if (inc === host) continue;
+      if (family.fabricatedPhase === "inclusion" && inc.material.class === "gas") continue;
+      const lo = Math.min(host.eps.re, inc.eps.re), hi = Math.max(host.eps.re, inc.eps.re);
+      if (epsIdx.some((k) => target[k] < lo * (1 - ctx.tolerance) || target[k] > hi * (1 + ctx.tolerance))) { refuse(s, "target outside the bounds of the material pair"); continue; }
+      const before = s.candidates.length;
+      if (aspects.includes(1)) mixed(s, target, ctx, family, "rect", "z", host, inc, epsIdx, 1);
+      const square = s.candidates.slice(before);
+      if (aspects.includes(1) && (square.length === 0 || square.every((c) => c.relError <= ctx.tolerance / 4))) continue;
+      const u = inc.eps.re / host.eps.re;
+      for (const aspect of aspects) {
+        if (aspect === 1) continue;
+        if (!rectTableReady(u, aspect) && u > 0 && Number.isFinite(u)) {
+          const budget = ctx.rectTables ?? { left: Infinity };
+          if (budget.left <= 0) { refuse(s, `rect lattice not solved: this plan's ${RECT_TABLES_PER_PLAN} fill tables are spent (allow fewer materials)`); continue; }
+          budget.left--;
+        }
+        mixed(s, target, ctx, family, "rect", "z", host, inc, epsIdx, aspect);
+      }
+    }
+  }
 }
 
 /**
@@ -137,13 +187,13 @@ function processReasons(ctx: MatchContext, family: CellFamily, host: EvaluatedMa
   return processCheckFor(ctx.process ?? undefined, family.fabricatedPhase, host.material.class, inc.material.class, { featureM, gapM })?.reasons ?? [];
 }
 
-function homogenization(ctx: MatchContext, phases: Complex[]): { status: "ok" | "warn" | "refuse"; ratio: number } {
+function homogenization(ctx: MatchContext, phases: Complex[], spacingM = ctx.pitchM): { status: "ok" | "warn" | "refuse"; ratio: number } {
   let nMax = 1;
   for (const e of phases) {
     const n = refractiveIndex(e).re;
     if (Number.isFinite(n) && n > nMax) nMax = n;
   }
-  return homogenizationCheck(ctx.pitchM, ctx.frequencyHz, nMax);
+  return homogenizationCheck(spacingM, ctx.frequencyHz, nMax);
 }
 
 /**
@@ -159,13 +209,20 @@ function indexIm(eps: Complex, mu: Complex): number {
   return Number.isFinite(n.im) ? Math.max(0, n.im) : 0;
 }
 
-/** A mixing family (or wire medium) with one fill fraction solved from one of the ε components. */
+/**
+ * A mixing family (or wire medium) with one fill fraction solved from one of the ε components.
+ * Rect lattices (`aspect` = b/a = m/n): the device cell of pitch p holds m × n circles, so the
+ * family's pitch is a = p/m and its y spacing b = p/n; the lattice's x axis lies along principal
+ * axis 1 (componentMapping.ts).
+ */
 function mixed(
   s: LevelSearch, target: number[], ctx: MatchContext, family: CellFamily, lattice: Lattice, o: Direction,
-  host: EvaluatedMaterial, inc: EvaluatedMaterial, epsIdx: number[],
+  host: EvaluatedMaterial, inc: EvaluatedMaterial, epsIdx: number[], aspect?: number,
 ): void {
   const comps = ctx.components;
-  const context = { pitchM: ctx.pitchM, frequencyHz: ctx.frequencyHz, conductivitySPerM: inc.material.conductivitySPerM };
+  const tiling = aspect !== undefined ? rectTiling(aspect) : null;
+  const pitchM = tiling ? ctx.pitchM / tiling.m : ctx.pitchM;
+  const context = { pitchM, frequencyHz: ctx.frequencyHz, conductivitySPerM: inc.material.conductivitySPerM, ...(aspect !== undefined ? { aspect } : {}) };
   // resonant families need a conducting inclusion (σ, or ωε₀·Im ε): refused here as a counted
   // reason, so that any error the family throws is a bug that reaches the user, not a skipped cell
   if (family.resonant && !((inc.material.conductivitySPerM ?? 0) > 0 || inc.eps.im > 0)) {
@@ -175,36 +232,60 @@ function mixed(
   let best: { fill: number; achieved: Complex[]; err: number } | null = null;
   let lastReason = "";
   for (const k of epsIdx) {
-    const axis = axisFor(family, o, comps[k].axis);
+    const axis = axisFor(family, o, comps[k].axis, lattice);
     const r = family.fillForTarget(host.eps, inc.eps, target[k], axis, lattice, context);
     if (!r.inRange || !Number.isFinite(r.fill)) { lastReason = r.reason ?? "fill fraction out of range"; continue; }
     const ap = family.effectivePermittivity(host.eps, inc.eps, r.fill, lattice, context);
-    const achieved = comps.map((c) => (c.kind === "eps" ? (axisFor(family, o, c.axis) === "parallel" ? ap.parallel : ap.perpendicular) : complex(1)));
+    const achieved = comps.map((c) => (c.kind === "eps" ? axisValue(ap, axisFor(family, o, c.axis, lattice)) : complex(1)));
     const err = largestErrors(achieved.map((a) => a.re), achieved.map((a) => a.im), target).rel;
     if (!best || err < best.err) best = { fill: r.fill, achieved, err };
   }
   if (!best) { refuse(s, lastReason ? `fill out of the family's range (${family.id})` : "no fill fraction found"); return; }
+  // rect lattices answer two in-plane targets with one fill: between the fills that meet each
+  // exactly, the fill that minimizes the larger error (golden section; each axis is monotone in
+  // the fill, so the larger error is quasi-convex between them)
+  if (lattice === "rect" && epsIdx.length > 1) {
+    const fills = epsIdx.map((k) => family.fillForTarget(host.eps, inc.eps, target[k], axisFor(family, o, comps[k].axis, lattice), lattice, context))
+      .filter((r) => r.inRange && Number.isFinite(r.fill)).map((r) => r.fill);
+    if (fills.length > 1) {
+      const at = (f: number) => {
+        const ap = family.effectivePermittivity(host.eps, inc.eps, f, lattice, context);
+        const achieved = comps.map((c) => (c.kind === "eps" ? axisValue(ap, axisFor(family, o, c.axis, lattice)) : complex(1)));
+        return { fill: f, achieved, err: largestErrors(achieved.map((a) => a.re), achieved.map((a) => a.im), target).rel };
+      };
+      let a = Math.min(...fills), b = Math.max(...fills);
+      const g = (Math.sqrt(5) - 1) / 2;
+      for (let it = 0; it < 60 && b - a > 1e-10; it++) {
+        const c = b - g * (b - a), d = a + g * (b - a);
+        if (at(c).err <= at(d).err) b = d;
+        else a = c;
+      }
+      const m = at(0.5 * (a + b));
+      if (m.err < best.err) best = m;
+    }
+  }
   const { fill, achieved, err } = best;
-  const feature = family.smallestFeatureM(fill, ctx.pitchM, lattice);
+  const feature = family.smallestFeatureM(fill, pitchM, lattice, aspect);
   const proc = processReasons(ctx, family, host, inc, feature.featureM, feature.gapM);
   if (proc.length) { refuse(s, `below the process limit: ${proc[0]}`); return; }
   const effs = epsIdx.map((k) => achieved[k]);
-  const h = homogenization(ctx, [...(inc.isMetal ? [] : [inc.eps]), host.eps, ...effs]);
+  // a rect cell is judged by its longer spacing (at most the device pitch)
+  const h = homogenization(ctx, [...(inc.isMetal ? [] : [inc.eps]), host.eps, ...effs], pitchM * Math.max(1, aspect ?? 1));
   if (h.status === "refuse") { refuse(s, "cell coarser than λ/4 in its densest material"); return; }
   // spread, loss and bandwidth along the dominant (first) ε component
   const dom = epsIdx[0];
-  const domAxis = axisFor(family, o, comps[dom].axis);
+  const domAxis = axisFor(family, o, comps[dom].axis, lattice);
   const ap = family.effectivePermittivity(host.eps, inc.eps, fill, lattice, context);
   // model uncertainty per targeted axis: the solver's error estimate on a solved axis, the
   // MG/Bruggeman spread on a closed-form axis, the cut-off's error on a wire axis
   let spread = 0;
   const notes: string[] = [];
   for (const k of epsIdx) {
-    const axis = axisFor(family, o, comps[k].axis);
+    const axis = axisFor(family, o, comps[k].axis, lattice);
     const rule = axisRule(ap, axis);
     const value = axisValue(ap, axis);
     const u = rule === "solved-cell" ? (axisSolvedError(ap, axis) ?? 0)
-      : rule === "wire-medium" ? wireUncertainty(value, host.eps, family.dimensionsFromFill(fill, ctx.pitchM, lattice).radiusM / ctx.pitchM)
+      : rule === "wire-medium" ? wireUncertainty(value, host.eps, family.dimensionsFromFill(fill, pitchM, lattice).radiusM / pitchM)
       : mixingSpread(rule, family.dimension, host.eps, inc.eps, fill);
     spread = Math.max(spread, Number.isFinite(u) ? u : 1);
     const closed = axisClosedForm(ap, axis);
@@ -214,10 +295,10 @@ function mixed(
     }
   }
   if (ap.unsolved) notes.push(`not solved (${ap.unsolved}): closed form used`);
-  const eDom = domAxis === "parallel" ? ap.parallel : ap.perpendicular;
+  const eDom = axisValue(ap, domAxis);
   let bandwidth: number | null = null;
   if (family.resonant) {
-    const wireIdx = epsIdx.find((k) => axisFor(family, o, comps[k].axis) === "parallel");
+    const wireIdx = epsIdx.find((k) => axisFor(family, o, comps[k].axis, lattice) === "parallel");
     if (wireIdx !== undefined) {
       const dims = family.dimensionsFromFill(fill, ctx.pitchM, lattice);
       const band = bandwidthWithinTolerance(
@@ -233,8 +314,9 @@ function mixed(
     host: host.material.id,
     inclusion: inc.material.id,
     lattice,
+    ...(aspect !== undefined ? { aspect } : {}),
     fillFraction: fill,
-    dimensions: dimensionsToColumns(family.dimensionsFromFill(fill, ctx.pitchM, lattice)),
+    dimensions: dimensionsToColumns(recipeDimensions(family.dimensionsFromFill(fill, pitchM, lattice, aspect), pitchM)),
     achieved: achieved.map((a) => a.re),
     achievedIm: achieved.map((a) => a.im),
     relError: err,
@@ -247,6 +329,7 @@ function mixed(
     score: 0,
     notes,
     homogenization: h.status,
+    pitchRatio: h.ratio,
     orientation: family.isotropic ? null : o,
   });
 }
@@ -334,6 +417,7 @@ function splitRing(
     score: 0,
     notes: design.reasons,
     homogenization: h.status,
+    pitchRatio: h.ratio,
     orientation: comps[mk].axis,
   });
 }

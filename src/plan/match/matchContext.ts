@@ -25,8 +25,15 @@ export interface MatchContext {
   /** true when the design (or an override) names the allowed materials; false: the whole catalog */
   materialsChosen: boolean;
   families: CellFamily[];
-  /** required lattice, or null for any the family supports */
+  /** required lattice, or null for any the family supports (rect only when required) */
   lattice: Lattice | null;
+  /** rect lattices: the aspects (b/a) to try, each a tiling of the square device cell */
+  aspects?: readonly number[];
+  /**
+   * rect lattices: how many fill tables (homogenize/rectCircleTable.ts, 1–20 s each) this plan may
+   * still solve; tables already solved cost nothing. Counted, so the result never depends on a clock.
+   */
+  rectTables?: { left: number };
   process: Process | null;
   /** required fractional bandwidth, or null */
   bandwidth: number | null;

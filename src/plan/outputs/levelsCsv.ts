@@ -17,7 +17,7 @@ export const RUNNERS_UP_SHOWN = 3;
 export function recipeLabel(r: Recipe): string {
   const mats = r.inclusion ? `${r.host}/${r.inclusion}` : r.host;
   const along = r.orientation === null ? "" : ` along ${r.orientation}`;
-  return `${r.family} ${mats} ${r.lattice}${along} f=${fmt(r.fillFraction, 3)} err=${r.relError < 1e-8 ? 0 : fmt(r.relError * 100, 2)}%`;
+  return `${r.family} ${mats} ${r.lattice}${r.aspect !== undefined ? ` ${Number(r.aspect.toPrecision(4))}` : ""}${along} f=${fmt(r.fillFraction, 3)} err=${r.relError < 1e-8 ? 0 : fmt(r.relError * 100, 2)}%`;
 }
 
 /** The whole levels.csv text (small: one row per level). */

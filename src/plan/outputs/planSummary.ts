@@ -21,7 +21,7 @@ export function planSummary(plan: Plan, outputs: string[]): PlanSummary {
     billOfMaterials: f.billOfMaterials.map((b) => ({ material: b.material, cells: b.cells, volumeM3: b.volume, order: { ...b.order } })),
     outputs,
     buildable: plan.buildable,
-    verdict: { buildable: plan.verdict.buildable, missed: plan.verdict.missed.map(({ what, value, limit }) => ({ what, value, limit })) },
+    verdict: { buildable: plan.verdict.buildable, missed: plan.verdict.missed.map(({ what, value, limit, levels, worst }) => ({ what, value, limit, ...(levels ? { levels: [...levels] } : {}), ...(worst && Number.isFinite(worst.value) ? { worst: { ...worst } } : {}) })) },
     ...(plan.remedies ? { remedies: plan.remedies.remedies.map((r) => ({ label: r.label, changes: r.changes, buildable: r.buildable, overrides: r.overrides, pitchM: r.pitchM, effects: r.effects.map(({ what, before, after, limit }) => ({ what, before, after, limit })) })) } : {}),
     polarization: plan.settings.polarization,
     scheme: plan.settings.scheme,

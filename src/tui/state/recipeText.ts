@@ -21,7 +21,8 @@ export function dimensionsText(dimensions: Record<string, number>): string {
 /** "rods-in-host: alumina-96 in ptfe, square, fill 32.0 %" */
 export function recipeHeadline(r: Recipe): string {
   const materials = r.inclusion ? `${r.inclusion} in ${r.host}` : r.host;
-  return `${r.family}: ${materials}, ${r.lattice}, fill ${formatPercent(r.fillFraction)}`;
+  const lattice = r.lattice === "rect" && r.aspect !== undefined ? `rect ${Number(r.aspect.toPrecision(3))}` : r.lattice;
+  return `${r.family}: ${materials}, ${lattice}, fill ${formatPercent(r.fillFraction)}`;
 }
 
 /** Several lines describing a recipe fully. */

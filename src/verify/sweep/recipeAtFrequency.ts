@@ -23,6 +23,8 @@ import { complex, type Complex } from "../../core/complex.js";
 import { getCellFamily } from "../../cells/registry.js";
 import { splitRingResponse, ringStyleFor, type SplitRingGeometry } from "../../cells/splitRing.js";
 import { evaluateMaterial, type Material } from "../../media/material.js";
+import { rectTiling } from "../../cells/lattice.js";
+import { axisValue } from "../../cells/cellFamily.js";
 import { axisFor } from "../../plan/match/componentMapping.js";
 import { SOLID_FAMILY, VACUUM_ID } from "../../plan/match/solidCandidates.js";
 import type { Plan, PlanLevel, Recipe, TargetComponent } from "../../plan/planTypes.js";
@@ -84,10 +86,12 @@ export function recipeAtFrequency(recipe: Recipe, ctx: RecipeContext, frequencyH
   const family = getCellFamily(recipe.family);
   const host = materialEps(ctx, recipe.host, frequencyHz);
   const inc = materialEps(ctx, recipe.inclusion, frequencyHz);
-  const context = { pitchM: ctx.pitchM, frequencyHz, conductivitySPerM: inc.material.conductivitySPerM };
+  // rect recipes: the device cell holds m × n circles (levelCandidates.ts), the family's pitch is p/m
+  const tiling = recipe.aspect !== undefined ? rectTiling(recipe.aspect) : null;
+  const context = { pitchM: tiling ? ctx.pitchM / tiling.m : ctx.pitchM, frequencyHz, conductivitySPerM: inc.material.conductivitySPerM, ...(recipe.aspect !== undefined ? { aspect: recipe.aspect } : {}) };
   const ap = family.effectivePermittivity(host.eps, inc.eps, recipe.fillFraction, recipe.lattice, context);
   const o = recipe.orientation ?? "z";
-  comps.forEach((c, k) => put(k, c.kind === "eps" ? (axisFor(family, o, c.axis) === "parallel" ? ap.parallel : ap.perpendicular) : complex(1)));
+  comps.forEach((c, k) => put(k, c.kind === "eps" ? axisValue(ap, axisFor(family, o, c.axis, recipe.lattice)) : complex(1)));
   return { re, im };
 }
 
