@@ -106,7 +106,7 @@ describe("verify --method auto (the default)", () => {
     expect(r.code, r.err).toBe(0);
     const s = JSON.parse(r.out);
     expect(s.method).toBe("fdfd");
-    expect(s.methodReason).toMatch(/auto: a beam-bend is not a radial device/);
+    expect(s.methodReason).toMatch(/auto: the beam-bend transform is not a radial device/);
     for (const c of s.cases.filter((x: { available: boolean }) => x.available)) expect(c.method).toBe("fdfd");
     const b = await run([CLOAK, "--json", "--resolution", "8", "--beam", "60 mm"]);
     expect(b.code, b.err).toBe(0);
