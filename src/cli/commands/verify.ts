@@ -23,6 +23,7 @@ import { carpetGround } from "../../verify/carpetGround.js";
 import { SPEED_OF_LIGHT_M_PER_S } from "../../core/physicalConstants.js";
 import { fieldSvg } from "../../verify/fieldSvg.js";
 import { formatFrequency, formatLength } from "../../verify/formatQuantity.js";
+import { formatPoint } from "../../core/formatQuantity.js";
 import type { Illumination } from "../../verify/illumination.js";
 import { DEFAULT_ACCURACY } from "../../verify/verifyDevice.js";
 import { METHOD_OPTIONS, runCheck, type CheckCase, type CheckResult, type MethodOption } from "../../verify/runCheck.js";
@@ -111,7 +112,7 @@ export function verifyTable(design: string, scheme: string, r: CheckResult): str
   const il = r.illumination;
   const ill = il.kind === "plane"
     ? `plane wave at ${f((il.angleRad * 180) / Math.PI)}° from +x`
-    : `Gaussian beam at ${f((il.angleRad * 180) / Math.PI)}°, waist ${formatLength(il.waistM)}, focus (${il.focusM.map((v) => formatLength(Math.abs(v) < 1e-9 * il.waistM ? 0 : v)).join(", ")})`;
+    : `Gaussian beam at ${f((il.angleRad * 180) / Math.PI)}°, waist ${formatLength(il.waistM)}, focus ${formatPoint(il.focusM)}`;
   const ladder = r.resolutions.length > 1 ? `ladder ${r.resolutions.join(", ")} points per wavelength, extrapolated (accuracy ${pct(r.accuracy)})` : r.resolutions.length === 1 ? `one grid at ${r.resolutions[0]} points per wavelength` : `accuracy ${pct(r.accuracy)}`;
   const solver = r.method === "radial" ? "exact radial solver (no grid)" : r.method === "fdfd" ? "FDFD" : "exact radial solver and FDFD";
   return [
