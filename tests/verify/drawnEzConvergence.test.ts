@@ -16,7 +16,6 @@
  *   (k a)², so halving the cell divides it by about 4.
  */
 import { describe, expect, it } from "vitest";
-import type { DeviceGrid } from "../../src/field/deviceGrid.js";
 import type { Plan, Recipe } from "../../src/plan/planTypes.js";
 import { cylinderSeries, seriesScatteringWidth } from "../../src/verify/cylinderSeries.js";
 import { gridForWindow } from "../../src/verify/fdfdGrid.js";
@@ -25,23 +24,15 @@ import { crossSections, fluxBox } from "../../src/verify/metrics.js";
 import { richardson } from "../../src/verify/richardson.js";
 import type { Scene } from "../../src/verify/scene.js";
 import { solveScene } from "../../src/verify/solve.js";
+import { squareDeviceGrid } from "../helpers/squareDeviceGrid.js";
 
 const k0 = 2 * Math.PI; // λ0 = 1 m
-
-function latticeGrid(n: number, pitchM: number): DeviceGrid {
-  const count = n * n;
-  const o = -((n - 1) / 2) * pitchM;
-  const g: DeviceGrid = { dimension: 2, pitchM, nx: n, ny: n, nz: 1, originXM: o, originYM: o, originZM: 0, count,
-    i: new Int32Array(count), j: new Int32Array(count), k: new Int32Array(count), xM: new Float64Array(count), yM: new Float64Array(count), zM: new Float64Array(count) };
-  for (let c = 0; c < count; c++) { g.i[c] = c % n; g.j[c] = Math.floor(c / n); g.xM[c] = o + g.i[c] * pitchM; g.yM[c] = o + g.j[c] * pitchM; }
-  return g;
-}
 
 const material = (eps: number): BulkMaterial => ({ eps: { re: eps, im: 0 }, mu: { re: 1, im: 0 }, isMetal: false });
 
 /** A drawn plan: n × n cells of one recipe (rods or holes along z, square lattice). */
 function drawn(family: "rods-in-host" | "holes-in-slab", n: number, pitchM: number, radiusM: number, host: number, inclusion: number, background: number): Scene {
-  const grid = latticeGrid(n, pitchM);
+  const grid = squareDeviceGrid(n, pitchM);
   const recipe = { family, host: "host", inclusion: "inc", lattice: "square", orientation: "z", fillFraction: 0, dimensions: { radius_m: radiusM }, achieved: [1, 1, 1], achievedIm: [0, 0, 0] } as unknown as Recipe;
   const plan = { grid, level: new Int32Array(grid.count), levels: [{ index: 1, recipe } as Plan["levels"][number]], axisAngleRad: new Float64Array(grid.count) };
   const d = geometryScene({ plan, materials: new Map([["host", material(host)], ["inc", material(inclusion)]]), polarization: "Ez", background: { eps: background, mu: 1 }, hidden: null });

@@ -139,7 +139,7 @@ describe("the drawn scene's exact box make-up (boxParts)", () => {
   it("gives every material's area fraction in a box as point sampling of the same scene does (200 × 200 points), and covers whole discs in its bounds", () => {
     // 6 × 6 cells: rods on a square lattice, holes on the hexagonal lattice, layers, solid cells and cells without a recipe
     const a = 1e-3, n = 6;
-    const grid = squareGrid(n, a);
+    const grid = squareDeviceGrid(n, a);
     const mats = new Map<string, BulkMaterial>([
       ["h1", { eps: { re: 2.1, im: 0 }, mu: { re: 1, im: 0 }, isMetal: false }], ["r1", { eps: { re: 9.6, im: 0.1 }, mu: { re: 1, im: 0 }, isMetal: false }],
       ["h2", { eps: { re: 4, im: 0 }, mu: { re: 1, im: 0 }, isMetal: false }], ["r2", { eps: { re: 1.5, im: 0 }, mu: { re: 1, im: 0 }, isMetal: false }],
