@@ -8,12 +8,12 @@
  *
  * The 2D solver needs cells that do not vary along z, so only these are drawn:
  * - rods and holes along z (`orientation` z): a disc of the recipe's radius; square-lattice recipes
- *   at their cell centres, hexagonal-lattice ones on the sites of the hexagonal lattice of their
- *   pitch (src/plan/layout/hexSites.ts: one site per (√3/2)·a², each with the recipe of the cell it
- *   falls in), so the drawn area fraction is the recipe's fill in both cases. (The layout files
- *   still place hexagonal recipes one per square cell, area fraction fill × √3/2 — layoutShapes.ts.)
- *   Discs that touch or overlap anywhere (also where square and hexagonal regions meet) are
- *   refused; other lattices (rectangular) are refused by name;
+ *   at their cell centres, hexagonal-lattice ones on the built sites of the hexagonal lattice of
+ *   their pitch (src/plan/layout/planHexSites.ts: one site per (√3/2)·a², each with the recipe of
+ *   the cell containing it, sites whose share would cross the outline or reach a cell of another
+ *   kind left out), so the drawn area fraction is the recipe's fill in both cases — the very sites
+ *   the layout files draw. Discs that touch or overlap anywhere are refused (a safeguard: the
+ *   sites' edge rule keeps them apart); other lattices (rectangular) are refused by name;
  * - laminates whose layer normal lies in the plane: one layer of thickness `thickness_m` across the
  *   cell, its normal along x or y (the lattice axis nearer the cell's principal axis, as the layout);
  * - solid cells: the cell square of the material.
@@ -32,7 +32,8 @@
 import type { Complex } from "../core/complex.js";
 import type { Plan, Recipe } from "../plan/planTypes.js";
 import { diskConductor, type Conductor } from "./conductor.js";
-import { HEX_ROW, hexSites, nearestHexSite } from "../plan/layout/hexSites.js";
+import { HEX_ROW, builtSiteAt, nearestHexSite, type HexSites } from "../plan/layout/hexSites.js";
+import { droppedSitesNote, planHexSites, type PlanHexSites } from "../plan/layout/planHexSites.js";
 import type { DeviceGrid } from "../field/deviceGrid.js";
 import { deviceBounds, latticeLookup, type HiddenDisk } from "./deviceScene.js";
 import { discRectArea } from "./discRectArea.js";
@@ -98,9 +99,9 @@ const K_NONE = 0, K_SOLID = 1, K_DISC = 2, K_LAYER = 3, K_HEX_DISC = 4;
 
 interface DiscCentres { x: Float64Array; y: Float64Array; cell: Int32Array; hexCount: number }
 
-/** Centres of every drawn disc: square-lattice discs at their cell centres, hexagonal ones on the sites of their cells (hexSites.ts). */
-function discCentres(g: DeviceGrid, lut: Int32Array, kindOf: Uint8Array): DiscCentres {
-  const hex = hexSites(g, lut, (c) => kindOf[c] === K_HEX_DISC);
+/** Centres of every drawn disc: square-lattice discs at their cell centres, hexagonal ones on the built sites (planHexSites.ts). */
+function discCentres(g: DeviceGrid, hexSites: PlanHexSites | null, kindOf: Uint8Array): DiscCentres {
+  const hex = hexSites?.sites ?? { xM: new Float64Array(0), yM: new Float64Array(0), cell: new Int32Array(0) };
   let sq = 0;
   for (let c = 0; c < g.count; c++) if (kindOf[c] === K_DISC) sq++;
   const m = sq + hex.cell.length;
@@ -207,8 +208,9 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
     const th = plan.axisAngleRad[c], nrm = r.orientation === "2" ? th : th + Math.PI / 2;
     normalX[c] = Math.abs(Math.cos(nrm)) >= Math.abs(Math.sin(nrm)) ? 1 : 0;
   }
-  // the discs as built: square-lattice recipes at their cell centres, hexagonal ones on the hexagonal sites
-  const discs = discCentres(g, lut, kindOf);
+  // the discs as built: square-lattice recipes at their cell centres, hexagonal ones on the built hexagonal sites
+  const hexPlan = hexLevels.size ? planHexSites(plan) : null;
+  const discs = discCentres(g, hexPlan, kindOf);
   const wall = narrowestWall(discs, size, a);
   if (wall.value <= 0) {
     const [x, y] = wall.at;
@@ -216,9 +218,9 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
   }
   feature = Math.min(feature, wall.value);
   if (!Number.isFinite(feature)) feature = a; // solid cells only: the cell is the feature
-  // the cells' box, grown to every disc: a hexagonal site near the device's edge stands up to half a
-  // pitch from its cell's centre, so its disc reaches past the cells' box (the grid samples only
-  // inside the bounds; a clipped disc would lose a share that changes with the grid step)
+  // the cells' box, grown to every disc (the grid samples only inside the bounds; a clipped disc
+  // would lose a share that changes with the grid step — it did, before hexagonal sites were kept
+  // inside the outline, by 4 % of σ in Ez)
   const bounds = deviceBounds(g);
   for (let k = 0; k < discs.cell.length; k++) {
     const r = size[discs.cell[k]];
@@ -234,10 +236,11 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
   }
   const ox = g.originXM, oy = g.originYM;
   const ez = polarization === "Ez";
-  const anyHex = hexLevels.size > 0, site = new Float64Array(2);
+  const anyHex = hexPlan !== null, nm = new Int32Array(2);
+  const hexBuilt = hexPlan?.sites;
   let rHexMax = 0;
   for (let c = 0; c < n; c++) if (kindOf[c] === K_HEX_DISC) rHexMax = Math.max(rHexMax, size[c]);
-  const boxParts = exactBoxParts({ g, lut, kindOf, size, normalX, inside, outside, conductors, ez, background: input.background, rHexMax });
+  const boxParts = exactBoxParts({ g, lut, kindOf, size, normalX, inside, outside, conductors, ez, background: input.background, rHexMax, hexBuilt });
   const scene: Scene = {
     polarization,
     background: input.background,
@@ -247,12 +250,12 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
       for (const cd of conductors) if (cd.signedDistanceM(x, y) < 0) return SAMPLE_PEC;
       let c = -1, within = false;
       if (anyHex) {
-        // a hexagonal-lattice disc: the nearest site, if its cell stands on that lattice and the point is within its radius
-        nearestHexSite(x, y, ox, oy, a, site);
-        const si = Math.round((site[0] - ox) / a), sj = Math.round((site[1] - oy) / a);
-        const sc = si >= 0 && sj >= 0 && si < g.nx && sj < g.ny ? lut[si + g.nx * sj] : -1;
-        if (sc >= 0 && kindOf[sc] === K_HEX_DISC) {
-          const dx = x - site[0], dy = y - site[1];
+        // a hexagonal-lattice disc: the nearest site, if it is built and the point is within its radius
+        nearestHexSite(g, x, y, nm);
+        const k = builtSiteAt(hexBuilt!, nm[0], nm[1]);
+        if (k >= 0) {
+          const sc = hexBuilt!.cell[k];
+          const dx = x - hexBuilt!.xM[k], dy = y - hexBuilt!.yM[k];
           if (dx * dx + dy * dy < size[sc] * size[sc]) { c = sc; within = true; }
         }
       }
@@ -278,10 +281,12 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
     boxParts,
   };
   const notes: string[] = [];
-  if (anyHex) {
+  if (hexPlan) {
     let hexCells = 0;
     for (let c = 0; c < n; c++) if (kindOf[c] === K_HEX_DISC) hexCells++;
-    notes.push(`realized-geometry: hexagonal-lattice recipes (levels ${[...hexLevels].map((l) => plan.levels[l].index).join(", ")}) are drawn on the hexagonal lattice of their pitch (${discs.hexCount} sites where their ${hexCells} cells' area holds ${(hexCells / HEX_ROW).toFixed(1)}: the rows do not tile the outline exactly), each site with the recipe of the cell it falls in; the layout files still place them one per square cell (area fraction fill × √3/2)`);
+    notes.push(`realized-geometry: hexagonal-lattice recipes (levels ${[...hexLevels].map((l) => plan.levels[l].index).join(", ")}) are drawn on the hexagonal lattice of their pitch anchored on the grid's centre (${discs.hexCount} sites built where their ${hexCells} cells' area holds ${(hexCells / HEX_ROW).toFixed(1)}), each site with the recipe of the cell containing it — the sites of the layout files`);
+    const dropped = droppedSitesNote(hexPlan, plan);
+    if (dropped) notes.push(`realized-geometry: ${dropped}`);
   }
   return { ok: true, scene, smallestFeatureM: feature, indexHint: index, notes };
 }
@@ -298,6 +303,8 @@ interface BoxPartsInput {
   ez: boolean;
   background: { eps: number; mu: number };
   rHexMax: number;
+  /** the built hexagonal sites (planHexSites.ts), if any */
+  hexBuilt: HexSites | undefined;
 }
 
 /** Most hexagonal discs that can reach one box (h ≤ a/8: the nearest site and its neighbours). */
@@ -312,8 +319,9 @@ const MAX_BOX_DISCS = 16;
  * (sample() then clips it at the nearest-site boundary, which this exact split does not).
  */
 function exactBoxParts(p: BoxPartsInput): ((x: number, y: number, h: number, out: Float64Array) => number) | undefined {
-  const { g, lut, kindOf, size, normalX, inside, outside, conductors, ez, background, rHexMax } = p;
-  const a = g.pitchM, ox = g.originXM, oy = g.originYM, row = a * HEX_ROW;
+  const { g, lut, kindOf, size, normalX, inside, outside, conductors, ez, background, rHexMax, hexBuilt } = p;
+  const a = g.pitchM, ox = g.originXM, oy = g.originYM;
+  const nm = new Int32Array(2);
   if (rHexMax >= a / 2) return undefined;
   const partKind = new Uint8Array(BOX_MAX_PARTS), partMat = new Float64Array(4 * BOX_MAX_PARTS), partArea = new Float64Array(BOX_MAX_PARTS);
   const bg = new Float64Array([background.eps, 0, background.mu, 0]);
@@ -336,15 +344,14 @@ function exactBoxParts(p: BoxPartsInput): ((x: number, y: number, h: number, out
     np = 0; overflow = false;
     // hexagonal discs that reach the box
     let nh = 0;
-    if (rHexMax > 0) {
-      const reach = rHexMax + 0.75 * h;
-      for (let m = Math.floor((yc - reach - oy) / row); m <= Math.ceil((yc + reach - oy) / row); m++) {
-        const sy = oy + m * row, shift = (m & 1) === 0 ? 0 : 0.5;
-        for (let q = Math.floor((xc - reach - ox) / a - shift); q <= Math.ceil((xc + reach - ox) / a - shift); q++) {
-          const sx = ox + (q + shift) * a;
-          const c = cellAt(Math.round((sx - ox) / a), Math.round((sy - oy) / a));
-          if (c < 0 || kindOf[c] !== K_HEX_DISC) continue;
-          const r = size[c];
+    if (hexBuilt && rHexMax > 0) {
+      // sites within a/√3 + r + h of the box's centre: the nearest one's rows ±1, columns ±2
+      nearestHexSite(g, xc, yc, nm);
+      for (let m = nm[1] - 1; m <= nm[1] + 1; m++) {
+        for (let q = nm[0] - 2; q <= nm[0] + 2; q++) {
+          const k = builtSiteAt(hexBuilt, q, m);
+          if (k < 0) continue;
+          const sx = hexBuilt.xM[k], sy = hexBuilt.yM[k], c = hexBuilt.cell[k], r = size[c];
           const dx = Math.max(x0 - sx, 0, sx - x1), dy = Math.max(y0 - sy, 0, sy - y1);
           if (dx * dx + dy * dy >= r * r) continue;
           if (nh === MAX_BOX_DISCS) return 0;
