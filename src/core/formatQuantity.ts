@@ -21,6 +21,17 @@ export function formatLength(m: number, number: (v: number) => string = (v) => s
   return `${number(m * 1e12)} pm`;
 }
 
+/**
+ * A point in the unit of its larger coordinate; a coordinate below 1e-9 of the larger one prints
+ * as 0. Example: formatPoint([0.04, 1e-18]) → "(40 mm, 0 mm)"; formatPoint([0, 0]) → "(0 m, 0 m)"
+ */
+export function formatPoint(pointM: readonly number[]): string {
+  const big = Math.max(...pointM.map(Math.abs));
+  if (!Number.isFinite(big)) return `(${pointM.map(() => "—").join(", ")})`;
+  const [scale, unit] = big === 0 ? [1, "m"] : LENGTH_UNITS.find(([sc]) => big >= sc) ?? [1e-12, "pm"];
+  return `(${pointM.map((v) => `${significant(Math.abs(v) < 1e-9 * big ? 0 : v / scale, 3)} ${unit}`).join(", ")})`;
+}
+
 /** Example: formatFrequency(1.05e10) → "10.5 GHz"; formatFrequency(1.934e14) → "193 THz" */
 export function formatFrequency(hz: number, number: (v: number) => string = (v) => significant(v, 3)): string {
   if (!Number.isFinite(hz)) return "—";

@@ -13,6 +13,7 @@
  * per candidate, at most MAX_TRIES candidates (about as long as MAX_TRIES plans of the design).
  */
 import { CELL_FAMILIES } from "../cells/registry.js";
+import { InputError } from "../core/errors.js";
 import { REDUCTION_SCHEMES } from "../reduce/schemes/registry.js";
 import { REDUCTION_SCHEME_NAMES } from "../reduce/schemes/schemeNames.js";
 import { MAX_LEVELS, type MissedRequirement, type Plan, type PlanOverrides, type RequirementName, type SchemeName } from "./planTypes.js";
@@ -201,8 +202,11 @@ export function findRemedies(plan: Plan, replan: Replan, shouldStop: () => boole
     let next: Plan | null;
     try {
       next = replan(change);
-    } catch {
-      next = null; // a change the design cannot take (e.g. a scheme that does not apply): not offered
+    } catch (err) {
+      // A change the design cannot take (a scheme that does not apply, a pitch whose grid is too
+      // large) is an InputError: not offered. Anything else is a bug and must surface.
+      if (!(err instanceof InputError)) throw err;
+      next = null;
     }
     tried++;
     if (!next || !betterThan(next.verdict.missed, before)) continue;

@@ -205,6 +205,7 @@ export function planFromField(
   const perLevel: Candidate[][] = searches.map((s) => s.candidates);
   const chosen = chooseRecipes(perLevel, settings.tolerance);
   // the coarse flag of a chosen rod or hole recipe between λ/10 and λ/4 rests on its lowest band
+  // (square, hex and rect lattices: match/bandCheck.ts)
   chosen.forEach((k, l) => {
     const r = k >= 0 ? perLevel[l][k] : null;
     if (!r || r.homogenization !== "warn") return;
@@ -212,9 +213,11 @@ export function planFromField(
     if (!v) return;
     const pct = (x: number) => `${Number((100 * x).toPrecision(2))} %`;
     r.homogenization = v.status;
-    r.bandDeviation = v.band.inBand ? Math.max(v.band.deviation, v.band.anisotropy) : Infinity;
+    r.bandDeviation = v.band.inBand ? Math.max(v.band.deviation, v.band.excessAnisotropy) : Infinity;
     r.notes = [...r.notes, v.band.inBand
-      ? `band index ${v.band.index.map((x) => Number(x.toPrecision(4))).join(" / ")} (principal directions), ${pct(v.band.deviation)} from the long-wavelength value, anisotropy ${pct(v.band.anisotropy)}`
+      ? r.lattice === "rect"
+        ? `band index ${v.anchored.index.map((x) => Number(x.toPrecision(4))).join(" / ")} (${v.band.directions.join(", ")}; long-wavelength ${v.anchored.quasiStaticIndex.map((x) => Number(x.toPrecision(4))).join(" / ")}), up to ${pct(v.band.deviation)} from the long-wavelength values, added anisotropy ${pct(v.band.excessAnisotropy)}`
+        : `band index ${v.anchored.index.map((x) => Number(x.toPrecision(4))).join(" / ")} (principal directions), ${pct(v.band.deviation)} from the long-wavelength value, anisotropy ${pct(v.band.anisotropy)}`
       : "the design frequency lies above the lowest band's edge: not homogenizable"];
   });
   const levels: PlanLevel[] = q.centres.map((centre, l) => {

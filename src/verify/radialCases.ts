@@ -53,7 +53,7 @@ export function radialGeometry(spec: TransformSpec): { centreM: [number, number]
   if (spec.kind === "radial-cloak") return { centreM: spec.center ?? [0, 0], coreRadiusM: spec.innerRadiusM, outerRadiusM: spec.outerRadiusM, pecCore: true };
   if (spec.kind === "concentrator") return { centreM: spec.center ?? [0, 0], coreRadiusM: spec.innerRadiusM, outerRadiusM: spec.outerRadiusM, pecCore: false };
   if (spec.kind === "rotator") return { reason: "a rotator's tensor is not diagonal in the polar basis (it couples r and θ); use the finite-difference method" };
-  return { reason: `a ${spec.kind} is not a radial device; use the finite-difference method` };
+  return { reason: `the ${spec.kind} transform is not a radial device; use the finite-difference method` };
 }
 
 /** The homogeneous core of `scene` at r < coreRadius (sampled at half the radius), or why it is not one. */

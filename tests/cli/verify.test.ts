@@ -106,7 +106,7 @@ describe("verify --method auto (the default)", () => {
     expect(r.code, r.err).toBe(0);
     const s = JSON.parse(r.out);
     expect(s.method).toBe("fdfd");
-    expect(s.methodReason).toMatch(/auto: a beam-bend is not a radial device/);
+    expect(s.methodReason).toMatch(/auto: the beam-bend transform is not a radial device/);
     for (const c of s.cases.filter((x: { available: boolean }) => x.available)) expect(c.method).toBe("fdfd");
     const b = await run([CLOAK, "--json", "--resolution", "8", "--beam", "60 mm"]);
     expect(b.code, b.err).toBe(0);
@@ -120,6 +120,28 @@ describe("verify --method auto (the default)", () => {
       expect(c.lobes.reduce((a: number, l: { share: number }) => a + l.share, 0)).toBeLessThanOrEqual(1 + 1e-9);
     }
     for (const c of s.cases.filter((x: { available: boolean }) => x.available)) expect(c.lobes).toBeNull();
+  });
+
+  it("--beam places the focus across the beam by the offset and along it by the shift; malformed lists are refused", async () => {
+    const base = await run([BEND, "--json", "--resolution", "6", "--beam", "40 mm"]);
+    expect(base.code, base.err).toBe(0);
+    const moved = await run([BEND, "--json", "--resolution", "6", "--angle", "30", "--beam", "40 mm, 5 mm, -30 mm"]);
+    expect(moved.code, moved.err).toBe(0);
+    const [cx, cy] = JSON.parse(base.out).illumination.focusM as number[];
+    const ill = JSON.parse(moved.out).illumination;
+    expect(ill.waistM).toBe(0.04);
+    // identity: focus = centre + D·(−sin φ, cos φ) + S·(cos φ, sin φ), φ = 30°
+    const phi = Math.PI / 6;
+    expectClose(ill.focusM[0], cx - 0.005 * Math.sin(phi) - 0.03 * Math.cos(phi), { rel: 1e-12, abs: 1e-15, label: "focus x" });
+    expectClose(ill.focusM[1], cy + 0.005 * Math.cos(phi) - 0.03 * Math.sin(phi), { rel: 1e-12, abs: 1e-15, label: "focus y" });
+    const human = await run([BEND, "--resolution", "6", "--beam", "40 mm, 0 mm, -30 mm"]);
+    expect(human.code, human.err).toBe(0);
+    expect(human.out).toMatch(/Gaussian beam at 0°, waist 40 mm, focus \(/);
+    for (const bad of ["40 mm, , 3 mm", "40 mm, 1 mm, 2 mm, 3 mm", "40 mm,"]) {
+      const r = await run([BEND, "--resolution", "6", "--beam", bad]);
+      expect(r.code, bad).toBe(1);
+      expect(r.err).toMatch(/--beam: expected 'WAIST', 'WAIST, OFFSET' or 'WAIST, OFFSET, SHIFT'/);
+    }
   });
 
   it("a radial cloak with a realization: bare, ideal and reduced exact, the realized map (square cells) on the grid beside a grid bare object", async () => {

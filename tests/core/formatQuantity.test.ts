@@ -1,6 +1,6 @@
 /** One formatter for lengths and frequencies: unit choice, digits, and no NaN/Infinity (identities, SI prefixes). */
 import { describe, it, expect } from "vitest";
-import { formatFrequency, formatLength, significant } from "../../src/core/formatQuantity.js";
+import { formatFrequency, formatLength, formatPoint, significant } from "../../src/core/formatQuantity.js";
 
 describe("formatQuantity", () => {
   it("picks the readable SI unit", () => {
@@ -23,5 +23,11 @@ describe("formatQuantity", () => {
     }
     expect(formatLength(0)).toBe("0 m");
     expect(formatLength(-0)).toBe("0 m");
+  });
+  it("writes a point in the unit of its larger coordinate", () => {
+    expect(formatPoint([0.04, 1e-18])).toBe("(40 mm, 0 mm)");
+    expect(formatPoint([-2.5e-6, 0.0004])).toBe("(-2.5 µm, 400 µm)");
+    expect(formatPoint([0, 0])).toBe("(0 m, 0 m)");
+    expect(formatPoint([NaN, 1])).toBe("(—, —)");
   });
 });

@@ -27,6 +27,7 @@ import { mapFromPlan } from "../../src/verify/materialMap.js";
 import { richardson } from "../../src/verify/richardson.js";
 import type { Scene } from "../../src/verify/scene.js";
 import { verifyDevice, type CaseSpec } from "../../src/verify/verifyDevice.js";
+import { squareDeviceGrid } from "../helpers/squareDeviceGrid.js";
 
 const C0 = 299_792_458;
 const f = 10e9, lambda = C0 / f;
@@ -37,14 +38,6 @@ const materials = new Map<string, BulkMaterial>([
   ["rod", { eps: { re: EPS_ROD, im: 0 }, mu: { re: 1, im: 0 }, isMetal: false }],
 ]);
 
-function squareGrid(n: number, pitchM: number): DeviceGrid {
-  const count = n * n;
-  const g: DeviceGrid = { dimension: 2, pitchM, nx: n, ny: n, nz: 1, originXM: -((n - 1) / 2) * pitchM, originYM: -((n - 1) / 2) * pitchM, originZM: 0, count,
-    i: new Int32Array(count), j: new Int32Array(count), k: new Int32Array(count), xM: new Float64Array(count), yM: new Float64Array(count), zM: new Float64Array(count) };
-  for (let c = 0; c < count; c++) { g.i[c] = c % n; g.j[c] = Math.floor(c / n); g.xM[c] = g.originXM + g.i[c] * pitchM; g.yM[c] = g.originYM + g.j[c] * pitchM; }
-  return g;
-}
-
 /** Perrins, McKenzie & McPhedran 1979, square array, field across the rods (see file comment). */
 function perrinsSquare(eh: number, ec: number, fill: number): number {
   const T = (1 + ec / eh) / (1 - ec / eh);
@@ -52,7 +45,7 @@ function perrinsSquare(eh: number, ec: number, fill: number): number {
 }
 
 function blockPlan(lattice: "square" | "hex", radiusM: number, epsAcross: number, fill = FILL): Pick<Plan, "grid" | "level" | "levels" | "axisAngleRad"> {
-  const grid = squareGrid(N, A);
+  const grid = squareDeviceGrid(N, A);
   const recipe = { family: "rods-in-host", host: "air", inclusion: "rod", lattice, orientation: "z", fillFraction: fill, dimensions: { radius_m: radiusM }, achieved: [1, epsAcross, epsAcross], achievedIm: [0, 0, 0] } as unknown as Recipe;
   return { grid, level: new Int32Array(grid.count), levels: [{ index: 1, recipe } as Plan["levels"][number]], axisAngleRad: new Float64Array(grid.count) };
 }
@@ -129,7 +122,7 @@ describe("drawn lattices against their effective medium (a = λ0/32, fill 0.6, �
   }, 60_000);
 
   it("places hexagonal sites one per (√3/2)·a², each in the cell it falls in, and finds the nearest site of any point", () => {
-    const g = squareGrid(40, 1);
+    const g = squareDeviceGrid(40, 1);
     const s = hexSites(g, latticeLookup(g), () => true);
     // 40 × 40 cells hold 1600/(√3/2) = 1847.5 sites, up to one row and one column at the edges
     expect(Math.abs(s.cell.length - 1600 / HEX_ROW)).toBeLessThan(2 * 40);

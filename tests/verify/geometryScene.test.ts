@@ -15,7 +15,6 @@
  *   where the last is at the drawing's own accuracy, about 0.5 %: tests/verify/drawnLattices.test.ts).
  */
 import { describe, expect, it } from "vitest";
-import type { DeviceGrid } from "../../src/field/deviceGrid.js";
 import type { Plan, Recipe } from "../../src/plan/planTypes.js";
 import { deviceScene } from "../../src/verify/deviceScene.js";
 import { DRAWN_STEPS, drawnStepFeature } from "../../src/verify/drawnLadder.js";
@@ -23,6 +22,7 @@ import { geometryScene, type BulkMaterial } from "../../src/verify/geometryScene
 import { mapFromPlan } from "../../src/verify/materialMap.js";
 import { runCheck } from "../../src/verify/runCheck.js";
 import type { CaseSpec } from "../../src/verify/verifyDevice.js";
+import { squareDeviceGrid } from "../helpers/squareDeviceGrid.js";
 
 const C0 = 299_792_458;
 const f = 10e9, lambda = C0 / f;
@@ -33,20 +33,12 @@ const materials = new Map<string, BulkMaterial>([
   ["rod", { eps: { re: EPS_ROD, im: 0 }, mu: { re: 1, im: 0 }, isMetal: false }],
 ]);
 
-function squareGrid(n: number, pitchM: number): DeviceGrid {
-  const count = n * n;
-  const g: DeviceGrid = { dimension: 2, pitchM, nx: n, ny: n, nz: 1, originXM: -((n - 1) / 2) * pitchM, originYM: -((n - 1) / 2) * pitchM, originZM: 0, count,
-    i: new Int32Array(count), j: new Int32Array(count), k: new Int32Array(count), xM: new Float64Array(count), yM: new Float64Array(count), zM: new Float64Array(count) };
-  for (let c = 0; c < count; c++) { g.i[c] = c % n; g.j[c] = Math.floor(c / n); g.xM[c] = g.originXM + g.i[c] * pitchM; g.yM[c] = g.originYM + g.j[c] * pitchM; }
-  return g;
-}
-
 /** Maxwell Garnett for cylinders, field across the axis. */
 const mg2d = (eh: number, ei: number, fill: number): number => eh * ((ei + eh) + fill * (ei - eh)) / ((ei + eh) - fill * (ei - eh));
 
 function uniformRodPlan(pol: "Ez" | "Hz", n: number, sideM: number, fill: number): Pick<Plan, "grid" | "level" | "levels" | "axisAngleRad"> {
   const a = sideM / n;
-  const grid = squareGrid(n, a);
+  const grid = squareDeviceGrid(n, a);
   const along = fill * EPS_ROD + (1 - fill) * EPS_HOST, across = mg2d(EPS_HOST, EPS_ROD, fill);
   const achieved = pol === "Ez" ? [along, 1, 1] : [1, across, across];
   const recipe = { family: "rods-in-host", host: "host", inclusion: "rod", lattice: "square", orientation: "z", fillFraction: fill, dimensions: { radius_m: a * Math.sqrt(fill / Math.PI) }, achieved, achievedIm: [0, 0, 0] } as unknown as Recipe;

@@ -7,17 +7,22 @@
  * Fourier coefficients of 1/ε (the "inverse rule", which converges best for this polarization).
  * Circle of radius r in a cell of area A: c(G) = c_h δ_G0 + (c_i − c_h)·f·2J₁(Gr)/(Gr).
  *
- * For a Bloch wavevector k along a principal direction the smallest eigenvalue k₀²(k) is found by
- * inverse iteration (complex Cholesky of the Hermitian matrix); the band index at the design
- * frequency is k/k₀ where k₀²(k) meets the design k₀² (bisection in k: the lowest band rises
- * monotonically from Γ). The deviation from the long-wavelength limit of the same expansion measures
- * spatial dispersion; both use the same truncation, so its error largely cancels. Real ε only
- * (losses do not move the band at first order in this use). Cost: the plane waves inside a disc of
- * radius M·|b₁| (M = 4: 49 square, 61 hex), one complex Cholesky per bisection step, 32 steps per
- * direction.
+ * Square, hexagonal and rectangular lattices (bandLattice.ts: the directions and plane waves of
+ * each). For a Bloch wavevector k along a principal direction the smallest eigenvalue k₀²(k) is
+ * found by inverse iteration (complex Cholesky of the Hermitian matrix); the band index at the
+ * design frequency is k/k₀ where k₀²(k) meets the design k₀² (regula falsi in k: the lowest band rises
+ * monotonically from Γ). The deviation from the long-wavelength limit of the same expansion, taken
+ * along the same direction (a rect lattice is anisotropic already in that limit), measures spatial
+ * dispersion; both use the same truncation, so its error largely cancels (tests: M = 4 against
+ * M = 6). Real ε only (losses do not move the band at first order in this use). Cost: one complex
+ * Cholesky (perpendicular) or one inverse iteration (parallel) per step of the root search, about
+ * ten per direction: 20–80 ms for square and hex (49 and 61 plane waves), 0.1–0.6 s for rect at R = 3
+ * (151 waves, three directions).
  */
 import { ProgrammerError } from "../../core/errors.js";
-import { latticeVectors, type WireLattice } from "../wireCutoff/latticeSums.js";
+import { NumericalFailure } from "../../numerics/numericalFailure.js";
+import { maxCircleFill } from "../homogenize/cellShape.js";
+import { bandDirections, bandLatticeGeometry, planeWaveCutoff, type BandLattice } from "./bandLattice.js";
 
 /** J₁(x): Abramowitz & Stegun 9.4.4 (|x| ≤ 3) and 9.4.6 (x ≥ 3). */
 export function besselJ1(x: number): number {
@@ -38,7 +43,9 @@ export function besselJ1(x: number): number {
 export type BandPolarization = "parallel" | "perpendicular";
 
 export interface BandCell {
-  lattice: WireLattice;
+  lattice: BandLattice;
+  /** rect only: b/a (spacing along y over spacing along x), BAND_ASPECT_RANGE; default 1 */
+  aspect?: number;
   /** relative permittivities (real) of the host and the circles */
   epsHost: number;
   epsCircle: number;
@@ -54,11 +61,15 @@ interface Basis {
 }
 
 function basis(cell: BandCell, pol: BandPolarization, m: number): Basis {
-  const v = latticeVectors(cell.lattice);
-  // reciprocal vectors inside a disc |G| ≤ m·|b₁| (keeps the lattice's symmetry, unlike an index square)
+  const aspect = cell.aspect ?? 1;
+  const v = bandLatticeGeometry(cell.lattice, aspect);
+  // reciprocal vectors inside a disc (keeps the lattice's symmetry, unlike an index square);
+  // |i| ≤ |G|·|a1|/2π and |j| ≤ |G|·|a2|/2π bound the indices of every G in it
   const gx: number[] = [], gy: number[] = [];
-  const gMax = m * Math.hypot(v.b1[0], v.b1[1]) * (1 + 1e-9);
-  for (let i = -2 * m; i <= 2 * m; i++) for (let j = -2 * m; j <= 2 * m; j++) {
+  const gMax = planeWaveCutoff(cell.lattice, m, aspect) * (1 + 1e-9);
+  const iMax = Math.ceil((gMax * Math.hypot(v.a1[0], v.a1[1])) / (2 * Math.PI));
+  const jMax = Math.ceil((gMax * Math.hypot(v.a2[0], v.a2[1])) / (2 * Math.PI));
+  for (let i = -iMax; i <= iMax; i++) for (let j = -jMax; j <= jMax; j++) {
     const x = i * v.b1[0] + j * v.b2[0], y = i * v.b1[1] + j * v.b2[1];
     if (Math.hypot(x, y) <= gMax) { gx.push(x); gy.push(y); }
   }
@@ -180,56 +191,100 @@ export function lowestEigenvalue(b: Basis, pol: BandPolarization, kx: number, ky
 }
 
 export interface BandIndex {
-  /** effective index k/k₀ along the two principal directions (square: Γ–X, Γ–M; hex: Γ–M, Γ–K) */
-  index: [number, number];
-  /** the same expansion's long-wavelength index along the first direction */
+  /** the principal directions, by name (square: Γ–X, Γ–M; hex: Γ–M, Γ–K; rect: Γ–X, Γ–Y, Γ–S) */
+  directions: string[];
+  /** effective index k/k₀ along each direction (NaN where the frequency is above the band's edge) */
+  index: number[];
+  /** the same expansion's long-wavelength index along each direction */
+  quasiStaticIndex: number[];
+  /** the long-wavelength index along the first direction */
   quasiStatic: number;
-  /** largest |n_band/n_quasiStatic − 1| over the two directions */
+  /** largest |n_band/n_quasiStatic − 1| over the directions, each against its own long-wavelength value */
   deviation: number;
-  /** |n₁ − n₂| / mean */
+  /** (largest − smallest index) / mean over the directions (a rect lattice's quasi-static anisotropy included) */
   anisotropy: number;
+  /**
+   * the anisotropy spatial dispersion adds: the same figure for the ratios n_band/n_quasiStatic
+   * (equal to `anisotropy` for square and hex, whose long-wavelength index is isotropic)
+   */
+  excessAnisotropy: number;
   /** false when the design frequency lies above the lowest band's edge along a direction */
   inBand: boolean;
   planeWaves: number;
 }
 
-/** Principal directions (unit vectors) and the Brillouin-zone edge along each (a = 1). */
-function directions(lattice: WireLattice): { dir: [number, number]; edge: number }[] {
-  if (lattice === "square") return [{ dir: [1, 0], edge: Math.PI }, { dir: [Math.SQRT1_2, Math.SQRT1_2], edge: Math.PI * Math.SQRT2 }];
-  // hex with a1 = (1, 0): M along (√3/2, −1/2)·… the b1 direction, |ΓM| = 2π/√3; K along x, |ΓK| = 4π/3
-  const v = latticeVectors("hex");
-  const b = Math.hypot(v.b1[0], v.b1[1]);
-  return [{ dir: [v.b1[0] / b, v.b1[1] / b], edge: b / 2 }, { dir: [1, 0], edge: (4 * Math.PI) / 3 }];
+/**
+ * The k in (0, edge] where g(k) = √λ(k) − k₀a crosses zero (g(0) = −k₀a < 0 ≤ g(edge)): regula
+ * falsi with the Illinois modification (Dowell & Jarratt, BIT 11, 168 (1971)); √λ is nearly linear
+ * in k below the zone edge, so a handful of eigen solves suffice where bisection took 32. Stops when
+ * the bracket is below 1e-12 of the edge or g vanishes to 1e-14 of k₀a; 60 steps at most (then the
+ * bracket's mid-point).
+ */
+function crossing(g: (k: number) => number, edge: number, scale: number): number {
+  // g(0) = −k₀a exactly: the lowest band starts at zero frequency
+  let lo = 0, hi = edge, glo = -scale, ghi = g(edge);
+  if (ghi === 0) return hi;
+  let side = 0;
+  for (let it = 0; it < 60; it++) {
+    const k = (lo * ghi - hi * glo) / (ghi - glo);
+    const gk = g(k);
+    if (Math.abs(gk) <= 1e-14 * scale || hi - lo < 1e-12 * edge) return k;
+    if (gk < 0) {
+      lo = k; glo = gk;
+      if (side === -1) ghi /= 2;
+      side = -1;
+    } else {
+      hi = k; ghi = gk;
+      if (side === 1) glo /= 2;
+      side = 1;
+    }
+  }
+  return 0.5 * (lo + hi);
 }
 
+const spreadOverMean = (x: number[]): number => {
+  const v = (Math.max(...x) - Math.min(...x)) / (x.reduce((a, b) => a + b, 0) / x.length);
+  return Number.isFinite(v) ? v : Infinity;
+};
+
 /**
- * Band index at normalized frequency k₀a (a = pitch) for the cell and polarization.
- * Throws ProgrammerError for non-positive permittivities or a fill outside (0, 1).
+ * Band index at normalized frequency k₀a (a = the spacing along x: the pitch; rect: the spacing
+ * a, with b = aspect·a along y) for the cell and polarization.
+ * Throws ProgrammerError for non-positive permittivities, a fill outside [0, 1) or an aspect
+ * outside BAND_ASPECT_RANGE.
  * Example: a homogeneous cell (epsHost = epsCircle = 4) gives index [2, 2] at any k₀a below the
  * zone edge (the light line).
  */
 export function bandIndex(cell: BandCell, pol: BandPolarization, k0a: number, m = 4): BandIndex {
   if (!(cell.epsHost > 0) || !(cell.epsCircle > 0)) throw new ProgrammerError("bandIndex: permittivities must be real and > 0", cell);
-  if (!(cell.fill >= 0 && cell.fill < 1)) throw new ProgrammerError("bandIndex: fill must be in [0, 1)", cell);
+  const fMax = maxCircleFill(cell.lattice, cell.aspect ?? 1);
+  if (!(cell.fill >= 0 && cell.fill < fMax)) throw new ProgrammerError(`bandIndex: fill must be in [0, ${fMax}) (touching circles)`, cell);
+  if (!(k0a > 0) || !Number.isFinite(k0a)) throw new ProgrammerError(`bandIndex: k0a must be finite and > 0, got ${k0a}`);
   const b = basis(cell, pol, m);
   const target = k0a * k0a;
-  const dirs = directions(cell.lattice);
-  const index: [number, number] = [NaN, NaN];
+  const dirs = bandDirections(cell.lattice, cell.aspect ?? 1);
+  const index = dirs.map(() => NaN);
   let inBand = true;
   dirs.forEach(({ dir, edge }, d) => {
     const at = (k: number) => lowestEigenvalue(b, pol, k * dir[0], k * dir[1]);
-    if (at(edge) < target) { inBand = false; index[d] = NaN; return; }
-    let lo = 0, hi = edge;
-    for (let it = 0; it < 32; it++) {
-      const mid = 0.5 * (lo + hi);
-      if (at(mid) < target) lo = mid;
-      else hi = mid;
-    }
-    index[d] = (0.5 * (lo + hi)) / k0a;
+    const atEdge = at(edge);
+    if (Number.isNaN(atEdge)) throw new NumericalFailure("lowest band", `the plane-wave matrix is not positive definite (${cell.lattice}, fill ${cell.fill})`);
+    if (atEdge < target) { inBand = false; index[d] = NaN; return; }
+    index[d] = crossing((k) => Math.sqrt(at(k)) - k0a, edge, k0a) / k0a;
   });
   const kSmall = 1e-3;
-  const qs = kSmall / Math.sqrt(lowestEigenvalue(b, pol, kSmall * dirs[0].dir[0], kSmall * dirs[0].dir[1]));
-  const deviation = Math.max(...index.map((x) => (Number.isFinite(x) ? Math.abs(x / qs - 1) : Infinity)));
-  const anisotropy = Math.abs(index[0] - index[1]) / (0.5 * (index[0] + index[1]));
-  return { index, quasiStatic: qs, deviation, anisotropy: Number.isFinite(anisotropy) ? anisotropy : Infinity, inBand, planeWaves: b.n };
+  const qs = dirs.map(({ dir }) => kSmall / Math.sqrt(lowestEigenvalue(b, pol, kSmall * dir[0], kSmall * dir[1])));
+  const ratio = index.map((x, d) => x / qs[d]);
+  const deviation = Math.max(...ratio.map((r) => (Number.isFinite(r) ? Math.abs(r - 1) : Infinity)));
+  return {
+    directions: dirs.map((x) => x.name),
+    index,
+    quasiStaticIndex: qs,
+    quasiStatic: qs[0],
+    deviation,
+    anisotropy: spreadOverMean(index),
+    excessAnisotropy: spreadOverMean(ratio),
+    inBand,
+    planeWaves: b.n,
+  };
 }

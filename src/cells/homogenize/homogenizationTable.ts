@@ -23,6 +23,7 @@ import { cDiv, cMul, complex, type Complex } from "../../core/complex.js";
 import { HEX_CIRCLES } from "./hexCircleTable.js";
 import { SQUARE_CIRCLES } from "./squareCircleTable.js";
 import { CIRCLE_TABLE_FILLS, CIRCLE_TABLE_LOG10_U } from "./circleTableNodes.js";
+import { naturalSplineAt, naturalSplineMoments } from "../../numerics/naturalCubicSpline.js";
 
 export type TableLattice = "square" | "hex";
 
@@ -40,39 +41,13 @@ const prepared = new Map<TableLattice, Prepared>();
 /** Calibrated error envelope of the solved tables in the contrast u (module comment). */
 export const tableErrorEnvelope = (u: number): number => 1e-4 + 8e-4 * Math.log10(u) ** 2;
 
-/** Second derivatives of the natural cubic spline through (x, y). */
-function splineM2(x: readonly number[], y: readonly number[]): Float64Array {
-  const n = x.length;
-  const m = new Float64Array(n);
-  const c = new Float64Array(n);
-  const d = new Float64Array(n);
-  for (let i = 1; i < n - 1; i++) {
-    const h0 = x[i] - x[i - 1], h1 = x[i + 1] - x[i];
-    const a = h0 / 6, b = (h0 + h1) / 3, cc = h1 / 6;
-    const r = (y[i + 1] - y[i]) / h1 - (y[i] - y[i - 1]) / h0;
-    const denom = b - a * c[i - 1];
-    c[i] = cc / denom;
-    d[i] = (r - a * d[i - 1]) / denom;
-  }
-  for (let i = n - 2; i >= 1; i--) m[i] = d[i] - c[i] * m[i + 1];
-  return m;
-}
-
-function splineAt(x: readonly number[], y: readonly number[], m: Float64Array, t: number): number {
-  let k = 0;
-  while (k < x.length - 2 && t > x[k + 1]) k++;
-  const h = x[k + 1] - x[k];
-  const a = (x[k + 1] - t) / h, b = (t - x[k]) / h;
-  return a * y[k] + b * y[k + 1] + (((a * a * a - a) * m[k] + (b * b * b - b) * m[k + 1]) * h * h) / 6;
-}
-
 function prepare(lattice: TableLattice): Prepared {
   let p = prepared.get(lattice);
   if (!p) {
     const data = lattice === "square" ? SQUARE_CIRCLES : HEX_CIRCLES;
     const fills = CIRCLE_TABLE_FILLS[lattice];
     const values = data.values as readonly (readonly number[])[];
-    p = { lu: CIRCLE_TABLE_LOG10_U[lattice], fills, values, errors: data.errors as readonly (readonly number[])[], m2: values.map((row) => splineM2(fills, row)) };
+    p = { lu: CIRCLE_TABLE_LOG10_U[lattice], fills, values, errors: data.errors as readonly (readonly number[])[], m2: values.map((row) => naturalSplineMoments(fills, row)) };
     prepared.set(lattice, p);
   }
   return p;
@@ -110,7 +85,7 @@ export function circleTableValue(lattice: TableLattice, u: number, fill: number)
   let err = 0;
   const fk = Math.min(p.fills.length - 1, p.fills.findIndex((x) => x >= fc));
   for (let r = 0; r < 4; r++) {
-    ys[r] = splineAt(p.fills, p.values[k0 + r], p.m2[k0 + r], fc);
+    ys[r] = naturalSplineAt(p.fills, p.values[k0 + r], p.m2[k0 + r], fc);
     err = Math.max(err, p.errors[k0 + r][Math.max(0, fk)], p.errors[k0 + r][Math.max(0, fk - 1)]);
   }
   // Lagrange through (LU[k0+r], ys[r]) and its derivative in log10 u

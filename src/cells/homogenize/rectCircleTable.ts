@@ -31,6 +31,7 @@
 import { ProgrammerError } from "../../core/errors.js";
 import { cellFaces, cellWorkspace, solveCellProblem } from "./cellProblem.js";
 import { circleCell } from "./cellShape.js";
+import { naturalSplineAt, naturalSplineMoments } from "../../numerics/naturalCubicSpline.js";
 
 /** Radii (in units of the shorter spacing) of the table nodes: 0 … RECT_MAX_RADIUS. */
 export const RECT_TABLE_NODES = 12;
@@ -106,30 +107,6 @@ export function rectCircleNode(u: number, fill: number, aspect: number): RectNod
   return { ...res, ladderError: err, finestCells: 4 * n0, converged: ladder.every((s) => s.ok) };
 }
 
-/** Natural cubic spline second derivatives through (x, y). */
-function splineM2(x: readonly number[], y: readonly number[]): Float64Array {
-  const n = x.length;
-  const m = new Float64Array(n), c = new Float64Array(n), d = new Float64Array(n);
-  for (let i = 1; i < n - 1; i++) {
-    const h0 = x[i] - x[i - 1], h1 = x[i + 1] - x[i];
-    const a = h0 / 6, bb = (h0 + h1) / 3, cc = h1 / 6;
-    const r = (y[i + 1] - y[i]) / h1 - (y[i] - y[i - 1]) / h0;
-    const denom = bb - a * c[i - 1];
-    c[i] = cc / denom;
-    d[i] = (r - a * d[i - 1]) / denom;
-  }
-  for (let i = n - 2; i >= 1; i--) m[i] = d[i] - c[i] * m[i + 1];
-  return m;
-}
-
-function splineAt(x: readonly number[], y: readonly number[], m: Float64Array, t: number): number {
-  let k = 0;
-  while (k < x.length - 2 && t > x[k + 1]) k++;
-  const h = x[k + 1] - x[k];
-  const a = (x[k + 1] - t) / h, b = (t - x[k]) / h;
-  return a * y[k] + b * y[k + 1] + (((a * a * a - a) * m[k] + (b * b * b - b) * m[k + 1]) * h * h) / 6;
-}
-
 export interface RectTable {
   u: number;
   aspect: number;
@@ -158,7 +135,7 @@ export function buildRectTable(u: number, aspect: number): RectTable {
     u, aspect, fills, nodes, maxFill: fills[fills.length - 1],
     error: Math.max(rectErrorEnvelope(u), ...nodes.map((n) => n.ladderError)),
     converged: nodes.every((n) => n.converged),
-    m2: { xx: splineM2(fills, col("xx")), yy: splineM2(fills, col("yy")), dxx: splineM2(fills, col("dxx")), dyy: splineM2(fills, col("dyy")) },
+    m2: { xx: naturalSplineMoments(fills, col("xx")), yy: naturalSplineMoments(fills, col("yy")), dxx: naturalSplineMoments(fills, col("dxx")), dyy: naturalSplineMoments(fills, col("dyy")) },
   };
 }
 
@@ -201,7 +178,7 @@ export function rectCircleValue(u: number, aspect: number, fill: number): RectVa
   const inTable = fill >= 0 && fill <= t.maxFill + 1e-12;
   const f = Math.min(t.maxFill, Math.max(0, fill));
   const col = (k: "xx" | "yy" | "dxx" | "dyy") => t.nodes.map((n) => n[k]);
-  const xx = splineAt(t.fills, col("xx"), t.m2.xx, f), yy = splineAt(t.fills, col("yy"), t.m2.yy, f);
-  const dxx = splineAt(t.fills, col("dxx"), t.m2.dxx, f), dyy = splineAt(t.fills, col("dyy"), t.m2.dyy, f);
+  const xx = naturalSplineAt(t.fills, col("xx"), t.m2.xx, f), yy = naturalSplineAt(t.fills, col("yy"), t.m2.yy, f);
+  const dxx = naturalSplineAt(t.fills, col("dxx"), t.m2.dxx, f), dyy = naturalSplineAt(t.fills, col("dyy"), t.m2.dyy, f);
   return swap ? { xx: yy, yy: xx, dxx: dyy, dyy: dxx, error: t.error, inTable } : { xx, yy, dxx, dyy, error: t.error, inTable };
 }

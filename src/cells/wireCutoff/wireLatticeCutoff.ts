@@ -20,6 +20,7 @@
  * Cost of one solve: about 4·10⁴ terms per evaluation of D, 40 evaluations.
  */
 import { besselJ0, latticeVectors, staticGreenConstant, type WireLattice } from "./latticeSums.js";
+import { naturalSplineAt, naturalSplineMoments } from "../../numerics/naturalCubicSpline.js";
 
 const N_SHELLS = 64;
 
@@ -107,21 +108,6 @@ interface CutoffTable {
 
 const tables = new Map<WireLattice, CutoffTable>();
 
-function spline(x: Float64Array, y: Float64Array): Float64Array {
-  const n = x.length;
-  const m = new Float64Array(n), c = new Float64Array(n), d = new Float64Array(n);
-  for (let i = 1; i < n - 1; i++) {
-    const h0 = x[i] - x[i - 1], h1 = x[i + 1] - x[i];
-    const a = h0 / 6, b = (h0 + h1) / 3, cc = h1 / 6;
-    const r = (y[i + 1] - y[i]) / h1 - (y[i] - y[i - 1]) / h0;
-    const den = b - a * c[i - 1];
-    c[i] = cc / den;
-    d[i] = (r - a * d[i - 1]) / den;
-  }
-  for (let i = n - 2; i >= 1; i--) m[i] = d[i] - c[i] * m[i + 1];
-  return m;
-}
-
 /** The cut-off table of a lattice (built on first use). */
 export function wireCutoffTable(lattice: WireLattice): CutoffTable {
   let t = tables.get(lattice);
@@ -134,7 +120,7 @@ export function wireCutoffTable(lattice: WireLattice): CutoffTable {
     const s = solveWireCutoff(lattice, r);
     y[i] = (2 * Math.PI) / (area * s.kpA * s.kpA) + Math.log(r);
   }
-  t = { x, y, m2: spline(x, y) };
+  t = { x, y, m2: naturalSplineMoments(x, y) };
   tables.set(lattice, t);
   return t;
 }
@@ -165,13 +151,7 @@ export function wireCutoffKpA(lattice: WireLattice, ratio: number): number {
   const lx = Math.log10(ratio);
   let lam: number;
   if (lx <= t.x[0]) lam = t.y[0];
-  else {
-    let k = 0;
-    while (k < t.x.length - 2 && lx > t.x[k + 1]) k++;
-    const h = t.x[k + 1] - t.x[k];
-    const a = (t.x[k + 1] - lx) / h, b = (lx - t.x[k]) / h;
-    lam = a * t.y[k] + b * t.y[k + 1] + (((a * a * a - a) * t.m2[k] + (b * b * b - b) * t.m2[k + 1]) * h * h) / 6;
-  }
+  else lam = naturalSplineAt(t.x, t.y, t.m2, lx);
   // Λ = 2π/(A k²) + ln r  ⇒  k² = 2π/(A(Λ − ln r))
   return Math.sqrt((2 * Math.PI) / (area * (lam - Math.log(ratio))));
 }

@@ -24,9 +24,9 @@ import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
 import { layerReport, type LayerReport } from "../../cells/slab/layerHost.js";
 import { bandIndex } from "../../cells/band/lowestBand.js";
+import { anchoredBandIndex } from "../../cells/band/anchoredBandIndex.js";
 import type { CellDesign } from "../../cells/cellDesignTypes.js";
 
-const SPEED_OF_LIGHT = 299_792_458;
 
 /** --frequency F or --wavelength L (vacuum), as Hz. */
 async function designFrequency(args: ParsedArgs): Promise<number> {
@@ -36,7 +36,7 @@ async function designFrequency(args: ParsedArgs): Promise<number> {
   if (l !== undefined) {
     const m = await parseQuantity(l, "length", "--wavelength");
     if (!(m > 0)) throw new InputError({ where: "--wavelength", message: `expected a wavelength > 0, got '${l}'` });
-    return SPEED_OF_LIGHT / m;
+    return SPEED_OF_LIGHT_M_PER_S / m;
   }
   const hz = await parseQuantity(f, "frequency", "--frequency");
   if (!(hz > 0)) throw new InputError({ where: "--frequency", message: `expected a frequency > 0, got '${f}'` });
@@ -45,14 +45,40 @@ async function designFrequency(args: ParsedArgs): Promise<number> {
 
 const LAYER_FLAGS = ["layer-core", "layer-thickness", "layer-below", "layer-above"] as const;
 
-/** Band index and spatial dispersion of rods or holes (null for other families and lattices). */
-function bandFor(design: CellDesign, host: CellPhase, inclusion: CellPhase, axis: "parallel" | "perpendicular"): { bandIndex: { directions: number[]; quasiStatic: number; anisotropy: number; inBand: boolean; planeWaves: number }; spatialDispersion: number } | null {
+const spreadOverMean = (x: number[]): number => (Math.max(...x) - Math.min(...x)) / (x.reduce((p, q) => p + q, 0) / x.length);
+
+interface BandReport {
+  bandIndex: {
+    directions: number[]; names: string[]; quasiStatic: number; quasiStaticByDirection: number[]; anisotropy: number; excessAnisotropy: number; inBand: boolean; planeWaves: number;
+    expansion: { directions: number[]; quasiStaticByDirection: number[] };
+  };
+  spatialDispersion: number;
+}
+
+/**
+ * Band index and spatial dispersion of rods or holes on square, hex or rect lattices (null for
+ * other families and lattices). The indices are anchored on the solved long-wavelength tensor
+ * (cells/band/anchoredBandIndex.ts); the expansion's own values are kept beside them.
+ */
+function bandFor(design: CellDesign, host: CellPhase, inclusion: CellPhase, axis: "parallel" | "perpendicular"): BandReport | null {
   if (design.familyId !== "rods-in-host" && design.familyId !== "holes-in-slab") return null;
-  if (design.lattice !== "square" && design.lattice !== "hex") return null;
+  if (design.lattice !== "square" && design.lattice !== "hex" && design.lattice !== "rect") return null;
   if (design.fill === null || !(host.eps.re > 0) || !(inclusion.eps.re > 0)) return null;
-  const k0a = (2 * Math.PI * design.frequencyHz * design.pitchM) / SPEED_OF_LIGHT;
-  const b = bandIndex({ lattice: design.lattice, epsHost: host.eps.re, epsCircle: inclusion.eps.re, fill: design.fill }, axis, k0a);
-  return { bandIndex: { directions: b.index, quasiStatic: b.quasiStatic, anisotropy: b.anisotropy, inBand: b.inBand, planeWaves: b.planeWaves }, spatialDispersion: b.deviation };
+  const k0a = (2 * Math.PI * design.frequencyHz * design.pitchM) / SPEED_OF_LIGHT_M_PER_S;
+  const aspect = design.lattice === "rect" ? design.aspect ?? 1 : 1;
+  const cell = { lattice: design.lattice, epsHost: host.eps.re, epsCircle: inclusion.eps.re, fill: design.fill, ...(design.lattice === "rect" ? { aspect } : {}) };
+  const b = bandIndex(cell, axis, k0a);
+  const a = design.achieved;
+  const anchored = anchoredBandIndex(b, design.lattice, axis, { zz: a.parallel.re, xx: a.perpendicular.re, yy: (a.perpendicularY ?? a.perpendicular).re }, aspect)
+    ?? { index: b.index, quasiStaticIndex: b.quasiStaticIndex };
+  return {
+    bandIndex: {
+      directions: anchored.index, names: b.directions, quasiStatic: anchored.quasiStaticIndex[0], quasiStaticByDirection: anchored.quasiStaticIndex,
+      anisotropy: spreadOverMean(anchored.index), excessAnisotropy: b.excessAnisotropy, inBand: b.inBand, planeWaves: b.planeWaves,
+      expansion: { directions: b.index, quasiStaticByDirection: b.quasiStaticIndex },
+    },
+    spatialDispersion: b.deviation,
+  };
 }
 
 function plainNumber(text: string, where: string, what: string): number {
@@ -269,7 +295,6 @@ export const command: Command = {
     };
     const design = designCell(request);
     const band = design.homogenization.status !== "ok" ? bandFor(design, host, inclusion, axisUsed) : null;
-    if (lattice === "rect" && design.homogenization.status !== "ok") design.notes.push("the lowest band is not solved for rect lattices: spatial dispersion not checked");
     if (band && !band.bandIndex.inBand) design.notes.push("the design frequency lies above the lowest band's edge: the cell is not homogenizable");
     else if (band && band.spatialDispersion > tolerance) design.notes.push(`spatial dispersion: the band index departs ${Number((100 * band.spatialDispersion).toPrecision(2))} % from the long-wavelength value (tolerance ${tolerance * 100} %)`);
     const wire = design.resonance?.kind === "wire-medium" ? design.resonance.plasma : null;
@@ -284,7 +309,14 @@ export const command: Command = {
     } else {
       const lines = formatCellDesign(design);
       if (layer) lines.push(`layer             ${layer.kind === "slab" ? `${layer.polarization} slab mode index ${layer.modeIndex === null ? "none (bulk used)" : Number(layer.modeIndex.toPrecision(5))}, ${layer.guidedModes} guided` : `parallel plates, ${layer.guidedModes} mode(s)`}`);
-      if (band) lines.push(`band index        ${band.bandIndex.directions.map((x) => Number(x.toPrecision(4))).join(" / ")} (principal directions), long-wavelength ${Number(band.bandIndex.quasiStatic.toPrecision(4))}, spatial dispersion ${Number((100 * band.spatialDispersion).toPrecision(2))} %`);
+      if (band) {
+        const list = (x: number[]) => x.map((v) => (Number.isFinite(v) ? Number(v.toPrecision(4)) : "above the band edge")).join(" / ");
+        const b = band.bandIndex;
+        const sd = b.inBand ? `spatial dispersion ${Number((100 * band.spatialDispersion).toPrecision(2))} %` : "above the band edge: not homogenizable";
+        lines.push(lattice === "rect"
+          ? `band index        ${list(b.directions)} (${b.names.join(", ")}), long-wavelength ${list(b.quasiStaticByDirection)}, ${sd}`
+          : `band index        ${list(b.directions)} (principal directions), long-wavelength ${Number(b.quasiStatic.toPrecision(4))}, ${sd}`);
+      }
       io.stdout(`${lines.join("\n")}\n`);
     }
     if (!design.valid) for (const r of design.reasons) io.stderr(`not buildable: ${r}\n`);

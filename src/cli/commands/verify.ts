@@ -23,6 +23,7 @@ import { carpetGround } from "../../verify/carpetGround.js";
 import { SPEED_OF_LIGHT_M_PER_S } from "../../core/physicalConstants.js";
 import { fieldSvg } from "../../verify/fieldSvg.js";
 import { formatFrequency, formatLength } from "../../verify/formatQuantity.js";
+import { formatPoint } from "../../core/formatQuantity.js";
 import type { Illumination } from "../../verify/illumination.js";
 import { DEFAULT_ACCURACY } from "../../verify/verifyDevice.js";
 import { METHOD_OPTIONS, runCheck, type CheckCase, type CheckResult, type MethodOption } from "../../verify/runCheck.js";
@@ -108,9 +109,10 @@ export function verifyTable(design: string, scheme: string, r: CheckResult): str
     : [c.name, ...(mixed ? [""] : []), "—", ...(hasBare ? ["—"] : []), ...(beam ? ["—", "—"] : []), "", "", `not computed: ${c.reason}`]);
   const widths = head.map((h, k) => Math.max(h.length, ...rows.map((row) => (k === head.length - 1 ? 0 : row[k].length))));
   const line = (cells: string[]): string => ("  " + cells.map((c, k) => (k === 0 ? c.padEnd(widths[k]) : k === cells.length - 1 ? c : c.padStart(widths[k]))).join("  ")).trimEnd();
-  const ill = r.illumination.kind === "plane"
-    ? `plane wave at ${f((r.illumination.angleRad * 180) / Math.PI)}° from +x`
-    : `Gaussian beam at ${f((r.illumination.angleRad * 180) / Math.PI)}°, waist ${formatLength(r.illumination.waistM)}`;
+  const il = r.illumination;
+  const ill = il.kind === "plane"
+    ? `plane wave at ${f((il.angleRad * 180) / Math.PI)}° from +x`
+    : `Gaussian beam at ${f((il.angleRad * 180) / Math.PI)}°, waist ${formatLength(il.waistM)}, focus ${formatPoint(il.focusM)}`;
   const ladder = r.resolutions.length > 1 ? `ladder ${r.resolutions.join(", ")} points per wavelength, extrapolated (accuracy ${pct(r.accuracy)})` : r.resolutions.length === 1 ? `one grid at ${r.resolutions[0]} points per wavelength` : `accuracy ${pct(r.accuracy)}`;
   const solver = r.method === "radial" ? "exact radial solver (no grid)" : r.method === "fdfd" ? "FDFD" : "exact radial solver and FDFD";
   return [
@@ -173,6 +175,15 @@ function parseFraction(text: string, where: string): number {
 
 const beamText0 = (args: ParsedArgs): string | undefined => stringOption(args, "beam");
 
+/**
+ * The beam's focus: `centreM` moved by `offsetM` across the beam (to the left of its direction)
+ * and by `shiftM` along it (negative: towards the source).
+ */
+function beamFocus(centreM: [number, number], angleRad: number, offsetM: number, shiftM: number): [number, number] {
+  const c = Math.cos(angleRad), s = Math.sin(angleRad);
+  return [centreM[0] - offsetM * s + shiftM * c, centreM[1] + offsetM * c + shiftM * s];
+}
+
 /** Direction of the default beam above a ground plane: −45° (from the upper left, 45° from the normal). */
 export const DEFAULT_GROUND_ANGLE_RAD = -Math.PI / 4;
 
@@ -187,7 +198,7 @@ export function defaultGroundWaist(deviceWidthM: number, angleRad: number, lambd
 export const command: Command = {
   name: "verify",
   summary: "2D full-wave check: bare, ideal, reduced and realized devices, converged figures with uncertainties",
-  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET]'] [--scene ground|free] [--margin L] [--drawn-time T] [--method auto|fdfd|radial] [--sweep 'START..STOP:COUNT' [--threshold T] [--workers N]] [--json] [--out DIR]",
+  usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET[, SHIFT]]'] [--scene ground|free] [--margin L] [--drawn-time T] [--method auto|fdfd|radial] [--sweep 'START..STOP:COUNT' [--threshold T] [--workers N]] [--json] [--out DIR]",
   details: [
     "Solves each case with a frequency-domain finite-difference solver (PML on all sides): the bare",
     "hidden object of a cloak (a perfect conductor), the ideal device (scheme full) and the reduced one",
@@ -206,7 +217,7 @@ export const command: Command = {
     { name: "accuracy", type: "string", valueName: "P", description: `relative accuracy the grid ladder aims at (default ${DEFAULT_ACCURACY * 100}%)` },
     { name: "resolution", type: "string", valueName: "N", description: "one grid at N points per wavelength in the densest material (no ladder, no uncertainty)" },
     { name: "angle", type: "string", valueName: "DEG", description: "direction of the incident wave, degrees from +x (default 0)" },
-    { name: "beam", type: "string", valueName: "W[, D]", description: "Gaussian beam of waist W, its axis offset by D across the beam from the device centre" },
+    { name: "beam", type: "string", valueName: "W[, D[, S]]", description: "Gaussian beam of waist W, its focus offset by D across the beam from the device centre and shifted by S along it (negative: towards the source)" },
     { name: "scene", type: "string", valueName: "ground|free", description: "carpet designs: on their ground plane, lit by a beam from above (ground, default) or in free space (free)" },
     { name: "margin", type: "string", valueName: "L", description: "free space around the device, e.g. '20 mm' (default half a wavelength)" },
     { name: "drawn-time", type: "string", valueName: "T", description: "estimated time the drawn realized case (realized-geometry) may take, e.g. '10 min' or '90 s' (default 5 min; 0: not run)" },
@@ -252,14 +263,15 @@ export const command: Command = {
     if (sceneKind !== undefined && sceneKind !== "ground" && sceneKind !== "free") throw new InputError({ where: "--scene", message: `expected ground or free, got '${sceneKind}'` });
     if (method === "radial" && sceneKind === "ground") throw new InputError({ where: "--scene", message: "the radial method has no ground plane; use --method fdfd" });
     const beamText = stringOption(args, "beam");
-    let beam: { waistM: number; offsetM: number } | null = null;
+    let beam: { waistM: number; offsetM: number; shiftM: number } | null = null;
     if (beamText !== undefined) {
       const parts = beamText.split(",").map((p) => p.trim());
-      if (parts.length > 2 || parts[0] === "") throw new InputError({ where: "--beam", message: `expected 'WAIST' or 'WAIST, OFFSET' (e.g. '40 mm, 5 mm'), got '${beamText}'` });
+      if (parts.length > 3 || parts.some((p) => p === "")) throw new InputError({ where: "--beam", message: `expected 'WAIST', 'WAIST, OFFSET' or 'WAIST, OFFSET, SHIFT' (e.g. '40 mm, 5 mm, -30 mm'), got '${beamText}'` });
       const waistM = await parseQuantity(parts[0], "length", "--beam");
       const offsetM = parts[1] !== undefined ? await parseQuantity(parts[1], "length", "--beam") : 0;
+      const shiftM = parts[2] !== undefined ? await parseQuantity(parts[2], "length", "--beam") : 0;
       if (!(waistM > 0)) throw new InputError({ where: "--beam", message: `expected a positive waist, got '${parts[0]}'` });
-      beam = { waistM, offsetM };
+      beam = { waistM, offsetM, shiftM };
     }
     const design = await loadDesign(designPath, io.cwd);
     const field = await loadFieldForDesign(design);
@@ -290,12 +302,12 @@ export const command: Command = {
       const b = ground.bumpBox, cx = ground.centreXM;
       const lambdaB = SPEED_OF_LIGHT_M_PER_S / (design.frequencyHz * n);
       const waistM = beam?.waistM ?? defaultGroundWaist(b.maxX - b.minX, angleRad, lambdaB);
-      const offsetM = beam?.offsetM ?? 0;
-      illumination = { kind: "beam", angleRad, waistM, focusM: [cx - offsetM * Math.sin(angleRad), ground.groundYM + offsetM * Math.cos(angleRad)] };
+      const offsetM = beam?.offsetM ?? 0, shiftM = beam?.shiftM ?? 0;
+      illumination = { kind: "beam", angleRad, waistM, focusM: beamFocus([cx, ground.groundYM], angleRad, offsetM, shiftM) };
     } else if (beam) {
       const b = built.deviceBox, cx = (b.minX + b.maxX) / 2, cy = (b.minY + b.maxY) / 2;
-      // focus on the device centre's line, shifted across the beam by the offset
-      illumination = { kind: "beam", angleRad, waistM: beam.waistM, focusM: [cx - beam.offsetM * Math.sin(angleRad), cy + beam.offsetM * Math.cos(angleRad)] };
+      // focus on the device centre, moved across the beam by the offset and along it by the shift
+      illumination = { kind: "beam", angleRad, waistM: beam.waistM, focusM: beamFocus([cx, cy], angleRad, beam.offsetM, beam.shiftM) };
     }
     if (sweep) {
       return runVerifySweep(io, {

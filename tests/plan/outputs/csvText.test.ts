@@ -1,18 +1,13 @@
 import { describe, it, expect } from "vitest";
 import fc from "fast-check";
 import { fmt } from "../../../src/plan/outputs/csvText.js";
+import { precisionReference } from "../../helpers/precisionReference.js";
 
-/** The definition: ECMAScript toPrecision, trailing zeros and the exponent's "+" removed. */
+/** `fmt` leaves non-finite values empty and writes zero as "0"; otherwise the shared definition. */
 function reference(x: number, digits: number): string {
   if (!Number.isFinite(x)) return "";
   if (x === 0) return "0";
-  const s = x.toPrecision(digits);
-  const trim = (t: string) => (t.includes(".") ? t.replace(/0+$/, "").replace(/\.$/, "") : t);
-  if (s.includes("e")) {
-    const [m, e] = s.split("e");
-    return `${trim(m)}e${e.replace("+", "")}`;
-  }
-  return trim(s);
+  return precisionReference(x, digits);
 }
 
 describe("fmt", () => {

@@ -2,21 +2,9 @@ import { describe, it, expect } from "vitest";
 import fc from "fast-check";
 import { writeDecimal, writeFmt } from "../../../src/plan/outputs/decimalBytes.js";
 import { fmt } from "../../../src/plan/outputs/csvText.js";
+import { precisionReference } from "../../helpers/precisionReference.js";
 
-/**
- * The definition (ECMAScript Number.prototype.toPrecision, ECMA-262 §21.1.3.5), trailing zeros
- * and the exponent's "+" removed — what `fmt` in csvText.ts makes. writeDecimal must give the
- * same bytes or decline (-1).
- */
-function reference(x: number, digits: number): string {
-  const s = x.toPrecision(digits);
-  const trim = (t: string) => (t.includes(".") ? t.replace(/0+$/, "").replace(/\.$/, "") : t);
-  if (s.includes("e")) {
-    const [m, e] = s.split("e");
-    return `${trim(m)}e${e.replace("+", "")}`;
-  }
-  return trim(s);
-}
+const reference = precisionReference;
 
 const buf = new Uint8Array(64);
 const decoder = new TextDecoder();
