@@ -8,12 +8,12 @@
  *
  * The 2D solver needs cells that do not vary along z, so only these are drawn:
  * - rods and holes along z (`orientation` z): a disc of the recipe's radius; square-lattice recipes
- *   at their cell centres, hexagonal-lattice ones on the sites of the hexagonal lattice of their
- *   pitch (src/plan/layout/hexSites.ts: one site per (√3/2)·a², each with the recipe of the cell it
- *   falls in), so the drawn area fraction is the recipe's fill in both cases. (The layout files
- *   still place hexagonal recipes one per square cell, area fraction fill × √3/2 — layoutShapes.ts.)
- *   Discs that touch or overlap anywhere (also where square and hexagonal regions meet) are
- *   refused; other lattices (rectangular) are refused by name;
+ *   at their cell centres, hexagonal-lattice ones on the built sites of the hexagonal lattice of
+ *   their pitch (src/plan/layout/planHexSites.ts: one site per (√3/2)·a², each with the recipe of
+ *   the cell containing it, sites whose share would cross the outline or reach a cell of another
+ *   kind left out), so the drawn area fraction is the recipe's fill in both cases — the very sites
+ *   the layout files draw. Discs that touch or overlap anywhere are refused (a safeguard: the
+ *   sites' edge rule keeps them apart); other lattices (rectangular) are refused by name;
  * - laminates whose layer normal lies in the plane: one layer of thickness `thickness_m` across the
  *   cell, its normal along x or y (the lattice axis nearer the cell's principal axis, as the layout);
  * - solid cells: the cell square of the material.
@@ -32,7 +32,8 @@
 import type { Complex } from "../core/complex.js";
 import type { Plan, Recipe } from "../plan/planTypes.js";
 import { diskConductor, type Conductor } from "./conductor.js";
-import { HEX_ROW, hexSites, nearestHexSite } from "../plan/layout/hexSites.js";
+import { HEX_ROW, builtSiteAt, nearestHexSite } from "../plan/layout/hexSites.js";
+import { droppedSitesNote, planHexSites, type PlanHexSites } from "../plan/layout/planHexSites.js";
 import type { DeviceGrid } from "../field/deviceGrid.js";
 import { deviceBounds, latticeLookup, type HiddenDisk } from "./deviceScene.js";
 import { SAMPLE_BACKGROUND, SAMPLE_MEDIUM, SAMPLE_PEC, S_B, S_TXX, S_TXY, S_TYY, type Scene, type ScenePolarization } from "./scene.js";
@@ -97,9 +98,9 @@ const K_NONE = 0, K_SOLID = 1, K_DISC = 2, K_LAYER = 3, K_HEX_DISC = 4;
 
 interface DiscCentres { x: Float64Array; y: Float64Array; cell: Int32Array; hexCount: number }
 
-/** Centres of every drawn disc: square-lattice discs at their cell centres, hexagonal ones on the sites of their cells (hexSites.ts). */
-function discCentres(g: DeviceGrid, lut: Int32Array, kindOf: Uint8Array): DiscCentres {
-  const hex = hexSites(g, lut, (c) => kindOf[c] === K_HEX_DISC);
+/** Centres of every drawn disc: square-lattice discs at their cell centres, hexagonal ones on the built sites (planHexSites.ts). */
+function discCentres(g: DeviceGrid, hexSites: PlanHexSites | null, kindOf: Uint8Array): DiscCentres {
+  const hex = hexSites?.sites ?? { xM: new Float64Array(0), yM: new Float64Array(0), cell: new Int32Array(0) };
   let sq = 0;
   for (let c = 0; c < g.count; c++) if (kindOf[c] === K_DISC) sq++;
   const m = sq + hex.cell.length;
@@ -206,8 +207,9 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
     const th = plan.axisAngleRad[c], nrm = r.orientation === "2" ? th : th + Math.PI / 2;
     normalX[c] = Math.abs(Math.cos(nrm)) >= Math.abs(Math.sin(nrm)) ? 1 : 0;
   }
-  // the discs as built: square-lattice recipes at their cell centres, hexagonal ones on the hexagonal sites
-  const discs = discCentres(g, lut, kindOf);
+  // the discs as built: square-lattice recipes at their cell centres, hexagonal ones on the built hexagonal sites
+  const hexPlan = hexLevels.size ? planHexSites(plan) : null;
+  const discs = discCentres(g, hexPlan, kindOf);
   const wall = narrowestWall(discs, size, a);
   if (wall.value <= 0) {
     const [x, y] = wall.at;
@@ -225,7 +227,8 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
   }
   const ox = g.originXM, oy = g.originYM;
   const ez = polarization === "Ez";
-  const anyHex = hexLevels.size > 0, site = new Float64Array(2);
+  const anyHex = hexPlan !== null, nm = new Int32Array(2);
+  const hexBuilt = hexPlan?.sites;
   const scene: Scene = {
     polarization,
     background: input.background,
@@ -235,12 +238,12 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
       for (const cd of conductors) if (cd.signedDistanceM(x, y) < 0) return SAMPLE_PEC;
       let c = -1, within = false;
       if (anyHex) {
-        // a hexagonal-lattice disc: the nearest site, if its cell stands on that lattice and the point is within its radius
-        nearestHexSite(x, y, ox, oy, a, site);
-        const si = Math.round((site[0] - ox) / a), sj = Math.round((site[1] - oy) / a);
-        const sc = si >= 0 && sj >= 0 && si < g.nx && sj < g.ny ? lut[si + g.nx * sj] : -1;
-        if (sc >= 0 && kindOf[sc] === K_HEX_DISC) {
-          const dx = x - site[0], dy = y - site[1];
+        // a hexagonal-lattice disc: the nearest site, if it is built and the point is within its radius
+        nearestHexSite(g, x, y, nm);
+        const k = builtSiteAt(hexBuilt!, nm[0], nm[1]);
+        if (k >= 0) {
+          const sc = hexBuilt!.cell[k];
+          const dx = x - hexBuilt!.xM[k], dy = y - hexBuilt!.yM[k];
           if (dx * dx + dy * dy < size[sc] * size[sc]) { c = sc; within = true; }
         }
       }
@@ -265,10 +268,12 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
     },
   };
   const notes: string[] = [];
-  if (anyHex) {
+  if (hexPlan) {
     let hexCells = 0;
     for (let c = 0; c < n; c++) if (kindOf[c] === K_HEX_DISC) hexCells++;
-    notes.push(`realized-geometry: hexagonal-lattice recipes (levels ${[...hexLevels].map((l) => plan.levels[l].index).join(", ")}) are drawn on the hexagonal lattice of their pitch (${discs.hexCount} sites where their ${hexCells} cells' area holds ${(hexCells / HEX_ROW).toFixed(1)}: the rows do not tile the outline exactly), each site with the recipe of the cell it falls in; the layout files still place them one per square cell (area fraction fill × √3/2)`);
+    notes.push(`realized-geometry: hexagonal-lattice recipes (levels ${[...hexLevels].map((l) => plan.levels[l].index).join(", ")}) are drawn on the hexagonal lattice of their pitch anchored on the grid's centre (${discs.hexCount} sites built where their ${hexCells} cells' area holds ${(hexCells / HEX_ROW).toFixed(1)}), each site with the recipe of the cell containing it — the sites of the layout files`);
+    const dropped = droppedSitesNote(hexPlan, plan);
+    if (dropped) notes.push(`realized-geometry: ${dropped}`);
   }
   return { ok: true, scene, smallestFeatureM: feature, indexHint: index, notes };
 }

@@ -3,8 +3,11 @@
  * GDSII: no general-purpose GDSII reader is published on npm, so the file is read here with a
  * record reader written from the published stream format (Calma GDSII Stream Format Manual,
  * release 6.0, 1987: record = uint16 length, record type, data type; 8-byte reals excess-64 base 16),
- * sharing no code with the writer. Both are checked against the build list (one polygon per cell at
- * its position, circle areas πr²) and each level's drawn area fraction against its fill fraction.
+ * sharing no code with the writer. Both are checked against the build list (square-lattice levels:
+ * one polygon per cell at its position; hexagonal-lattice levels: one polygon per built site of the
+ * hexagonal lattice, src/plan/layout/hexSites.ts; circle areas πr²) and each level's drawn area
+ * fraction against its fill fraction. Hexagonal layouts are also checked against each other (GDSII
+ * and DXF) and against the drawn full-wave case's sites (verify's realized-geometry scene).
  */
 import { describe, it, expect, beforeAll } from "vitest";
 import { mkdtemp, readFile } from "node:fs/promises";
@@ -18,6 +21,13 @@ const DxfParser = ((dxfParserModule as unknown as { DxfParser?: unknown }).DxfPa
 import { runCli } from "../../src/cli/run.js";
 import { bufferIo } from "../../src/cli/cliIo.js";
 import { expectClose } from "../helpers/close.js";
+import { loadDesign } from "../../src/io/design/loadDesign.js";
+import { loadFieldForDesign } from "../../src/io/fieldCsv.js";
+import { loadMaterialCatalog } from "../../src/io/materialCatalog.js";
+import { loadProcessCatalog } from "../../src/io/processCatalog.js";
+import { planFromField } from "../../src/plan/runPlan.js";
+import { bulkMaterials } from "../../src/verify/bulkMaterials.js";
+import { geometryScene } from "../../src/verify/geometryScene.js";
 
 /** Independent GDSII reader: boundaries with their layer and points, and the UNITS pair. */
 function readGds(buf: Uint8Array): { units: [number, number]; boundaries: { layer: number; xy: number[] }[]; structures: string[] } {
@@ -77,11 +87,78 @@ async function planWithLayout(design: string, extra: string[] = []): Promise<{ o
   return { out, rows, levels, code, err: io.err() };
 }
 
-describe("GDSII layout of the silicon chip bend (electron-beam lithography)", () => {
+/**
+ * Checks of a hexagonal-lattice layout against the build list, sharing no code with the planner:
+ * every polygon's centre lies on one hexagonal lattice of the pitch through the grid's centre (the
+ * middle of the build list's i, j ranges), on the layer of the cell containing it (a centre on a
+ * cell edge: the cell nearer the grid's centre line); no two overlap (centres a pitch apart or
+ * more, radii below a/2); and each one's share — the points within a/2 of its centre, or for rods in
+ * air toward the outside of the device its own radius — lies in cells of the same kind. Returns per
+ * level the polygons' area and count. Lengths in the file's unit (`unit` per metre).
+ */
+function checkHexPolygons(polys: { layer: number; xy: number[] }[], rows: Record<string, string>[], aM: number, unit: number, tolerance: number): Map<number, { area: number; count: number }> {
+  const a = aM * unit, h = (Math.sqrt(3) / 2) * a;
+  const col = Object.keys(rows[0]).find((k) => k.startsWith("x_"))!, colY = col.replace("x_", "y_");
+  const scale = unit / (col.endsWith("_um") ? 1e6 : 1e3); // build-list unit → file unit
+  const byIJ = new Map(rows.map((r) => [`${r.i},${r.j}`, r]));
+  const is = rows.map((r) => Number(r.i)), js = rows.map((r) => Number(r.j));
+  const r0 = rows[0];
+  const x0 = Number(r0[col]) * scale - Number(r0.i) * a, y0 = Number(r0[colY]) * scale - Number(r0.j) * a; // centre of cell (0, 0)
+  const ci = (Math.min(...is) + Math.max(...is)) / 2, cj = (Math.min(...js) + Math.max(...js)) / 2;
+  const xc = x0 + ci * a, yc = y0 + cj * a; // the grid's centre
+  const kind = (r: Record<string, string> | undefined): string => (r ? `${r.family}|${r.host}|${r.inclusion}|${r.lattice}` : "outside");
+  const cellOf = (x: number, y: number): Record<string, string> | undefined => byIJ.get(`${Math.round((x - x0) / a)},${Math.round((y - y0) / a)}`);
+  const out = new Map<number, { area: number; count: number }>();
+  const centres: [number, number][] = [];
+  for (const p of polys) {
+    const [cx, cy] = centroid(p.xy);
+    centres.push([cx, cy]);
+    // on the lattice: y = yc + m·h, x = xc + (n + (m mod 2)/2)·a
+    const m = Math.round((cy - yc) / h), u = (cx - xc) / a - (((m % 2) + 2) % 2) / 2;
+    expect(Math.abs(cy - yc - m * h), `row of (${cx}, ${cy})`).toBeLessThan(tolerance);
+    expect(Math.abs(u - Math.round(u)) * a, `column of (${cx}, ${cy})`).toBeLessThan(tolerance);
+    // the cell containing the centre (edge: toward the grid's centre line; on it: the lower cell)
+    let fi = (cx - x0) / a;
+    if (Math.abs(Math.abs(fi - Math.floor(fi)) - 0.5) * a < tolerance) {
+      const lo = Math.floor(fi), hi = lo + 1;
+      fi = Math.abs(hi - ci) < Math.abs(lo - ci) ? hi : lo;
+    }
+    let fj = (cy - y0) / a;
+    if (Math.abs(Math.abs(fj - Math.floor(fj)) - 0.5) * a < tolerance) fj = Math.floor(fj);
+    const row = byIJ.get(`${Math.round(fi)},${Math.round(fj)}`);
+    expect(row, `a device cell under (${cx}, ${cy})`).toBeDefined();
+    expect(p.layer, `layer of the site at (${cx}, ${cy})`).toBe(Number(row!.level));
+    // the share inside cells of its kind (points just inside the share's circle, and every vertex)
+    const rFile = Number(row![Object.keys(row!).find((k) => k.startsWith("radius_"))!]) * scale;
+    const free = row!.host === "air" || row!.host === "vacuum";
+    for (let k = 0; k < 64; k++) {
+      const t = (2 * Math.PI * k) / 64;
+      for (const rad of [0.5 * a * (1 - 1e-6), rFile]) {
+        const c = cellOf(cx + rad * Math.cos(t), cy + rad * Math.sin(t));
+        if (!c && free && rad > rFile) continue; // free rods: only the rod must stay inside the outline
+        expect(kind(c), `share of (${cx}, ${cy}) at ${t.toFixed(2)} rad`).toBe(kind(row));
+      }
+    }
+    for (let k = 0; k < p.xy.length; k += 2) expect(kind(cellOf(p.xy[k], p.xy[k + 1])), "a vertex inside its kind's cells").toBe(kind(row));
+    const e = out.get(p.layer) ?? { area: 0, count: 0 };
+    e.area += shoelace(p.xy); e.count++;
+    out.set(p.layer, e);
+  }
+  // no overlap: every pair of centres at least a pitch apart (radii below a/2), by sorting on x
+  const sorted = centres.slice().sort((p, q) => p[0] - q[0]);
+  for (let k = 0; k < sorted.length; k++) {
+    for (let o = k + 1; o < sorted.length && sorted[o][0] - sorted[k][0] < a; o++) {
+      expect(Math.hypot(sorted[o][0] - sorted[k][0], sorted[o][1] - sorted[k][1]), "distance between two sites").toBeGreaterThan(a - 2 * tolerance);
+    }
+  }
+  return out;
+}
+
+describe("GDSII layout of the silicon chip bend (electron-beam lithography, hexagonal holes)", () => {
   let r: Awaited<ReturnType<typeof planWithLayout>>;
   beforeAll(async () => { r = await planWithLayout("demo-designs/plan-silicon-chip-bend.json"); }, 120_000);
 
-  it("one 64-vertex hole per cell on its level's layer, at the build list's position, of area πr²", async () => {
+  it("64-vertex holes of area πr² on the built hexagonal sites, on the level of the cell containing each, inside their kind's cells", async () => {
     const gds = readGds(new Uint8Array(await readFile(join(r.out, "layout.gds"))));
     // database unit 1 nm, user unit 1 µm (manual: UNITS = db in user units, db in metres)
     expectClose(gds.units[0], 1e-3, { rel: 1e-12, label: "db unit in user units" });
@@ -89,40 +166,33 @@ describe("GDSII layout of the silicon chip bend (electron-beam lithography)", ()
     expect(gds.structures).toEqual(["DEVICE"]);
     const drawn = r.rows.filter((x) => x.family === "holes-in-slab");
     expect(drawn.length).toBeGreaterThan(0);
-    expect(gds.boundaries.length).toBe(drawn.length);
-    // boundaries come in level order, cells in build-list order within a level
-    const byLevel = new Map<number, Record<string, string>[]>();
-    for (const row of drawn) byLevel.set(Number(row.level), [...(byLevel.get(Number(row.level)) ?? []), row]);
-    let b = 0;
-    for (const [level, cells] of [...byLevel].sort((x, y) => x[0] - y[0])) {
-      let drawnArea = 0;
-      let smallestRadiusNm = Infinity;
-      for (const row of cells) {
-        const poly = gds.boundaries[b++];
-        expect(poly.layer).toBe(level);
-        expect(poly.xy.length).toBe(2 * 65); // 64 vertices, closed by repeating the first
-        expect(poly.xy.slice(0, 2)).toEqual(poly.xy.slice(-2));
-        const xy = poly.xy.slice(0, -2);
-        const [cx, cy] = centroid(xy);
-        expectClose(cx / 1000, Number(row.x_um), { abs: 2e-3, label: `x of cell ${row.cell}` }); // nm → µm
-        expectClose(cy / 1000, Number(row.y_um), { abs: 2e-3, label: `y of cell ${row.cell}` });
-        const area = shoelace(xy); // nm²
-        const rUm = Number(row.radius_um);
-        // vertices are rounded to the 1 nm database unit: on a ~30 nm hole each moves ≤ 0.5 nm,
-        // which bounds the area error by about 2·0.5/30 ≈ 3 % (1 % is what the rounding gives here)
-        // the bound itself, relative: 2·0.5 nm / r
-        expectClose(area, Math.PI * (rUm * 1000) ** 2, { rel: 1 / (rUm * 1000), label: `hole area of cell ${row.cell}` });
-        smallestRadiusNm = Math.min(smallestRadiusNm, rUm * 1000);
-        drawnArea += area;
-      }
-      // drawn fraction of the level's cells against its fill fraction; hex recipes on the square
-      // device grid: fill × √3/2 (the hexagonal cell is √3/2 of a²)
+    expect(drawn.every((x) => x.lattice === "hex")).toBe(true);
+    const polys = gds.boundaries.map((b) => {
+      expect(b.xy.length).toBe(2 * 65); // 64 vertices, closed by repeating the first
+      expect(b.xy.slice(0, 2)).toEqual(b.xy.slice(-2));
+      return { layer: b.layer, xy: b.xy.slice(0, -2) };
+    });
+    // positions in nm, rounded to the 1 nm database unit: centres within 1 nm of the lattice
+    const a = 100; // nm, the demo's pitch
+    const perLevel = checkHexPolygons(polys, r.rows, 100e-9, 1e9, 1);
+    // the sites built and left out, as stderr reports them, add up to the lattice's sites in the
+    // level's cells: about 2/√3 per cell (site density 2/(√3 a²)), give or take the region's edge
+    const note = /sites left out[^:]*: (.*)/.exec(r.err);
+    const left = new Map<number, [number, number]>();
+    for (const m of (note?.[1] ?? "").matchAll(/level (\d+): (\d+) of (\d+)/g)) left.set(Number(m[1]), [Number(m[2]), Number(m[3])]);
+    for (const [level, e] of perLevel) {
       const lv = r.levels.find((x) => Number(x.level) === level)!;
-      const a = 100; // nm, the demo's pitch
-      const factor = lv.lattice === "hex" ? Math.sqrt(3) / 2 : 1;
-      expectClose(drawnArea / (cells.length * a * a), Number(lv.fill_fraction) * factor, { rel: 1 / smallestRadiusNm, label: `level ${level} area fraction` }); // the same 1 nm vertex rounding bound, at the level's smallest hole
+      const rUm = Number(lv.radius_um), rNm = rUm * 1000;
+      // every hole of the level has area πr² (1 nm vertex rounding: relative bound 2·0.5 nm / r)
+      expectClose(e.area / e.count, Math.PI * rNm * rNm, { rel: 1 / rNm, label: `mean hole area of level ${level}` });
+      // identity: over the built sites' own area (√3/2)·a² each, the drawn fraction is the fill
+      expectClose(e.area / (e.count * (Math.sqrt(3) / 2) * a * a), Number(lv.fill_fraction), { rel: 1 / rNm, label: `level ${level} area fraction over its sites` });
+      const cells = Number(lv.cells);
+      const [dropped, all] = left.get(level) ?? [0, e.count];
+      expect(all - dropped).toBe(e.count);
+      expect(Math.abs(all - (2 / Math.sqrt(3)) * cells), `level ${level}: ${all} sites in ${cells} cells`).toBeLessThan(Math.max(4, 2 * Math.sqrt(cells)));
     }
-    expect(b).toBe(gds.boundaries.length);
+    expect([...perLevel.values()].reduce((s, e) => s + e.count, 0)).toBe(gds.boundaries.length);
   });
 });
 
@@ -159,4 +229,87 @@ describe("DXF layout (read with dxf-parser)", () => {
       expectClose(a.area / (a.cells * pitchMm * pitchMm), Number(lv.fill_fraction) * factor, { rel: 1e-6, label: `${layer} area fraction` });
     }
   }, 120_000);
+});
+
+describe("hexagonal rods over a uniform block: GDSII, DXF and the drawn full-wave case agree site for site", () => {
+  const DESIGN = "tests/io/layout-fixtures/hex-rods-block.json";
+  let r: Awaited<ReturnType<typeof planWithLayout>>;
+  beforeAll(async () => { r = await planWithLayout(DESIGN); }, 120_000);
+
+  it("the drawn area fraction is the recipe's fill over the built sites, and the edge effect is the sites the outline leaves out", async () => {
+    expect(r.levels.length).toBe(1);
+    const lv = r.levels[0];
+    expect(lv.lattice).toBe("hex");
+    const fill = Number(lv.fill_fraction), rMm = Number(lv.radius_mm), a = 2; // mm, the fixture's pitch
+    const gds = readGds(new Uint8Array(await readFile(join(r.out, "layout.gds"))));
+    const gdsPolys = gds.boundaries.map((b) => ({ layer: b.layer, xy: b.xy.slice(0, -2).map((v) => v / 1e6) })); // nm → mm
+    const dxf = new DxfParser().parseSync(await readFile(join(r.out, "layout.dxf"), "utf8"))!;
+    const dxfPolys = (dxf.entities as unknown as { layer: string; vertices: { x: number; y: number }[] }[]).map((e) => ({ layer: Number(e.layer.replace("LEVEL_", "")), xy: e.vertices.flatMap((q) => [q.x, q.y]) }));
+    // GDSII (1 nm grid) and DXF (floating mm) hold the same sites on the same layers
+    expect(dxfPolys.length).toBe(gdsPolys.length);
+    const fix = (v: number): string => (Math.round(v * 1e4) / 1e4 + 0).toFixed(4); // + 0: no "-0.0000"
+    const key = (p: { layer: number; xy: number[] }): string => { const [x, y] = centroid(p.xy); return `${p.layer}:${fix(x)},${fix(y)}`; };
+    expect(new Set(dxfPolys.map(key))).toEqual(new Set(gdsPolys.map(key)));
+    const per = checkHexPolygons(dxfPolys, r.rows, 2e-3, 1e3, 1e-9).get(1)!;
+    // The block is 13 × 9 cells of 2 mm, [−13, 13] × [−9, 9] mm, the grid's centre at (0, 0). Rods
+    // in air need only themselves inside the outline: the built sites are the lattice points
+    // (2n + (m mod 2), √3·m) mm with |x| ≤ 13 − r, |y| ≤ 9 − r, counted here by rows (independent of
+    // the planner): 9 rows (|m| ≤ 4), 13 sites on even rows, 12 on odd rows.
+    let expected = 0;
+    for (let m = -10; m <= 10; m++) for (let n = -10; n <= 10; n++) {
+      const x = 2 * n + (((m % 2) + 2) % 2), y = Math.sqrt(3) * m;
+      if (Math.abs(x) <= 13 - rMm && Math.abs(y) <= 9 - rMm) expected++;
+    }
+    expect(expected).toBe(5 * 13 + 4 * 12);
+    expect(per.count).toBe(expected);
+    // identity: each built site owns (√3/2)·a² (site density 2/(√3 a²)), so over the built sites the
+    // drawn fraction is the fill (equal-area 64-gons; levels.csv prints the fill to 6 digits)
+    const siteArea = (Math.sqrt(3) / 2) * a * a;
+    expectClose(per.area / (per.count * siteArea), fill, { rel: 2e-6, label: "drawn fraction over the built sites" });
+    // over the block (26 × 18 mm): fill × the share of the block the built sites own. That share
+    // is the edge effect: 113 sites own 391.4 mm² of 468 (the block holds 135.1 sites' worth)
+    const blockArea = 26 * 18;
+    expectClose(per.area / blockArea, fill * (expected * siteArea) / blockArea, { rel: 2e-6, label: "drawn fraction over the block" });
+    expect(per.area / blockArea).toBeLessThan(fill);
+    // the stderr note counts the sites left out in the level's cells (their rods would cross the outline)
+    const m = /level 1: (\d+) of (\d+)/.exec(r.err);
+    expect(m, r.err).not.toBeNull();
+    expect(Number(m![2]) - Number(m![1])).toBe(expected);
+  });
+
+  it("the drawn full-wave case (realized-geometry) stands on the same sites: rod material at every site, host at every site left out", async () => {
+    const design = await loadDesign(DESIGN);
+    const [field, materials, processes] = await Promise.all([loadFieldForDesign(design), loadMaterialCatalog(), loadProcessCatalog()]);
+    const plan = planFromField(design, field, { materials, processes }, {});
+    const bulk = bulkMaterials(materials, design.frequencyHz, plan);
+    const d = geometryScene({ plan, materials: bulk, polarization: "Hz", background: { eps: 1, mu: 1 }, hidden: null });
+    if (!d.ok) throw new Error(d.reason);
+    const gds = readGds(new Uint8Array(await readFile(join(r.out, "layout.gds"))));
+    const sites = new Set<string>();
+    const out = new Float64Array(8);
+    const rM = Number(r.levels[0].radius_mm) * 1e-3;
+    const alumina = bulk.get("alumina-96")!.eps.re, air = bulk.get("air")!.eps.re;
+    for (const b of gds.boundaries) {
+      const [x, y] = centroid(b.xy.slice(0, -2)).map((v) => v * 1e-9); // nm → m
+      sites.add(`${Math.round(x * 1e6)},${Math.round(y * 1e6)}`);
+      // Hz samples T = ε·I: the rod's ε at the centre and just inside the rim, air just outside
+      d.scene.sample(x, y, out);
+      expect(out[2]).toBe(alumina);
+      d.scene.sample(x + 0.99 * rM, y, out);
+      expect(out[2]).toBe(alumina);
+      d.scene.sample(x + 1.01 * rM, y, out);
+      expect(out[2]).toBe(air);
+    }
+    // every other lattice point inside the block is a site left out: air there in the drawn case
+    let leftOut = 0;
+    for (let m = -10; m <= 10; m++) for (let n = -10; n <= 10; n++) {
+      const x = (2 * n + (((m % 2) + 2) % 2)) * 1e-3, y = Math.sqrt(3) * m * 1e-3;
+      if (Math.abs(x) >= 13e-3 || Math.abs(y) >= 9e-3 || sites.has(`${Math.round(x * 1e6)},${Math.round(y * 1e6)}`)) continue;
+      leftOut++;
+      d.scene.sample(x, y, out);
+      expect(out[2], `left-out site (${x}, ${y})`).toBe(air);
+    }
+    expect(leftOut).toBeGreaterThan(0);
+    expect(d.notes.join(" ")).toMatch(new RegExp(`\\(${gds.boundaries.length} sites built`));
+  }, 60_000);
 });

@@ -15,21 +15,27 @@
  * Other recipes (strut lattices, cubes, spheres: 3D printed parts; split rings on standing boards;
  * rods, holes or wires lying in the plane; laminates stacked along z) have no one-polygon plan view
  * and are listed in `notDrawn` with the reason, never drawn wrong. Cells sit on the device's square
- * grid; a hexagonal-lattice recipe placed there keeps its dimensions, so its area fraction is its
- * fill × √3/2 (said in `notes`). A rect-lattice recipe (aspect m/n) tiles the cell exactly: m × n
+ * grid and square-lattice inclusions at their cell centres. Hexagonal-lattice inclusions stand on
+ * the sites of one hexagonal lattice of the pitch (hexSites.ts: anchored on the grid's centre, each
+ * site with the recipe of the cell containing it, sites whose share would cross the device outline
+ * or reach a cell built another way left out and counted in `notes`), the same sites the drawn
+ * full-wave case uses, so the drawn area fraction is the recipe's fill away from the edges of a
+ * level's region. A rect-lattice recipe (aspect m/n) tiles the cell exactly: m × n
  * circles, spacing p/m along the lattice's x axis and p/n along y, the x axis along the grid axis
  * (x or y) nearer the cell's principal axis 1 — snapped like laminates; the largest angle between
  * a snapped axis and the principal axis it stands for is said in `notes`.
  */
 import type { Plan, Recipe } from "../planTypes.js";
 import { rectTiling } from "../../cells/lattice.js";
+import { droppedSitesNote, planHexSites } from "./planHexSites.js";
+import { HEX_ROW } from "./hexSites.js";
 
 export const CIRCLE_VERTICES = 64;
 
 /** One closed polygon (x, y pairs, metres, counter-clockwise, last point ≠ first). */
 export interface LayoutPolygon {
   cell: number;
-  /** centre of the cell, metres */
+  /** centre of the shape, metres: the cell centre, or the hexagonal site (hexSites.ts) */
   cxM: number;
   cyM: number;
   xy: Float64Array;
@@ -41,8 +47,13 @@ export interface LayoutLevel {
   /** what is drawn: the fabricated phase's material ("air holes in silicon-nir"…) */
   what: string;
   polygons: LayoutPolygon[];
-  /** drawn area over cell area for this level's recipe (analytic), to check against the drawing */
+  /**
+   * drawn area over area where the level's recipe repeats (analytic: the recipe's fill; for square
+   * and rect lattices also the fraction of every cell), to check against the drawing
+   */
   areaFraction: number;
+  /** hexagonal-lattice levels: sites built, and sites left out at the edge of their kind's cells (hexSites.ts) */
+  sites?: { built: number; dropped: number };
 }
 
 export interface Layout {
@@ -105,6 +116,8 @@ function shapeOf(r: Recipe, a: number): { draw: ((cx: number, cy: number, axisRa
         fraction: (t.m * t.n * Math.PI * radius * radius) / (a * a),
       };
     }
+    // hexagonal lattice: drawn on the plan's sites (planLayout), one site per (√3/2)·a²
+    if (r.lattice === "hex") return { draw: (cx, cy) => [circle(cx, cy, radius)], what: `${fab} (hexagonal lattice)`, fraction: (Math.PI * radius * radius) / (HEX_ROW * a * a) };
     return { draw: (cx, cy) => [circle(cx, cy, radius)], what: fab, fraction: (Math.PI * radius * radius) / (a * a) };
   }
   if (r.family === "laminate" && Number.isFinite(r.dimensions.thickness_m)) {
@@ -137,10 +150,13 @@ export function planLayout(plan: Plan): Layout {
     else levels.push({ level: lv.index, what: s.what, polygons: [], areaFraction: s.fraction });
   });
   const byLevel = new Map(levels.map((x) => [x.level, x]));
+  const hex = planHexSites(plan);
+  const onSites = new Uint8Array(plan.levels.length);
+  for (const l of hex?.hexLevels ?? []) onSites[l] = 1;
   let maxSnap = -1;
   for (let c = 0; c < g.count; c++) {
     const l = plan.level[c];
-    if (l < 0) continue;
+    if (l < 0 || onSites[l]) continue;
     const out = byLevel.get(l + 1);
     const s = shapes[l];
     if (!out || !s?.draw) continue;
@@ -149,11 +165,26 @@ export function planLayout(plan: Plan): Layout {
     if (plan.levels[l].recipe?.lattice === "rect") maxSnap = Math.max(maxSnap, snapAngleRad(plan.axisAngleRad[c]));
   }
   const notes: string[] = [];
+  if (hex) {
+    const { sites } = hex;
+    for (let k = 0; k < sites.cell.length; k++) {
+      const c = sites.cell[k], l = plan.level[c];
+      const out = byLevel.get(l + 1), s = shapes[l];
+      if (!out || !s?.draw) continue;
+      for (const xy of s.draw(sites.xM[k], sites.yM[k], 0)) out.polygons.push({ cell: c + 1, cxM: sites.xM[k], cyM: sites.yM[k], xy });
+    }
+    let cells = 0;
+    for (let c = 0; c < g.count; c++) if (plan.level[c] >= 0 && onSites[plan.level[c]]) cells++;
+    for (const l of hex.hexLevels) {
+      const out = byLevel.get(l + 1);
+      if (out) out.sites = { built: hex.builtPerLevel[l], dropped: hex.droppedPerLevel[l] };
+    }
+    notes.push(`hexagonal-lattice levels stand on one hexagonal lattice of the pitch anchored on the grid's centre: ${sites.cell.length} sites built in their ${cells} cells (the cells' area holds ${(cells / HEX_ROW).toFixed(1)}), each with the recipe of the cell containing it`);
+    const dropped = droppedSitesNote(hex, plan);
+    if (dropped) notes.push(dropped);
+  }
   if (maxSnap >= 0) {
     notes.push(`rect-lattice cells are drawn with their lattice axes along the grid axes nearer the cells' principal axes: largest misalignment ${Number(((maxSnap * 180) / Math.PI).toPrecision(3))}° (the planned values assume none)`);
-  }
-  if (plan.levels.some((lv) => lv.recipe?.lattice === "hex")) {
-    notes.push("hexagonal-lattice recipes are drawn on the device's square grid with their own dimensions: their drawn area fraction is fill × √3/2");
   }
   return { levels, notDrawn, notes, pitchM: a };
 }
