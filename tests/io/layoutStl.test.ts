@@ -25,6 +25,7 @@ import { loadProcessCatalog } from "../../src/io/processCatalog.js";
 import { planFromField } from "../../src/plan/runPlan.js";
 import { equalAreaRadius, printedPart } from "../../src/plan/layout/printedPart.js";
 import { planLayout } from "../../src/plan/layout/layoutShapes.js";
+import { rectTiling } from "../../src/cells/lattice.js";
 import { stlChunks } from "../../src/io/layout/stlWriter.js";
 import type { Plan, Recipe } from "../../src/plan/planTypes.js";
 
@@ -416,4 +417,49 @@ describe("STL of hexagonal rods and holes: on the 2D layouts' sites, closed, hol
     expectClose(h.an.volumeMm3, expected, { rel: 1e-4, label: "rods' volume" });
     expect(h.part.notes.join(" ")).toMatch(/sites left out at the edge/);
   }, 60_000);
+
+  it("rect-lattice holes (m × n per cell) and rods: closed, on the 2D layout's circle centres, holding the fill in every cell", async () => {
+    const design = await loadDesign("tests/io/layout-fixtures/rect-holes.json");
+    const [field, materials, processes] = await Promise.all([loadFieldForDesign(design), loadMaterialCatalog(), loadProcessCatalog()]);
+    const plan = planFromField(design, field, { materials, processes }, {});
+    const rect = plan.levels.filter((lv) => lv.recipe?.lattice === "rect");
+    expect(rect.length).toBeGreaterThan(0);
+    for (const holes of [true, false]) {
+      if (!holes) for (const lv of plan.levels) if (lv.recipe && lv.recipe.family === "holes-in-slab") lv.recipe = { ...lv.recipe, family: "rods-in-host", host: "air", inclusion: lv.recipe.host };
+      const part = printedPart(plan, 2 * plan.grid.pitchM, null);
+      expect(part.refused).toBeNull();
+      expect(part.notes.join(" ")).toMatch(/rect-lattice rods and holes: m × n per cell/);
+      const chunks: Uint8Array[] = [];
+      for (const c of stlChunks(part, "rect")) chunks.push(c.slice());
+      const buf = Buffer.concat(chunks);
+      const an = analyse(buf, plan.grid.pitchM * 1e3, plan.grid.originXM * 1e3, plan.grid.originYM * 1e3);
+      expect(an.badEdges).toBe(0);
+      expect(an.unpairedDirected).toBe(0);
+      const N = part.circleVertices, a = plan.grid.pitchM * 1e3, H = part.heightM * 1e3;
+      // the 2D layout's circles (their vertex centroids) are the printed circles' centres
+      const circles = planLayout(plan).levels.flatMap((lv) => lv.polygons.map((p) => { let x = 0, y = 0; for (let k = 0; k < p.xy.length; k += 2) { x += p.xy[k]; y += p.xy[k + 1]; } return { x: (2e3 * x) / p.xy.length, y: (2e3 * y) / p.xy.length, level: lv.level }; }));
+      const raw = parseSTL(buf), v = raw.vertices;
+      const top = new Set<string>();
+      for (let k = 0; k < v.length; k += 3) if (Math.abs(v[k + 2] - H) < 1e-4) top.add(`${v[k].toFixed(3)},${v[k + 1].toFixed(3)}`);
+      let area = 0;
+      for (const c of circles) {
+        const r = plan.levels[c.level - 1].recipe!.dimensions.radius_m * 1e3, R = equalAreaRadius(r, N);
+        expect(top.has(`${(c.x + R).toFixed(3)},${c.y.toFixed(3)}`), `a printed circle at (${c.x}, ${c.y})`).toBe(true);
+        area += Math.PI * r * r;
+      }
+      let cells = 0;
+      for (let c = 0; c < plan.grid.count; c++) if (plan.level[c] >= 0 && plan.levels[plan.level[c]].recipe?.family !== "solid") cells++;
+      // identity: m·n circles of πr² in a cell of a² hold the fill (πr²/(a/m · a/n)) in every cell
+      const printed = holes ? H * (cells * a * a - area) : H * area;
+      expectClose(an.volumeMm3, printed, { rel: 1e-4, label: holes ? "plate minus the holes" : "the rods" });
+      // per rect level: m × n circles in each of its cells, and m·n·πr²/a² is the recipe's fill
+      for (const lv of rect) {
+        const t = rectTiling(lv.recipe!.aspect!)!;
+        const n = circles.filter((c) => c.level === lv.index).length;
+        expect(n).toBe(t.m * t.n * lv.cellCount);
+        const r = lv.recipe!.dimensions.radius_m * 1e3;
+        expectClose((t.m * t.n * Math.PI * r * r) / (a * a), lv.recipe!.fillFraction, { rel: 1e-9, label: `level ${lv.index} fill` });
+      }
+    }
+  }, 120_000);
 });
