@@ -32,11 +32,12 @@
 import type { Complex } from "../core/complex.js";
 import type { Plan, Recipe } from "../plan/planTypes.js";
 import { diskConductor, type Conductor } from "./conductor.js";
-import { HEX_ROW, builtSiteAt, nearestHexSite } from "../plan/layout/hexSites.js";
+import { HEX_ROW, builtSiteAt, nearestHexSite, type HexSites } from "../plan/layout/hexSites.js";
 import { droppedSitesNote, planHexSites, type PlanHexSites } from "../plan/layout/planHexSites.js";
 import type { DeviceGrid } from "../field/deviceGrid.js";
 import { deviceBounds, latticeLookup, type HiddenDisk } from "./deviceScene.js";
-import { SAMPLE_BACKGROUND, SAMPLE_MEDIUM, SAMPLE_PEC, S_B, S_TXX, S_TXY, S_TYY, type Scene, type ScenePolarization } from "./scene.js";
+import { discRectArea } from "./discRectArea.js";
+import { BOX_MAX_PARTS, BOX_PART, SAMPLE_BACKGROUND, SAMPLE_MEDIUM, SAMPLE_PEC, S_B, S_TXX, S_TXY, S_TYY, type Scene, type ScenePolarization } from "./scene.js";
 
 /** A bulk material at the design frequency. */
 export interface BulkMaterial {
@@ -217,7 +218,15 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
   }
   feature = Math.min(feature, wall.value);
   if (!Number.isFinite(feature)) feature = a; // solid cells only: the cell is the feature
+  // the cells' box, grown to every disc (the grid samples only inside the bounds; a clipped disc
+  // would lose a share that changes with the grid step — it did, before hexagonal sites were kept
+  // inside the outline, by 4 % of σ in Ez)
   const bounds = deviceBounds(g);
+  for (let k = 0; k < discs.cell.length; k++) {
+    const r = size[discs.cell[k]];
+    bounds.minX = Math.min(bounds.minX, discs.x[k] - r); bounds.maxX = Math.max(bounds.maxX, discs.x[k] + r);
+    bounds.minY = Math.min(bounds.minY, discs.y[k] - r); bounds.maxY = Math.max(bounds.maxY, discs.y[k] + r);
+  }
   const conductors: Conductor[] = [...(input.extraConductors ?? [])];
   if (input.hidden) {
     const [cx, cy] = input.hidden.centerM, r = input.hidden.radiusM;
@@ -229,6 +238,9 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
   const ez = polarization === "Ez";
   const anyHex = hexPlan !== null, nm = new Int32Array(2);
   const hexBuilt = hexPlan?.sites;
+  let rHexMax = 0;
+  for (let c = 0; c < n; c++) if (kindOf[c] === K_HEX_DISC) rHexMax = Math.max(rHexMax, size[c]);
+  const boxParts = exactBoxParts({ g, lut, kindOf, size, normalX, inside, outside, conductors, ez, background: input.background, rHexMax, hexBuilt });
   const scene: Scene = {
     polarization,
     background: input.background,
@@ -266,6 +278,7 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
       out[S_TXY] = 0; out[S_TXY + 1] = 0;
       return SAMPLE_MEDIUM;
     },
+    boxParts,
   };
   const notes: string[] = [];
   if (hexPlan) {
@@ -276,4 +289,126 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
     if (dropped) notes.push(`realized-geometry: ${dropped}`);
   }
   return { ok: true, scene, smallestFeatureM: feature, indexHint: index, notes };
+}
+
+interface BoxPartsInput {
+  g: DeviceGrid;
+  lut: Int32Array;
+  kindOf: Uint8Array;
+  size: Float64Array;
+  normalX: Uint8Array;
+  inside: Float64Array;
+  outside: Float64Array;
+  conductors: readonly Conductor[];
+  ez: boolean;
+  background: { eps: number; mu: number };
+  rHexMax: number;
+  /** the built hexagonal sites (planHexSites.ts), if any */
+  hexBuilt: HexSites | undefined;
+}
+
+/** Most hexagonal discs that can reach one box (h ≤ a/8: the nearest site and its neighbours). */
+const MAX_BOX_DISCS = 16;
+
+/**
+ * Scene.boxParts of the drawn structure: the box cut by the (at most 2 × 2) lattice cells it
+ * overlaps, each cell's piece split exactly into its disc (discRectArea.ts), layer or solid and the
+ * rest, less the hexagonal discs that reach into it (sample() puts a point inside a hexagonal disc
+ * first, whatever cell it lies in); equal materials merged. A box within reach of a conductor is
+ * left to point sampling (0), and so is everything when a hexagonal disc is wider than half a pitch
+ * (sample() then clips it at the nearest-site boundary, which this exact split does not).
+ */
+function exactBoxParts(p: BoxPartsInput): ((x: number, y: number, h: number, out: Float64Array) => number) | undefined {
+  const { g, lut, kindOf, size, normalX, inside, outside, conductors, ez, background, rHexMax, hexBuilt } = p;
+  const a = g.pitchM, ox = g.originXM, oy = g.originYM;
+  const nm = new Int32Array(2);
+  if (rHexMax >= a / 2) return undefined;
+  const partKind = new Uint8Array(BOX_MAX_PARTS), partMat = new Float64Array(4 * BOX_MAX_PARTS), partArea = new Float64Array(BOX_MAX_PARTS);
+  const bg = new Float64Array([background.eps, 0, background.mu, 0]);
+  const hx = new Float64Array(MAX_BOX_DISCS), hy = new Float64Array(MAX_BOX_DISCS), hr = new Float64Array(MAX_BOX_DISCS), hc = new Int32Array(MAX_BOX_DISCS);
+  let np = 0, overflow = false;
+  const add = (area: number, kind: number, src: Float64Array, o: number): void => {
+    if (!(area > 0)) return;
+    for (let k = 0; k < np; k++) {
+      if (partKind[k] === kind && partMat[4 * k] === src[o] && partMat[4 * k + 1] === src[o + 1] && partMat[4 * k + 2] === src[o + 2] && partMat[4 * k + 3] === src[o + 3]) { partArea[k] += area; return; }
+    }
+    if (np === BOX_MAX_PARTS) { overflow = true; return; }
+    partKind[np] = kind;
+    partMat[4 * np] = src[o]; partMat[4 * np + 1] = src[o + 1]; partMat[4 * np + 2] = src[o + 2]; partMat[4 * np + 3] = src[o + 3];
+    partArea[np++] = area;
+  };
+  const cellAt = (i: number, j: number): number => (i >= 0 && j >= 0 && i < g.nx && j < g.ny ? lut[i + g.nx * j] : -1);
+  return (xc, yc, h, out) => {
+    for (const cd of conductors) if (cd.signedDistanceM(xc, yc) < 0.75 * h) return 0;
+    const x0 = xc - h / 2, x1 = xc + h / 2, y0 = yc - h / 2, y1 = yc + h / 2;
+    np = 0; overflow = false;
+    // hexagonal discs that reach the box
+    let nh = 0;
+    if (hexBuilt && rHexMax > 0) {
+      // sites within a/√3 + r + h of the box's centre: the nearest one's rows ±1, columns ±2
+      nearestHexSite(g, xc, yc, nm);
+      for (let m = nm[1] - 1; m <= nm[1] + 1; m++) {
+        for (let q = nm[0] - 2; q <= nm[0] + 2; q++) {
+          const k = builtSiteAt(hexBuilt, q, m);
+          if (k < 0) continue;
+          const sx = hexBuilt.xM[k], sy = hexBuilt.yM[k], c = hexBuilt.cell[k], r = size[c];
+          const dx = Math.max(x0 - sx, 0, sx - x1), dy = Math.max(y0 - sy, 0, sy - y1);
+          if (dx * dx + dy * dy >= r * r) continue;
+          if (nh === MAX_BOX_DISCS) return 0;
+          hx[nh] = sx; hy[nh] = sy; hr[nh] = r; hc[nh++] = c;
+        }
+      }
+    }
+    for (let j = Math.round((y0 - oy) / a); j <= Math.round((y1 - oy) / a); j++) {
+      for (let i = Math.round((x0 - ox) / a); i <= Math.round((x1 - ox) / a); i++) {
+        const cx = ox + i * a, cy = oy + j * a;
+        const rx0 = Math.max(x0, cx - a / 2), rx1 = Math.min(x1, cx + a / 2), ry0 = Math.max(y0, cy - a / 2), ry1 = Math.min(y1, cy + a / 2);
+        if (!(rx1 > rx0 && ry1 > ry0)) continue;
+        const area = (rx1 - rx0) * (ry1 - ry0);
+        let hexArea = 0;
+        for (let k = 0; k < nh; k++) {
+          const d = discRectArea(hx[k], hy[k], hr[k], rx0, rx1, ry0, ry1);
+          add(d, SAMPLE_MEDIUM, inside, 4 * hc[k]);
+          hexArea += d;
+        }
+        const c = cellAt(i, j), kind = c < 0 ? K_NONE : kindOf[c], o = 4 * c;
+        if (kind === K_NONE) add(area - hexArea, SAMPLE_BACKGROUND, bg, 0);
+        else if (kind === K_SOLID) add(area - hexArea, SAMPLE_MEDIUM, inside, o);
+        else if (kind === K_HEX_DISC) add(area - hexArea, SAMPLE_MEDIUM, outside, o);
+        else if (kind === K_DISC) {
+          // hexagonal and square discs never overlap (narrowestWall), so a hexagonal disc here lies in the rest
+          const d = discRectArea(cx, cy, size[c], rx0, rx1, ry0, ry1);
+          add(d, SAMPLE_MEDIUM, inside, o);
+          add(area - d - hexArea, SAMPLE_MEDIUM, outside, o);
+        } else {
+          // a layer: the slab across the cell, |x − cx| (normal x) or |y − cy| below half its thickness
+          const t = size[c] / 2;
+          const sx0 = normalX[c] ? Math.max(rx0, cx - t) : rx0, sx1 = normalX[c] ? Math.min(rx1, cx + t) : rx1;
+          const sy0 = normalX[c] ? ry0 : Math.max(ry0, cy - t), sy1 = normalX[c] ? ry1 : Math.min(ry1, cy + t);
+          let slab = 0, hexInSlab = 0;
+          if (sx1 > sx0 && sy1 > sy0) {
+            slab = (sx1 - sx0) * (sy1 - sy0);
+            for (let k = 0; k < nh; k++) hexInSlab += discRectArea(hx[k], hy[k], hr[k], sx0, sx1, sy0, sy1);
+          }
+          add(slab - hexInSlab, SAMPLE_MEDIUM, inside, o);
+          add(area - slab - (hexArea - hexInSlab), SAMPLE_MEDIUM, outside, o);
+        }
+      }
+    }
+    if (overflow || np === 0) return 0;
+    let total = 0;
+    for (let k = 0; k < np; k++) total += partArea[k];
+    for (let k = 0; k < np; k++) {
+      const w = BOX_PART * k, m = 4 * k;
+      out[w] = partArea[k] / total; out[w + 1] = partKind[k];
+      // Ez: b = ε, T = μ·I; Hz: b = μ, T = ε·I (as sample())
+      const bRe = ez ? partMat[m] : partMat[m + 2], bIm = ez ? partMat[m + 1] : partMat[m + 3];
+      const tRe = ez ? partMat[m + 2] : partMat[m], tIm = ez ? partMat[m + 3] : partMat[m + 1];
+      out[w + 2 + S_B] = bRe; out[w + 2 + S_B + 1] = bIm;
+      out[w + 2 + S_TXX] = tRe; out[w + 2 + S_TXX + 1] = tIm;
+      out[w + 2 + S_TYY] = tRe; out[w + 2 + S_TYY + 1] = tIm;
+      out[w + 2 + S_TXY] = 0; out[w + 2 + S_TXY + 1] = 0;
+    }
+    return np;
+  };
 }

@@ -18,6 +18,11 @@ export const SAMPLE_PEC = 2;
 /** Offsets into the sample buffer (length SAMPLE_LENGTH): complex b, T_xx, T_yy, T_xy as re, im pairs. */
 export const S_B = 0, S_TXX = 2, S_TYY = 4, S_TXY = 6, SAMPLE_LENGTH = 8;
 
+/** Floats per part written by Scene.boxParts: area fraction, kind (SAMPLE_BACKGROUND or SAMPLE_MEDIUM), then the SAMPLE_LENGTH values. */
+export const BOX_PART = 2 + SAMPLE_LENGTH;
+/** Most parts Scene.boxParts writes (more distinct materials in one box: it returns 0). */
+export const BOX_MAX_PARTS = 8;
+
 export interface Scene {
   polarization: ScenePolarization;
   /** relative permittivity and permeability of the (lossless, isotropic) background */
@@ -29,6 +34,15 @@ export interface Scene {
    * returns the kind; for SAMPLE_BACKGROUND and SAMPLE_PEC out is left alone.
    */
   sample(xM: number, yM: number, out: Float64Array): number;
+  /**
+   * Optional: the exact make-up of the axis-aligned h × h box centred at (x, y), as sample() would
+   * classify its points — one part per distinct material, BOX_PART floats each (area fraction,
+   * kind, values as sample() writes them) in out (length ≥ BOX_MAX_PARTS · BOX_PART). Returns the
+   * number of parts (fractions sum to 1), or 0 when it cannot say exactly (a conductor within
+   * reach, more than BOX_MAX_PARTS materials): the grid then samples the box point by point.
+   * Drawn structures offer it (geometryScene.ts), so their sub-pixel averages carry no sampling error.
+   */
+  boxParts?(xM: number, yM: number, hM: number, out: Float64Array): number;
   /**
    * The perfect conductors of the scene as shapes (sample() also reports SAMPLE_PEC inside them):
    * the solver uses them to place the conductor's surface between grid nodes. Points sample()

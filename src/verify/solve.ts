@@ -147,5 +147,7 @@ export function withGround(scene: Scene, yM: number): Scene {
     bounds: { minX: -Infinity, maxX: Infinity, minY: -Infinity, maxY: Math.max(scene.bounds.maxY, yM) },
     conductors: [...(scene.conductors ?? []), ground],
     sample: (x, y, out) => (y < yM ? SAMPLE_PEC : scene.sample(x, y, out)),
+    // a box that reaches the ground is sampled point by point (the conductor's treatment needs it)
+    boxParts: scene.boxParts && ((x, y, h, out) => (y - 0.75 * h < yM ? 0 : scene.boxParts!(x, y, h, out))),
   };
 }

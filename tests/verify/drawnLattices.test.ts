@@ -92,7 +92,8 @@ describe("drawn lattices against their effective medium (a = λ0/32, fill 0.6, �
     const ws = wignerSeitzBody(hexPlan, solved);
     const coarse = ratio(ws, hexPlan, 2), fine = ratio(ws, hexPlan, 3);
     // measured (67 sites built, the block's share rule): 1.0120 at 10.7 steps per pitch (2 across
-    // the 0.19·a wall), 1.0116 at 16 (3 across); a 9 × 9 block (77 sites) 1.0133, 1.0115. The grid
+    // the 0.19·a wall), 1.0116 at 16 (3 across); a 9 × 9 block (77 sites) 1.0133, 1.0115; with the
+    // exact box fractions of the drawing (session 5) 1.0127, 1.0104. The grid
     // has converged (the two grids within 0.05 %); what is left, about 1.2 % whichever block, is the
     // finite block's edge (a quarter of its sites stand at the edge), not the drawing. (With the
     // hexagons approximated by one strip per row the same drawings read 1.019–1.027, and 0.9997–1.018
@@ -114,8 +115,9 @@ describe("drawn lattices against their effective medium (a = λ0/32, fill 0.6, �
     const plan = blockPlan("square", A * Math.sqrt(fill / Math.PI), perrins, fill);
     const hom = deviceScene(plan.grid as DeviceGrid, "Hz", vacuum, mapFromPlan(plan as Plan, { b: 1, t: 1 }), null);
     const coarse = ratio(hom, plan, 2), fine = ratio(hom, plan, 3);
-    // measured: 1.0272 at 9.9 steps per pitch (2 across the wall), 1.0131 at 14.8 (3 across);
-    // extrapolated at the scheme's second order 1.0018 (fill 0.6: 1.0114, 1.0080 → 1.0053)
+    // measured: 1.0317 at 9.9 steps per pitch (2 across the wall), 1.0140 at 14.8 (3 across),
+    // extrapolated at the scheme's second order 0.9999 (session 5, exact box fractions; point-sampled
+    // boxes before: 1.0272, 1.0131 → 1.0018, and at fill 0.6: 1.0114, 1.0080 → 1.0053)
     const x = richardson([1 / coarse.stepsPerPitch, 1 / fine.stepsPerPitch], [coarse.ratio, fine.ratio]);
     expect(Math.abs(fine.ratio - 1), `σ ratio ${coarse.ratio} → ${fine.ratio}`).toBeLessThan(Math.abs(coarse.ratio - 1));
     expect(Math.abs(x.value - 1), `σ ratio ${coarse.ratio} → ${fine.ratio} → ${x.value}`).toBeLessThan(0.01);
