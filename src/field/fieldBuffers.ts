@@ -4,8 +4,8 @@
  *
  * Why: a fresh typed array is zeroed memory the operating system maps page by page on first write.
  * At 10⁶ cells the engine writes about 40 MB of fresh arrays, and on a virtual machine whose host
- * takes freed memory back each 4 KiB page fault costs about 12 µs: more than the arithmetic of all
- * cells together. A caller that computes fields again and again (a benchmark, a search over
+ * takes freed memory back each 4 KiB page fault costs 14–16 µs of CPU: more than the arithmetic of
+ * all cells together. A caller that computes fields again and again (a benchmark, a search over
  * pitches) passes one `FieldBuffers` to every call.
  *
  * Contract: a field computed with buffers holds views into them, so it is valid only until the
