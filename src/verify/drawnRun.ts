@@ -11,7 +11,7 @@
  * `converged` when that uncertainty is at most the check's accuracy (and, for beams, the delivered
  * share's difference too). The ratio ρ = σ_geometry/σ_realized is kept (`relative` = ρ − 1, `ratios`),
  * but it says little when the homogenized device is nearly invisible: the microwave carpet's
- * realized σ is 9 % of the bump's, and a drawn σ of 21 % read as "+140 %".
+ * realized σ is 9 % of the bump's and its drawn σ 27 % — "+200 %" for a change of 0.18 σ_bare.
  *
  * The drawn case's own figures are read like every grid case's (widthReading.ts): σ_s extrapolated
  * over its rungs, its uncertainty judged against max(σ_s, σ_bare, device width); for beams the
