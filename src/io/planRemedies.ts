@@ -7,7 +7,8 @@
 import { computeTensorField } from "../field/computeTensorField.js";
 import type { TensorField } from "../field/tensorField.js";
 import { findRemedies, type RemedyResult } from "../plan/remedies.js";
-import { planFromField, type PlanCatalogs, type PlanDesign } from "../plan/runPlan.js";
+import { evaluateMaterials, planFromField, type PlanCatalogs, type PlanDesign } from "../plan/runPlan.js";
+import { refractiveIndex } from "../core/complex.js";
 import type { Plan, PlanOverrides } from "../plan/planTypes.js";
 import type { FieldDesign } from "../field/transformSpec.js";
 
@@ -18,6 +19,11 @@ export function searchRemedies(
   plan: Plan, design: PlanDesign & FieldDesign, field: TensorField, catalogs: PlanCatalogs, overrides: PlanOverrides, budgetMs = REMEDY_BUDGET_MS,
 ): RemedyResult {
   const start = Date.now();
+  // the catalog's materials at the design frequency, for "do without the densest material" (metals have no index here)
+  const materials = evaluateMaterials(catalogs.materials, null, plan.design.frequencyHz)
+    .filter((m) => !m.isMetal)
+    .map((m) => ({ id: m.material.id, index: refractiveIndex(m.eps).re }))
+    .filter((m) => Number.isFinite(m.index));
   return findRemedies(plan, (change) => {
     let f = field;
     if (change.pitchM !== null) {
@@ -25,5 +31,5 @@ export function searchRemedies(
       f = computeTensorField({ ...design, grid: { ...design.grid, pitchM: change.pitchM } }, undefined, undefined, { derived: "lazy" });
     }
     return planFromField(design, f, catalogs, { ...overrides, ...change.overrides });
-  }, () => Date.now() - start > budgetMs);
+  }, () => Date.now() - start > budgetMs, { materials });
 }

@@ -3,7 +3,8 @@
  * magnetic, anisotropic, unreachable, capped) are set cell by cell; flags that follow from the
  * level's recipe or its absence (norecipe, undersize, coarse, uncertain, narrowband) hold for every
  * cell of the level; inexact is set where the achieved value misses the cell's target by more than
- * the tolerance.
+ * the tolerance. A rect-lattice cell's in-plane error is that of its tensor turned into the target's
+ * principal frame (latticeMisalignment.ts): its lattice stands along the grid.
  */
 import type { ReducedField } from "../reduce/reducedField.js";
 import {
@@ -13,6 +14,7 @@ import type { Candidate, LevelSearch } from "./match/levelCandidates.js";
 import type { EvaluatedMaterial } from "./match/matchContext.js";
 import type { PlanLevel, PlanSettings, TargetComponent } from "./planTypes.js";
 import { relErr } from "./quantize/relativeError.js";
+import { gridMisalignmentRad, misalignedRelError } from "./latticeMisalignment.js";
 import { ROUNDING_TOLERANCE } from "../reduce/reduceCell.js";
 
 export interface FlagInput {
@@ -28,6 +30,8 @@ export interface FlagInput {
   materials: EvaluatedMaterial[];
   capped: number;
   undefinedFlag: number;
+  /** principal axis 2's angle per cell (rad); with it, rect-lattice cells carry their lattice-axis misalignment (latticeMisalignment.ts) */
+  axisAngleRad?: Float64Array;
 }
 
 /** Level-wide flag bits (also stored on each PlanLevel). */
@@ -68,6 +72,10 @@ export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Fl
   const epsIdx = comps.map((c, k) => (c.kind === "eps" ? k : -1)).filter((k) => k >= 0);
   const muIdx = comps.map((c, k) => (c.kind === "mu" ? k : -1)).filter((k) => k >= 0);
   const m = comps.length;
+  // in-plane components (principal axes 1 and 2): a rect cell's lattice stands along the grid
+  const k1 = comps.findIndex((x) => x.axis === "1"), k2 = comps.findIndex((x) => x.axis === "2");
+  const rectLevel = levels.map((lv) => lv.recipe?.lattice === "rect" && k1 >= 0 && k2 >= 0 && inp.axisAngleRad !== undefined);
+  let worstTurn = 0, worstAdded = 0, worstTurnedError = 0, turnedCells = 0;
   for (let c = 0; c < n; c++) {
     let f = 0;
     const rf = reduced.flags[c];
@@ -87,7 +95,10 @@ export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Fl
     if (r) {
       // complex achieved value, no floor (relativeError.ts: complexRelError); zero targets absolutely
       let e = 0, z = NaN;
+      const delta = rectLevel[l] ? gridMisalignmentRad(inp.axisAngleRad![c]) : 0;
+      const turned = delta > 1e-12 && targets[k1][c] !== 0 && targets[k2][c] !== 0;
       for (let k = 0; k < m; k++) {
+        if (turned && (k === k1 || k === k2)) continue; // measured as a turned tensor below
         const t = targets[k][c];
         const dRe = r.achieved[k] - t, dIm = r.achievedIm[k];
         if (t === 0) {
@@ -98,6 +109,17 @@ export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Fl
         const x = Math.sqrt(dRe * dRe + dIm * dIm) / Math.abs(t);
         if (x > e) e = x;
       }
+      if (turned) {
+        const t1 = targets[k1][c], t2 = targets[k2][c];
+        const x = misalignedRelError(r.achieved[k1], r.achievedIm[k1], r.achieved[k2], r.achievedIm[k2], t1, t2, delta);
+        const aligned = misalignedRelError(r.achieved[k1], r.achievedIm[k1], r.achieved[k2], r.achievedIm[k2], t1, t2, 0);
+        if (x - aligned > 1e-12) { // square tilings (e₁ = e₂) lose nothing by turning
+          turnedCells++;
+          if (delta > worstTurn) worstTurn = delta;
+        }
+        if (x - aligned > worstAdded) { worstAdded = x - aligned; worstTurnedError = x; }
+        if (x > e) e = x;
+      }
       relError[c] = e;
       if (!Number.isNaN(z)) (zeroTargetAbsError ??= new Float64Array(n).fill(NaN))[c] = z;
       if (e > tol || z > tol) f |= F_INEXACT;
@@ -105,5 +127,9 @@ export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Fl
     flags[c] = f;
   }
   if (epsLo === Infinity) warnings.push("no dielectric material is allowed at the design frequency");
+  if (turnedCells > 0) {
+    const deg = Number(((worstTurn * 180) / Math.PI).toPrecision(3));
+    warnings.push(`${turnedCells} rect-lattice cells stand with their lattice axes along the grid, up to ${deg}° from their target's principal axes; rel_error includes the turned tensor (adds up to ${Number((worstAdded * 100).toPrecision(3))} %, to ${Number((worstTurnedError * 100).toPrecision(3))} %)`);
+  }
   return { flags, relError, zeroTargetAbsError, warnings };
 }

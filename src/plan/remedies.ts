@@ -18,6 +18,7 @@ import { REDUCTION_SCHEMES } from "../reduce/schemes/registry.js";
 import { REDUCTION_SCHEME_NAMES } from "../reduce/schemes/schemeNames.js";
 import { MAX_LEVELS, type MissedRequirement, type Plan, type PlanOverrides, type RequirementName, type SchemeName } from "./planTypes.js";
 import { missSeverity } from "./verdict.js";
+import { F_COARSE } from "./flags.js";
 
 /** Largest number of re-plans one call may run. */
 export const MAX_TRIES = 10;
@@ -63,8 +64,17 @@ export interface RemedyResult {
 
 export type Replan = (change: RemedyChange) => Plan | null;
 
-/** Candidate changes for a plan's misses, most promising first (at most MAX_TRIES). */
-export function candidateChanges(plan: Plan): RemedyChange[] {
+/** What the search may know beyond the plan (the shell supplies it). */
+export interface RemedyContext {
+  /** the catalog's materials valid at the design frequency, with Re n (for "a lower-index material") */
+  materials?: readonly { id: string; index: number }[];
+}
+
+/**
+ * Candidate changes for a plan's misses, most promising first (at most MAX_TRIES). The changes
+ * aimed at coarse cells and model uncertainty are kept in the list whatever comes before them.
+ */
+export function candidateChanges(plan: Plan, context: RemedyContext = {}): RemedyChange[] {
   const s = plan.settings;
   const missed = new Set(plan.verdict.missed.map((m) => m.what));
   const out: RemedyChange[] = [];
@@ -115,10 +125,58 @@ export function candidateChanges(plan: Plan): RemedyChange[] {
   if (missed.has("process") || (counts.undersize ?? 0) > 0) {
     out.push({ label: `coarser pitch (${pitchText(plan.grid.pitchM * 1.5)})`, overrides: {}, pitchM: plan.grid.pitchM * 1.5 });
   }
-  if ((counts.coarse ?? 0) > 0 && (missed.has("recipes") || missed.has("tolerance"))) {
+  const kept = [...coarseChanges(plan, context), ...uncertaintyChanges(plan)];
+  if ((counts.coarse ?? 0) > 0 && (missed.has("recipes") || missed.has("tolerance")) && !kept.some((c) => c.pitchM !== null && c.pitchM < plan.grid.pitchM)) {
     out.push({ label: `finer pitch (${pitchText(plan.grid.pitchM / 1.5)})`, overrides: {}, pitchM: plan.grid.pitchM / 1.5 });
   }
-  return out.slice(0, MAX_TRIES);
+  return [...out.slice(0, MAX_TRIES - kept.length), ...kept];
+}
+
+/** Finer pitch than needed to bring a coarse figure to its limit (no more than 4× finer, at least 1.2×). */
+function finerPitchFactor(plan: Plan): number {
+  const worst = plan.verdict.missed.find((m) => m.what === "homogenization")?.worst;
+  let factor = 1 / 1.5;
+  // the band's departure grows as (k₀a)² (cells/band/lowestBand.ts); the pitch ratio as the pitch
+  if (worst?.figure === "band-deviation" && Number.isFinite(worst.value) && worst.value > 0) factor = 0.95 * Math.sqrt(worst.limit / worst.value);
+  else if (worst?.figure === "pitch-ratio" && worst.value > 0) factor = 0.97 * (worst.limit / worst.value);
+  return Math.min(1 / 1.2, Math.max(1 / 4, factor));
+}
+
+/**
+ * Coarse cells (`homogenization`): a finer pitch (sized from the worst coarse figure), and the same
+ * plan without the densest material of the coarse levels (a lower-index material shortens nothing
+ * but lengthens the wavelength inside the cell).
+ */
+function coarseChanges(plan: Plan, context: RemedyContext): RemedyChange[] {
+  if (!plan.verdict.missed.some((m) => m.what === "homogenization")) return [];
+  const out: RemedyChange[] = [];
+  const p = plan.grid.pitchM * finerPitchFactor(plan);
+  out.push({ label: `finer pitch (${pitchText(p)})`, overrides: {}, pitchM: p });
+  const index = new Map((context.materials ?? []).map((m) => [m.id, m.index]));
+  let densest: string | null = null;
+  for (const l of plan.levels) {
+    if (!l.recipe || l.cellCount === 0 || (l.flags & F_COARSE) === 0) continue;
+    for (const id of [l.recipe.host, l.recipe.inclusion]) {
+      if (id && index.has(id) && (densest === null || index.get(id)! > index.get(densest)!)) densest = id;
+    }
+  }
+  if (densest !== null) {
+    const allowed = (plan.settings.materials ?? [...index.keys()]).filter((id) => id !== densest);
+    if (allowed.length > 0) out.push({ label: `do without ${densest} (n = ${Number(index.get(densest)!.toPrecision(3))}), the densest material of the coarse levels`, overrides: { materials: allowed }, pitchM: null });
+  }
+  return out;
+}
+
+/** Model uncertainty: the same plan without the family whose model is the least certain. */
+function uncertaintyChanges(plan: Plan): RemedyChange[] {
+  const miss = plan.verdict.missed.find((m) => m.what === "model-uncertainty");
+  if (!miss) return [];
+  const worst = plan.levels.filter((l) => l.recipe && l.cellCount > 0).reduce<typeof plan.levels[number] | null>((a, l) => (!a || l.recipe!.spread > a.recipe!.spread ? l : a), null);
+  const family = worst?.recipe?.family;
+  if (!family || family === "solid") return [];
+  const families = (plan.settings.families ?? CELL_FAMILIES.map((f) => f.id)).filter((id) => id !== family);
+  if (families.length === 0) return [];
+  return [{ label: `do without the ${family} family (the least certain model)`, overrides: { families }, pitchM: null }];
 }
 
 function pitchText(m: number): string {
@@ -128,9 +186,10 @@ function pitchText(m: number): string {
 /**
  * Requirements in the order they decide between two verdicts: cells without a recipe first (a plan
  * that builds fewer cells is never "better" because the cells it dropped no longer miss anything),
- * then the error, the process, the loss, the bandwidth, the anisotropy and the model uncertainty.
+ * then the error, the process, the coarse cells (homogenization: the values of every figure after
+ * it rest on the effective medium), the loss, the bandwidth, the anisotropy and the model uncertainty.
  */
-export const PRIORITY: readonly RequirementName[] = ["recipes", "tolerance", "process", "loss", "bandwidth", "anisotropy", "model-uncertainty"];
+export const PRIORITY: readonly RequirementName[] = ["recipes", "tolerance", "process", "homogenization", "loss", "bandwidth", "anisotropy", "model-uncertainty"];
 
 /** How far past its limit each requirement is (0 when met), in PRIORITY order. */
 function severities(missed: readonly { what: string; value: number; limit: number }[]): number[] {
@@ -192,12 +251,12 @@ function changesText(effects: RemedyEffect[]): string {
  * Try each candidate change by re-planning and keep those that improve the verdict, best first
  * (at most MAX_SHOWN). `shouldStop` lets the shell end the search early (a time budget).
  */
-export function findRemedies(plan: Plan, replan: Replan, shouldStop: () => boolean = () => false): RemedyResult {
+export function findRemedies(plan: Plan, replan: Replan, shouldStop: () => boolean = () => false, context: RemedyContext = {}): RemedyResult {
   if (plan.verdict.buildable) return { remedies: [], tried: 0 };
   const before = plan.verdict.missed;
   const kept: Remedy[] = [];
   let tried = 0;
-  for (const change of candidateChanges(plan)) {
+  for (const change of candidateChanges(plan, context)) {
     if (shouldStop()) break;
     let next: Plan | null;
     try {

@@ -259,7 +259,7 @@ export function planFromField(
 
   // 5. flags and achieved errors
   onProgress?.("flags", 0);
-  const { flags, relError, zeroTargetAbsError, warnings } = computeFlags({ reduced, targets, comps, level, levels, searches, perLevel, chosen, settings, materials, capped: FLAG_CAPPED, undefinedFlag: FLAG_UNDEFINED });
+  const { flags, relError, zeroTargetAbsError, warnings } = computeFlags({ reduced, targets, comps, level, levels, searches, perLevel, chosen, settings, materials, capped: FLAG_CAPPED, undefinedFlag: FLAG_UNDEFINED, axisAngleRad });
   if (nValid < n) warnings.push(noTargetWarning(grid, valid, n - nValid));
   warnings.push(...steps.notes);
 
@@ -269,7 +269,7 @@ export function planFromField(
   const summary = schemeSummary(reduced, field, { epsFloor: Number.isFinite(cheapestEps) ? cheapestEps : 1 });
   const figures = planFiguresFor({ grid, level, levels, regions: region, regionCount: regions.length, flags, relError, reduced, settings, k0: (2 * Math.PI * f) / C0, boundaryReflection: Number.isFinite(summary.boundaryReflection) ? summary.boundaryReflection : null, materials, process: ctx.process });
   const verdict = planVerdict({ cells: n, figures, settings, levels, maxZeroTargetAbsError: zeroTargetAbsError ? maxOf(zeroTargetAbsError) : NaN });
-  if (regions.length * 3 > n && n >= 30) warnings.push(`the cells cannot be grouped into fewer than ${regions.length} regions (${n} cells): the levels interleave; fewer levels or a larger tolerance give larger regions`);
+  if (regions.length * 3 > n && n >= 30) warnings.push(`the cells cannot be grouped into fewer than ${regions.length} regions (${n} cells): the levels interleave`);
   const plan: Plan = {
     design: { name: design.name, notes: design.notes ?? "", sourcePath: design.sourcePath, frequencyHz: f, wavelengthM: C0 / f, transform: design.transform.kind },
     settings,

@@ -82,7 +82,7 @@ export function planVerdict(inp: VerdictInput): Verdict {
       what: "homogenization", value: coarse / inp.cells, limit: 0,
       ...(coarseLevels.length ? { levels: coarseLevels } : {}),
       ...(worst ? { worst } : {}),
-      text: `${coarse} of ${inp.cells} cells (${pct(coarse / inp.cells)}) are coarse: the pitch is above λ/10 in their densest material (for rods and holes along z, their lowest band departs from the long-wavelength index by more than the tolerance)${worstText}; a finer pitch or a lower-index material helps`,
+      text: `${coarse} of ${inp.cells} cells (${pct(coarse / inp.cells)}) are coarse: the pitch is above λ/10 in their densest material (for rods and holes along z, their lowest band departs from the long-wavelength index by more than the tolerance)${worstText}`,
     });
   }
   const uncertain = inp.levels.filter((l) => l.cellCount > 0 && l.recipe !== null && l.recipe.spread > s.tolerance);
@@ -95,7 +95,7 @@ export function planVerdict(inp: VerdictInput): Verdict {
       value: worst.recipe!.spread,
       limit: s.tolerance,
       levels: ids,
-      text: `${ids.length === 1 ? "level" : "levels"} ${listText(ids)} (${cells} cells): model uncertainty up to ${pct(worst.recipe!.spread)} (level ${worst.index}, ${worst.recipe!.family}: ${spreadSource(worst.recipe!.family, worst.recipe!.notes)}) against a tolerance of ${pct(s.tolerance)}; a full-wave unit-cell simulation of these cells, or a recipe with a better-known model, settles it`,
+      text: `${ids.length === 1 ? "level" : "levels"} ${listText(ids)} (${cells} cells): model uncertainty up to ${pct(worst.recipe!.spread)} (level ${worst.index}, ${worst.recipe!.family}: ${spreadSource(worst.recipe!.family, worst.recipe!.notes)}) against a tolerance of ${pct(s.tolerance)}: their values are not promised until a full-wave unit-cell simulation of these cells settles them`,
     });
   }
   return { buildable: missed.length === 0, missed };

@@ -151,7 +151,7 @@ function rectRecipes(s: LevelSearch, target: number[], ctx: MatchContext, family
         if (aspect === 1) continue;
         if (!rectTableReady(u, aspect) && u > 0 && Number.isFinite(u)) {
           const budget = ctx.rectTables ?? { left: Infinity };
-          if (budget.left <= 0) { refuse(s, `rect lattice not solved: this plan's ${RECT_TABLES_PER_PLAN} fill tables are spent (allow fewer materials)`); continue; }
+          if (budget.left <= 0) { refuse(s, `rect lattice not solved: this plan's ${RECT_TABLES_PER_PLAN} fill tables are spent`); continue; }
           budget.left--;
         }
         mixed(s, target, ctx, family, "rect", "z", host, inc, epsIdx, aspect);

@@ -1,0 +1,39 @@
+/**
+ * Error of a rect-lattice cell whose lattice axes are not along its target's principal axes.
+ *
+ * A rect recipe tiles the square device cell with m × n circles, so its lattice axes stand along the
+ * grid's x and y: the layout (plan/layout/layoutShapes.ts) puts the lattice's x axis on the grid
+ * axis nearer the cell's principal axis 1. Where the target's principal axes are turned by δ from
+ * the grid (δ ≤ 45°), the built in-plane tensor is diag(e₁, e₂) turned by δ in the target's frame:
+ *
+ *   A₁₁ = e₁cos²δ + e₂sin²δ,  A₂₂ = e₁sin²δ + e₂cos²δ,  A₁₂ = (e₂ − e₁) sinδ cosδ,
+ *
+ * against the target diag(t₁, t₂). Its error is the largest of |A₁₁ − t₁|/|t₁|, |A₂₂ − t₂|/|t₂| and
+ * |A₁₂|/√|t₁t₂| — the largest entry of T^{-1/2}(A − T)T^{-1/2}, which is the plain per-component
+ * relative error when δ = 0 (complex e, real t). Measured on a rect plan turned by 30° (tests/plan/
+ * latticeMisalignment.test.ts): the cells' error rises from under the 12 % tolerance to well above
+ * it, mostly through A₁₂ — too large to leave to a note, so it is part of rel_error. Square and hex
+ * recipes are isotropic in the plane at long wavelengths (e₁ = e₂), so turning them changes nothing.
+ */
+
+/** Angle (rad, 0…π/4) between principal axis 1 (at axisRad + π/2; axisRad is axis 2's angle) and the grid axis nearer it. */
+export function gridMisalignmentRad(axisRad: number): number {
+  const t = axisRad + Math.PI / 2;
+  return Math.acos(Math.min(1, Math.max(Math.abs(Math.cos(t)), Math.abs(Math.sin(t)))));
+}
+
+/**
+ * Largest relative error of the in-plane tensor diag(e₁, e₂) (complex: re, im) turned by δ against
+ * the target diag(t₁, t₂) (module comment). Both targets must be non-zero.
+ * Example: e = (2, 3), t = (2, 3), δ = 30° → |A₁₂|/√6 = 0.433/2.449 = 0.177.
+ */
+export function misalignedRelError(e1re: number, e1im: number, e2re: number, e2im: number, t1: number, t2: number, deltaRad: number): number {
+  const c2 = Math.cos(deltaRad) ** 2, s2 = 1 - c2, sc = Math.sin(deltaRad) * Math.cos(deltaRad);
+  const a11re = e1re * c2 + e2re * s2 - t1, a11im = e1im * c2 + e2im * s2;
+  const a22re = e1re * s2 + e2re * c2 - t2, a22im = e1im * s2 + e2im * c2;
+  const a12re = (e2re - e1re) * sc, a12im = (e2im - e1im) * sc;
+  const x11 = Math.sqrt(a11re * a11re + a11im * a11im) / Math.abs(t1);
+  const x22 = Math.sqrt(a22re * a22re + a22im * a22im) / Math.abs(t2);
+  const x12 = Math.sqrt(a12re * a12re + a12im * a12im) / Math.sqrt(Math.abs(t1 * t2));
+  return Math.max(x11, x22, x12);
+}
