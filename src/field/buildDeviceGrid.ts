@@ -7,6 +7,7 @@ import { InputError } from "../core/errors.js";
 import type { DeviceGrid } from "./deviceGrid.js";
 import type { Bounds3 } from "./transforms/transform.js";
 import { formatCount } from "../core/formatQuantity.js";
+import type { FieldBuffers } from "./fieldBuffers.js";
 
 /** Largest bounding-box lattice we are willing to scan (cells). */
 export const MAX_LATTICE_CELLS = 5e7;
@@ -18,6 +19,8 @@ export interface GridRequest {
   dimension: 2 | 3;
   /** where to blame in messages, e.g. "design.json: $.grid.pitch" */
   where: string;
+  /** reuse these for the index arrays (fieldBuffers.ts; the grid is then valid until their next use) */
+  buffers?: FieldBuffers;
 }
 
 function axis(min: number, max: number, centre: number, pitch: number): { first: number; n: number } {
@@ -55,11 +58,11 @@ export function buildDeviceGrid(
     });
   }
   const x0 = ox + ax.first * p, y0 = oy + ay.first * p, z0 = req.dimension === 3 ? oz + az.first * p : 0;
-  // One pass straight into the output arrays, sized for the whole lattice: pages never written
-  // (the bounding box's empty corners; k and z in 2D, which stay 0) are never touched, so they
-  // cost neither page faults nor resident memory. The grid holds views of the first `count`.
-  const is = new Int32Array(total), js = new Int32Array(total), ks = new Int32Array(req.dimension === 3 ? total : 0);
-  const xs = new Float64Array(total), ys = new Float64Array(total), zs = new Float64Array(req.dimension === 3 ? total : 0);
+  // One pass straight into the index arrays, sized for the whole lattice: pages never written
+  // (the bounding box's empty corners; k in 2D) are never touched, so they cost neither page
+  // faults nor resident memory. The grid holds views of the first `count`.
+  const ints = (name: string, size: number): Int32Array => (req.buffers ? req.buffers.i32(name, size, false) : new Int32Array(size));
+  const is = ints("grid.i", total), js = ints("grid.j", total), ks = ints("grid.k", req.dimension === 3 ? total : 0);
   let count = 0;
   const row = containsRow ? new Uint8Array(ax.n) : null;
   for (let k = 0; k < az.n; k++) {
@@ -68,21 +71,40 @@ export function buildDeviceGrid(
       const y = y0 + j * p;
       if (row) containsRow!(row, y, z, x0, p);
       for (let i = 0; i < ax.n; i++) {
-        const x = x0 + i * p;
-        if (row ? row[i] === 0 : !contains(x, y, z)) continue;
-        is[count] = i; js[count] = j; xs[count] = x; ys[count] = y;
-        if (req.dimension === 3) { ks[count] = k; zs[count] = z; }
+        if (row ? row[i] === 0 : !contains(x0 + i * p, y, z)) continue;
+        is[count] = i; js[count] = j;
+        if (req.dimension === 3) ks[count] = k;
         count++;
       }
     }
   }
+  return latticeGrid(req.dimension, p, ax.n, ay.n, az.n, x0, y0, z0, count, is.subarray(0, count), js.subarray(0, count),
+    req.dimension === 3 ? ks.subarray(0, count) : new Int32Array(count));
+}
+
+/**
+ * A grid of lattice cells whose centres follow from their indices: xM[c] = originXM + i[c]·pitchM
+ * (the very expression the scan tested, so the same doubles), likewise y and z. The centre arrays
+ * are made on first read: a plan never reads them (the build list formats one text per lattice
+ * index), and at 10⁶ cells they are 16 MB of fresh pages. Read-only downstream.
+ */
+export function latticeGrid(
+  dimension: 2 | 3, pitchM: number, nx: number, ny: number, nz: number, x0: number, y0: number, z0: number,
+  count: number, i: Int32Array, j: Int32Array, k: Int32Array,
+): DeviceGrid {
+  const centres = (index: Int32Array, origin: number): Float64Array => {
+    const out = new Float64Array(count);
+    for (let c = 0; c < count; c++) out[c] = origin + index[c] * pitchM;
+    return out;
+  };
+  let xs: Float64Array | null = null, ys: Float64Array | null = null, zs: Float64Array | null = null;
   return {
-    dimension: req.dimension,
-    pitchM: p,
-    nx: ax.n, ny: ay.n, nz: az.n,
+    dimension, pitchM, nx, ny, nz,
     originXM: x0, originYM: y0, originZM: z0,
-    count,
-    i: is.subarray(0, count), j: js.subarray(0, count), k: req.dimension === 3 ? ks.subarray(0, count) : new Int32Array(count),
-    xM: xs.subarray(0, count), yM: ys.subarray(0, count), zM: req.dimension === 3 ? zs.subarray(0, count) : new Float64Array(count),
+    count, i, j, k,
+    get xM() { return (xs ??= centres(i, x0)); },
+    get yM() { return (ys ??= centres(j, y0)); },
+    // in 2D every centre has z = 0 (a zero array whose pages are never touched)
+    get zM() { return (zs ??= dimension === 3 ? centres(k, z0) : new Float64Array(count)); },
   };
 }

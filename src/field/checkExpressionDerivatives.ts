@@ -20,7 +20,8 @@ export function checkExpressionDerivatives(spec: ExpressionSpec, grid: DeviceGri
   const picks = new Set([0, Math.floor(n / 4), Math.floor(n / 2), Math.floor((3 * n) / 4), n - 1]);
   const names = ["∂x/∂x'", "∂x/∂y'", "∂y/∂x'", "∂y/∂y'"];
   for (const c of picks) {
-    const x = grid.xM[c], y = grid.yM[c];
+    // the cell centre from its lattice indices (as the grid's own xM, yM; reading those would make the whole arrays)
+    const x = grid.originXM + grid.i[c] * grid.pitchM, y = grid.originYM + grid.j[c] * grid.pitchM;
     f(v, x, y);
     if (!v.every(Number.isFinite)) continue; // reported by the engine with the cell
     const numeric = [0, 0, 0, 0];

@@ -9,7 +9,8 @@
  */
 import { InputError, ProgrammerError } from "../core/errors.js";
 import { cellBudgetProblem, type CellBudget } from "../core/memoryBudget.js";
-import { allocSymField, allocPlanarSymField } from "../core/symTensor.js";
+import type { SymTensorField } from "../core/symTensor.js";
+import type { FieldBuffers } from "./fieldBuffers.js";
 import type { TensorField, PointEvaluator } from "./tensorField.js";
 import type { FieldDesign } from "./transformSpec.js";
 import type { Transform } from "./transforms/transform.js";
@@ -48,6 +49,12 @@ export interface FieldOptions {
    * values); a plan never reads them, so it never pays their five fresh 8-byte-per-cell arrays.
    */
   derived?: "eager" | "lazy";
+  /**
+   * Write the tensors and the grid's indices into these reused buffers instead of fresh arrays
+   * (fieldBuffers.ts): no page faults on a second computation, but the field is valid only until
+   * the next computation with the same buffers. The derived arrays are always fresh.
+   */
+  buffers?: FieldBuffers;
 }
 
 /**
@@ -76,7 +83,7 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   }
   const dimension = transform.dimension === 3 && !design.grid.slice ? 3 : 2;
   const grid = buildDeviceGrid(transform.bounds, transform.contains, {
-    pitchM: design.grid.pitchM, origin: design.grid.origin, dimension, where: `${file}: $.grid.pitch`,
+    pitchM: design.grid.pitchM, origin: design.grid.origin, dimension, where: `${file}: $.grid.pitch`, buffers: options.buffers,
   }, transform.containsRow);
   const n = grid.count;
   // estimate before allocating the per-cell arrays: refuse what the machine cannot hold
@@ -100,9 +107,18 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   // along z) has ε'_xz = ε'_yz = 0, one zero array serves both. Fields are read-only downstream.
   const sameMaterial = ratio === 1;
   const planar = transform.dimension === 2;
-  const eps = planar ? allocPlanarSymField(n) : allocSymField(n);
-  const mu = sameMaterial ? eps : planar ? allocPlanarSymField(n) : allocSymField(n);
-  const capped = new Uint8Array(n);
+  // every component array is written for every cell (or the map is refused); the shared zero
+  // array and the capped flags are zeroed
+  const buffers = options.buffers;
+  const f64 = (name: string, zeroed: boolean): Float64Array => (buffers ? buffers.f64(name, n, zeroed) : new Float64Array(n));
+  const sym = (name: string): SymTensorField => {
+    const xx = f64(`${name}.xx`, false), yy = f64(`${name}.yy`, false), zz = f64(`${name}.zz`, false), xy = f64(`${name}.xy`, false);
+    if (planar) { const zero = f64("zero", true); return { xx, yy, zz, xy, xz: zero, yz: zero }; }
+    return { xx, yy, zz, xy, xz: f64(`${name}.xz`, false), yz: f64(`${name}.yz`, false) };
+  };
+  const eps = sym("eps");
+  const mu = sameMaterial ? eps : sym("mu");
+  const capped = buffers ? buffers.u8("capped", n, true) : new Uint8Array(n);
   const cap = spec.cap ?? null;
   const offset = "innerOffsetM" in spec && spec.innerOffsetM !== undefined && spec.innerOffsetM > 0 && transform.clampToInnerOffset
     ? spec.innerOffsetM : 0;
@@ -111,8 +127,8 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   const ve = new Float64Array(3), vm = new Float64Array(3), pt = new Float64Array(3);
   /** det K and the capped/offset flag of the cell last evaluated */
   const state = new Float64Array(2);
-  const { xM, yM, zM } = grid;
-  // a 2D grid's z is 0 in every cell: not read, so its (never written) pages stay untouched
+  // cell centres from the lattice indices, the same doubles as grid.xM… (made only if read)
+  const { i: gi, j: gj, k: gk, originXM: x0, originYM: y0, originZM: z0, pitchM: pitch } = grid;
   const volume = grid.dimension === 3;
   /**
    * One cell into te, tm (tensors), ve, vm (principal values) and state; returns 0, or 1 for a
@@ -120,7 +136,7 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
    * The same arithmetic for both passes below, so the derived arrays match the tensors exactly.
    */
   const evaluate = (c: number): number => {
-    let x = xM[c], y = yM[c], z = volume ? zM[c] : 0;
+    let x = x0 + gi[c] * pitch, y = y0 + gj[c] * pitch, z = volume ? z0 + gk[c] * pitch : 0;
     let flagged = 0;
     if (offset > 0) {
       pt[0] = x; pt[1] = y; pt[2] = z;
@@ -130,7 +146,9 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     const det = materialFromK(s, k);
     state[0] = det;
     if (!(det > 0) || det === Infinity) return 1;
-    for (let q = 0; q < 6; q++) { te[q] = epsB * s[q]; tm[q] = muB * s[q]; }
+    // with μ_b = ε_b the μ tensor is the ε tensor (one set of arrays): tm and vm are not made
+    if (sameMaterial) for (let q = 0; q < 6; q++) te[q] = epsB * s[q];
+    else for (let q = 0; q < 6; q++) { te[q] = epsB * s[q]; tm[q] = muB * s[q]; }
     if (k[2] === 0 && k[5] === 0 && k[6] === 0 && k[7] === 0) {
       // z decouples: the in-plane pair has det = (ε_b K_zz)² exactly, so the smaller value is
       // taken as det/larger instead of mean − half, which cancels near a singular boundary.
@@ -146,10 +164,10 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     }
     // a component beyond the double range (e.g. a shift of 1e300 m): no material to report
     if (!(ve[2] < Infinity && ve[0] > -Infinity)) return 2;
-    vm[0] = ratio * ve[0]; vm[1] = ratio * ve[1]; vm[2] = ratio * ve[2];
+    if (!sameMaterial) { vm[0] = ratio * ve[0]; vm[1] = ratio * ve[1]; vm[2] = ratio * ve[2]; }
     if (cap !== null) {
       if (capPrincipal(te, ve, cap)) flagged = 1;
-      if (capPrincipal(tm, vm, cap)) flagged = 1;
+      if (!sameMaterial && capPrincipal(tm, vm, cap)) flagged = 1;
     }
     state[1] = flagged;
     return 0;
@@ -190,7 +208,7 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     const c = firstOverflow;
     throw new InputError({
       where: `${file}: $.transform`,
-      message: `the material overflows the number range in ${overflowCount} cell${overflowCount === 1 ? "" : "s"} (first at x = ${xM[c]} m, y = ${yM[c]} m); expected transform parameters of a buildable scale`,
+      message: `the material overflows the number range in ${overflowCount} cell${overflowCount === 1 ? "" : "s"} (first at x = ${grid.xM[c]} m, y = ${grid.yM[c]} m); expected transform parameters of a buildable scale`,
     });
   }
 

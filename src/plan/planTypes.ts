@@ -330,6 +330,12 @@ export interface PlanSummary {
   polarization: Polarization;
   scheme: SchemeName;
   tolerance: number;
+  /**
+   * plans with hexagonal-lattice levels: the inclusions the layout files and the drawn full-wave
+   * case place (layout/planHexSites.ts): sites built, and sites left out at the edge of their kind's
+   * cells, in all and per level (1-based)
+   */
+  hexSites?: { built: number; leftOut: number; levels: { level: number; cells: number; built: number; leftOut: number }[] };
   /** the time estimate when above 10 s, then the plan's warnings (as on stderr) */
   warnings: string[];
 }

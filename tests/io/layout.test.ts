@@ -275,6 +275,9 @@ describe("hexagonal rods over a uniform block: GDSII, DXF and the drawn full-wav
     const m = /level 1: (\d+) of (\d+)/.exec(r.err);
     expect(m, r.err).not.toBeNull();
     expect(Number(m![2]) - Number(m![1])).toBe(expected);
+    // summary.json says the same
+    const summary = JSON.parse(await readFile(join(r.out, "summary.json"), "utf8"));
+    expect(summary.hexSites).toEqual({ built: expected, leftOut: Number(m![1]), levels: [{ level: 1, cells: 117, built: expected, leftOut: Number(m![1]) }] });
   });
 
   it("the drawn full-wave case (realized-geometry) stands on the same sites: rod material at every site, host at every site left out", async () => {

@@ -23,7 +23,9 @@ import { loadFieldForDesign } from "../../src/io/fieldCsv.js";
 import { loadMaterialCatalog } from "../../src/io/materialCatalog.js";
 import { loadProcessCatalog } from "../../src/io/processCatalog.js";
 import { planFromField } from "../../src/plan/runPlan.js";
-import { printedPart } from "../../src/plan/layout/printedPart.js";
+import { equalAreaRadius, printedPart } from "../../src/plan/layout/printedPart.js";
+import { planLayout } from "../../src/plan/layout/layoutShapes.js";
+import { rectTiling } from "../../src/cells/lattice.js";
 import { stlChunks } from "../../src/io/layout/stlWriter.js";
 import type { Plan, Recipe } from "../../src/plan/planTypes.js";
 
@@ -294,5 +296,170 @@ describe("STL of spheres, voids and cubes (recipes set by hand on a planned devi
     expect(code).toBe(1);
     expect(io.err()).toMatch(/--layout: the printed part's STL would be about \d+ MB \(\d+ triangles for 1537 cells × 1667 layers\), over the 256 MB limit/);
     await expect(readFile(join(dir, "out", "summary.json"))).rejects.toThrow();
+  }, 120_000);
+});
+
+describe("STL of hexagonal rods and holes: on the 2D layouts' sites, closed, holding the fill over the built sites", () => {
+  /** Plan a fixture in-process and return the plan, its STL analysed, the part and the 2D layout's sites (mm). */
+  async function hexPart(path: string): Promise<{ plan: Plan; an: Analysis; part: ReturnType<typeof printedPart>; sites: { x: number; y: number; level: number }[]; top: number[][] }> {
+    const design = await loadDesign(path);
+    const [field, materials, processes] = await Promise.all([loadFieldForDesign(design), loadMaterialCatalog(), loadProcessCatalog()]);
+    const plan = planFromField(design, field, { materials, processes }, {});
+    const part = printedPart(plan, plan.figures.height.heightM, plan.figures.processMinFeatureM);
+    expect(part.refused).toBeNull();
+    const chunks: Uint8Array[] = [];
+    for (const c of stlChunks(part, "hexagonal sites")) chunks.push(c.slice());
+    const buf = Buffer.concat(chunks);
+    const an = analyse(buf, plan.grid.pitchM * 1e3, plan.grid.originXM * 1e3, plan.grid.originYM * 1e3);
+    const sites = planLayout(plan).levels.flatMap((lv) => lv.polygons.map((p) => ({ x: p.cxM * 1e3, y: p.cyM * 1e3, level: lv.level })));
+    // the vertices on the top face (z = height), as written (float32 mm)
+    const raw = parseSTL(buf);
+    const v = raw.vertices, H = part.heightM * 1e3;
+    const seen = new Set<string>(), top: number[][] = [];
+    for (let k = 0; k < v.length; k += 3) {
+      if (Math.abs(v[k + 2] - H) > 1e-4) continue;
+      const key = `${v[k]},${v[k + 1]}`;
+      if (!seen.has(key)) { seen.add(key); top.push([v[k], v[k + 1]]); }
+    }
+    return { plan, an, part, sites, top };
+  }
+
+  /** Every top vertex off the cell corners belongs to a 2D-layout site: N of them per site, all at one radius R. */
+  function checkSites(h: Awaited<ReturnType<typeof hexPart>>): Map<number, number> {
+    const a = h.plan.grid.pitchM * 1e3, x0 = h.plan.grid.originXM * 1e3 - a / 2, y0 = h.plan.grid.originYM * 1e3 - a / 2;
+    const N = h.part.circleVertices;
+    const perSite = new Map<number, number[]>();
+    for (const [x, y] of h.top) {
+      const onCorner = Math.abs((x - x0) / a - Math.round((x - x0) / a)) < 1e-5 && Math.abs((y - y0) / a - Math.round((y - y0) / a)) < 1e-5;
+      if (onCorner) continue;
+      let best = -1, bd = Infinity;
+      for (let s = 0; s < h.sites.length; s++) { const d = Math.hypot(x - h.sites[s].x, y - h.sites[s].y); if (d < bd) { bd = d; best = s; } }
+      expect(bd, `top vertex (${x}, ${y}) near a site`).toBeLessThan(a / 2);
+      perSite.set(best, [...(perSite.get(best) ?? []), bd]);
+    }
+    expect(perSite.size).toBe(h.sites.length);
+    const radius = new Map<number, number>();
+    for (const [s, ds] of perSite) {
+      expect(ds.length, `vertices around site ${s}`).toBe(N);
+      // float32 mm coordinates: about 1e-6 relative on a few-mm coordinate
+      for (const d of ds) expectClose(d, ds[0], { abs: 1e-5, label: `radius at site ${s}` });
+      const level = h.sites[s].level, r = radius.get(level);
+      if (r !== undefined) expectClose(ds[0], r, { abs: 1e-5, label: `level ${level} radius` });
+      radius.set(level, ds[0]);
+    }
+    return radius;
+  }
+
+  it("holes in a resin slab: one slab with the holes cut through at every site, volume = slab − holes", async () => {
+    const h = await hexPart("tests/io/layout-fixtures/printed-hex-holes.json");
+    expect(h.an.badEdges).toBe(0);
+    expect(h.an.unpairedDirected).toBe(0);
+    expect(h.an.headerCount).toBe(h.part.triangles);
+    expect(h.part.notes.join(" ")).toMatch(/stand on the plan's built hexagonal sites/);
+    const radius = checkSites(h);
+    const N = h.part.circleVertices, a = h.plan.grid.pitchM * 1e3, H = h.part.heightM * 1e3;
+    // an N-gon of circumradius R has area ½·N·R²·sin(2π/N) (equal to πr² of its recipe: equalAreaRadius)
+    const polyArea = (R: number): number => 0.5 * N * R * R * Math.sin((2 * Math.PI) / N);
+    let holes = 0;
+    for (const s of h.sites) holes += polyArea(radius.get(s.level)!);
+    const cells = h.plan.level.reduce((n, l) => n + (l >= 0 && h.plan.levels[l].recipe?.family === "holes-in-slab" ? 1 : 0), 0);
+    expect(cells).toBe(h.plan.grid.count);
+    expectClose(h.an.volumeMm3, H * (cells * a * a - holes), { rel: 1e-5, label: "slab volume minus the holes" });
+    // identity per level: the holes' area over their built sites' own area, (√3/2)·a² each, is the
+    // recipe's fill (air fraction); the N-gons hold πr² of the recipe's radius
+    for (const lv of h.plan.levels) {
+      const n = h.sites.filter((s) => s.level === lv.index).length;
+      if (!n) continue;
+      expectClose(polyArea(radius.get(lv.index)!) / ((Math.sqrt(3) / 2) * a * a), lv.recipe!.fillFraction, { rel: 1e-4, label: `level ${lv.index} hole fraction over its sites` });
+      expectClose(polyArea(radius.get(lv.index)!), Math.PI * (lv.recipe!.dimensions.radius_m * 1e3) ** 2, { rel: 1e-4, label: `level ${lv.index} hole area` });
+    }
+  }, 60_000);
+
+  it("holes next to solid resin cells and empty cells: the slab still closes, the sites near them left out", async () => {
+    const design = await loadDesign("tests/io/layout-fixtures/printed-hex-holes.json");
+    const [field, materials, processes] = await Promise.all([loadFieldForDesign(design), loadMaterialCatalog(), loadProcessCatalog()]);
+    const plan = planFromField(design, field, { materials, processes }, {});
+    expect(plan.levels.length).toBe(3);
+    const base = plan.levels[0].recipe!;
+    // level 2 solid resin (a full cell), level 3 empty (air): level 1 keeps its hexagonal holes
+    plan.levels[1].recipe = { ...base, family: "solid", host: base.host, inclusion: "", lattice: "square", orientation: null, dimensions: {}, fillFraction: 0 };
+    plan.levels[2].recipe = { ...base, family: "solid", host: "air", inclusion: "", lattice: "square", orientation: null, dimensions: {}, fillFraction: 0 };
+    const part = printedPart(plan, plan.figures.height.heightM, plan.figures.processMinFeatureM);
+    expect(part.refused).toBeNull();
+    const chunks: Uint8Array[] = [];
+    for (const c of stlChunks(part, "mixed")) chunks.push(c.slice());
+    const an = analyse(Buffer.concat(chunks), plan.grid.pitchM * 1e3, plan.grid.originXM * 1e3, plan.grid.originYM * 1e3);
+    expect(an.badEdges).toBe(0);
+    expect(an.unpairedDirected).toBe(0);
+    expect(an.headerCount).toBe(part.triangles);
+    const layout = planLayout(plan);
+    const holes = layout.levels.find((l) => l.level === 1)!;
+    expect(holes.sites!.dropped).toBeGreaterThan(0);
+    const N = part.circleVertices, a = plan.grid.pitchM * 1e3, H = part.heightM * 1e3;
+    const R = equalAreaRadius(base.dimensions.radius_m * 1e3, N);
+    let cells = 0;
+    for (let c = 0; c < plan.grid.count; c++) if (plan.level[c] === 0 || plan.level[c] === 1) cells++;
+    // printed: the hole cells and the solid cells, less the built holes (N-gons of πr² each)
+    expectClose(an.volumeMm3, H * (cells * a * a - holes.polygons.length * 0.5 * N * R * R * Math.sin((2 * Math.PI) / N)), { rel: 1e-4, label: "printed volume" });
+  }, 60_000);
+
+  it("rods in air: one closed prism per site, 4N − 4 triangles each, volume = Σ πr²·height", async () => {
+    const h = await hexPart("tests/io/layout-fixtures/printed-hex-rods.json");
+    expect(h.an.badEdges).toBe(0);
+    expect(h.an.unpairedDirected).toBe(0);
+    const N = h.part.circleVertices;
+    // N wall quads (2N triangles) and two caps of N − 2 triangles per rod
+    expect(h.part.triangles).toBe(h.sites.length * (4 * N - 4));
+    checkSites(h);
+    const H = h.part.heightM * 1e3;
+    let expected = 0;
+    for (const s of h.sites) expected += Math.PI * (h.plan.levels[s.level - 1].recipe!.dimensions.radius_m * 1e3) ** 2 * H;
+    expectClose(h.an.volumeMm3, expected, { rel: 1e-4, label: "rods' volume" });
+    expect(h.part.notes.join(" ")).toMatch(/sites left out at the edge/);
+  }, 60_000);
+
+  it("rect-lattice holes (m × n per cell) and rods: closed, on the 2D layout's circle centres, holding the fill in every cell", async () => {
+    const design = await loadDesign("tests/io/layout-fixtures/rect-holes.json");
+    const [field, materials, processes] = await Promise.all([loadFieldForDesign(design), loadMaterialCatalog(), loadProcessCatalog()]);
+    const plan = planFromField(design, field, { materials, processes }, {});
+    const rect = plan.levels.filter((lv) => lv.recipe?.lattice === "rect");
+    expect(rect.length).toBeGreaterThan(0);
+    for (const holes of [true, false]) {
+      if (!holes) for (const lv of plan.levels) if (lv.recipe && lv.recipe.family === "holes-in-slab") lv.recipe = { ...lv.recipe, family: "rods-in-host", host: "air", inclusion: lv.recipe.host };
+      const part = printedPart(plan, 2 * plan.grid.pitchM, null);
+      expect(part.refused).toBeNull();
+      expect(part.notes.join(" ")).toMatch(/rect-lattice rods and holes: m × n per cell/);
+      const chunks: Uint8Array[] = [];
+      for (const c of stlChunks(part, "rect")) chunks.push(c.slice());
+      const buf = Buffer.concat(chunks);
+      const an = analyse(buf, plan.grid.pitchM * 1e3, plan.grid.originXM * 1e3, plan.grid.originYM * 1e3);
+      expect(an.badEdges).toBe(0);
+      expect(an.unpairedDirected).toBe(0);
+      const N = part.circleVertices, a = plan.grid.pitchM * 1e3, H = part.heightM * 1e3;
+      // the 2D layout's circles (their vertex centroids) are the printed circles' centres
+      const circles = planLayout(plan).levels.flatMap((lv) => lv.polygons.map((p) => { let x = 0, y = 0; for (let k = 0; k < p.xy.length; k += 2) { x += p.xy[k]; y += p.xy[k + 1]; } return { x: (2e3 * x) / p.xy.length, y: (2e3 * y) / p.xy.length, level: lv.level }; }));
+      const raw = parseSTL(buf), v = raw.vertices;
+      const top = new Set<string>();
+      for (let k = 0; k < v.length; k += 3) if (Math.abs(v[k + 2] - H) < 1e-4) top.add(`${v[k].toFixed(3)},${v[k + 1].toFixed(3)}`);
+      let area = 0;
+      for (const c of circles) {
+        const r = plan.levels[c.level - 1].recipe!.dimensions.radius_m * 1e3, R = equalAreaRadius(r, N);
+        expect(top.has(`${(c.x + R).toFixed(3)},${c.y.toFixed(3)}`), `a printed circle at (${c.x}, ${c.y})`).toBe(true);
+        area += Math.PI * r * r;
+      }
+      let cells = 0;
+      for (let c = 0; c < plan.grid.count; c++) if (plan.level[c] >= 0 && plan.levels[plan.level[c]].recipe?.family !== "solid") cells++;
+      // identity: m·n circles of πr² in a cell of a² hold the fill (πr²/(a/m · a/n)) in every cell
+      const printed = holes ? H * (cells * a * a - area) : H * area;
+      expectClose(an.volumeMm3, printed, { rel: 1e-4, label: holes ? "plate minus the holes" : "the rods" });
+      // per rect level: m × n circles in each of its cells, and m·n·πr²/a² is the recipe's fill
+      for (const lv of rect) {
+        const t = rectTiling(lv.recipe!.aspect!)!;
+        const n = circles.filter((c) => c.level === lv.index).length;
+        expect(n).toBe(t.m * t.n * lv.cellCount);
+        const r = lv.recipe!.dimensions.radius_m * 1e3;
+        expectClose((t.m * t.n * Math.PI * r * r) / (a * a), lv.recipe!.fillFraction, { rel: 1e-9, label: `level ${lv.index} fill` });
+      }
+    }
   }, 120_000);
 });

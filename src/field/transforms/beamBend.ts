@@ -9,6 +9,7 @@
 import type { BeamBendSpec } from "../transformSpec.js";
 import { OUTER_SLACK, type Transform } from "./transform.js";
 import { circleBoundary, edgeBoundary, joinBoundaries } from "./circleBoundary.js";
+import { rowRuns, ZONE_REL } from "../rowRuns.js";
 
 export function beamBend(spec: BeamBendSpec): Transform {
   const a = spec.innerRadiusM, b = spec.outerRadiusM, span = spec.angleRad, r0 = spec.referenceRadiusM;
@@ -33,11 +34,23 @@ export function beamBend(spec: BeamBendSpec): Transform {
     add(0, r); add(Math.min(span, 2 * Math.PI), r);
     for (let q = 1; q <= 4; q++) if ((q * Math.PI) / 2 <= span) add((q * Math.PI) / 2, r);
   }
+  // row test by runs: the answer can change only near the two arcs, the centre and the two edges
+  const runs = rowRuns(10), half = ZONE_REL * (b + Math.abs(cx) + Math.abs(cy));
+  const contains = (x: number, y: number): boolean => inside(x - cx, y - cy);
   return {
     kind: "beam-bend",
     dimension: 2,
     bounds: { minX, maxX, minY, maxY, minZ: 0, maxZ: 0 },
-    contains: (x, y) => inside(x - cx, y - cy),
+    contains,
+    containsRow(out, y, z, x0, pitch) {
+      const dy = y - cy;
+      runs.reset();
+      runs.ring(cx, dy, a, half);
+      runs.ring(cx, dy, b * OUTER_SLACK, half);
+      runs.ring(cx, dy, 0, half);
+      if (span < 2 * Math.PI) { runs.line(cx, dy, 0, half); runs.line(cx, dy, spanS, half); }
+      runs.fill(out, x0, pitch, y, z, contains);
+    },
     forward(out, x, y, z) {
       const rp = x, th = y / r0;
       if (!(rp >= a && rp <= b && th >= 0 && th <= span)) return false;

@@ -6,6 +6,7 @@
  */
 import type { ConcentratorSpec } from "../transformSpec.js";
 import { OUTER_SLACK, type Transform } from "./transform.js";
+import { rowRuns, ZONE_REL } from "../rowRuns.js";
 import { radialK2 } from "./radialJacobian.js";
 import { circleBoundary } from "./circleBoundary.js";
 
@@ -16,12 +17,17 @@ export function concentrator(spec: ConcentratorSpec): Transform {
   const core = r2 / r1; // dr/dr' in the core
   const shell = (r3 - r2) / (r3 - r1); // dr/dr' in the shell
   const h = (rp: number): number => (rp < r1 ? core * rp : r2 + (rp - r1) * shell);
+  const runs = rowRuns(2), half = ZONE_REL * (r3 + Math.abs(cx) + Math.abs(cy));
+  const contains = (x: number, y: number): boolean => (x - cx) * (x - cx) + (y - cy) * (y - cy) <= r3s * r3s;
   return {
     kind: "concentrator",
     dimension: 2,
     bounds: { minX: cx - r3, maxX: cx + r3, minY: cy - r3, maxY: cy + r3, minZ: 0, maxZ: 0 },
-    contains(x, y) {
-      return (x - cx) * (x - cx) + (y - cy) * (y - cy) <= r3s * r3s;
+    contains,
+    containsRow(out, y, z, x0, pitch) {
+      runs.reset();
+      runs.ring(cx, y - cy, r3s, half);
+      runs.fill(out, x0, pitch, y, z, contains);
     },
     forward(out, x, y, z) {
       const dx = x - cx, dy = y - cy, r = Math.sqrt(dx * dx + dy * dy);

@@ -83,7 +83,7 @@ function rect(cx: number, cy: number, w: number, h: number): Float64Array {
 }
 
 /** Does principal axis 1 (at axisRad + π/2; axisRad is axis 2's angle) lie nearer grid x than grid y? */
-const axis1AlongX = (axisRad: number): boolean => Math.abs(Math.cos(axisRad + Math.PI / 2)) >= Math.abs(Math.sin(axisRad + Math.PI / 2));
+export const axis1AlongX = (axisRad: number): boolean => Math.abs(Math.cos(axisRad + Math.PI / 2)) >= Math.abs(Math.sin(axisRad + Math.PI / 2));
 
 /** Angle (rad) between principal axis 1 and the grid axis it is snapped to. */
 export function snapAngleRad(axisRad: number): number {

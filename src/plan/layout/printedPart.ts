@@ -16,7 +16,13 @@
  *   do not touch: the part is many loose bodies, said in the notes); gas spheres or cubes in a
  *   printed host: a solid cell with a closed void;
  * - rods of the printed material along z in a gas host: a prism per cell; gas rods (holes) along z
- *   in a printed host: the cell's square minus the hole;
+ *   in a printed host: the cell's square minus the hole. On a hexagonal lattice the rods and holes
+ *   stand on the plan's built hexagonal sites (planHexSites.ts: the sites of the 2D layouts and of
+ *   the drawn full-wave case), so they cross cell edges: a rod is a prism per site; the cells of
+ *   hexagonal holes join, per 4-connected group, into one slab whose top and bottom faces are
+ *   triangulated with the holes cut out (slabFace.ts) and whose holes' walls are drawn per site.
+ *   Rect-lattice rods and holes (aspect m/n) are m × n per cell, placed as in the 2D layouts
+ *   (layoutShapes.ts: lattice axes snapped to the grid), drawn the same way;
  * - a solid recipe of the printed material: the whole cell.
  * Other recipes (laminates, rods lying in the plane, split rings, wires) are not drawn (listed with
  * the reason).
@@ -43,12 +49,18 @@
  * allocation.
  */
 import type { Plan, Recipe } from "../planTypes.js";
+import { HEX_ROW } from "./hexSites.js";
+import { rectTiling } from "../../cells/lattice.js";
+import { axis1AlongX } from "./layoutShapes.js";
+import { droppedSitesNote, planHexSites } from "./planHexSites.js";
+import { slabFace, type FaceMesh } from "./slabFace.js";
 
 export type PrintedShape =
   | { kind: "cross"; e: number }
   | { kind: "sphere"; r: number; void: boolean }
   | { kind: "cube"; s: number; void: boolean }
-  | { kind: "rod"; r: number; hole: boolean }
+  /** `hex`: on the plan's hexagonal sites; `tile`: a rect lattice's m × n per cell (m along principal axis 1); else at the cell centre */
+  | { kind: "rod"; r: number; hole: boolean; hex?: boolean; tile?: { m: number; n: number } }
   | { kind: "block" };
 
 /** A triangle sink: three vertices (metres), counter-clockwise seen from outside. */
@@ -152,11 +164,15 @@ function printedShape(r: Recipe, a: number): { shape: PrintedShape | null; what:
   }
   if ((r.family === "rods-in-host" || r.family === "holes-in-slab") && Number.isFinite(dim("radius_m"))) {
     if (r.orientation !== "z") return { shape: null, what: r.family, fraction: 0, reason: `${r.family} lying in the plane (along ${r.orientation}): not drawn as a printed part yet` };
-    if (r.lattice === "rect") return { shape: null, what: r.family, fraction: 0, reason: `${r.family} on a rect lattice (several circles per cell): not drawn as a printed part yet (the 2D layouts draw it)` };
+    const tile = r.lattice === "rect" ? (r.aspect !== undefined ? rectTiling(r.aspect) : null) : undefined;
+    if (tile === null) return { shape: null, what: r.family, fraction: 0, reason: `rect-lattice recipe without a tiling aspect (${r.aspect})` };
     const hole = r.family === "holes-in-slab" || incGas;
     if (hole && hostGas) return { shape: null, what: r.family, fraction: 0, reason: "gas in gas: nothing to print" };
-    const area = Math.PI * dim("radius_m") ** 2 / (a * a);
-    return { shape: { kind: "rod", r: dim("radius_m"), hole }, what: hole ? `${r.host} with holes along z` : `${r.inclusion} rods along z`, fraction: hole ? 1 - area : area, filler: hole ? undefined : filler };
+    // the area of the lattice's cell: a² (square), (√3/2)·a² a site (hexagonal), a²/(m·n) (rect: m × n circles per device cell)
+    const hex = r.lattice === "hex";
+    const area = (Math.PI * dim("radius_m") ** 2 * (tile ? tile.m * tile.n : 1)) / ((hex ? HEX_ROW : 1) * a * a);
+    const lat = hex ? " (hexagonal lattice)" : tile ? ` (rect lattice ${tile.m} × ${tile.n} per cell)` : "";
+    return { shape: { kind: "rod", r: dim("radius_m"), hole, ...(hex ? { hex } : {}), ...(tile ? { tile } : {}) }, what: hole ? `${r.host} with holes along z${lat}` : `${r.inclusion} rods along z${lat}`, fraction: hole ? 1 - area : area, filler: hole ? undefined : filler };
   }
   return { shape: null, what: r.family, fraction: 0, reason: `${r.family} cells are not drawn as a printed part (not a printed family, or both phases are gases)` };
 }
@@ -186,7 +202,6 @@ export function printedPart(plan: Plan, heightM: number, resolutionM: number | n
   if (g.dimension !== 2) return empty("the device grid is 3D: printed parts are drawn for 2D devices only");
   if (levels.length === 0) return empty("no level has a printed shape");
   if (fillers.size) notes.push(`the host ${[...fillers].join(", ")} fills around the printed part and is not in the STL`);
-  if (plan.levels.some((lv) => lv.recipe?.lattice === "hex")) notes.push("hexagonal-lattice recipes are printed on the device's square grid with their own dimensions");
 
   // tessellation from the process's resolution
   let maxR = 0;
@@ -216,7 +231,12 @@ export function printedPart(plan: Plan, heightM: number, resolutionM: number | n
       case "cross": { const e = round(sh.e); if (e <= 0) return bad("struts of zero width"); return e >= h - q ? { kind: "block" } : { kind: "cross", e }; }
       case "sphere": { const R = round(sh.r * sph.scale); if (R <= 0) return sh.void ? { kind: "block" } : bad("spheres of zero size"); return R >= h - q ? bad("spheres touching their neighbours: no watertight part") : { ...sh, r: R }; }
       case "cube": { const s2 = round(sh.s / 2); if (s2 <= 0) return sh.void ? { kind: "block" } : bad("cubes of zero size"); return s2 >= h - q ? (sh.void ? bad("cube voids filling the cell") : { kind: "block" }) : { ...sh, s: s2 }; }
-      case "rod": { const R = round(equalAreaRadius(sh.r, N)); if (R <= 0) return sh.hole ? { kind: "block" } : bad("rods of zero size"); return R >= h - q ? bad("rods or holes touching their neighbours: no watertight part") : { ...sh, r: R }; }
+      case "rod": {
+        const R = round(equalAreaRadius(sh.r, N));
+        if (R <= 0) return sh.hole ? { kind: "block" } : bad("rods of zero size");
+        const half = sh.tile ? h / Math.max(sh.tile.m, sh.tile.n) : h; // half the closest spacing
+        return R >= half - q ? bad("rods or holes touching their neighbours: no watertight part") : { ...sh, r: R };
+      }
     }
   });
   if (levels.length === 0) return empty("no level has a printed shape");
@@ -253,6 +273,76 @@ export function printedPart(plan: Plan, heightM: number, resolutionM: number | n
   const cosN = new Float64Array(N), sinN = new Float64Array(N);
   for (let k = 0; k < N; k++) { cosN[k] = Math.cos((2 * Math.PI * k) / N); sinN[k] = Math.sin((2 * Math.PI * k) / N); }
 
+  // rods and holes off the cell centre — hexagonal ones on the plan's built sites, rect ones m × n
+  // per cell — listed per device cell (site centres in siteX, siteY); the cells of such holes in
+  // 4-connected groups, each one slab whose faces are triangulated once (slabFace.ts)
+  type SiteRod = { kind: "rod"; r: number; hole: boolean; hex?: boolean; tile?: { m: number; n: number } };
+  const onSites = (sh: PrintedShape | null): sh is SiteRod => sh !== null && sh.kind === "rod" && (sh.hex === true || sh.tile !== undefined);
+  const hexPlan = shapes.some((sh) => onSites(sh) && sh.hex) ? planHexSites(plan) : null;
+  const siteStart = new Int32Array(g.count + 1);
+  const siteX: number[] = [], siteY: number[] = [];
+  const faceOfCell = new Int32Array(g.count).fill(-1);
+  const faces: FaceMesh[] = [];
+  let hexBuilt = 0, rectBuilt = 0;
+  if (shapes.some(onSites)) {
+    const byCell: number[][] = Array.from({ length: g.count }, () => []);
+    if (hexPlan) {
+      const { sites } = hexPlan;
+      for (let k = 0; k < sites.cell.length; k++) { const sh = shapes[plan.level[sites.cell[k]]]; if (onSites(sh) && sh.hex) byCell[sites.cell[k]].push(k); }
+    }
+    for (let c = 0; c < g.count; c++) {
+      siteStart[c] = siteX.length;
+      for (const k of byCell[c]) { siteX.push(hexPlan!.sites.xM[k]); siteY.push(hexPlan!.sites.yM[k]); hexBuilt++; }
+      const sh = plan.level[c] >= 0 ? shapes[plan.level[c]] : null;
+      if (onSites(sh) && sh.tile) {
+        // m circles along the lattice's x axis (principal axis 1), n along y, snapped to the grid (layoutShapes.ts)
+        const [mx, my] = axis1AlongX(plan.axisAngleRad[c]) ? [sh.tile.m, sh.tile.n] : [sh.tile.n, sh.tile.m];
+        const X = g.originXM + g.i[c] * a, Y = g.originYM + g.j[c] * a;
+        for (let jj = 0; jj < my; jj++) for (let ii = 0; ii < mx; ii++) { siteX.push(X - a / 2 + ((ii + 0.5) * a) / mx); siteY.push(Y - a / 2 + ((jj + 0.5) * a) / my); rectBuilt++; }
+      }
+    }
+    siteStart[g.count] = siteX.length;
+    const holeCell = (c: number): boolean => { const sh = plan.level[c] >= 0 ? shapes[plan.level[c]] : null; return onSites(sh) && sh.hole; };
+    const group = new Int32Array(g.count).fill(-1);
+    for (let c0 = 0; c0 < g.count; c0++) {
+      if (!holeCell(c0) || group[c0] >= 0) continue;
+      const id = faces.length, members: number[] = [c0];
+      group[c0] = id;
+      for (let t = 0; t < members.length; t++) {
+        const c = members[t];
+        for (const [di, dj] of [[1, 0], [-1, 0], [0, 1], [0, -1]]) {
+          const i = g.i[c] + di, j = g.j[c] + dj;
+          if (i < 0 || j < 0 || i >= nx || j >= ny) continue;
+          const o = at[j * nx + i];
+          if (o >= 0 && group[o] < 0 && holeCell(o)) { group[o] = id; members.push(o); }
+        }
+      }
+      const holes: Float64Array[] = [];
+      for (const c of members) {
+        const R = (shapes[plan.level[c]] as { r: number }).r;
+        for (let t = siteStart[c]; t < siteStart[c + 1]; t++) {
+          const X = siteX[t], Y = siteY[t];
+          const ring = new Float64Array(2 * N);
+          for (let m = 0; m < N; m++) { ring[2 * m] = X + R * cosN[m]; ring[2 * m + 1] = Y + R * sinN[m]; }
+          holes.push(ring);
+        }
+      }
+      const inGroup = new Set(members.map((c) => g.i[c] + nx * g.j[c]));
+      faces.push(slabFace({
+        i: Int32Array.from(members.map((c) => g.i[c])),
+        j: Int32Array.from(members.map((c) => g.j[c])),
+        has: (i, j) => i >= 0 && j >= 0 && i < nx && j < ny && inGroup.has(i + nx * j),
+        xEdge: (i) => xFace(i, -1),
+        yEdge: (j) => yFace(j, -1),
+      }, holes));
+      faceOfCell[Math.min(...members)] = id;
+    }
+    if (hexPlan) notes.push(`hexagonal-lattice rods and holes stand on the plan's built hexagonal sites (${hexBuilt} sites, the sites of the 2D layouts and of the drawn full-wave case)`);
+    if (rectBuilt) notes.push(`rect-lattice rods and holes: m × n per cell, as in the 2D layouts (${rectBuilt} in all)`);
+    if (faces.length) notes.push(`the cells of these holes form ${faces.length} slab${faces.length === 1 ? "" : "s"} whose faces are triangulated around the holes`);
+    const dropped = hexPlan ? droppedSitesNote(hexPlan, plan) : null;
+    if (dropped) notes.push(dropped);
+  }
   function emitCell(c: number, sink: TriangleSink, kFrom = 0, kTo = layers): void {
     const i = g.i[c], j = g.j[c];
     const s = shapeAt(i, j);
@@ -386,6 +476,37 @@ export function printedPart(plan: Plan, heightM: number, resolutionM: number | n
           break;
         }
         case "rod": {
+          if (s.hex || s.tile) {
+            // the sites standing in this cell: hole walls (facing the hole's axis) or rod prisms
+            const R = s.r, out = s.hole ? -1 : 1;
+            for (let t = siteStart[c]; t < siteStart[c + 1]; t++) {
+              const SX = siteX[t], SY = siteY[t];
+              for (let m = 0; m < N; m++) {
+                const m1 = (m + 1) % N;
+                const ax = SX + R * cosN[m], ay = SY + R * sinN[m], bx = SX + R * cosN[m1], by = SY + R * sinN[m1];
+                quad([ax, ay, z0, bx, by, z0, bx, by, z1, ax, ay, z1], out * (cosN[m] + cosN[m1]), out * (sinN[m] + sinN[m1]), 0);
+              }
+              if (!s.hole) {
+                for (const [kk, zz, dz] of [[0, z0, -1], [layers - 1, z1, 1]] as const) {
+                  if (k !== kk) continue;
+                  for (let m = 1; m < N - 1; m++) tri(SX + R * cosN[0], SY + R * sinN[0], zz, SX + R * cosN[m], SY + R * sinN[m], zz, SX + R * cosN[m + 1], SY + R * sinN[m + 1], zz, 0, 0, dz);
+                }
+              }
+            }
+            // the slab's faces, once per group of hole cells (from its first cell)
+            const f = faceOfCell[c];
+            if (s.hole && f >= 0) {
+              const { xy, tri: ft } = faces[f];
+              for (const [kk, zz, dz] of [[0, z0, -1], [layers - 1, z1, 1]] as const) {
+                if (k !== kk) continue;
+                for (let t = 0; t < ft.length; t += 3) {
+                  const p = 2 * ft[t], q = 2 * ft[t + 1], u = 2 * ft[t + 2];
+                  tri(xy[p], xy[p + 1], zz, xy[q], xy[q + 1], zz, xy[u], xy[u + 1], zz, 0, 0, dz);
+                }
+              }
+            }
+            break;
+          }
           const R = s.r, out = s.hole ? -1 : 1;
           for (let m = 0; m < N; m++) {
             const m1 = (m + 1) % N;

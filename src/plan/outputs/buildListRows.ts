@@ -14,7 +14,7 @@ import { orientationCode } from "./orientationText.js";
 import type { Plan } from "../planTypes.js";
 import { flagList } from "../flags.js";
 import { csvField, fmt } from "./csvText.js";
-import { writeDecimal } from "./decimalBytes.js";
+import { writeFmt } from "./decimalBytes.js";
 
 /** Dimension keys (metres, "radius_m") used by any level's recipe, sorted by name. */
 export function dimensionColumns(plan: Plan): string[] {
@@ -61,7 +61,13 @@ function levelTexts(plan: Plan): { achieved: string[]; recipe: string[] } {
 /** Bytes per emitted chunk of the build list (rows are never split between chunks). */
 export const BUILD_LIST_CHUNK_BYTES = 1 << 20;
 
-const COMMA = 44, NEWLINE = 10, DIGIT_0 = 48;
+const COMMA = 44, NEWLINE = 10, DIGIT_0 = 48, DIGIT_9 = 57;
+
+/** Room for the cell number's digits (up to 2⁵³). */
+const COUNTER_END = 17;
+
+/** Regions up to this many get their number's text made once. */
+const MAX_REGION_TEXTS = 1 << 16;
 
 /** A non-negative integer in decimal at `at`; returns the position after it. */
 function putInt(buf: Uint8Array, at: number, v: number): number {
@@ -83,24 +89,131 @@ function putAscii(buf: Uint8Array, at: number, t: string): number {
   return at;
 }
 
-/** Bytes made once (per-level and per-index texts) at `at`; returns the position after them. */
+/** Bytes made once (the header) at `at`; returns the position after them. */
 function putBytes(buf: Uint8Array, at: number, b: Uint8Array): number {
-  const n = b.length;
-  if (n > 24) { buf.set(b, at); return at + n; } // a copy call pays off for long texts (recipes)
-  for (let k = 0; k < n; k++) buf[at++] = b[k];
-  return at;
+  buf.set(b, at);
+  return at + b.length;
 }
 
-/** `fmt(x, digits)` at `at` without making a string (decimalBytes.ts; `fmt` where it cannot promise the same bytes). */
-function putNumber(buf: Uint8Array, at: number, x: number, digits: number): number {
-  if (x === 0) { buf[at] = DIGIT_0; return at + 1; }
-  if (!Number.isFinite(x)) return at;
-  const end = writeDecimal(buf, at, x, digits);
-  return end >= 0 ? end : putAscii(buf, at, fmt(x, digits));
+/**
+ * A text made once (per-level and per-index texts), kept as little-endian 32-bit words so a row
+ * copies it four bytes at a time; up to three bytes past `len` are written too (the next field,
+ * or the buffer's slack, takes them).
+ */
+interface Text { words: Int32Array; len: number }
+
+function makeText(bytes: Uint8Array): Text {
+  const padded = new Uint8Array((bytes.length + 3) & ~3);
+  padded.set(bytes);
+  return { words: new Int32Array(padded.buffer), len: bytes.length };
 }
+
+/** `t` at `at` through the buffer's DataView; returns the position after it. */
+function putText(view: DataView, at: number, t: Text): number {
+  const w = t.words;
+  for (let q = 0, n = w.length; q < n; q++) view.setInt32(at + 4 * q, w[q], true);
+  return at + t.len;
+}
+
+/** `fmt(x, digits)` at `at` without making a string (decimalBytes.ts). */
+const putNumber = writeFmt;
 
 /** Most bytes one number takes (fmt's longest: "-1.23457e-100" and then some). */
 const NUMBER_BYTES = 24;
+
+/** Everything a row needs besides the cell index: the plan's per-cell arrays and the texts made once. */
+interface RowSource {
+  three: boolean;
+  m: number;
+  gi: Int32Array; gj: Int32Array; gk: Int32Array;
+  /** "x," "y," "z," and "i," "j," "k," by lattice index */
+  xs: Text[]; ys: Text[]; zs: Text[]; is: Text[]; js: Text[]; ks: Text[];
+  targets: Float64Array[];
+  axisAngleRad: Float64Array; region: Int32Array; level: Int32Array;
+  relError: Float64Array; quantizationError: Float64Array; zeroTargetAbsError: Float64Array | null;
+  flags: Uint16Array;
+  achieved: Text[]; recipe: Text[]; noAchieved: Text; noRecipe: Text;
+  /** "r," by region index (null when there are too many regions to list: then written digit by digit) */
+  regionTexts: Text[] | null;
+  /** "l" by level index */
+  levelNumbers: Text[];
+  /** scratch for the cell number's digits */
+  counter: Uint8Array;
+  /** flag text by mask, made on first use */
+  flagTexts: (Text | undefined)[];
+  encode: (t: string) => Uint8Array;
+  /** the previous value of each target column and its bytes (a constant column reuses them) */
+  lastTarget: Float64Array; lastLength: Int32Array; lastBytes: Uint8Array;
+}
+
+const DEG_PER_RAD = 180 / Math.PI;
+
+/**
+ * Rows from cell `from` on into `buf` at `at`, until `at` passes `limit` or the cells run out;
+ * returns the cell after the last row written and leaves the end position in `end[0]`. A plain
+ * synchronous function with its state in locals and parameters, called once per chunk; texts
+ * made once are copied four bytes at a time, the cell number is an ASCII counter.
+ */
+function fillRows(r: RowSource, buf: Uint8Array, view: DataView, at: number, from: number, count: number, limit: number, end: Int32Array): number {
+  const { three, m, gi, gj, gk, xs, ys, zs, is, js, ks, targets, axisAngleRad, region, level, relError, quantizationError, zeroTargetAbsError, flags } = r;
+  const { achieved, recipe, noAchieved, noRecipe, flagTexts, lastTarget, lastLength, lastBytes } = r;
+  const { regionTexts, levelNumbers, counter } = r;
+  // the cell number as ASCII digits ending at counter[COUNTER_END - 1], incremented per row
+  const first = String(from + 1);
+  let cs = COUNTER_END - first.length;
+  for (let q = 0; q < first.length; q++) counter[cs + q] = first.charCodeAt(q);
+  let c = from;
+  for (; c < count && at < limit; c++) {
+    const lv = level[c];
+    for (let q = cs; q < COUNTER_END; q++) buf[at++] = counter[q];
+    buf[at++] = COMMA;
+    let q = COUNTER_END - 1;
+    while (counter[q] === DIGIT_9) { counter[q] = DIGIT_0; q--; }
+    if (q < cs) { cs = q; counter[q] = DIGIT_0 + 1; } else counter[q]++;
+    const i = gi[c], j = gj[c];
+    at = putText(view, at, is[i]);
+    at = putText(view, at, js[j]);
+    if (three) at = putText(view, at, ks[gk[c]]);
+    at = putText(view, at, xs[i]);
+    at = putText(view, at, ys[j]);
+    if (three) at = putText(view, at, zs[gk[c]]);
+    at = putNumber(buf, at, axisAngleRad[c] * DEG_PER_RAD, 4); buf[at++] = COMMA;
+    if (regionTexts !== null) at = putText(view, at, regionTexts[region[c]]);
+    else { at = putInt(buf, at, region[c] + 1); buf[at++] = COMMA; }
+    if (lv >= 0) at = putText(view, at, levelNumbers[lv]);
+    for (let k = 0; k < m; k++) {
+      buf[at++] = COMMA;
+      // a value equal to the column's previous one (a constant component) reuses its bytes
+      const v = targets[k][c];
+      const from = k * NUMBER_BYTES;
+      if (v === lastTarget[k]) {
+        for (let q = 0, len = lastLength[k]; q < len; q++) buf[at++] = lastBytes[from + q];
+      } else {
+        const e = putNumber(buf, at, v, 6);
+        for (let q = at; q < e; q++) lastBytes[from + q - at] = buf[q];
+        lastTarget[k] = v;
+        lastLength[k] = e - at;
+        at = e;
+      }
+    }
+    at = putText(view, at, lv >= 0 ? achieved[lv] : noAchieved);
+    buf[at++] = COMMA; at = putNumber(buf, at, relError[c], 4);
+    buf[at++] = COMMA; at = putNumber(buf, at, quantizationError[c], 4);
+    buf[at++] = COMMA;
+    if (zeroTargetAbsError) at = putNumber(buf, at, zeroTargetAbsError[c], 4);
+    at = putText(view, at, lv >= 0 ? recipe[lv] : noRecipe);
+    buf[at++] = COMMA;
+    const f = flags[c];
+    if (f !== 0) {
+      let t = flagTexts[f];
+      if (t === undefined) { t = makeText(r.encode(flagList(f))); flagTexts[f] = t; }
+      at = putText(view, at, t);
+    }
+    buf[at++] = NEWLINE;
+  }
+  end[0] = at;
+  return c;
+}
 
 /**
  * Calls `emit` with successive chunks of the build list as UTF-8 bytes (whole rows, about
@@ -117,21 +230,32 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
   const encoder = new TextEncoder();
   const enc = (t: string): Uint8Array => encoder.encode(t);
   const perM = designUnit(plan.design.wavelengthM).perM;
-  const xs = Array.from({ length: g.nx }, (_, i) => enc(`${fmt((g.originXM + i * g.pitchM) * perM)},`));
-  const ys = Array.from({ length: g.ny }, (_, j) => enc(`${fmt((g.originYM + j * g.pitchM) * perM)},`));
-  const zs = three ? Array.from({ length: g.nz }, (_, k) => enc(`${fmt((g.originZM + k * g.pitchM) * perM)},`)) : [];
+  const text = (t: string): Text => makeText(enc(t));
+  const xs = Array.from({ length: g.nx }, (_, i) => text(`${fmt((g.originXM + i * g.pitchM) * perM)},`));
+  const ys = Array.from({ length: g.ny }, (_, j) => text(`${fmt((g.originYM + j * g.pitchM) * perM)},`));
+  const zs = three ? Array.from({ length: g.nz }, (_, k) => text(`${fmt((g.originZM + k * g.pitchM) * perM)},`)) : [];
+  const index = (n: number): Text[] => Array.from({ length: n }, (_, i) => text(`${i},`));
+  const is = index(g.nx), js = index(g.ny), ks = three ? index(g.nz) : [];
   const texts = levelTexts(plan);
-  const achieved = texts.achieved.map(enc), recipe = texts.recipe.map(enc);
+  const achieved = texts.achieved.map(text), recipe = texts.recipe.map(text);
   const m = plan.components.length;
-  const noAchieved = enc(",".repeat(m));
+  const noAchieved = text(",".repeat(m));
   // family, host, inclusion, lattice, orientation, fill_fraction, dimensions…, loss_tangent
-  const noRecipe = enc(",".repeat(6 + dimensionColumns(plan).length + 1));
-  const flagBytes = new Map<number, Uint8Array>();
-  const longest = (list: Uint8Array[]): number => list.reduce((a, b) => Math.max(a, b.length), 0);
-  // the most one row can take: the buffer keeps that much room past a chunk
-  const rowBytes = 4 * 11 + 10 + longest(xs) + longest(ys) + longest(zs) + (m + 4) * (NUMBER_BYTES + 1) +
-    longest([...achieved, noAchieved]) + longest([...recipe, noRecipe]) + enc(flagList(0xffff)).length + 2;
+  const noRecipe = text(",".repeat(6 + dimensionColumns(plan).length + 1));
+  const longest = (list: Text[]): number => list.reduce((a, b) => Math.max(a, b.len + 3), 0);
+  // the most one row can take (texts with their word padding): the buffer keeps that much room past a chunk
+  const rowBytes = 4 * 11 + 10 + longest(xs) + longest(ys) + longest(zs) + longest(is) + longest(js) + longest(ks) + (m + 4) * (NUMBER_BYTES + 1) +
+    longest([...achieved, noAchieved]) + longest([...recipe, noRecipe]) + enc(flagList(0xffff)).length + 6;
   const size = BUILD_LIST_CHUNK_BYTES + Math.max(65536, rowBytes);
+  const rows: RowSource = {
+    three, m, gi: g.i, gj: g.j, gk: g.k, xs, ys, zs,
+    is, js, ks, targets: plan.targets, axisAngleRad: plan.axisAngleRad, region: plan.region, level: plan.level,
+    relError: plan.relError, quantizationError: plan.quantizationError, zeroTargetAbsError: plan.zeroTargetAbsError,
+    flags: plan.flags, achieved, recipe, noAchieved, noRecipe, flagTexts: [], encode: enc,
+    regionTexts: plan.regions.length <= MAX_REGION_TEXTS ? Array.from({ length: plan.regions.length }, (_, k) => text(`${k + 1},`)) : null,
+    levelNumbers: plan.levels.map((_, k) => text(`${k + 1}`)), counter: new Uint8Array(COUNTER_END),
+    lastTarget: new Float64Array(m).fill(NaN), lastLength: new Int32Array(m), lastBytes: new Uint8Array(m * NUMBER_BYTES),
+  };
   // two buffers in turn: the caller may hold one until its emit promise settles
   let buf: Uint8Array = new Uint8Array(size);
   let spare: Uint8Array | null = null;
@@ -151,51 +275,16 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
   if (header.length > buf.length) buf = new Uint8Array(header.length);
   at = putBytes(buf, at, header);
   if (at >= BUILD_LIST_CHUNK_BYTES) await flush();
-  const degPerRad = 180 / Math.PI;
-  const { targets, axisAngleRad, region, relError, quantizationError, zeroTargetAbsError, flags, level } = plan;
-  const gi = g.i, gj = g.j, gk = g.k;
-  const lastTarget = new Float64Array(m).fill(NaN), lastLength = new Int32Array(m), lastBytes = new Uint8Array(m * NUMBER_BYTES);
-  for (let c = 0; c < g.count; c++) {
-    const lv = level[c];
-    at = putInt(buf, at, c + 1); buf[at++] = COMMA;
-    at = putInt(buf, at, gi[c]); buf[at++] = COMMA;
-    at = putInt(buf, at, gj[c]); buf[at++] = COMMA;
-    if (three) { at = putInt(buf, at, gk[c]); buf[at++] = COMMA; }
-    at = putBytes(buf, at, xs[gi[c]]);
-    at = putBytes(buf, at, ys[gj[c]]);
-    if (three) at = putBytes(buf, at, zs[gk[c]]);
-    at = putNumber(buf, at, axisAngleRad[c] * degPerRad, 4); buf[at++] = COMMA;
-    at = putInt(buf, at, region[c] + 1); buf[at++] = COMMA;
-    if (lv >= 0) at = putInt(buf, at, lv + 1);
-    for (let k = 0; k < m; k++) {
-      buf[at++] = COMMA;
-      // a value equal to the column's previous one (a constant component) reuses its bytes
-      const v = targets[k][c];
-      const from = k * NUMBER_BYTES;
-      if (v === lastTarget[k]) {
-        for (let q = 0, len = lastLength[k]; q < len; q++) buf[at++] = lastBytes[from + q];
-      } else {
-        const end = putNumber(buf, at, v, 6);
-        for (let q = at; q < end; q++) lastBytes[from + q - at] = buf[q];
-        lastTarget[k] = v;
-        lastLength[k] = end - at;
-        at = end;
-      }
-    }
-    at = putBytes(buf, at, lv >= 0 ? achieved[lv] : noAchieved);
-    buf[at++] = COMMA; at = putNumber(buf, at, relError[c], 4);
-    buf[at++] = COMMA; at = putNumber(buf, at, quantizationError[c], 4);
-    buf[at++] = COMMA;
-    if (zeroTargetAbsError) at = putNumber(buf, at, zeroTargetAbsError[c], 4);
-    at = putBytes(buf, at, lv >= 0 ? recipe[lv] : noRecipe);
-    buf[at++] = COMMA;
-    const f = flags[c];
-    if (f !== 0) {
-      let t = flagBytes.get(f);
-      if (t === undefined) { t = enc(flagList(f)); flagBytes.set(f, t); }
-      at = putBytes(buf, at, t);
-    }
-    buf[at++] = NEWLINE;
+  const end = new Int32Array(1);
+  const views = new WeakMap<Uint8Array, DataView>();
+  const viewOf = (b: Uint8Array): DataView => {
+    let v = views.get(b);
+    if (!v) { v = new DataView(b.buffer, b.byteOffset, b.byteLength); views.set(b, v); }
+    return v;
+  };
+  for (let c = 0; c < g.count;) {
+    c = fillRows(rows, buf, viewOf(buf), at, c, g.count, BUILD_LIST_CHUNK_BYTES, end);
+    at = end[0];
     if (at >= BUILD_LIST_CHUNK_BYTES) await flush();
   }
   if (at > 0) await flush();

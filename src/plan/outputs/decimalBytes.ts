@@ -10,8 +10,11 @@
  * scaled value; rounding s to the nearest integer then gives toPrecision's digits unless s lies
  * within 1e-9 of a half-integer, where the exact value could round the other way. Those (and
  * values outside 1e-15 … 1e20, digits > 6) return -1 and the caller falls back to `fmt`, so
- * the bytes are always toPrecision's. The test sweeps random and edge values against `fmt`.
+ * the bytes are always toPrecision's. `writeFmt` is the whole column formatter: zero,
+ * non-finite values and the fallback included. The tests sweep random and edge values against
+ * `fmt`.
  */
+import { fmt } from "./csvText.js";
 
 /** Exact powers of ten 10⁰ … 10²². */
 const POW10 = new Float64Array(23);
@@ -96,4 +99,19 @@ export function writeDecimal(buf: Uint8Array, at: number, x: number, digits: num
     n = q;
   }
   return at + nd;
+}
+
+/**
+ * Write exactly `fmt(x, digits)` (csvText.ts) into `buf` at `at` (room for 24 bytes needed) and
+ * return the position after it: "0" for ±0, nothing for NaN and ±Infinity (an empty CSV cell),
+ * `writeDecimal` where it can promise the bytes, `fmt`'s own text otherwise.
+ */
+export function writeFmt(buf: Uint8Array, at: number, x: number, digits: number): number {
+  if (x === 0) { buf[at] = ZERO; return at + 1; }
+  if (!Number.isFinite(x)) return at;
+  const end = writeDecimal(buf, at, x, digits);
+  if (end >= 0) return end;
+  const t = fmt(x, digits);
+  for (let k = 0; k < t.length; k++) buf[at++] = t.charCodeAt(k);
+  return at;
 }

@@ -1,5 +1,6 @@
 /** The machine-readable summary of a plan (summary.json, and stdout with `plan --json`). */
 import type { Plan, PlanSummary } from "../planTypes.js";
+import { planHexSites } from "../layout/planHexSites.js";
 
 /** Build the summary object; `outputs` are the paths written (empty before writing). */
 export function planSummary(plan: Plan, outputs: string[]): PlanSummary {
@@ -26,6 +27,15 @@ export function planSummary(plan: Plan, outputs: string[]): PlanSummary {
     polarization: plan.settings.polarization,
     scheme: plan.settings.scheme,
     tolerance: plan.settings.tolerance,
+    ...hexSitesSummary(plan),
     warnings: [...(plan.timeWarning !== undefined ? [plan.timeWarning] : []), ...plan.warnings],
   };
+}
+
+/** The `hexSites` entry of a plan with hexagonal-lattice levels (none otherwise). */
+function hexSitesSummary(plan: Plan): { hexSites?: NonNullable<PlanSummary["hexSites"]> } {
+  const p = planHexSites(plan);
+  if (!p) return {};
+  const levels = p.hexLevels.filter((l) => plan.levels[l].cellCount > 0).map((l) => ({ level: plan.levels[l].index, cells: plan.levels[l].cellCount, built: p.builtPerLevel[l], leftOut: p.droppedPerLevel[l] }));
+  return { hexSites: { built: p.sites.cell.length, leftOut: p.sites.dropped, levels } };
 }

@@ -1,6 +1,7 @@
 import { describe, it, expect } from "vitest";
 import fc from "fast-check";
-import { writeDecimal } from "../../../src/plan/outputs/decimalBytes.js";
+import { writeDecimal, writeFmt } from "../../../src/plan/outputs/decimalBytes.js";
+import { fmt } from "../../../src/plan/outputs/csvText.js";
 import { precisionReference } from "../../helpers/precisionReference.js";
 
 const reference = precisionReference;
@@ -78,5 +79,32 @@ describe("writeDecimal", () => {
     expect(written(1e-300, 6)).toBeNull();
     expect(written(1e300, 6)).toBeNull();
     expect(written(5e-324, 4)).toBeNull();
+  });
+});
+
+describe("writeFmt (the build list's number columns)", () => {
+  const out = new Uint8Array(64);
+  const text = (x: number, d: number): string => {
+    out.fill(0x7e);
+    const end = writeFmt(out, 5, x, d);
+    expect(out[4], "nothing written before the offset").toBe(0x7e);
+    expect(out[end], "nothing written after the end").toBe(0x7e);
+    return decoder.decode(out.subarray(5, end));
+  };
+
+  it("gives exactly fmt's text for any double, fast path or not (property, every bit pattern class)", () => {
+    fc.assert(
+      fc.property(fc.oneof(fc.double(), fc.double({ min: -1e7, max: 1e7 }), fc.double({ min: -1, max: 1 })), fc.integer({ min: 1, max: 8 }), (x, d) => {
+        expect(text(x, d), `${x} @ ${d}`).toBe(fmt(x, d));
+      }),
+      { seed: 2026, numRuns: 60000 },
+    );
+  });
+
+  it("gives fmt's text at the edges: ±0, NaN, ±Infinity, subnormals, 1e-7, 9.9999995, half-way points, huge values", () => {
+    const edges = [0, -0, NaN, Infinity, -Infinity, 5e-324, -5e-324, 2.2250738585072014e-308, 1e-7, -1e-7, 1e-6, 9.9999995, 9.99999949,
+      0.99999995, 999999.5, 9999995, 1.5e-7, 1e-15, 9.99e-16, 1e20, 9.9999e19, 1e21, 1e300, -1.7976931348623157e308, 123456.5, 0.00012345,
+      0.000123456, 1234565, 2.5, 0.125, 1 + 2 ** -52, 1 - 2 ** -53, 100, 1e5, 99999.5, 0.5, 0.05, 0.005, 4.35e-7];
+    for (const x of edges) for (let d = 1; d <= 8; d++) for (const v of [x, -x]) expect(text(v, d), `${v} @ ${d}`).toBe(fmt(v, d));
   });
 });
