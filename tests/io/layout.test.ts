@@ -92,11 +92,11 @@ async function planWithLayout(design: string, extra: string[] = []): Promise<{ o
  * every polygon's centre lies on one hexagonal lattice of the pitch through the grid's centre (the
  * middle of the build list's i, j ranges), on the layer of the cell containing it (a centre on a
  * cell edge: the cell nearer the grid's centre line); no two overlap (centres a pitch apart or
- * more, radii below a/2); and each one's share — the points within a/2 of its centre, or for rods in
+ * more, radii below a/2), with walls no thinner than their recipes'; and each one's share — the points within a/2 of its centre, or for rods in
  * air toward the outside of the device its own radius — lies in cells of the same kind. Returns per
- * level the polygons' area and count. Lengths in the file's unit (`unit` per metre).
+ * level the polygons' area and count, and the narrowest wall between neighbours. Lengths in the file's unit (`unit` per metre).
  */
-function checkHexPolygons(polys: { layer: number; xy: number[] }[], rows: Record<string, string>[], aM: number, unit: number, tolerance: number): Map<number, { area: number; count: number }> {
+function checkHexPolygons(polys: { layer: number; xy: number[] }[], rows: Record<string, string>[], aM: number, unit: number, tolerance: number): { perLevel: Map<number, { area: number; count: number }>; narrowestWall: number } {
   const a = aM * unit, h = (Math.sqrt(3) / 2) * a;
   const col = Object.keys(rows[0]).find((k) => k.startsWith("x_"))!, colY = col.replace("x_", "y_");
   const scale = unit / (col.endsWith("_um") ? 1e6 : 1e3); // build-list unit → file unit
@@ -144,14 +144,26 @@ function checkHexPolygons(polys: { layer: number; xy: number[] }[], rows: Record
     e.area += shoelace(p.xy); e.count++;
     out.set(p.layer, e);
   }
-  // no overlap: every pair of centres at least a pitch apart (radii below a/2), by sorting on x
-  const sorted = centres.slice().sort((p, q) => p[0] - q[0]);
-  for (let k = 0; k < sorted.length; k++) {
-    for (let o = k + 1; o < sorted.length && sorted[o][0] - sorted[k][0] < a; o++) {
-      expect(Math.hypot(sorted[o][0] - sorted[k][0], sorted[o][1] - sorted[k][1]), "distance between two sites").toBeGreaterThan(a - 2 * tolerance);
+  // no overlap: every pair of centres at least a pitch apart (radii below a/2), by sorting on x;
+  // and the wall between neighbours as placed (centre distance − both radii, radii from the
+  // polygons' areas) is at least the thinner of their recipes' own walls a − 2r — the walls the
+  // process check passed (levels.csv smallest_feature)
+  const radii = polys.map((p) => Math.sqrt(shoelace(p.xy) / Math.PI));
+  const order = centres.map((_, k) => k).sort((p, q) => centres[p][0] - centres[q][0]);
+  let narrowest = Infinity;
+  for (let s = 0; s < order.length; s++) {
+    const k = order[s];
+    for (let t = s + 1; t < order.length && centres[order[t]][0] - centres[k][0] <= a + tolerance; t++) {
+      const o = order[t];
+      const d = Math.hypot(centres[o][0] - centres[k][0], centres[o][1] - centres[k][1]);
+      expect(d, "distance between two sites").toBeGreaterThan(a - 2 * tolerance);
+      if (d > a + 2 * tolerance) continue;
+      const wall = d - radii[k] - radii[o];
+      expect(wall, `wall between sites at (${centres[k]}) and (${centres[o]})`).toBeGreaterThanOrEqual(Math.min(a - 2 * radii[k], a - 2 * radii[o]) - 4 * tolerance);
+      narrowest = Math.min(narrowest, wall);
     }
   }
-  return out;
+  return { perLevel: out, narrowestWall: narrowest };
 }
 
 describe("GDSII layout of the silicon chip bend (electron-beam lithography, hexagonal holes)", () => {
@@ -174,7 +186,7 @@ describe("GDSII layout of the silicon chip bend (electron-beam lithography, hexa
     });
     // positions in nm, rounded to the 1 nm database unit: centres within 1 nm of the lattice
     const a = 100; // nm, the demo's pitch
-    const perLevel = checkHexPolygons(polys, r.rows, 100e-9, 1e9, 1);
+    const { perLevel, narrowestWall: narrowest } = checkHexPolygons(polys, r.rows, 100e-9, 1e9, 1);
     // the sites built and left out, as stderr reports them, add up to the lattice's sites in the
     // level's cells: about 2/√3 per cell (site density 2/(√3 a²)), give or take the region's edge
     const note = /sites left out[^:]*: (.*)/.exec(r.err);
@@ -193,6 +205,12 @@ describe("GDSII layout of the silicon chip bend (electron-beam lithography, hexa
       expect(Math.abs(all - (2 / Math.sqrt(3)) * cells), `level ${level}: ${all} sites in ${cells} cells`).toBeLessThan(Math.max(4, 2 * Math.sqrt(cells)));
     }
     expect([...perLevel.values()].reduce((s, e) => s + e.count, 0)).toBe(gds.boundaries.length);
+    // process check as placed: the narrowest wall between two holes is no thinner than the thinnest
+    // feature a level's recipe has (levels.csv smallest_feature, which passed the process check),
+    // and not below the electron-beam process's 20 nm (catalogs/processes.csv), 2 nm of rounding aside
+    const smallest = Math.min(...r.levels.map((lv) => Number(lv.smallest_feature_um) * 1000));
+    expect(narrowest).toBeGreaterThanOrEqual(smallest - 2);
+    expect(narrowest).toBeGreaterThanOrEqual(20 - 2);
   });
 });
 
@@ -250,7 +268,7 @@ describe("hexagonal rods over a uniform block: GDSII, DXF and the drawn full-wav
     const fix = (v: number): string => (Math.round(v * 1e4) / 1e4 + 0).toFixed(4); // + 0: no "-0.0000"
     const key = (p: { layer: number; xy: number[] }): string => { const [x, y] = centroid(p.xy); return `${p.layer}:${fix(x)},${fix(y)}`; };
     expect(new Set(dxfPolys.map(key))).toEqual(new Set(gdsPolys.map(key)));
-    const per = checkHexPolygons(dxfPolys, r.rows, 2e-3, 1e3, 1e-9).get(1)!;
+    const per = checkHexPolygons(dxfPolys, r.rows, 2e-3, 1e3, 1e-9).perLevel.get(1)!;
     // The block is 13 × 9 cells of 2 mm, [−13, 13] × [−9, 9] mm, the grid's centre at (0, 0). Rods
     // in air need only themselves inside the outline: the built sites are the lattice points
     // (2n + (m mod 2), √3·m) mm with |x| ≤ 13 − r, |y| ≤ 9 − r, counted here by rows (independent of
