@@ -15,8 +15,9 @@
  * is split), so each cell corner is a vertex again. The triangulated area is checked against the
  * polygon's (outline − inner loops − holes); a mismatch is a bug.
  *
- * Cost: earcut bridges holes one by one, about O(holes × vertices): a slab of 2000 holes of 64
- * vertices triangulates in about a second.
+ * Cost: earcut bridges holes one by one, between linear and O(holes × vertices). Measured (tsx,
+ * 2-core machine at load 8, CPU seconds): 2209 holes of 16 vertices in a 48 × 42-cell slab 0.38 s,
+ * of 64 vertices 2.3 s; 10 197 holes of 16 vertices in 100 × 90 cells 3.2 s.
  */
 import earcut from "earcut";
 import { ProgrammerError } from "../../core/errors.js";
