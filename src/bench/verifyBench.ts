@@ -28,7 +28,7 @@ export async function verifyBench(log: (line: string) => void): Promise<void> {
         const s = JSON.parse(io.out());
         const grid = s.grid ? `, rungs ${s.resolutions.join("/")}, finest ${s.grid.nx}×${s.grid.ny}` : "";
         const h = s.homogenizationError;
-        const drawn = h ? `, homogenization error ${(100 * h.relative).toFixed(1)} %${h.uncertainty === null ? "" : ` ± ${(100 * h.uncertainty).toFixed(1)} %`} (drawn grids ${h.stepsAcrossFeature.join("/")} steps across ${h.featureM} m)` : "";
+        const drawn = h ? `, homogenization error (σ_geometry − σ_realized)/${h.differenceScale === "bare" ? "σ_bare" : "larger width"} ${h.difference.toFixed(3)}${h.differenceUncertainty === null ? "" : ` ± ${h.differenceUncertainty.toFixed(3)}`}${h.converged === false ? " (not converged)" : ""} (drawn grids ${h.stepsAcrossFeature.join("/")} steps across ${h.featureM} m)` : "";
         summary = `exit ${code}, method ${s.method}${grid}, converged ${s.converged}${drawn}`;
       } catch {
         summary = `exit ${code}: ${io.err().split("\n").filter(Boolean).pop()}`;

@@ -28,6 +28,18 @@ describe("verify: the drawn realized case on the rod lens demo", () => {
     const d = (e.ratios[1] - e.ratios[0]) / ((e.stepsM[0] / e.stepsM[1]) ** 2 - 1);
     expect(Math.abs(e.relative - (e.ratios[1] + d - 1))).toBeLessThan(1e-12);
     expect(Math.abs(e.uncertainty - 3 * Math.abs(d))).toBeLessThan(1e-12);
+    // the headline figure: no bare object here, so Δ = (σ_geometry − σ_realized)/S with S the larger
+    // width, extrapolated the same way from its own ladder; converged when its uncertainty is within
+    // --accuracy (default 2 %), and the exit code follows every figure's state
+    expect(e.differenceScale).toBe("larger-width");
+    expect(e.differenceScaleM).toBeGreaterThan(0);
+    expect(e.differences).toHaveLength(2);
+    const dd = (e.differences[1] - e.differences[0]) / ((e.stepsM[0] / e.stepsM[1]) ** 2 - 1);
+    expect(Math.abs(e.difference - (e.differences[1] + dd))).toBeLessThan(1e-12);
+    expect(Math.abs(e.differenceUncertainty - 3 * Math.abs(dd))).toBeLessThan(1e-12);
+    expect(e.converged).toBe(e.differenceUncertainty <= 0.02);
+    expect(s.converged).toBe(s.cases.every((c: { available: boolean; converged: boolean | null }) => !c.available || c.converged !== false) && e.converged !== false);
+    expect(r.code).toBe(s.converged ? 0 : 2);
     expect(r.err).toMatch(/warning: expect about .* for realized-geometry|note: realized-geometry: drawn on grids of its own/);
     // the human table with too little time for two grids: the case's one-line reason
     const h = await cli.run([LENS, "--drawn-time", "3", "--resolution", "8"]);

@@ -23,6 +23,7 @@ import { geometryScene, type BulkMaterial } from "../../src/verify/geometryScene
 import { mapFromPlan } from "../../src/verify/materialMap.js";
 import { runCheck } from "../../src/verify/runCheck.js";
 import type { CaseSpec } from "../../src/verify/verifyDevice.js";
+import { expectClose } from "../helpers/close.js";
 import { squareDeviceGrid } from "../helpers/squareDeviceGrid.js";
 
 const C0 = 299_792_458;
@@ -84,7 +85,7 @@ describe("realized-geometry: inclusions drawn at their size", () => {
 
   it("a uniform block of rods approaches its homogenized map as the cell shrinks (homogenization limit), within 1 % at a = λ_eff/17", () => {
     for (const pol of ["Ez", "Hz"] as const) {
-      const errs = [2, 4, 8].map((n) => Math.abs(run(pol, n, { resolution: 12 }).homogenizationError!.relative));
+      const errs = [2, 4, 8].map((n) => Math.abs(run(pol, n, { resolution: 12 }).homogenizationError!.relative!));
       expect(errs[1], `${pol}: ${errs}`).toBeLessThan(errs[0] / 3);
       expect(errs[2], `${pol}: ${errs}`).toBeLessThan(errs[1]);
       expect(errs[2], `${pol}: ${errs}`).toBeLessThan(0.01);
@@ -101,12 +102,45 @@ describe("realized-geometry: inclusions drawn at their size", () => {
     const e = r.homogenizationError!;
     expect(e.resolutions.length).toBeGreaterThanOrEqual(3);
     expect(e.uncertainty).not.toBeNull();
-    expect(Math.abs(e.relative)).toBeGreaterThan(3 * e.uncertainty!);
+    expect(Math.abs(e.relative!)).toBeGreaterThan(3 * e.uncertainty!);
+    // the headline figure: no bare object, so the difference of the widths over the larger one;
+    // per rung Δ·S = σ_geometry − σ_realized = σ_geometry (1 − 1/ρ) (an identity between the outputs)
+    expect(e.differenceScale).toBe("larger-width");
+    expect(e.differenceScaleM).toBeGreaterThanOrEqual(geo.scatteringWidthM!);
+    expect(Math.abs(e.difference)).toBeGreaterThan(3 * e.differenceUncertainty!);
+    expect(e.converged).toBe(true);
+    e.differences.forEach((d, k) => expectClose(d * e.differenceScaleM, geo.ladder[k].scatteringWidthM * (1 - 1 / e.ratios[k]), { rel: 1e-9, label: `Δ·S on rung ${k}` }));
     // the steps of the drawn ladder: DRAWN_STEPS across the wall, coarsest first
     const wall = Math.min((0.25 * lambda / 2) * (1 - 2 * Math.sqrt(0.2 / Math.PI)), 0.25 * lambda / 2 / 4); // the wall, at most a quarter pitch
     expect(e.stepsAcrossFeature).toEqual([...DRAWN_STEPS]);
     e.stepsM.forEach((h, k) => expect(h).toBeLessThanOrEqual((wall / DRAWN_STEPS[k]) * (1 + 1e-12)));
     expect(e.ratios.length).toBe(3);
+  }, 120_000);
+
+  it("with a hidden object the homogenization error is the change of σ/σ_bare: Δ over the bare width, the drawn σ/σ_bare the realized one plus Δ", () => {
+    const side = 0.25 * lambda, n = 2;
+    const plan = uniformRodPlan("Ez", n, side, 0.2);
+    const hidden = { centerM: [0, 0] as [number, number], radiusM: 0.1 * side };
+    const d = geometryScene({ plan, materials, polarization: "Ez", background: vacuum, hidden });
+    if (!d.ok) throw new Error(d.reason);
+    const feature = drawnStepFeature(d.smallestFeatureM, side / n);
+    const cases: CaseSpec[] = [
+      { name: "bare", scene: deviceScene(plan.grid, "Ez", vacuum, null, hidden), indexHint: 0 },
+      { name: "realized", scene: deviceScene(plan.grid, "Ez", vacuum, mapFromPlan(plan as Plan, { b: 1, t: 1 }), hidden), indexHint: Math.sqrt(EPS_ROD) },
+      { name: "realized-geometry", scene: d.scene, indexHint: d.indexHint, maxStepM: feature / DRAWN_STEPS[0], featureM: feature },
+    ];
+    const h = side / 2;
+    const r = runCheck({ method: "fdfd", transform: { kind: "rotator" } as never, polarization: "Ez", background: vacuum, frequencyHz: f, deviceBox: { minX: -h, maxX: h, minY: -h, maxY: h }, cases, marginM: 0.1 * lambda, resolution: 12 });
+    const e = r.homogenizationError!;
+    const bare = r.cases.find((c) => c.name === "bare")!, realized = r.cases.find((c) => c.name === "realized")!, geo = r.cases.find((c) => c.name === "realized-geometry")!;
+    expect(e.differenceScale).toBe("bare");
+    expect(e.differenceScaleM).toBe(bare.scatteringWidthM);
+    expect(e.vsBareDifference).toBe(e.difference);
+    expectClose(geo.vsBare!, realized.vsBare! + e.difference, { rel: 1e-12, label: "drawn σ/σ_bare" });
+    // per rung: Δ·σ_bare = σ_geometry − σ_realized = σ_geometry (1 − 1/ρ)
+    e.differences.forEach((v, k) => expectClose(v * e.differenceScaleM, geo.ladder[k].scatteringWidthM * (1 - 1 / e.ratios[k]), { rel: 1e-9, label: `rung ${k}` }));
+    expect(e.differenceUncertainty).not.toBeNull();
+    expect(e.converged).toBe(e.differenceUncertainty! <= 0.02);
   }, 120_000);
 
   it("says why a cell cannot be drawn: spheres (3D), rods lying in the plane, split rings, metal inclusions", () => {

@@ -57,7 +57,7 @@ export function verifySummary(design: string, scheme: string, r: CheckResult, ou
     backgroundIndex: r.backgroundIndex,
     marginM: r.marginM,
     scene: r.groundYM !== null ? { kind: "ground", groundYM: r.groundYM } : { kind: "free" },
-    converged: r.cases.every((c) => !c.available || c.converged !== false),
+    converged: checkConverged(r),
     cases: r.cases.map((c) => ({
       name: c.name,
       method: c.method,
@@ -82,8 +82,12 @@ export function verifySummary(design: string, scheme: string, r: CheckResult, ou
       ...(c.bistaticM ? { bistaticM: Array.from(c.bistaticM, (v) => jn(v) ?? 0) } : {}),
     })),
     homogenizationError: r.homogenizationError && {
+      difference: jn(r.homogenizationError.difference), differenceUncertainty: jn(r.homogenizationError.differenceUncertainty),
+      differenceScale: r.homogenizationError.differenceScale, differenceScaleM: jn(r.homogenizationError.differenceScaleM),
+      differences: r.homogenizationError.differences.map((v) => jn(v) ?? 0), converged: r.homogenizationError.converged,
       relative: jn(r.homogenizationError.relative), uncertainty: jn(r.homogenizationError.uncertainty),
       vsBareDifference: jn(r.homogenizationError.vsBareDifference), deliveredPowerDifference: jn(r.homogenizationError.deliveredPowerDifference),
+      deliveredPowerDifferenceUncertainty: jn(r.homogenizationError.deliveredPowerDifferenceUncertainty),
       stepM: r.homogenizationError.stepM, resolutions: r.homogenizationError.resolutions,
       stepsM: r.homogenizationError.stepsM, stepsAcrossFeature: r.homogenizationError.stepsAcrossFeature,
       featureM: r.homogenizationError.featureM, ratios: r.homogenizationError.ratios.map((v) => jn(v) ?? 0),
@@ -92,6 +96,11 @@ export function verifySummary(design: string, scheme: string, r: CheckResult, ou
     warnings,
     outputs,
   };
+}
+
+/** Every figure within --accuracy: each computed case and the homogenization error (exit code 2 otherwise). */
+export function checkConverged(r: CheckResult): boolean {
+  return r.cases.every((c) => !c.available || c.converged !== false) && r.homogenizationError?.converged !== false;
 }
 
 /** The human table. */
@@ -145,13 +154,15 @@ function widthText(c: CheckCase): string {
 function homogenizationLine(r: CheckResult): string[] {
   const e = r.homogenizationError;
   if (!e) return [];
-  const pm = e.uncertainty === null ? " (single grid, no uncertainty)" : ` ± ${Number((e.uncertainty * 100).toPrecision(2))} %`;
   const sign = (v: number): string => (v >= 0 ? "+" : "−") + Math.abs(v).toPrecision(2);
+  const pm = (u: number | null, scale = 1): string => (u === null ? "" : ` ± ${Number((u * scale).toPrecision(2))}`);
+  const over = e.differenceScale === "bare" ? "σ_bare" : "the larger width";
+  const state = e.converged === null ? " (single grid, no uncertainty)" : e.converged ? "" : " — not converged";
   return [
-    `  homogenization error of the plan (realized-geometry against realized, same grids): σ_s ${sign(e.relative * 100)} %${pm}` +
-      (e.vsBareDifference !== null ? `, σ/σ_bare ${sign(e.vsBareDifference)}` : "") +
-      (e.deliveredPowerDifference !== null ? `, delivered ${sign(e.deliveredPowerDifference * 100)} points` : ""),
-    `    its ladder: σ_geometry/σ_realized ${e.ratios.map((v) => v.toFixed(4)).join(", ")} at ${e.stepsAcrossFeature.join(", ")} grid steps across ${formatLength(e.featureM)} (steps ${e.stepsM.map((h) => formatLength(h)).join(", ")})`,
+    `  homogenization error of the plan (realized-geometry against realized, same grids): (σ_geometry − σ_realized)/${over} ${sign(e.difference)}${pm(e.differenceUncertainty)}` +
+      (e.deliveredPowerDifference !== null ? `, delivered ${sign(e.deliveredPowerDifference * 100)}${pm(e.deliveredPowerDifferenceUncertainty, 100)} points` : "") +
+      (e.relative !== null ? `; σ ratio ${sign(e.relative * 100)} %${e.uncertainty === null ? "" : `${pm(e.uncertainty, 100)} %`}` : "") + state,
+    `    its ladder: (σ_geometry − σ_realized)/${over} ${e.differences.map((v) => v.toFixed(4)).join(", ")}${e.ratios.length ? `, σ_geometry/σ_realized ${e.ratios.map((v) => v.toFixed(4)).join(", ")}` : ""} at ${e.stepsAcrossFeature.join(", ")} grid steps across ${formatLength(e.featureM)} (steps ${e.stepsM.map((h) => formatLength(h)).join(", ")}); ${over} = ${formatLength(e.differenceScaleM)}`,
   ];
 }
 
@@ -359,6 +370,6 @@ export const command: Command = {
     }
     if (json) io.stdout(`${JSON.stringify(verifySummary(design.name, s.scheme, result, outputs, warnings))}\n`);
     else io.stdout(verifyTable(design.name, s.scheme, result) + (outputs.length ? `outputs:\n${outputs.map((p) => `  ${p}`).join("\n")}\n` : ""));
-    return result.cases.some((c) => c.available && c.converged === false) ? 2 : EXIT_OK;
+    return checkConverged(result) ? EXIT_OK : 2;
   },
 };
