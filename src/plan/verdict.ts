@@ -12,7 +12,8 @@
  * - `anisotropy`: the largest in-plane anisotropy ratio of the targets against `maxAnisotropy`;
  * - `process`: levels whose recipe the process cannot tell from a neighbouring level's
  *   (`unresolvable`, limit 0), and any feature below the process's smallest feature;
- * - `homogenization`: the fraction of cells flagged `coarse` (limit 0) — cells whose pitch is above
+ * - `homogenization`: the fraction of cells with a recipe flagged `coarse` (limit 0; cells refused
+ *   for coarseness have no recipe and count under `recipes`) — cells whose pitch is above
  *   λ/10 in their densest material and, for rods and holes along z, whose lowest band departs from
  *   the long-wavelength index by more than the tolerance — with the coarse levels and the worst
  *   figure (`worst`: the largest band deviation against the tolerance where the band was solved,
@@ -70,14 +71,16 @@ export function planVerdict(inp: VerdictInput): Verdict {
   } else if (f.processMinFeatureM !== null && f.smallestFeatureM !== null && f.smallestFeatureM < f.processMinFeatureM * (1 - 1e-9)) {
     missed.push({ what: "process", value: f.smallestFeatureM, limit: f.processMinFeatureM, text: `smallest feature ${num(f.smallestFeatureM * 1e6)} µm below the process limit of ${num(f.processMinFeatureM * 1e6)} µm` });
   }
-  const coarse = f.flagCounts.coarse ?? 0;
+  // coarse cells WITH a recipe: a cell refused for coarseness has no recipe and is counted under
+  // `recipes` with its reason (counting it twice made "→ met" remedies of plans that still build nothing)
+  const coarse = inp.levels.reduce((acc, l) => acc + (l.recipe && (l.flags & F_COARSE) !== 0 ? l.cellCount : 0), 0);
   if (coarse > 0) {
     const worst = worstCoarseness(inp.levels, s.tolerance);
     const worstText = worst === null ? ""
       : worst.figure === "band-deviation"
         ? `; worst: level ${worst.level}, ${Number.isFinite(worst.value) ? `its band index ${pct(worst.value)} off the long-wavelength value (tolerance ${pct(worst.limit)})` : "the design frequency above its lowest band's edge"}`
         : `; worst: level ${worst.level}, pitch ${num(worst.value)} of the wavelength in its densest material (λ/10 = ${worst.limit})`;
-    const coarseLevels = inp.levels.filter((l) => l.cellCount > 0 && (l.flags & F_COARSE) !== 0).map((l) => l.index);
+    const coarseLevels = inp.levels.filter((l) => l.recipe && l.cellCount > 0 && (l.flags & F_COARSE) !== 0).map((l) => l.index);
     missed.push({
       what: "homogenization", value: coarse / inp.cells, limit: 0,
       ...(coarseLevels.length ? { levels: coarseLevels } : {}),

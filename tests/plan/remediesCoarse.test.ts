@@ -13,7 +13,10 @@ import { loadMaterialCatalog } from "../../src/io/materialCatalog.js";
 import { loadProcessCatalog } from "../../src/io/processCatalog.js";
 import { computeTensorField } from "../../src/field/computeTensorField.js";
 import { planFromField, type PlanCatalogs } from "../../src/plan/runPlan.js";
-import type { MissedRequirement } from "../../src/plan/planTypes.js";
+import type { DeviceFigures, MissedRequirement, PlanLevel, Recipe } from "../../src/plan/planTypes.js";
+import { planVerdict } from "../../src/plan/verdict.js";
+import { resolveSettings } from "../../src/plan/resolveSettings.js";
+import { F_COARSE, F_NORECIPE } from "../../src/plan/flags.js";
 
 let catalogs: PlanCatalogs;
 beforeAll(async () => {
@@ -29,6 +32,24 @@ describe("homogenization in the ranking", () => {
     expect(betterThan([], [coarse(0.15)])).toBe(true);
     // a change that clears the coarse cells but breaks the process is not better
     expect(betterThan([{ what: "process", value: 2, limit: 0, text: "" }], [coarse(0.15)])).toBe(false);
+  });
+});
+
+describe("homogenization counts the coarse cells that have a recipe", () => {
+  it("a level refused for coarseness counts under recipes only (no '→ met' for plans that still build nothing)", () => {
+    const figures = { flagCounts: { coarse: 7, norecipe: 4 }, maxRelError: 0.01, lossBudgetDb: null, lossDb: 0, bandwidthRequired: null, minBandwidth: null, largestAnisotropy: 1, processMinFeatureM: null, smallestFeatureM: null } as unknown as DeviceFigures;
+    const lv = (index: number, cellCount: number, recipe: boolean, flags: number): PlanLevel => ({
+      index, target: [1], cellCount, maxQuantizationError: 0, unresolvable: false, runnersUp: [], reasons: [], flags,
+      recipe: recipe ? ({ family: "rods-in-host", spread: 0, notes: [], pitchRatio: 0.15 } as unknown as Recipe) : null,
+    });
+    const settings = resolveSettings({ realization: { tolerance: 0.05 } });
+    const v = planVerdict({ cells: 10, figures, settings, levels: [lv(1, 3, true, F_COARSE), lv(2, 4, false, F_COARSE | F_NORECIPE), lv(3, 3, true, 0)], maxZeroTargetAbsError: NaN });
+    const m = v.missed.find((x) => x.what === "homogenization")!;
+    expect(m.value).toBe(0.3);
+    expect(m.levels).toEqual([1]);
+    expect(v.missed.find((x) => x.what === "recipes")!.value).toBe(4);
+    const none = planVerdict({ cells: 10, figures, settings, levels: [lv(2, 4, false, F_COARSE | F_NORECIPE), lv(3, 6, true, 0)], maxZeroTargetAbsError: NaN });
+    expect(none.missed.map((x) => x.what)).toEqual(["recipes"]);
   });
 });
 
