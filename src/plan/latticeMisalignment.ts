@@ -10,10 +10,15 @@
  *
  * against the target diag(t₁, t₂). Its error is the largest of |A₁₁ − t₁|/|t₁|, |A₂₂ − t₂|/|t₂| and
  * |A₁₂|/√|t₁t₂| — the largest entry of T^{-1/2}(A − T)T^{-1/2}, which is the plain per-component
- * relative error when δ = 0 (complex e, real t). Measured on a rect plan turned by 30° (tests/plan/
- * latticeMisalignment.test.ts): the cells' error rises from under the 12 % tolerance to well above
- * it, mostly through A₁₂ — too large to leave to a note, so it is part of rel_error. Square and hex
- * recipes are isotropic in the plane at long wavelengths (e₁ = e₂), so turning them changes nothing.
+ * relative error when δ = 0 (complex e, real t). Measured on the anisotropic strip turned from the
+ * grid (tests/plan/latticeMisalignment.test.ts): by 20° the turn adds up to 4.65 % to a cell's error
+ * (to 10.3 %, tolerance 12 %); by 30°, with recipes chosen as if aligned, up to 8.9 % (to 13.9 %, the
+ * plan then misses its tolerance), mostly through A₁₂ — too large to leave to a note, so it is part of
+ * rel_error, and the level search (levelCandidates.ts, MatchContext.turnRad) judges rect recipes by
+ * the same figure at the level's largest angle: at 30° it then keeps square tilings (cells over the
+ * tolerance 8 → 2, mean error 5.2 → 4.9 %, largest 14.2 → 14.9 %: quantization against an isotropic
+ * recipe). Square and hex recipes are isotropic in the plane at long wavelengths (e₁ = e₂), so
+ * turning them changes nothing.
  */
 
 /** Angle (rad, 0…π/4) between principal axis 1 (at axisRad + π/2; axisRad is axis 2's angle) and the grid axis nearer it. */

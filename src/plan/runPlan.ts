@@ -23,6 +23,7 @@ import { computeFlags } from "./computeFlags.js";
 import { chooseRecipes } from "./match/chooseRecipes.js";
 import { bandVerdict } from "./match/bandCheck.js";
 import { levelCandidates, type Candidate } from "./match/levelCandidates.js";
+import { gridMisalignmentRad } from "./latticeMisalignment.js";
 import type { EvaluatedMaterial, MatchContext } from "./match/matchContext.js";
 import { planFiguresFor } from "./planFiguresFor.js";
 import { MAX_LEVELS, type LayerSetting, type Plan, type PlanLevel, type PlanOverrides, type PlanProgress, type TargetComponent } from "./planTypes.js";
@@ -198,9 +199,18 @@ export function planFromField(
     cellCounts[level[c]]++;
     if (quantizationError[c] > maxQ[level[c]]) maxQ[level[c]] = quantizationError[c];
   }
+  // rect lattices stand on the grid: each level's largest turn of its cells' principal axes from it
+  const turnRad = new Float64Array(q.centres.length);
+  if (settings.lattice === "rect") {
+    for (let c = 0; c < n; c++) {
+      if (level[c] < 0) continue;
+      const d = gridMisalignmentRad(axisAngleRad[c]);
+      if (d > turnRad[level[c]]) turnRad[level[c]] = d;
+    }
+  }
   const searches = q.centres.map((centre, l) => {
     onProgress?.("match", l / q.centres.length);
-    return levelCandidates(centre, ctx);
+    return levelCandidates(centre, turnRad[l] > 0 ? { ...ctx, turnRad: turnRad[l] } : ctx);
   });
   const perLevel: Candidate[][] = searches.map((s) => s.candidates);
   const chosen = chooseRecipes(perLevel, settings.tolerance);

@@ -51,8 +51,8 @@ describe("the turned tensor's error", () => {
   });
 });
 
-describe("a rect plan turned by 30° (tests/plan/fixtures/rect-holes-turned-30.json)", () => {
-  it("the aligned strip meets the tolerance; turned by 30° its rect cells miss it, and the plan says why", async () => {
+describe("rect plans turned from the grid (tests/plan/fixtures/rect-holes-turned-20.json, -30.json)", () => {
+  it("turned by 20°: the cells and the level search carry the turned tensor's error; by 30° the square tiling wins", async () => {
     const catalogs = { materials: await loadMaterialCatalog(), processes: await loadProcessCatalog() };
     const run = async (file: string) => {
       const design = await loadDesign(file);
@@ -61,24 +61,37 @@ describe("a rect plan turned by 30° (tests/plan/fixtures/rect-holes-turned-30.j
     const straight = await run("tests/io/layout-fixtures/rect-holes.json");
     expect(straight.verdict.buildable).toBe(true);
     expect(straight.warnings.join("\n")).not.toContain("rect-lattice cells stand");
-    const turned = await run("tests/plan/fixtures/rect-holes-turned-30.json");
-    expect(turned.verdict.buildable).toBe(false);
-    expect(turned.verdict.missed.map((m) => m.what)).toContain("tolerance");
-    expect(turned.warnings.join("\n")).toMatch(/rect-lattice cells stand with their lattice axes along the grid, up to 30° from their target's principal axes/);
-    // every anisotropic rect cell's error is the turned tensor's (principal axes 30° from the grid everywhere)
+    const turned = await run("tests/plan/fixtures/rect-holes-turned-20.json");
+    // measured: 10 cells, adds up to 4.65 % (to 10.3 %), inside the 12 % tolerance
+    expect(turned.verdict.buildable).toBe(true);
+    expect(turned.warnings.join("\n")).toMatch(/rect-lattice cells stand with their lattice axes along the grid, up to 20° from their target's principal axes/);
     let checked = 0, added = 0;
+    const levelTurn = new Float64Array(turned.levels.length);
     for (let c = 0; c < turned.grid.count; c++) {
-      const r = turned.levels[turned.level[c]]?.recipe;
+      const l = turned.level[c];
+      if (l >= 0) levelTurn[l] = Math.max(levelTurn[l], gridMisalignmentRad(turned.axisAngleRad[c]));
+      const r = turned.levels[l]?.recipe;
       if (!r || r.lattice !== "rect" || r.achieved[1] === r.achieved[2]) continue;
       const t1 = turned.targets[1][c], t2 = turned.targets[2][c];
-      expectClose(gridMisalignmentRad(turned.axisAngleRad[c]), Math.PI / 6, { abs: 1e-6, label: `angle of cell ${c}` });
+      expectClose(gridMisalignmentRad(turned.axisAngleRad[c]), Math.PI / 9, { abs: 1e-6, label: `angle of cell ${c}` });
       const e = misalignedRelError(r.achieved[1], r.achievedIm[1], r.achieved[2], r.achievedIm[2], t1, t2, gridMisalignmentRad(turned.axisAngleRad[c]));
       expectClose(turned.relError[c], Math.max(e, Math.hypot(r.achieved[0] - turned.targets[0][c], r.achievedIm[0]) / turned.targets[0][c]), { rel: 1e-12, label: `cell ${c}` });
       added = Math.max(added, e - misalignedRelError(r.achieved[1], r.achievedIm[1], r.achieved[2], r.achievedIm[2], t1, t2, 0));
       checked++;
     }
     expect(checked).toBeGreaterThan(0);
-    // measured: the turn adds up to 8.9 % to a cell's error (tolerance 12 %)
-    expect(added).toBeGreaterThan(0.05);
-  }, 180_000);
+    expect(added).toBeGreaterThan(0.03);
+    // the level search judged the rect recipe turned by its level's largest angle
+    for (const [l, lv] of turned.levels.entries()) {
+      const r = lv.recipe;
+      if (!r || r.lattice !== "rect" || r.achieved[1] === r.achieved[2]) continue;
+      const t = lv.target;
+      expectClose(r.relError, Math.max(misalignedRelError(r.achieved[1], r.achievedIm[1], r.achieved[2], r.achievedIm[2], t[1], t[2], levelTurn[l]), Math.hypot(r.achieved[0] - t[0], r.achievedIm[0]) / t[0]), { rel: 1e-12, label: `level ${lv.index}` });
+    }
+    // turned by 30°: every turned rect tensor misses its level by more than the square tiling's
+    // isotropic value, so the search keeps square tilings; the quantization then misses 12 %
+    const turned30 = await run("tests/plan/fixtures/rect-holes-turned-30.json");
+    expect(turned30.levels.every((lv) => !lv.recipe || lv.recipe.aspect === 1)).toBe(true);
+    expect(turned30.verdict.missed.map((m) => m.what)).toContain("tolerance");
+  }, 240_000);
 });

@@ -22,6 +22,7 @@ import type { Recipe } from "../planTypes.js";
 import { axisFor, orientationsFor, type Direction } from "./componentMapping.js";
 import { rectTableReady } from "../../cells/homogenize/rectCircleTable.js";
 import { rectTiling } from "../../cells/lattice.js";
+import { misalignedRelError } from "../latticeMisalignment.js";
 import type { EvaluatedMaterial, MatchContext } from "./matchContext.js";
 import { mixingSpread } from "./mixingSpread.js";
 
@@ -264,7 +265,16 @@ function mixed(
       if (m.err < best.err) best = m;
     }
   }
-  const { fill, achieved, err } = best;
+  let { fill, achieved, err } = best;
+  // a rect lattice stands on the grid: where the level's principal axes are turned from it, the
+  // built tensor is turned too (its error as the cells will carry it, at the level's largest angle)
+  const k1 = comps.findIndex((c) => c.axis === "1"), k2 = comps.findIndex((c) => c.axis === "2");
+  if (lattice === "rect" && (ctx.turnRad ?? 0) > 1e-12 && k1 >= 0 && k2 >= 0 && target[k1] !== 0 && target[k2] !== 0 && achieved[k1].re !== achieved[k2].re) {
+    const others = comps.map((_, k) => k).filter((k) => k !== k1 && k !== k2);
+    const rest = others.length ? largestErrors(others.map((k) => achieved[k].re), others.map((k) => achieved[k].im), others.map((k) => target[k])).rel : 0;
+    const turned = misalignedRelError(achieved[k1].re, achieved[k1].im, achieved[k2].re, achieved[k2].im, target[k1], target[k2], ctx.turnRad!);
+    err = Math.max(rest, turned);
+  }
   const feature = family.smallestFeatureM(fill, pitchM, lattice, aspect);
   const proc = processReasons(ctx, family, host, inc, feature.featureM, feature.gapM);
   if (proc.length) { refuse(s, `below the process limit: ${proc[0]}`); return; }

@@ -34,6 +34,12 @@ export interface MatchContext {
    * still solve; tables already solved cost nothing. Counted, so the result never depends on a clock.
    */
   rectTables?: { left: number };
+  /**
+   * rect lattices: the largest angle (rad, ≤ π/4) between a cell's principal axis 1 and the grid
+   * axis its lattice stands on, over the level's cells (plan/latticeMisalignment.ts); a rect
+   * recipe's error is then that of its tensor turned by this angle. 0 or absent: aligned.
+   */
+  turnRad?: number;
   process: Process | null;
   /** required fractional bandwidth, or null */
   bandwidth: number | null;
