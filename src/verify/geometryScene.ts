@@ -4,7 +4,9 @@
  * lies in. The solver's
  * grid then resolves the inclusions (drawnLadder.ts: 2, 3 and 4.5 steps across the smallest drawn
  * feature), and its sub-pixel averaging (gridCoefficients.ts: arithmetic for the field along
- * an interface, harmonic across it) handles the inclusion boundaries.
+ * an interface, harmonic across it) handles the inclusion boundaries. The scene also tells the grid
+ * the exact area of each material in a grid cell's box (`boxParts`, exactBoxParts below, with
+ * discRectArea.ts), so the arithmetic mean Ez needs carries no sampling error.
  *
  * The 2D solver needs cells that do not vary along z, so only these are drawn:
  * - rods and holes along z (`orientation` z): a disc of the recipe's radius; square-lattice recipes
