@@ -106,9 +106,10 @@ function boxSampler(scene: Scene, sCoarse: number) {
   };
   const partsOf = scene.boxParts;
   const parts = new Float64Array(BOX_MAX_PARTS * BOX_PART);
+  const normal = new Float64Array(2);
   function average(xc: number, yc: number, h: number): number {
     if (partsOf) {
-      const k = partsOf(xc, yc, h, parts);
+      const k = partsOf(xc, yc, h, parts, normal);
       if (k > 0) return fromParts(k, xc, yc, h);
     }
     layout(sCoarse);
@@ -136,9 +137,19 @@ function boxSampler(scene: Scene, sCoarse: number) {
       return -1;
     }
     if (sameT) writeA(parts[2 + S_TXX], parts[2 + S_TXX + 1], parts[2 + S_TYY], parts[2 + S_TYY + 1], parts[2 + S_TXY], parts[2 + S_TXY + 1]);
-    else { layout(sFine); fill(xc, yc, h); reduceSamples(); }
+    else {
+      let withNormal = normal[0] !== 0 || normal[1] !== 0, nx = normal[0], ny = normal[1];
+      if (!withNormal) {
+        // several interfaces (or one the scene cannot place): the normal from the samples, the fractions exact
+        layout(sFine); fill(xc, yc, h);
+        withNormal = sampledNormal();
+        nx = gradient[0]; ny = gradient[1];
+      }
+      kottkeMean(withNormal, nx, ny, parts, BOX_PART, 2 + S_TXX, null, k, tMean, 0);
+      writeA(tMean[0], tMean[1], tMean[2], tMean[3], tMean[4], tMean[5]);
+    }
     avg[0] = bRe; avg[1] = bIm;
-    return m;
+    return 1;
   }
   let open = 0, medium = 0;
   function fill(xc: number, yc: number, h: number): void {
@@ -161,21 +172,15 @@ function boxSampler(scene: Scene, sCoarse: number) {
     }
   }
   const tMean = new Float64Array(6);
-  function reduceSamples(): number {
-    if (medium === 0) {
-      avg[0] = bBg; avg[1] = 0; avg[2] = 1 / tBg; avg[3] = 0; avg[4] = 1 / tBg; avg[5] = 0; avg[6] = 0; avg[7] = 0;
-      return open === m ? -1 : open;
-    }
-    if (open === 0) return 0;
-    // b: arithmetic mean; normal from the gradient of tr T
-    let bRe = 0, bIm = 0, gMean = 0;
+  /** unit normal of the sampled box: the least-squares gradient of tr T over the open samples, in `gradient`; false (and (1, 0)) without one */
+  const gradient = new Float64Array(2);
+  function sampledNormal(): boolean {
+    let gMean = 0, count = 0;
     for (let k = 0; k < m; k++) {
       if (kind[k] === SAMPLE_PEC) continue;
-      const o = 8 * k;
-      bRe += v[o]; bIm += v[o + 1];
-      gMean += v[o + 2] + v[o + 4];
+      gMean += v[8 * k + 2] + v[8 * k + 4]; count++;
     }
-    bRe /= open; bIm /= open; gMean /= open;
+    gMean /= Math.max(1, count);
     let gx = 0, gy = 0, gAbs = 0;
     for (let k = 0; k < m; k++) {
       if (kind[k] === SAMPLE_PEC) continue;
@@ -183,8 +188,25 @@ function boxSampler(scene: Scene, sCoarse: number) {
       gx += dx[k] * d; gy += dy[k] * d; gAbs += Math.abs(d);
     }
     const gn = Math.hypot(gx, gy);
-    const withNormal = gn > 1e-9 * (gAbs + 1e-300);
-    kottkeMean(withNormal, withNormal ? gx / gn : 1, withNormal ? gy / gn : 0, v, 8, 2, kind, m, tMean);
+    const ok = gn > 1e-9 * (gAbs + 1e-300);
+    gradient[0] = ok ? gx / gn : 1; gradient[1] = ok ? gy / gn : 0;
+    return ok;
+  }
+  function reduceSamples(): number {
+    if (medium === 0) {
+      avg[0] = bBg; avg[1] = 0; avg[2] = 1 / tBg; avg[3] = 0; avg[4] = 1 / tBg; avg[5] = 0; avg[6] = 0; avg[7] = 0;
+      return open === m ? -1 : open;
+    }
+    if (open === 0) return 0;
+    // b: arithmetic mean; normal from the gradient of tr T
+    let bRe = 0, bIm = 0;
+    for (let k = 0; k < m; k++) {
+      if (kind[k] === SAMPLE_PEC) continue;
+      bRe += v[8 * k]; bIm += v[8 * k + 1];
+    }
+    bRe /= open; bIm /= open;
+    const withNormal = sampledNormal();
+    kottkeMean(withNormal, gradient[0], gradient[1], v, 8, 2, kind, m, tMean, -1);
     avg[0] = bRe; avg[1] = bIm;
     writeA(tMean[0], tMean[1], tMean[2], tMean[3], tMean[4], tMean[5]);
     return open;
@@ -205,18 +227,20 @@ function boxSampler(scene: Scene, sCoarse: number) {
 /**
  * Kottke mean of in-plane tensors about the normal n = (nx, ny) (see file comment), written into
  * out as T_xx, T_yy, T_xy (re, im pairs): entry k has T_xx, T_yy, T_xy (re, im) at
- * src[base + stride·k …] and is skipped where skip[k] is SAMPLE_PEC; equal weights. Without a
- * normal (withNormal false) the plain mean.
+ * src[base + stride·k …] and is skipped where skip[k] is SAMPLE_PEC; its weight is
+ * src[weightAt + stride·k] (an area fraction), or 1 for every entry when weightAt < 0. Without a
+ * normal (withNormal false) the plain (weighted) mean.
  */
-function kottkeMean(withNormal: boolean, nx: number, ny: number, src: Float64Array, stride: number, base: number, skip: Uint8Array | null, count: number, out: Float64Array): Float64Array {
+function kottkeMean(withNormal: boolean, nx: number, ny: number, src: Float64Array, stride: number, base: number, skip: Uint8Array | null, count: number, out: Float64Array, weightAt: number): Float64Array {
   let sw = 0;
   let t1Re = 0, t1Im = 0, t2Re = 0, t2Im = 0, t3Re = 0, t3Im = 0;
   for (let k = 0; k < count; k++) {
     if (skip && skip[k] === SAMPLE_PEC) continue;
     const o = base + stride * k;
-    sw++;
+    const w = weightAt < 0 ? 1 : src[weightAt + stride * k];
+    sw += w;
     const xr = src[o], xi = src[o + 1], yr = src[o + 2], yi = src[o + 3], cr = src[o + 4], ci = src[o + 5];
-    if (!withNormal) { t1Re += xr; t1Im += xi; t2Re += yr; t2Im += yi; t3Re += cr; t3Im += ci; continue; }
+    if (!withNormal) { t1Re += w * xr; t1Im += w * xi; t2Re += w * yr; t2Im += w * yi; t3Re += w * cr; t3Im += w * ci; continue; }
     // rotate into (n, t), t = (−ny, nx)
     const nnRe = nx * nx * xr + ny * ny * yr + 2 * nx * ny * cr, nnIm = nx * nx * xi + ny * ny * yi + 2 * nx * ny * ci;
     const ttRe = ny * ny * xr + nx * nx * yr - 2 * nx * ny * cr, ttIm = ny * ny * xi + nx * nx * yi - 2 * nx * ny * ci;
@@ -224,10 +248,10 @@ function kottkeMean(withNormal: boolean, nx: number, ny: number, src: Float64Arr
     // τ = [−1/T_nn, T_nt/T_nn, T_tt − T_nt²/T_nn]
     const d2 = nnRe * nnRe + nnIm * nnIm;
     const iRe = nnRe / d2, iIm = -nnIm / d2;
-    t1Re -= iRe; t1Im -= iIm;
+    t1Re -= w * iRe; t1Im -= w * iIm;
     const qRe = ntRe * iRe - ntIm * iIm, qIm = ntRe * iIm + ntIm * iRe;
-    t2Re += qRe; t2Im += qIm;
-    t3Re += ttRe - (qRe * ntRe - qIm * ntIm); t3Im += ttIm - (qRe * ntIm + qIm * ntRe);
+    t2Re += w * qRe; t2Im += w * qIm;
+    t3Re += w * (ttRe - (qRe * ntRe - qIm * ntIm)); t3Im += w * (ttIm - (qRe * ntIm + qIm * ntRe));
   }
   t1Re /= sw; t1Im /= sw; t2Re /= sw; t2Im /= sw; t3Re /= sw; t3Im /= sw;
   if (!withNormal) { out[0] = t1Re; out[1] = t1Im; out[2] = t2Re; out[3] = t2Im; out[4] = t3Re; out[5] = t3Im; return out; }
@@ -339,6 +363,7 @@ export function gridCoefficients(g: FdfdGrid, scene: Scene, subsamples = 4): Gri
             }
           }
         }
+        if (f === 2 && (globalThis as any).NOXY) { aRe = 0; aIm = 0; }
         reA[id] = aRe; imA[id] = aIm;
       }
     }
