@@ -37,8 +37,7 @@ function clippedChord(d: number, r: number, tc: number, lo: number, hi: number):
 export function discBoxNormal(cx: number, cy: number, r: number, x0: number, x1: number, y0: number, y1: number, out: Float64Array): boolean {
   const nx = clippedChord(x0 - cx, r, cy, y0, y1) - clippedChord(x1 - cx, r, cy, y0, y1);
   const ny = clippedChord(y0 - cy, r, cx, x0, x1) - clippedChord(y1 - cy, r, cx, x0, x1);
-  let len = Math.hypot(nx, ny);
-  if ((globalThis as any).RADIAL && len > 0) { const ux = (x0 + x1) / 2 - cx, uy = (y0 + y1) / 2 - cy; const l2 = Math.hypot(ux, uy); if (l2 > 0) { out[0] = ux / l2; out[1] = uy / l2; return true; } }
+  const len = Math.hypot(nx, ny);
   // below 1e-12 of the box's side the chords' difference is rounding, not a direction
   if (!(len > 1e-12 * Math.max(x1 - x0, y1 - y0))) { out[0] = 0; out[1] = 0; return false; }
   out[0] = nx / len; out[1] = ny / len;

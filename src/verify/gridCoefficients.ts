@@ -48,6 +48,13 @@ export interface GridCoefficients {
   axxRe: Float64Array; axxIm: Float64Array;
   ayyRe: Float64Array; ayyIm: Float64Array;
   axyRe: Float64Array; axyIm: Float64Array;
+  /**
+   * A_xy on the x-faces (i+½, j) and y-faces (i, j+½) (index i + nx·j), for scenes whose boxes are
+   * known exactly (boxParts): each face carries half the cross term with its own box's average
+   * (stencil.ts). Absent: the cross term lives at the cell centres only (axyRe, axyIm).
+   */
+  axyXRe?: Float64Array; axyXIm?: Float64Array;
+  axyYRe?: Float64Array; axyYIm?: Float64Array;
   /** 1 where the node is inside a perfect conductor (held at zero total field) */
   pecNode: Uint8Array;
   /** 1 where a node, face or centre next to the node differs from the background (device mask) */
@@ -293,7 +300,11 @@ export function gridCoefficients(g: FdfdGrid, scene: Scene, subsamples = 4): Gri
   const iLo = Math.max(0, Math.floor((scene.bounds.minX - g.x0) / h) - 1), iHi = Math.min(nx - 1, Math.ceil((scene.bounds.maxX - g.x0) / h) + 1);
   const jLo = Math.max(0, Math.floor((scene.bounds.minY - g.y0) / h) - 1), jHi = Math.min(ny - 1, Math.ceil((scene.bounds.maxY - g.y0) / h) + 1);
   const point = new Float64Array(SAMPLE_LENGTH);
-  const near = 0.75 * h; // beyond this distance a conductor cannot touch an h × h box or a dual edge
+  const near = 0.75 * h;
+  const faceCross = scene.boxParts !== undefined;
+  const n = nx * ny;
+  const fxRe = faceCross ? (c.axyXRe = new Float64Array(n)) : null, fxIm = faceCross ? (c.axyXIm = new Float64Array(n)) : null;
+  const fyRe = faceCross ? (c.axyYRe = new Float64Array(n)) : null, fyIm = faceCross ? (c.axyYIm = new Float64Array(n)) : null; // beyond this distance a conductor cannot touch an h × h box or a dual edge
   // 1. nodes: conductor tests, b
   for (let j = jLo; j <= jHi; j++) {
     for (let i = iLo; i <= iHi; i++) {
@@ -363,7 +374,13 @@ export function gridCoefficients(g: FdfdGrid, scene: Scene, subsamples = 4): Gri
             }
           }
         }
-        if (f === 2 && (globalThis as any).NOXY) { aRe = 0; aIm = 0; }
+        if (faceCross) {
+          // the cross term on the faces, each with its own box (stencil.ts); at the centres only near a conductor
+          const nearCond = hasCond && sd < near;
+          if (f === 2 && !nearCond) { aRe = 0; aIm = 0; }
+          if (f === 0 && !nearCond) { fxRe![id] = avg[6]; fxIm![id] = avg[7]; }
+          if (f === 1 && !nearCond) { fyRe![id] = avg[6]; fyIm![id] = avg[7]; }
+        }
         reA[id] = aRe; imA[id] = aIm;
       }
     }

@@ -85,6 +85,7 @@ export function nodeStencil(g: FdfdGrid, c: GridCoefficients, stretch: PmlStretc
       }
     }
   }
+  if (c.axyXRe && c.axyXIm && c.axyYRe && c.axyYIm) faceCrossTerms(c.axyXRe, c.axyXIm, c.axyYRe, c.axyYIm, nx, ny, ih2, i, j, w);
   // k0² b (× s_x s_y)
   let bRe = c.bRe[id], bIm = c.bIm[id];
   if (stretch) {
@@ -94,6 +95,57 @@ export function nodeStencil(g: FdfdGrid, c: GridCoefficients, stretch: PmlStretc
   }
   w[8] += k0 * k0 * bRe; w[9] += k0 * k0 * bIm;
   return w;
+}
+
+/** w[slot of node (ni, nj)] += f·(re, im) when the node is on the grid (else: the Dirichlet wall). */
+function addWeight(w: StencilWeights, i: number, j: number, nx: number, ny: number, ni: number, nj: number, f: number, re: number, im: number): void {
+  if (ni < 0 || nj < 0 || ni >= nx || nj >= ny) return;
+  const slot = 2 * ((ni - i + 1) + 3 * (nj - j + 1));
+  w[slot] += f * re; w[slot + 1] += f * im;
+}
+
+/**
+ * The cross term 2 A_xy u_x u_y carried by the faces (GridCoefficients.axyX*, axyY*): half of it on
+ * the x-faces, with g_x the face's difference and ḡ_y the mean of the four y-differences around it,
+ * half on the y-faces likewise — the bilinear form Σ_f (A_xy,f / 2)(g_x(u) ḡ_y(v) + ḡ_y(u) g_x(v)) h²,
+ * so the matrix stays symmetric and nine-point. Node (i, j)'s row: w_m −= (A_xy,f / 2)(g_m e_n + ḡ_m d_n)
+ * over the faces whose differences hold the node (d_n, e_n: the node's weights in g and ḡ).
+ */
+function faceCrossTerms(xRe: Float64Array, xIm: Float64Array, yRe: Float64Array, yIm: Float64Array, nx: number, ny: number, ih2: number, i: number, j: number, w: StencilWeights): void {
+  // x-faces (fi + ½, fj), stored at fi + nx·fj: g_x = u(fi+1, fj) − u(fi, fj); ḡ_y = ¼[u(fi, fj+1) + u(fi+1, fj+1) − u(fi, fj−1) − u(fi+1, fj−1)]
+  for (let fj = Math.max(0, j - 1); fj <= Math.min(ny - 1, j + 1); fj++) {
+    for (let fi = Math.max(0, i - 1); fi <= Math.min(nx - 2, i); fi++) {
+      const f = fi + nx * fj;
+      const cRe = xRe[f], cIm = xIm[f];
+      if (cRe === 0 && cIm === 0) continue;
+      const dn = fj === j ? (fi === i ? -1 : 1) : 0;
+      const en = fj === j - 1 ? 0.25 : fj === j + 1 ? -0.25 : 0;
+      const k = -0.5 * ih2;
+      if (en !== 0) { addWeight(w, i, j, nx, ny, fi, fj, -k * en, cRe, cIm); addWeight(w, i, j, nx, ny, fi + 1, fj, k * en, cRe, cIm); }
+      if (dn !== 0) {
+        const q = 0.25 * k * dn;
+        addWeight(w, i, j, nx, ny, fi, fj + 1, q, cRe, cIm); addWeight(w, i, j, nx, ny, fi + 1, fj + 1, q, cRe, cIm);
+        addWeight(w, i, j, nx, ny, fi, fj - 1, -q, cRe, cIm); addWeight(w, i, j, nx, ny, fi + 1, fj - 1, -q, cRe, cIm);
+      }
+    }
+  }
+  // y-faces (fi, fj + ½), stored at fi + nx·fj: g_y = u(fi, fj+1) − u(fi, fj); ḡ_x = ¼[u(fi+1, fj) + u(fi+1, fj+1) − u(fi−1, fj) − u(fi−1, fj+1)]
+  for (let fj = Math.max(0, j - 1); fj <= Math.min(ny - 2, j); fj++) {
+    for (let fi = Math.max(0, i - 1); fi <= Math.min(nx - 1, i + 1); fi++) {
+      const f = fi + nx * fj;
+      const cRe = yRe[f], cIm = yIm[f];
+      if (cRe === 0 && cIm === 0) continue;
+      const dn = fi === i ? (fj === j ? -1 : 1) : 0;
+      const en = fi === i - 1 ? 0.25 : fi === i + 1 ? -0.25 : 0;
+      const k = -0.5 * ih2;
+      if (en !== 0) { addWeight(w, i, j, nx, ny, fi, fj, -k * en, cRe, cIm); addWeight(w, i, j, nx, ny, fi, fj + 1, k * en, cRe, cIm); }
+      if (dn !== 0) {
+        const q = 0.25 * k * dn;
+        addWeight(w, i, j, nx, ny, fi + 1, fj, q, cRe, cIm); addWeight(w, i, j, nx, ny, fi + 1, fj + 1, q, cRe, cIm);
+        addWeight(w, i, j, nx, ny, fi - 1, fj, -q, cRe, cIm); addWeight(w, i, j, nx, ny, fi - 1, fj + 1, -q, cRe, cIm);
+      }
+    }
+  }
 }
 
 /**
