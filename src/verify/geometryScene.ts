@@ -6,7 +6,9 @@
  * feature), and its sub-pixel averaging (gridCoefficients.ts: arithmetic for the field along
  * an interface, harmonic across it) handles the inclusion boundaries. The scene also tells the grid
  * the exact area of each material in a grid cell's box (`boxParts`, exactBoxParts below, with
- * discRectArea.ts), so the arithmetic mean Ez needs carries no sampling error.
+ * discRectArea.ts), so the arithmetic mean Ez needs carries no sampling error, and, for a box cut by
+ * one disc's boundary alone, that boundary's exact normal (discBoxNormal.ts), so the Kottke average
+ * Hz needs carries none either.
  *
  * The 2D solver needs cells that do not vary along z, so only these are drawn:
  * - rods and holes along z (`orientation` z): a disc of the recipe's radius; square-lattice recipes

@@ -17,14 +17,34 @@
  * In a smooth graded medium the box mean differs from the point value by O(h²), so the scheme stays
  * second order; at a jump the error drops from O(h) (staircase) to about O(h²).
  * A scene that knows its geometry exactly (the drawn structure, geometryScene.ts) offers `boxParts`:
- * each material's exact area fraction in the box. Then b is their exact arithmetic mean, a box
- * with one material takes it without sampling, and only boxes whose parts differ in T are sampled
- * (FINE_SAMPLES², for the Kottke average). Point sampling alone leaves two errors that do not
- * vanish with the step on a lattice whose discs all sit alike on the grid: the 4 × 4 first look
- * misses a disc that only clips a box's rim (the box is taken as uniform), and 10 × 10 points give a
- * disc's area to about 1 %. Measured on a drawn air hole in ε 10.2, Ez, against the exact series
- * (tests/verify/drawnEzConvergence.test.ts): errors 4.2e-3, 1.1e-3, 2.6e-4 at 3, 6, 12 steps across
- * the radius (second order), where point sampling gave 1.9e-4, 2.0e-4, 1.5e-4 (and 1.5e-3 at 4 and 8).
+ * each material's exact area fraction in the box, and, where the box holds a single disc boundary
+ * and nothing else, that boundary's exact normal (discBoxNormal.ts: the mean outward normal of the
+ * arc inside the box). Then b is the parts' exact arithmetic mean, a box with one material takes it
+ * without sampling, and a box whose parts differ in T takes the Kottke average of the parts weighted
+ * by their exact fractions about that normal — closed form, no sampling. A box with several
+ * interfaces (two discs, a disc and a cell or level boundary, a layer's two faces; the scene writes
+ * no normal) keeps the exact fractions and takes its normal from the least-squares gradient of tr T
+ * over FINE_SAMPLES² points (the only sampled quantity left); a straight interface along a grid axis
+ * gets its axis that way exactly (the samples are symmetric). A box within reach of a conductor is
+ * sampled point by point as before (boxParts answers 0 there).
+ * Point sampling alone leaves errors that do not vanish with the step on a lattice whose discs all
+ * sit alike on the grid: the 4 × 4 first look misses a disc that only clips a box's rim, and 10 × 10
+ * points give a disc's area to about 1 %. Measured on a drawn air hole in ε 10.2, Ez, against the
+ * exact series (tests/verify/drawnEzConvergence.test.ts): errors 4.2e-3, 1.1e-3, 2.6e-4 at 3, 6, 12
+ * steps across the radius (second order), where point sampling gave 1.9e-4, 2.0e-4, 1.5e-4 (and
+ * 1.5e-3 at 4 and 8).
+ * The cross term of such scenes lives on the faces: A_xy of each x-face and y-face from that face's
+ * own box (the average computed there for A_xx or A_yy anyway), half of 2 A_xy u_x u_y on each family
+ * (stencil.ts), instead of A_xy at the cell centres from a box shifted by h/2 from every face's.
+ * At an interface A_xy is non-zero only within about h of it, so the shifted boxes misplace it by
+ * O(1) in a band of width h: with the cell-centre cross term the Hz ladders of a drawn rod stayed
+ * irregular at 0.3–1 % (with exact fractions and normals too), with no cross term at all they are
+ * clean first order at 1.2–1.7 % (16 steps across the radius), and with it on the faces they fall
+ * at every rung, at first order with a small constant (an ε 9.6 rod: 2.5e-3, 2.1e-3, 1.4e-3,
+ * 1.1e-3 at 6, 8, 12, 16 steps across the radius; tests/verify/drawnHzConvergence.test.ts). Near a
+ * conductor (within 0.75 h of a face or centre) the cell-centre cross term is kept, so the
+ * conductor treatments below are unchanged. Scenes without `boxParts` (the smooth maps, the
+ * cylinder scenes) keep the cell-centre cross term: their results are unchanged.
  *
  * Perfect conductors listed in `scene.conductors` are placed between nodes, not on them:
  *  - Ez (u = E_z = 0 on the surface, Dirichlet): nodes inside are held at zero total field; a link
@@ -127,9 +147,9 @@ function boxSampler(scene: Scene, sCoarse: number) {
   /**
    * The box from the scene's exact parts: b is their area-weighted (arithmetic) mean, exact; T is
    * the parts' common value, or — where T differs between them (Hz: ε across an interface) — the
-   * Kottke average over FINE_SAMPLES² points (reduceSamples). (Weighting the parts' τ by their exact
-   * fractions about the sampled normal was tried: the Hz ladders stayed as irregular, at about 1 %
-   * with 3–16 steps across a rod's radius, so the self-consistent sampled average was kept.)
+   * Kottke average of the parts weighted by their exact fractions, about the scene's exact normal
+   * when it wrote one (a single disc boundary), else about the sampled normal (sampledNormal, over
+   * FINE_SAMPLES² points). Nothing allocated. Returns 1 (every part is open).
    */
   function fromParts(k: number, xc: number, yc: number, h: number): number {
     let bRe = 0, bIm = 0, medium = false, sameT = true;

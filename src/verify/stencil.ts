@@ -8,9 +8,14 @@
  *   diagonal part  [a⁺ₓ(u_{i+1,j} − u_{ij}) − a⁻ₓ(u_{ij} − u_{i−1,j}) + same along y] / h²,
  *   cross part     from the form Σ_cells A_xy,c (ḡx_c(u) ḡy_c(v) + ḡy_c(u) ḡx_c(v)) where ḡ are
  *                  the gradients averaged over the cell's four corners;
- * both come from one symmetric bilinear form, so the matrix is complex symmetric, and it is
- * positive semi-definite in the diagonal-plus-cross part whenever A is (each cell's energy bounds
- * Axx ḡx² + 2Axy ḡx ḡy + Ayy ḡy² from above). For constant A_xy the cross part is the usual
+ * or, where the coefficients carry A_xy on the faces (drawn scenes, gridCoefficients.ts), half of
+ *                  2 A_xy u_x u_y on the x-faces (g_x of the face times ḡ_y, the mean of the four
+ *                  y-differences around it) and half on the y-faces likewise (faceCrossTerms);
+ * both come from one symmetric bilinear form, so the matrix is complex symmetric. With the cross
+ * term at the centres it is positive semi-definite in the diagonal-plus-cross part whenever A is
+ * (each cell's energy bounds Axx ḡx² + 2Axy ḡx ḡy + Ayy ḡy² from above); on the faces that bound is
+ * not proven (the drawn scenes' Kottke tensors are isotropic but near interfaces, |A_xy| ≤ the
+ * spread of A there). For constant A_xy the cross part is the usual
  * 2A_xy (u_{i+1,j+1} − u_{i+1,j−1} − u_{i−1,j+1} + u_{i−1,j−1}) / (4h²).
  */
 import type { FdfdGrid } from "./fdfdGrid.js";
