@@ -69,7 +69,7 @@ export function sweepDrawnPlan(ctx: SweepContext, frequenciesHz: readonly number
   }
   if (short) {
     const n = frequenciesHz.length;
-    return none(`not swept: its ladder of ${DRAWN_MIN_RUNGS} drawn grids (the drawn structure and the homogenized map on each) needs about ${formatDuration(short.seconds)} at ${formatFrequency(short.frequencyHz)} and about ${formatDuration(needed)} over the ${n} frequencies, more than --drawn-time (${formatDuration(budgetSeconds)} for the whole sweep, ${formatDuration(share)} per frequency); give --drawn-time '${Math.ceil(needed / 60)} min' or more, or fewer frequencies`);
+    return none(`not swept: its ladder of ${DRAWN_MIN_RUNGS} drawn grids (the drawn structure and the homogenized map on each) needs about ${formatDuration(short.seconds)} at ${formatFrequency(short.frequencyHz)} and about ${formatDuration(needed)} over the ${n} frequencies, more than --drawn-time (${formatDuration(budgetSeconds)} for the whole sweep, ${formatDuration(share)} per frequency); give --drawn-time '${needed < 90 ? `${Math.ceil(needed)} s` : `${Math.ceil(needed / 60)} min`}' or more, or fewer frequencies`);
   }
   return { drawn: { seconds: share }, seconds, bytes };
 }

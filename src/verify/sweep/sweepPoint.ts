@@ -22,6 +22,7 @@
 import type { Material } from "../../media/material.js";
 import { bulkMaterialsAt } from "../bulkMaterials.js";
 import { deviceCases, type DeviceCasesInput } from "../deviceCases.js";
+import { formatFrequency } from "../formatQuantity.js";
 import type { Illumination } from "../illumination.js";
 import { runCheck, type MethodOption } from "../runCheck.js";
 import type { CaseName, CaseSpec } from "../verifyDevice.js";
@@ -154,6 +155,7 @@ export function solveSweepPoint(ctx: SweepContext, frequencyHz: number, onProgre
       : null,
     resolutions: r.resolutions,
     grid: r.grid ? { nx: r.grid.nx, ny: r.grid.ny, stepM: r.grid.h } : null,
-    notes: [...built.notes, ...r.notes],
+    // the drawn case's ladder note differs per frequency: say which
+    notes: [...built.notes, ...r.notes.map((n) => (n.startsWith("realized-geometry: drawn on grids") ? `at ${formatFrequency(frequencyHz)}, ${n}` : n))],
   };
 }
