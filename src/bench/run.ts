@@ -18,6 +18,8 @@ const log = (line: string): void => {
 
 async function main(): Promise<void> {
   log(`cellwright bench — node ${process.version}, ${new Date().toISOString()}`);
+  // what the cellwright command runs with (its first line): malloc's large blocks on huge pages
+  log(`GLIBC_TUNABLES=${process.env.GLIBC_TUNABLES ?? "(unset: 4 KiB pages; the cellwright command asks for huge pages)"}`);
   for (const b of benches) {
     log("");
     log(`== ${b.name}`);

@@ -22,6 +22,14 @@
  *   and `48` of demo-designs/field-radial-cloak.json (3 cases on 209² and 377² nodes: 0.82 s and
  *   2.5 s of CPU per solve, start-up removed: 15 and 11 µs per node besides the factorization) and
  *   `--resolution 33` of plan-microwave-mast-cloak.json (4 cases on 295² nodes: 12 µs).
+ * - radial: one case of the exact radial solver (verify/radialSolver.ts) = orders × a cost per order
+ *   that grows with the device's electrical size x = k R (more RK4 steps per order to follow the
+ *   oscillation): RADIAL_SECONDS_PER_ORDER × orders × (1 + x/20), fitted (session 6) to the CPU
+ *   seconds of the ideal and reduced cloak shells of demo-designs/field-radial-cloak.json and
+ *   plan-microwave-mast-cloak.json at 0.5, 1, 2 and 4 times their design frequencies (x = 4.9 … 43,
+ *   22 … 67 orders: 0.24 … 2.1 s; the model gives 0.25 … 1.8 s). Shells without a singular edge
+ *   (a concentrator) cost about a tenth of that, so the figure is an upper bound for them; a
+ *   case without shells (the bare conductor: Bessel functions only) costs ~1 ms.
  * Pure.
  */
 
@@ -33,6 +41,8 @@ export const PLAN_SECONDS_FIXED = 0.6;
 export const SOLVER_SECONDS_PER_OPERATION = 1.8e-9;
 /** CPU seconds per grid node of one verify solve, besides the factorization. */
 export const SOLVER_SECONDS_PER_NODE = 1.3e-5;
+/** CPU seconds per angular order of one radial case through a cloak's shell (at x ≪ 20; see radialSeconds). */
+export const RADIAL_SECONDS_PER_ORDER = 9e-3;
 /** Estimates above this many seconds are said to the user. */
 export const WARN_ABOVE_SECONDS = 10;
 
@@ -44,6 +54,14 @@ export function planSeconds(cells: number): number {
 /** Estimated seconds of one verify solve on a grid of `unknowns` nodes whose factorization costs `work` complex operations. */
 export function solveSeconds(work: number, unknowns: number): number {
   return work * SOLVER_SECONDS_PER_OPERATION + unknowns * SOLVER_SECONDS_PER_NODE;
+}
+
+/**
+ * Estimated CPU seconds of one radial case: `orders` angular orders for a device of electrical size
+ * x = k R, with shells to integrate through or none (a bare conductor: Bessel functions only).
+ */
+export function radialSeconds(orders: number, x: number, shells: boolean): number {
+  return shells ? RADIAL_SECONDS_PER_ORDER * orders * (1 + x / 20) : 1e-3;
 }
 
 /** "40 s", "3 min", "1.5 h": rounded to what a person plans around. */

@@ -14,7 +14,7 @@ import { orientationCode } from "./orientationText.js";
 import type { Plan } from "../planTypes.js";
 import { flagList } from "../flags.js";
 import { csvField, fmt } from "./csvText.js";
-import { writeFmt } from "./decimalBytes.js";
+import { runEveryBranch, writeFmt } from "./decimalBytes.js";
 
 /** Dimension keys (metres, "radius_m") used by any level's recipe, sorted by name. */
 export function dimensionColumns(plan: Plan): string[] {
@@ -139,14 +139,29 @@ interface RowSource {
   levelNumbers: Text[];
   /** scratch for the cell number's digits */
   counter: Uint8Array;
-  /** flag text by mask, made on first use */
-  flagTexts: (Text | undefined)[];
-  encode: (t: string) => Uint8Array;
+  /** flag text by mask, for every mask that occurs (the empty text elsewhere) */
+  flagTexts: Text[];
   /** the previous value of each target column and its bytes (a constant column reuses them) */
   lastTarget: Float64Array; lastLength: Int32Array; lastBytes: Uint8Array;
 }
 
 const DEG_PER_RAD = 180 / Math.PI;
+
+/**
+ * The flag text of every mask in `flags` (index = mask), the empty text for the rest: made before
+ * the rows, so the row loop has no branch that first runs after it was optimized.
+ */
+function flagTexts(flags: Uint16Array, text: (t: string) => Text): Text[] {
+  let most = 0;
+  for (let c = 0; c < flags.length; c++) if (flags[c] > most) most = flags[c];
+  const none = text("");
+  const texts = new Array<Text>(most + 1).fill(none);
+  for (let c = 0; c < flags.length; c++) {
+    const f = flags[c];
+    if (f !== 0 && texts[f] === none) texts[f] = text(flagList(f));
+  }
+  return texts;
+}
 
 /**
  * Rows from cell `from` on into `buf` at `at`, until `at` passes `limit` or the cells run out;
@@ -162,6 +177,7 @@ function fillRows(r: RowSource, buf: Uint8Array, view: DataView, at: number, fro
   const first = String(from + 1);
   let cs = COUNTER_END - first.length;
   for (let q = 0; q < first.length; q++) counter[cs + q] = first.charCodeAt(q);
+  end[0] = at;
   let c = from;
   for (; c < count && at < limit; c++) {
     const lv = level[c];
@@ -203,15 +219,12 @@ function fillRows(r: RowSource, buf: Uint8Array, view: DataView, at: number, fro
     if (zeroTargetAbsError) at = putNumber(buf, at, zeroTargetAbsError[c], 4);
     at = putText(view, at, lv >= 0 ? recipe[lv] : noRecipe);
     buf[at++] = COMMA;
-    const f = flags[c];
-    if (f !== 0) {
-      let t = flagTexts[f];
-      if (t === undefined) { t = makeText(r.encode(flagList(f))); flagTexts[f] = t; }
-      at = putText(view, at, t);
-    }
+    at = putText(view, at, flagTexts[flags[c]]);
     buf[at++] = NEWLINE;
+    // stored per row, not after the loop: code after a loop that was optimized while running (on-stack
+    // replacement) has no type feedback and was thrown away at the end of every chunk
+    end[0] = at;
   }
-  end[0] = at;
   return c;
 }
 
@@ -251,7 +264,7 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
     three, m, gi: g.i, gj: g.j, gk: g.k, xs, ys, zs,
     is, js, ks, targets: plan.targets, axisAngleRad: plan.axisAngleRad, region: plan.region, level: plan.level,
     relError: plan.relError, quantizationError: plan.quantizationError, zeroTargetAbsError: plan.zeroTargetAbsError,
-    flags: plan.flags, achieved, recipe, noAchieved, noRecipe, flagTexts: [], encode: enc,
+    flags: plan.flags, achieved, recipe, noAchieved, noRecipe, flagTexts: flagTexts(plan.flags, text),
     regionTexts: plan.regions.length <= MAX_REGION_TEXTS ? Array.from({ length: plan.regions.length }, (_, k) => text(`${k + 1},`)) : null,
     levelNumbers: plan.levels.map((_, k) => text(`${k + 1}`)), counter: new Uint8Array(COUNTER_END),
     lastTarget: new Float64Array(m).fill(NaN), lastLength: new Int32Array(m), lastBytes: new Uint8Array(m * NUMBER_BYTES),
@@ -275,6 +288,7 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
   if (header.length > buf.length) buf = new Uint8Array(header.length);
   at = putBytes(buf, at, header);
   if (at >= BUILD_LIST_CHUNK_BYTES) await flush();
+  runEveryBranch(buf.subarray(at));
   const end = new Int32Array(1);
   const views = new WeakMap<Uint8Array, DataView>();
   const viewOf = (b: Uint8Array): DataView => {

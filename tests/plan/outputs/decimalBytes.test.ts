@@ -1,6 +1,6 @@
 import { describe, it, expect } from "vitest";
 import fc from "fast-check";
-import { writeDecimal, writeFmt } from "../../../src/plan/outputs/decimalBytes.js";
+import { EVERY_BRANCH, runEveryBranch, writeDecimal, writeFmt } from "../../../src/plan/outputs/decimalBytes.js";
 import { fmt } from "../../../src/plan/outputs/csvText.js";
 import { precisionReference } from "../../helpers/precisionReference.js";
 
@@ -106,5 +106,15 @@ describe("writeFmt (the build list's number columns)", () => {
       0.99999995, 999999.5, 9999995, 1.5e-7, 1e-15, 9.99e-16, 1e20, 9.9999e19, 1e21, 1e300, -1.7976931348623157e308, 123456.5, 0.00012345,
       0.000123456, 1234565, 2.5, 0.125, 1 + 2 ** -52, 1 - 2 ** -53, 100, 1e5, 99999.5, 0.5, 0.05, 0.005, 4.35e-7];
     for (const x of edges) for (let d = 1; d <= 8; d++) for (const v of [x, -x]) expect(text(v, d), `${v} @ ${d}`).toBe(fmt(v, d));
+  });
+
+  it("runEveryBranch: its samples reach the exponential, 0.000ddd, rounding-up and fallback paths, each as fmt writes it", () => {
+    const scratch = new Uint8Array(24);
+    expect(runEveryBranch(scratch)).toBeGreaterThan(0);
+    const texts = EVERY_BRANCH.flatMap((x) => [4, 6].map((d) => text(x, d)));
+    for (const x of EVERY_BRANCH) for (const d of [4, 6]) expect(text(x, d), `${x} @ ${d}`).toBe(fmt(x, d));
+    // the branches it is there to reach (fmt's texts, toPrecision's digits)
+    for (const t of ["1.5e-12", "-1.5e-7", "1.235e6", "1200", "12.5", "0.00123", "-2.5", "10", "1e25", "0"]) expect(texts).toContain(t);
+    expect(EVERY_BRANCH.some((x) => x !== 0 && Number.isFinite(x) && writeDecimal(new Uint8Array(24), 0, x, 6) < 0), "a half-way fallback").toBe(true);
   });
 });
