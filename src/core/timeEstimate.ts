@@ -9,6 +9,10 @@
  * - plan: the whole plan (field, reduction, levels, matching, all outputs written), CPU time of
  *   the process at 1.05 × 10⁶ cells (bench/plan-bend-1e6.json; the "whole plan" bench), minus the
  *   start-up; the fixed part is start-up, catalogs and matching, which do not grow with the cells.
+ *   Refitted in session 6 (the plan had become faster; 3.4 µs overestimated by about 1.5×):
+ *   `/usr/bin/time` of three whole processes each, user + system: the bench design 2.98–3.28 s,
+ *   demo-designs/plan-printed-bend.json (1537 cells) 0.67–0.73 s, so (3.1 − 0.7) s / 1.05 × 10⁶
+ *   ≈ 2.3 µs a cell. An expression transform adds the expression library's load (0.7–2 s).
  * - verify: one solve on an FDFD grid = the sparse factorization (its operation count, `work` of
  *   verify/assemble.ts `solveCost`; 1.8 s per 10⁹, fitted to the CPU seconds of the solver bench
  *   at 400² and 700² nodes: 1.9 s at 0.63 × 10⁹ work, 8.4 s at 3.4 × 10⁹) + a cost per grid node
@@ -30,7 +34,7 @@
  */
 
 /** CPU seconds per device cell of a whole `plan`. */
-export const PLAN_SECONDS_PER_CELL = 3.4e-6;
+export const PLAN_SECONDS_PER_CELL = 2.3e-6;
 /** CPU seconds of a `plan` that do not grow with the cells (start-up, catalogs, matching). */
 export const PLAN_SECONDS_FIXED = 0.6;
 /** CPU seconds per complex operation of the sparse factorization. */
