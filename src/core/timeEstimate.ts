@@ -9,6 +9,10 @@
  * - plan: the whole plan (field, reduction, levels, matching, all outputs written), CPU time of
  *   the process at 1.05 × 10⁶ cells (bench/plan-bend-1e6.json; the "whole plan" bench), minus the
  *   start-up; the fixed part is start-up, catalogs and matching, which do not grow with the cells.
+ *   Refitted in session 6 (the plan had become faster; 3.4 µs overestimated by about 1.5×):
+ *   `/usr/bin/time` of three whole processes each, user + system: the bench design 2.98–3.28 s,
+ *   demo-designs/plan-printed-bend.json (1537 cells) 0.67–0.73 s, so (3.1 − 0.7) s / 1.05 × 10⁶
+ *   ≈ 2.3 µs a cell. An expression transform adds the expression library's load (0.7–2 s).
  * - verify: one solve on an FDFD grid = the sparse factorization (its operation count, `work` of
  *   verify/assemble.ts `solveCost`; 1.8 s per 10⁹, fitted to the CPU seconds of the solver bench
  *   at 400² and 700² nodes: 1.9 s at 0.63 × 10⁹ work, 8.4 s at 3.4 × 10⁹) + a cost per grid node
@@ -18,17 +22,27 @@
  *   and `48` of demo-designs/field-radial-cloak.json (3 cases on 209² and 377² nodes: 0.82 s and
  *   2.5 s of CPU per solve, start-up removed: 15 and 11 µs per node besides the factorization) and
  *   `--resolution 33` of plan-microwave-mast-cloak.json (4 cases on 295² nodes: 12 µs).
+ * - radial: one case of the exact radial solver (verify/radialSolver.ts) = orders × a cost per order
+ *   that grows with the device's electrical size x = k R (more RK4 steps per order to follow the
+ *   oscillation): RADIAL_SECONDS_PER_ORDER × orders × (1 + x/20), fitted (session 6) to the CPU
+ *   seconds of the ideal and reduced cloak shells of demo-designs/field-radial-cloak.json and
+ *   plan-microwave-mast-cloak.json at 0.5, 1, 2 and 4 times their design frequencies (x = 4.9 … 43,
+ *   22 … 67 orders: 0.24 … 2.1 s; the model gives 0.25 … 1.8 s). Shells without a singular edge
+ *   (a concentrator) cost about a tenth of that, so the figure is an upper bound for them; a
+ *   case without shells (the bare conductor: Bessel functions only) costs ~1 ms.
  * Pure.
  */
 
 /** CPU seconds per device cell of a whole `plan`. */
-export const PLAN_SECONDS_PER_CELL = 3.4e-6;
+export const PLAN_SECONDS_PER_CELL = 2.3e-6;
 /** CPU seconds of a `plan` that do not grow with the cells (start-up, catalogs, matching). */
 export const PLAN_SECONDS_FIXED = 0.6;
 /** CPU seconds per complex operation of the sparse factorization. */
 export const SOLVER_SECONDS_PER_OPERATION = 1.8e-9;
 /** CPU seconds per grid node of one verify solve, besides the factorization. */
 export const SOLVER_SECONDS_PER_NODE = 1.3e-5;
+/** CPU seconds per angular order of one radial case through a cloak's shell (at x ≪ 20; see radialSeconds). */
+export const RADIAL_SECONDS_PER_ORDER = 9e-3;
 /** Estimates above this many seconds are said to the user. */
 export const WARN_ABOVE_SECONDS = 10;
 
@@ -40,6 +54,14 @@ export function planSeconds(cells: number): number {
 /** Estimated seconds of one verify solve on a grid of `unknowns` nodes whose factorization costs `work` complex operations. */
 export function solveSeconds(work: number, unknowns: number): number {
   return work * SOLVER_SECONDS_PER_OPERATION + unknowns * SOLVER_SECONDS_PER_NODE;
+}
+
+/**
+ * Estimated CPU seconds of one radial case: `orders` angular orders for a device of electrical size
+ * x = k R, with shells to integrate through or none (a bare conductor: Bessel functions only).
+ */
+export function radialSeconds(orders: number, x: number, shells: boolean): number {
+  return shells ? RADIAL_SECONDS_PER_ORDER * orders * (1 + x / 20) : 1e-3;
 }
 
 /** "40 s", "3 min", "1.5 h": rounded to what a person plans around. */

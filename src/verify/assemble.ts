@@ -4,14 +4,12 @@
  * of that solve for refusing a grid before anything is allocated. Nodes whose value is prescribed
  * (Ez nodes inside a perfect conductor) are eliminated symmetrically: their row and column become
  * the identity and their column is moved to the right-hand side, so the matrix stays symmetric.
- *
- * The banded assembly (`assembleOperator`, unknowns along the shorter side, half-bandwidth
- * min(nx, ny) + 1) is kept as the reference the tests compare the sparse solver with.
+ * The tests check the assembled solve against the matrix-free operator (`applyOperator`,
+ * stencil.ts) and the sparse solver against a banded and a dense reference (tests/helpers).
  */
 import { InputError } from "../core/errors.js";
 import { gridFactorCost, type SymbolicCost } from "../numerics/gridNestedDissection.js";
 import type { SparseSymmetricMatrix } from "../numerics/sparseSymmetricMatrix.js";
-import { newSymBandMatrix, symBandBytes, type SymBandMatrix } from "./bandedLdlt.js";
 import type { FdfdGrid } from "./fdfdGrid.js";
 import type { GridCoefficients } from "./gridCoefficients.js";
 import type { PmlStretch } from "./pml.js";
@@ -25,25 +23,6 @@ import { nodeStencil } from "./stencil.js";
 export const DEFAULT_SOLVER_BYTES = 8e9;
 /** Bytes per unknown besides the factor: the matrix (9 entries × 20 B), ordering, solution, residual and right-hand-side vectors. */
 const BYTES_PER_UNKNOWN = 9 * 20 + 4 * 4 + 12 * 16;
-
-/** @deprecated banded-solver limits, kept for callers that still name them; the sparse solver is limited by memory only. */
-export const MAX_BAND_MEGABYTES = DEFAULT_SOLVER_BYTES / 1e6;
-export const MAX_FACTOR_WORK = Infinity;
-
-/** Node numbering of the banded reference: row of node id = i + nx·j, and back. */
-export interface NodeOrder {
-  /** matrix row of each node id */
-  row: Int32Array;
-  halfBandwidth: number;
-}
-
-/** Numbering along the shorter side first (banded reference). */
-export function nodeOrder(g: FdfdGrid): NodeOrder {
-  const row = new Int32Array(g.nx * g.ny);
-  const alongX = g.nx <= g.ny;
-  for (let j = 0; j < g.ny; j++) for (let i = 0; i < g.nx; i++) row[i + g.nx * j] = alongX ? i + g.nx * j : j + g.ny * i;
-  return { row, halfBandwidth: Math.min(g.nx, g.ny) + 1 };
-}
 
 export interface SolveCost {
   /** peak memory of one solve (factor + workspace + matrix and vectors), MB */
@@ -135,54 +114,4 @@ export function assembleSparseOperator(g: FdfdGrid, c: GridCoefficients, stretch
   colPtr[n] = e;
   if (e < cap) { rowIdx = rowIdx.slice(0, e); re = re.slice(0, e); im = im.slice(0, e); }
   return { n, colPtr, rowIdx, re, im };
-}
-
-/** @deprecated kept for the banded reference: memory and work of the banded solve on grid g. */
-export function bandedSolveCost(g: FdfdGrid): { megabytes: number; work: number; unknowns: number; halfBandwidth: number } {
-  const n = g.nx * g.ny, w = Math.min(g.nx, g.ny) + 1;
-  return { megabytes: symBandBytes(n, w) / 1e6, work: (n * w * w) / 2, unknowns: n, halfBandwidth: w };
-}
-
-/**
- * The operator matrix (with PML) of coefficients c at free-space wavenumber k0, lower band only.
- * Nodes flagged in `held` keep the value f[id] (f indexed by node id); the right-hand side f is
- * updated in place for the symmetric elimination of those nodes.
- */
-/** Banded reference assembly (tests): lower band in the order `order`. */
-export function assembleOperator(g: FdfdGrid, c: GridCoefficients, stretch: PmlStretch | null, k0: number, order: NodeOrder, held: Uint8Array | null, fRe: Float64Array, fIm: Float64Array): SymBandMatrix {
-  const m = newSymBandMatrix(g.nx * g.ny, order.halfBandwidth);
-  const w = new Float64Array(18);
-  const stride = m.w + 1;
-  for (let j = 0; j < g.ny; j++) {
-    for (let i = 0; i < g.nx; i++) {
-      const id = i + g.nx * j;
-      const r = order.row[id];
-      const base = r * stride - r + m.w;
-      if (held && held[id]) { m.re[base + r] = 1; continue; }
-      nodeStencil(g, c, stretch, k0, i, j, w);
-      for (let dj = -1; dj <= 1; dj++) {
-        const nj = j + dj;
-        if (nj < 0 || nj >= g.ny) continue;
-        for (let di = -1; di <= 1; di++) {
-          const ni = i + di;
-          if (ni < 0 || ni >= g.nx) continue;
-          const s = 2 * ((di + 1) + 3 * (dj + 1));
-          const wr = w[s], wi = w[s + 1];
-          if (wr === 0 && wi === 0) continue;
-          const nid = ni + g.nx * nj;
-          if (held && held[nid]) {
-            // known value: move to the right-hand side
-            fRe[id] -= wr * fRe[nid] - wi * fIm[nid];
-            fIm[id] -= wr * fIm[nid] + wi * fRe[nid];
-            continue;
-          }
-          const col = order.row[nid];
-          if (col > r) continue; // upper triangle: the same value is stored from the other row
-          m.re[base + col] += wr;
-          m.im[base + col] += wi;
-        }
-      }
-    }
-  }
-  return m;
 }

@@ -6,7 +6,9 @@
  * feature), and its sub-pixel averaging (gridCoefficients.ts: arithmetic for the field along
  * an interface, harmonic across it) handles the inclusion boundaries. The scene also tells the grid
  * the exact area of each material in a grid cell's box (`boxParts`, exactBoxParts below, with
- * discRectArea.ts), so the arithmetic mean Ez needs carries no sampling error.
+ * discRectArea.ts), so the arithmetic mean Ez needs carries no sampling error, and, for a box cut by
+ * one disc's boundary alone, that boundary's exact normal (discBoxNormal.ts), so the Kottke average
+ * Hz needs carries none either.
  *
  * The 2D solver needs cells that do not vary along z, so only these are drawn:
  * - rods and holes along z (`orientation` z): a disc of the recipe's radius; square-lattice recipes
@@ -38,6 +40,7 @@ import { HEX_ROW, builtSiteAt, nearestHexSite, type HexSites } from "../plan/lay
 import { droppedSitesNote, planHexSites, type PlanHexSites } from "../plan/layout/planHexSites.js";
 import type { DeviceGrid } from "../field/deviceGrid.js";
 import { deviceBounds, latticeLookup, type HiddenDisk } from "./deviceScene.js";
+import { discBoxNormal } from "./discBoxNormal.js";
 import { discRectArea } from "./discRectArea.js";
 import { BOX_MAX_PARTS, BOX_PART, SAMPLE_BACKGROUND, SAMPLE_MEDIUM, SAMPLE_PEC, S_B, S_TXX, S_TXY, S_TYY, type Scene, type ScenePolarization } from "./scene.js";
 
@@ -320,7 +323,7 @@ const MAX_BOX_DISCS = 16;
  * left to point sampling (0), and so is everything when a hexagonal disc is wider than half a pitch
  * (sample() then clips it at the nearest-site boundary, which this exact split does not).
  */
-function exactBoxParts(p: BoxPartsInput): ((x: number, y: number, h: number, out: Float64Array) => number) | undefined {
+function exactBoxParts(p: BoxPartsInput): ((x: number, y: number, h: number, out: Float64Array, normal?: Float64Array) => number) | undefined {
   const { g, lut, kindOf, size, normalX, inside, outside, conductors, ez, background, rHexMax, hexBuilt } = p;
   const a = g.pitchM, ox = g.originXM, oy = g.originYM;
   const nm = new Int32Array(2);
@@ -329,6 +332,14 @@ function exactBoxParts(p: BoxPartsInput): ((x: number, y: number, h: number, out
   const bg = new Float64Array([background.eps, 0, background.mu, 0]);
   const hx = new Float64Array(MAX_BOX_DISCS), hy = new Float64Array(MAX_BOX_DISCS), hr = new Float64Array(MAX_BOX_DISCS), hc = new Int32Array(MAX_BOX_DISCS);
   let np = 0, overflow = false;
+  // the discs whose circle cuts the box: how many, and the first one (centre, radius, area in the
+  // box, its inside material: array and offset)
+  let nCut = 0, cutX = 0, cutY = 0, cutR = 0, cutArea = 0, cutSrc = inside, cutO = 0;
+  const noteDisc = (dx: number, dy: number, r: number, area: number, boxArea: number, src: Float64Array, o: number): void => {
+    if (!(area > 1e-12 * boxArea) || !(area < boxArea * (1 - 1e-12))) return; // outside, or covering the box
+    if (nCut++ > 0) return;
+    cutX = dx; cutY = dy; cutR = r; cutArea = area; cutSrc = src; cutO = o;
+  };
   const add = (area: number, kind: number, src: Float64Array, o: number): void => {
     if (!(area > 0)) return;
     for (let k = 0; k < np; k++) {
@@ -340,10 +351,11 @@ function exactBoxParts(p: BoxPartsInput): ((x: number, y: number, h: number, out
     partArea[np++] = area;
   };
   const cellAt = (i: number, j: number): number => (i >= 0 && j >= 0 && i < g.nx && j < g.ny ? lut[i + g.nx * j] : -1);
-  return (xc, yc, h, out) => {
+  return (xc: number, yc: number, h: number, out: Float64Array, normal?: Float64Array): number => {
+    if (normal) { normal[0] = 0; normal[1] = 0; }
     for (const cd of conductors) if (cd.signedDistanceM(xc, yc) < 0.75 * h) return 0;
     const x0 = xc - h / 2, x1 = xc + h / 2, y0 = yc - h / 2, y1 = yc + h / 2;
-    np = 0; overflow = false;
+    np = 0; overflow = false; nCut = 0;
     // hexagonal discs that reach the box
     let nh = 0;
     if (hexBuilt && rHexMax > 0) {
@@ -357,6 +369,7 @@ function exactBoxParts(p: BoxPartsInput): ((x: number, y: number, h: number, out
           const dx = Math.max(x0 - sx, 0, sx - x1), dy = Math.max(y0 - sy, 0, sy - y1);
           if (dx * dx + dy * dy >= r * r) continue;
           if (nh === MAX_BOX_DISCS) return 0;
+          if (normal) noteDisc(sx, sy, r, discRectArea(sx, sy, r, x0, x1, y0, y1), h * h, inside, 4 * c);
           hx[nh] = sx; hy[nh] = sy; hr[nh] = r; hc[nh++] = c;
         }
       }
@@ -380,6 +393,8 @@ function exactBoxParts(p: BoxPartsInput): ((x: number, y: number, h: number, out
         else if (kind === K_DISC) {
           // hexagonal and square discs never overlap (narrowestWall), so a hexagonal disc here lies in the rest
           const d = discRectArea(cx, cy, size[c], rx0, rx1, ry0, ry1);
+          // a disc wider than its cell is clipped at the cell's edge (sample()): not a plain circle then
+          if (normal) { if (2 * size[c] <= a) noteDisc(cx, cy, size[c], d, h * h, inside, o); else nCut = 2; }
           add(d, SAMPLE_MEDIUM, inside, o);
           add(area - d - hexArea, SAMPLE_MEDIUM, outside, o);
         } else {
@@ -400,6 +415,14 @@ function exactBoxParts(p: BoxPartsInput): ((x: number, y: number, h: number, out
     if (overflow || np === 0) return 0;
     let total = 0;
     for (let k = 0; k < np; k++) total += partArea[k];
+    // one interface exactly: two materials, one circle cutting the box, and the inside material's
+    // part is that disc's share and nothing more (so the rest is all the other material)
+    if (normal && np === 2 && nCut === 1) {
+      for (let k = 0; k < 2; k++) {
+        if (partKind[k] !== SAMPLE_MEDIUM || partMat[4 * k] !== cutSrc[cutO] || partMat[4 * k + 1] !== cutSrc[cutO + 1] || partMat[4 * k + 2] !== cutSrc[cutO + 2] || partMat[4 * k + 3] !== cutSrc[cutO + 3]) continue;
+        if (Math.abs(partArea[k] - cutArea) <= 1e-9 * total) discBoxNormal(cutX, cutY, cutR, x0, x1, y0, y1, normal);
+      }
+    }
     for (let k = 0; k < np; k++) {
       const w = BOX_PART * k, m = 4 * k;
       out[w] = partArea[k] / total; out[w + 1] = partKind[k];

@@ -17,14 +17,34 @@
  * In a smooth graded medium the box mean differs from the point value by O(h²), so the scheme stays
  * second order; at a jump the error drops from O(h) (staircase) to about O(h²).
  * A scene that knows its geometry exactly (the drawn structure, geometryScene.ts) offers `boxParts`:
- * each material's exact area fraction in the box. Then b is their exact arithmetic mean, a box
- * with one material takes it without sampling, and only boxes whose parts differ in T are sampled
- * (FINE_SAMPLES², for the Kottke average). Point sampling alone leaves two errors that do not
- * vanish with the step on a lattice whose discs all sit alike on the grid: the 4 × 4 first look
- * misses a disc that only clips a box's rim (the box is taken as uniform), and 10 × 10 points give a
- * disc's area to about 1 %. Measured on a drawn air hole in ε 10.2, Ez, against the exact series
- * (tests/verify/drawnEzConvergence.test.ts): errors 4.2e-3, 1.1e-3, 2.6e-4 at 3, 6, 12 steps across
- * the radius (second order), where point sampling gave 1.9e-4, 2.0e-4, 1.5e-4 (and 1.5e-3 at 4 and 8).
+ * each material's exact area fraction in the box, and, where the box holds a single disc boundary
+ * and nothing else, that boundary's exact normal (discBoxNormal.ts: the mean outward normal of the
+ * arc inside the box). Then b is the parts' exact arithmetic mean, a box with one material takes it
+ * without sampling, and a box whose parts differ in T takes the Kottke average of the parts weighted
+ * by their exact fractions about that normal — closed form, no sampling. A box with several
+ * interfaces (two discs, a disc and a cell or level boundary, a layer's two faces; the scene writes
+ * no normal) keeps the exact fractions and takes its normal from the least-squares gradient of tr T
+ * over FINE_SAMPLES² points (the only sampled quantity left); a straight interface along a grid axis
+ * gets its axis that way exactly (the samples are symmetric). A box within reach of a conductor is
+ * sampled point by point as before (boxParts answers 0 there).
+ * Point sampling alone leaves errors that do not vanish with the step on a lattice whose discs all
+ * sit alike on the grid: the 4 × 4 first look misses a disc that only clips a box's rim, and 10 × 10
+ * points give a disc's area to about 1 %. Measured on a drawn air hole in ε 10.2, Ez, against the
+ * exact series (tests/verify/drawnEzConvergence.test.ts): errors 4.2e-3, 1.1e-3, 2.6e-4 at 3, 6, 12
+ * steps across the radius (second order), where point sampling gave 1.9e-4, 2.0e-4, 1.5e-4 (and
+ * 1.5e-3 at 4 and 8).
+ * The cross term of such scenes lives on the faces: A_xy of each x-face and y-face from that face's
+ * own box (the average computed there for A_xx or A_yy anyway), half of 2 A_xy u_x u_y on each family
+ * (stencil.ts), instead of A_xy at the cell centres from a box shifted by h/2 from every face's.
+ * At an interface A_xy is non-zero only within about h of it, so the shifted boxes misplace it by
+ * O(1) in a band of width h: with the cell-centre cross term the Hz ladders of a drawn rod stayed
+ * irregular at 0.3–1 % (with exact fractions and normals too), with no cross term at all they are
+ * clean first order at 1.2–1.7 % (16 steps across the radius), and with it on the faces they fall
+ * at every rung, at first order with a small constant (an ε 9.6 rod: 2.5e-3, 2.1e-3, 1.4e-3,
+ * 1.1e-3 at 6, 8, 12, 16 steps across the radius; tests/verify/drawnHzConvergence.test.ts). Near a
+ * conductor (within 0.75 h of a face or centre) the cell-centre cross term is kept, so the
+ * conductor treatments below are unchanged. Scenes without `boxParts` (the smooth maps, the
+ * cylinder scenes) keep the cell-centre cross term: their results are unchanged.
  *
  * Perfect conductors listed in `scene.conductors` are placed between nodes, not on them:
  *  - Ez (u = E_z = 0 on the surface, Dirichlet): nodes inside are held at zero total field; a link
@@ -48,6 +68,13 @@ export interface GridCoefficients {
   axxRe: Float64Array; axxIm: Float64Array;
   ayyRe: Float64Array; ayyIm: Float64Array;
   axyRe: Float64Array; axyIm: Float64Array;
+  /**
+   * A_xy on the x-faces (i+½, j) and y-faces (i, j+½) (index i + nx·j), for scenes whose boxes are
+   * known exactly (boxParts): each face carries half the cross term with its own box's average
+   * (stencil.ts). Absent: the cross term lives at the cell centres only (axyRe, axyIm).
+   */
+  axyXRe?: Float64Array; axyXIm?: Float64Array;
+  axyYRe?: Float64Array; axyYIm?: Float64Array;
   /** 1 where the node is inside a perfect conductor (held at zero total field) */
   pecNode: Uint8Array;
   /** 1 where a node, face or centre next to the node differs from the background (device mask) */
@@ -106,9 +133,10 @@ function boxSampler(scene: Scene, sCoarse: number) {
   };
   const partsOf = scene.boxParts;
   const parts = new Float64Array(BOX_MAX_PARTS * BOX_PART);
+  const normal = new Float64Array(2);
   function average(xc: number, yc: number, h: number): number {
     if (partsOf) {
-      const k = partsOf(xc, yc, h, parts);
+      const k = partsOf(xc, yc, h, parts, normal);
       if (k > 0) return fromParts(k, xc, yc, h);
     }
     layout(sCoarse);
@@ -119,9 +147,9 @@ function boxSampler(scene: Scene, sCoarse: number) {
   /**
    * The box from the scene's exact parts: b is their area-weighted (arithmetic) mean, exact; T is
    * the parts' common value, or — where T differs between them (Hz: ε across an interface) — the
-   * Kottke average over FINE_SAMPLES² points (reduceSamples). (Weighting the parts' τ by their exact
-   * fractions about the sampled normal was tried: the Hz ladders stayed as irregular, at about 1 %
-   * with 3–16 steps across a rod's radius, so the self-consistent sampled average was kept.)
+   * Kottke average of the parts weighted by their exact fractions, about the scene's exact normal
+   * when it wrote one (a single disc boundary), else about the sampled normal (sampledNormal, over
+   * FINE_SAMPLES² points). Nothing allocated. Returns 1 (every part is open).
    */
   function fromParts(k: number, xc: number, yc: number, h: number): number {
     let bRe = 0, bIm = 0, medium = false, sameT = true;
@@ -136,9 +164,19 @@ function boxSampler(scene: Scene, sCoarse: number) {
       return -1;
     }
     if (sameT) writeA(parts[2 + S_TXX], parts[2 + S_TXX + 1], parts[2 + S_TYY], parts[2 + S_TYY + 1], parts[2 + S_TXY], parts[2 + S_TXY + 1]);
-    else { layout(sFine); fill(xc, yc, h); reduceSamples(); }
+    else {
+      let withNormal = normal[0] !== 0 || normal[1] !== 0, nx = normal[0], ny = normal[1];
+      if (!withNormal) {
+        // several interfaces (or one the scene cannot place): the normal from the samples, the fractions exact
+        layout(sFine); fill(xc, yc, h);
+        withNormal = sampledNormal();
+        nx = gradient[0]; ny = gradient[1];
+      }
+      kottkeMean(withNormal, nx, ny, parts, BOX_PART, 2 + S_TXX, null, k, tMean, 0);
+      writeA(tMean[0], tMean[1], tMean[2], tMean[3], tMean[4], tMean[5]);
+    }
     avg[0] = bRe; avg[1] = bIm;
-    return m;
+    return 1;
   }
   let open = 0, medium = 0;
   function fill(xc: number, yc: number, h: number): void {
@@ -161,21 +199,15 @@ function boxSampler(scene: Scene, sCoarse: number) {
     }
   }
   const tMean = new Float64Array(6);
-  function reduceSamples(): number {
-    if (medium === 0) {
-      avg[0] = bBg; avg[1] = 0; avg[2] = 1 / tBg; avg[3] = 0; avg[4] = 1 / tBg; avg[5] = 0; avg[6] = 0; avg[7] = 0;
-      return open === m ? -1 : open;
-    }
-    if (open === 0) return 0;
-    // b: arithmetic mean; normal from the gradient of tr T
-    let bRe = 0, bIm = 0, gMean = 0;
+  /** unit normal of the sampled box: the least-squares gradient of tr T over the open samples, in `gradient`; false (and (1, 0)) without one */
+  const gradient = new Float64Array(2);
+  function sampledNormal(): boolean {
+    let gMean = 0, count = 0;
     for (let k = 0; k < m; k++) {
       if (kind[k] === SAMPLE_PEC) continue;
-      const o = 8 * k;
-      bRe += v[o]; bIm += v[o + 1];
-      gMean += v[o + 2] + v[o + 4];
+      gMean += v[8 * k + 2] + v[8 * k + 4]; count++;
     }
-    bRe /= open; bIm /= open; gMean /= open;
+    gMean /= Math.max(1, count);
     let gx = 0, gy = 0, gAbs = 0;
     for (let k = 0; k < m; k++) {
       if (kind[k] === SAMPLE_PEC) continue;
@@ -183,8 +215,25 @@ function boxSampler(scene: Scene, sCoarse: number) {
       gx += dx[k] * d; gy += dy[k] * d; gAbs += Math.abs(d);
     }
     const gn = Math.hypot(gx, gy);
-    const withNormal = gn > 1e-9 * (gAbs + 1e-300);
-    kottkeMean(withNormal, withNormal ? gx / gn : 1, withNormal ? gy / gn : 0, v, 8, 2, kind, m, tMean);
+    const ok = gn > 1e-9 * (gAbs + 1e-300);
+    gradient[0] = ok ? gx / gn : 1; gradient[1] = ok ? gy / gn : 0;
+    return ok;
+  }
+  function reduceSamples(): number {
+    if (medium === 0) {
+      avg[0] = bBg; avg[1] = 0; avg[2] = 1 / tBg; avg[3] = 0; avg[4] = 1 / tBg; avg[5] = 0; avg[6] = 0; avg[7] = 0;
+      return open === m ? -1 : open;
+    }
+    if (open === 0) return 0;
+    // b: arithmetic mean; normal from the gradient of tr T
+    let bRe = 0, bIm = 0;
+    for (let k = 0; k < m; k++) {
+      if (kind[k] === SAMPLE_PEC) continue;
+      bRe += v[8 * k]; bIm += v[8 * k + 1];
+    }
+    bRe /= open; bIm /= open;
+    const withNormal = sampledNormal();
+    kottkeMean(withNormal, gradient[0], gradient[1], v, 8, 2, kind, m, tMean, -1);
     avg[0] = bRe; avg[1] = bIm;
     writeA(tMean[0], tMean[1], tMean[2], tMean[3], tMean[4], tMean[5]);
     return open;
@@ -205,18 +254,20 @@ function boxSampler(scene: Scene, sCoarse: number) {
 /**
  * Kottke mean of in-plane tensors about the normal n = (nx, ny) (see file comment), written into
  * out as T_xx, T_yy, T_xy (re, im pairs): entry k has T_xx, T_yy, T_xy (re, im) at
- * src[base + stride·k …] and is skipped where skip[k] is SAMPLE_PEC; equal weights. Without a
- * normal (withNormal false) the plain mean.
+ * src[base + stride·k …] and is skipped where skip[k] is SAMPLE_PEC; its weight is
+ * src[weightAt + stride·k] (an area fraction), or 1 for every entry when weightAt < 0. Without a
+ * normal (withNormal false) the plain (weighted) mean.
  */
-function kottkeMean(withNormal: boolean, nx: number, ny: number, src: Float64Array, stride: number, base: number, skip: Uint8Array | null, count: number, out: Float64Array): Float64Array {
+function kottkeMean(withNormal: boolean, nx: number, ny: number, src: Float64Array, stride: number, base: number, skip: Uint8Array | null, count: number, out: Float64Array, weightAt: number): Float64Array {
   let sw = 0;
   let t1Re = 0, t1Im = 0, t2Re = 0, t2Im = 0, t3Re = 0, t3Im = 0;
   for (let k = 0; k < count; k++) {
     if (skip && skip[k] === SAMPLE_PEC) continue;
     const o = base + stride * k;
-    sw++;
+    const w = weightAt < 0 ? 1 : src[weightAt + stride * k];
+    sw += w;
     const xr = src[o], xi = src[o + 1], yr = src[o + 2], yi = src[o + 3], cr = src[o + 4], ci = src[o + 5];
-    if (!withNormal) { t1Re += xr; t1Im += xi; t2Re += yr; t2Im += yi; t3Re += cr; t3Im += ci; continue; }
+    if (!withNormal) { t1Re += w * xr; t1Im += w * xi; t2Re += w * yr; t2Im += w * yi; t3Re += w * cr; t3Im += w * ci; continue; }
     // rotate into (n, t), t = (−ny, nx)
     const nnRe = nx * nx * xr + ny * ny * yr + 2 * nx * ny * cr, nnIm = nx * nx * xi + ny * ny * yi + 2 * nx * ny * ci;
     const ttRe = ny * ny * xr + nx * nx * yr - 2 * nx * ny * cr, ttIm = ny * ny * xi + nx * nx * yi - 2 * nx * ny * ci;
@@ -224,10 +275,10 @@ function kottkeMean(withNormal: boolean, nx: number, ny: number, src: Float64Arr
     // τ = [−1/T_nn, T_nt/T_nn, T_tt − T_nt²/T_nn]
     const d2 = nnRe * nnRe + nnIm * nnIm;
     const iRe = nnRe / d2, iIm = -nnIm / d2;
-    t1Re -= iRe; t1Im -= iIm;
+    t1Re -= w * iRe; t1Im -= w * iIm;
     const qRe = ntRe * iRe - ntIm * iIm, qIm = ntRe * iIm + ntIm * iRe;
-    t2Re += qRe; t2Im += qIm;
-    t3Re += ttRe - (qRe * ntRe - qIm * ntIm); t3Im += ttIm - (qRe * ntIm + qIm * ntRe);
+    t2Re += w * qRe; t2Im += w * qIm;
+    t3Re += w * (ttRe - (qRe * ntRe - qIm * ntIm)); t3Im += w * (ttIm - (qRe * ntIm + qIm * ntRe));
   }
   t1Re /= sw; t1Im /= sw; t2Re /= sw; t2Im /= sw; t3Re /= sw; t3Im /= sw;
   if (!withNormal) { out[0] = t1Re; out[1] = t1Im; out[2] = t2Re; out[3] = t2Im; out[4] = t3Re; out[5] = t3Im; return out; }
@@ -269,7 +320,11 @@ export function gridCoefficients(g: FdfdGrid, scene: Scene, subsamples = 4): Gri
   const iLo = Math.max(0, Math.floor((scene.bounds.minX - g.x0) / h) - 1), iHi = Math.min(nx - 1, Math.ceil((scene.bounds.maxX - g.x0) / h) + 1);
   const jLo = Math.max(0, Math.floor((scene.bounds.minY - g.y0) / h) - 1), jHi = Math.min(ny - 1, Math.ceil((scene.bounds.maxY - g.y0) / h) + 1);
   const point = new Float64Array(SAMPLE_LENGTH);
-  const near = 0.75 * h; // beyond this distance a conductor cannot touch an h × h box or a dual edge
+  const near = 0.75 * h;
+  const faceCross = scene.boxParts !== undefined;
+  const n = nx * ny;
+  const fxRe = faceCross ? (c.axyXRe = new Float64Array(n)) : null, fxIm = faceCross ? (c.axyXIm = new Float64Array(n)) : null;
+  const fyRe = faceCross ? (c.axyYRe = new Float64Array(n)) : null, fyIm = faceCross ? (c.axyYIm = new Float64Array(n)) : null; // beyond this distance a conductor cannot touch an h × h box or a dual edge
   // 1. nodes: conductor tests, b
   for (let j = jLo; j <= jHi; j++) {
     for (let i = iLo; i <= iHi; i++) {
@@ -338,6 +393,13 @@ export function gridCoefficients(g: FdfdGrid, scene: Scene, subsamples = 4): Gri
               }
             }
           }
+        }
+        if (faceCross) {
+          // the cross term on the faces, each with its own box (stencil.ts); at the centres only near a conductor
+          const nearCond = hasCond && sd < near;
+          if (f === 2 && !nearCond) { aRe = 0; aIm = 0; }
+          if (f === 0 && !nearCond) { fxRe![id] = avg[6]; fxIm![id] = avg[7]; }
+          if (f === 1 && !nearCond) { fyRe![id] = avg[6]; fyIm![id] = avg[7]; }
         }
         reA[id] = aRe; imA[id] = aIm;
       }

@@ -11,7 +11,7 @@
  */
 import type { TransformSpec } from "../field/transformSpec.js";
 import { radialProblemFromScene } from "./radialFromScene.js";
-import { radialScattering, type RadialCore } from "./radialSolver.js";
+import { radialScattering, type RadialCore, type RadialProblem } from "./radialSolver.js";
 import { SAMPLE_MEDIUM, S_B, S_TXX, S_TXY, S_TYY, SAMPLE_LENGTH, type Scene } from "./scene.js";
 import type { CaseSpec } from "./verifyDevice.js";
 import { widthReading } from "./widthReading.js";
@@ -79,29 +79,48 @@ function sampledCore(scene: Scene, centre: [number, number], coreRadiusM: number
   return scene.polarization === "Ez" ? { kind: "medium", eps: b, mu: t } : { kind: "medium", eps: t, mu: b };
 }
 
-/** Solve every case of `cases` radially (see file comment); k0 in rad/m. */
-export function radialCases(spec: TransformSpec, cases: CaseSpec[], k0: number, tolerance = 1e-9, incidenceRad = 0): RadialCaseResult[] {
+/** One case's radial problem, or why the radial solver cannot take it (decided without solving). */
+export type RadialCasePlan =
+  | { name: CaseSpec["name"]; problem: RadialProblem; reason: null }
+  | { name: CaseSpec["name"]; problem: null; reason: string };
+
+/**
+ * The radial problem of every case of `cases` (see file comment), without solving: what
+ * radialCases solves, and what a cost estimate counts (radialProblemSeconds) before anything runs.
+ */
+export function radialCasePlans(spec: TransformSpec, cases: readonly CaseSpec[], k0: number, tolerance = 1e-9): RadialCasePlan[] {
   const geo = radialGeometry(spec);
-  const unavailable = (name: CaseSpec["name"], reason: string): RadialCaseResult => ({ name, available: false, reason, scatteringWidthM: null, vsBare: null, vsBareUncertainty: null, absorptionWidthM: null, uncertainty: null, scatteringWidthUncertaintyM: null, scatteringWidthBelowM: null, bistaticM: null });
-  if ("reason" in geo) return cases.map((c) => unavailable(c.name, geo.reason));
-  const results: RadialCaseResult[] = cases.map((c) => {
-    if (!c.scene) return unavailable(c.name, c.reason ?? "not computed");
+  const no = (name: CaseSpec["name"], reason: string): RadialCasePlan => ({ name, problem: null, reason });
+  if ("reason" in geo) return cases.map((c) => no(c.name, geo.reason));
+  return cases.map((c) => {
+    if (!c.scene) return no(c.name, c.reason ?? "not computed");
     const scene = c.scene;
     let core: RadialCore | string;
     if (c.name === "bare") core = { kind: "pec" };
     else core = geo.pecCore ? { kind: "pec" } : sampledCore(scene, geo.centreM, geo.coreRadiusM);
-    if (typeof core === "string") return unavailable(c.name, core);
-    let problem;
-    if (c.name === "bare") {
-      problem = { polarization: scene.polarization, k0, background: scene.background, coreRadiusM: geo.coreRadiusM, core, shells: [], tolerance };
-    } else {
-      const p = radialProblemFromScene({ scene, centreM: geo.centreM, coreRadiusM: geo.coreRadiusM, core, outerRadiusM: geo.outerRadiusM, k0, tolerance });
-      if (!p.applies) return unavailable(c.name, `not radial: ${p.reason}; use the finite-difference method`);
-      problem = p.problem;
-    }
-    const s = radialScattering(problem);
+    if (typeof core === "string") return no(c.name, core);
+    if (c.name === "bare") return { name: c.name, problem: { polarization: scene.polarization, k0, background: scene.background, coreRadiusM: geo.coreRadiusM, core, shells: [], tolerance }, reason: null };
+    const p = radialProblemFromScene({ scene, centreM: geo.centreM, coreRadiusM: geo.coreRadiusM, core, outerRadiusM: geo.outerRadiusM, k0, tolerance });
+    if (!p.applies) return no(c.name, `not radial: ${p.reason}; use the finite-difference method`);
+    return { name: c.name, problem: p.problem, reason: null };
+  });
+}
+
+/** Solve every case of `cases` radially (see file comment); k0 in rad/m. */
+export function radialCases(spec: TransformSpec, cases: CaseSpec[], k0: number, tolerance = 1e-9, incidenceRad = 0): RadialCaseResult[] {
+  return solveRadialPlans(spec, radialCasePlans(spec, cases, k0, tolerance), incidenceRad);
+}
+
+/** Solve the radial plans of radialCasePlans (those with a problem; the others come back unavailable with their reason). */
+export function solveRadialPlans(spec: TransformSpec, plans: readonly RadialCasePlan[], incidenceRad = 0): RadialCaseResult[] {
+  const geo = radialGeometry(spec);
+  const unavailable = (name: CaseSpec["name"], reason: string): RadialCaseResult => ({ name, available: false, reason, scatteringWidthM: null, vsBare: null, vsBareUncertainty: null, absorptionWidthM: null, uncertainty: null, scatteringWidthUncertaintyM: null, scatteringWidthBelowM: null, bistaticM: null });
+  if ("reason" in geo) return plans.map((p) => unavailable(p.name, geo.reason));
+  const results: RadialCaseResult[] = plans.map((plan) => {
+    if (plan.problem === null) return unavailable(plan.name, plan.reason);
+    const s = radialScattering(plan.problem);
     return {
-      name: c.name, available: true, reason: null,
+      name: plan.name, available: true, reason: null,
       scatteringWidthM: s.scatteringWidthM, vsBare: null, vsBareUncertainty: null, absorptionWidthM: s.absorptionWidthM,
       uncertainty: Math.max(s.convergence.relativeChange, s.convergence.tail),
       scatteringWidthUncertaintyM: null, scatteringWidthBelowM: null,

@@ -31,6 +31,7 @@
  * Cost: orders × steps; a few thousand RK4 steps per order for a cloak with a 1e-6 inner offset.
  * Pure; throws RangeError for malformed input (non-positive radii, layers that do not join).
  */
+import { radialSeconds } from "../core/timeEstimate.js";
 import { besselJY } from "./bessel.js";
 
 /** Polar-basis material of a shell at radius r: [bRe, bIm, tRRe, tRIm, tThetaRe, tThetaIm]. */
@@ -208,6 +209,21 @@ const widthOf = (a: OrderResult[], k: number): number => {
   return (4 / k) * s;
 };
 
+/** Angular orders the solver starts with for a device of electrical size x = k R (it doubles them while the tail is not below 1e-12). */
+export function firstOrders(x: number): number {
+  return Math.ceil(x + 4 * Math.cbrt(x) + 10);
+}
+
+/**
+ * Estimated CPU seconds of radialScattering(p), before solving (core/timeEstimate.ts radialSeconds:
+ * the starting orders at x = k R, shells or none).
+ */
+export function radialProblemSeconds(p: RadialProblem): number {
+  const k = p.k0 * Math.sqrt(p.background.eps * p.background.mu);
+  const R = p.shells.length ? p.shells[p.shells.length - 1].outerRadiusM : p.coreRadiusM;
+  return radialSeconds(firstOrders(k * R), k * R, p.shells.length > 0);
+}
+
 /** Scattering of a plane wave exp(i k x) by the radial device `p` (see file comment). */
 export function radialScattering(p: RadialProblem): RadialScattering {
   checkProblem(p);
@@ -215,7 +231,7 @@ export function radialScattering(p: RadialProblem): RadialScattering {
   const k = p.k0 * Math.sqrt(p.background.eps * p.background.mu);
   const R = p.shells.length ? p.shells[p.shells.length - 1].outerRadiusM : p.coreRadiusM;
   const x = k * R;
-  let orders = Math.ceil(x + 4 * Math.cbrt(x) + 10);
+  let orders = firstOrders(x);
   let res = solveOrders(p, orders, tol);
   let tail = 1;
   for (;;) {

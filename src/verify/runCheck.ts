@@ -29,9 +29,9 @@ import { DRAWN_STEPS, drawnLadderPlan, type DrawnLadderPlan } from "./drawnLadde
 import type { TransformSpec } from "../field/transformSpec.js";
 import type { FdfdGrid } from "./fdfdGrid.js";
 import type { Illumination } from "./illumination.js";
-import { radialCases, radialGeometry, type RadialCaseResult } from "./radialCases.js";
+import { radialCasePlans, radialGeometry, solveRadialPlans, type RadialCasePlan, type RadialCaseResult } from "./radialCases.js";
 import { drawnRun, type CheckCase, type HomogenizationError } from "./drawnRun.js";
-import { DEFAULT_ACCURACY, verifyDevice, type VerifyInput, type VerifyResult } from "./verifyDevice.js";
+import { DEFAULT_ACCURACY, verifyDevice, type CaseSpec, type VerifyInput, type VerifyResult } from "./verifyDevice.js";
 
 export type { CheckCase, HomogenizationError } from "./drawnRun.js";
 
@@ -89,26 +89,45 @@ export function runCheck(input: CheckInput): CheckResult {
   return { ...main, homogenizationError: error };
 }
 
-function runMain(input: CheckInput): Omit<CheckResult, "homogenizationError"> {
-  const accuracy = input.accuracy ?? DEFAULT_ACCURACY;
+/**
+ * How a check's cases are split between the two solvers, decided before anything is solved (runMain
+ * solves by it; the sweep's time estimate costs by it). `gridOnly`: every case goes to the grid, and
+ * why; else `radial` holds each case's radial problem or why it has none, and `gridCases` the cases
+ * the grid solves beside them (the bare object and every case the radial solver cannot take, or none).
+ * Throws InputError when `radial` is forced where it does not apply.
+ */
+export interface SolverSplit {
+  gridOnly: string | null;
+  radial: RadialCasePlan[];
+  gridCases: CaseSpec[];
+}
+
+/** Split the cases between the solvers (see SolverSplit). */
+export function solverSplit(input: Pick<CheckInput, "method" | "transform" | "illumination" | "groundYM" | "gridOption" | "frequencyHz" | "cases">): SolverSplit {
   const whole = radialRunReason(input);
   if (input.method === "radial" && whole !== null) throw new InputError({ where: "--method", message: `radial does not apply: ${whole}; use --method fdfd` });
   const gridOnly = input.method === "fdfd" ? "--method fdfd" : whole !== null ? whole : input.gridOption ? `${input.gridOption} asks for the grid` : null;
-  if (gridOnly !== null) {
-    const r = verifyDevice(input);
-    const why = input.method === "fdfd" ? "finite differences on a grid (--method fdfd)" : `finite differences on a grid (auto: ${gridOnly})`;
-    return { ...r, method: "fdfd", methodReason: why, cases: r.cases.map((c) => (c.available ? { ...c, method: "fdfd", methodReason: why } : { ...c, method: null, methodReason: null })) };
-  }
+  if (gridOnly !== null) return { gridOnly, radial: [], gridCases: input.cases };
   const k0 = (2 * Math.PI * input.frequencyHz) / C0;
-  const angle = input.illumination?.kind === "plane" ? input.illumination.angleRad : 0;
-  const radial = radialCases(input.transform, input.cases, k0, 1e-9, angle);
+  const radial = radialCasePlans(input.transform, input.cases, k0, 1e-9);
   const onGrid = input.method === "auto"
-    ? input.cases.filter((c) => c.scene !== null && !radial.find((r) => r.name === c.name)!.available)
+    ? input.cases.filter((c) => c.scene !== null && radial.find((r) => r.name === c.name)!.problem === null)
     : [];
   const needGrid = onGrid.some((c) => c.name !== "bare");
-  const gridRun = needGrid
-    ? verifyDevice({ ...input, cases: input.cases.filter((c) => c.name === "bare" || onGrid.includes(c)) })
-    : null;
+  return { gridOnly: null, radial, gridCases: needGrid ? input.cases.filter((c) => c.name === "bare" || onGrid.includes(c)) : [] };
+}
+
+function runMain(input: CheckInput): Omit<CheckResult, "homogenizationError"> {
+  const accuracy = input.accuracy ?? DEFAULT_ACCURACY;
+  const split = solverSplit(input);
+  if (split.gridOnly !== null) {
+    const r = verifyDevice(input);
+    const why = input.method === "fdfd" ? "finite differences on a grid (--method fdfd)" : `finite differences on a grid (auto: ${split.gridOnly})`;
+    return { ...r, method: "fdfd", methodReason: why, cases: r.cases.map((c) => (c.available ? { ...c, method: "fdfd", methodReason: why } : { ...c, method: null, methodReason: null })) };
+  }
+  const angle = input.illumination?.kind === "plane" ? input.illumination.angleRad : 0;
+  const radial = solveRadialPlans(input.transform, split.radial, angle);
+  const gridRun = split.gridCases.length ? verifyDevice({ ...input, cases: split.gridCases }) : null;
   return mergeRuns(input, radial, gridRun, accuracy);
 }
 

@@ -41,8 +41,12 @@ export interface Scene {
    * number of parts (fractions sum to 1), or 0 when it cannot say exactly (a conductor within
    * reach, more than BOX_MAX_PARTS materials): the grid then samples the box point by point.
    * Drawn structures offer it (geometryScene.ts), so their sub-pixel averages carry no sampling error.
+   * When `normal` (length ≥ 2) is given and the box holds exactly one interface, of a shape the
+   * scene knows (a single disc's boundary), its unit normal there is written into it (the
+   * direction of ∫_box ∇χ dA, χ the indicator of one side; see geometryScene.ts); otherwise (0, 0):
+   * several interfaces, none, or one the scene cannot place exactly.
    */
-  boxParts?(xM: number, yM: number, hM: number, out: Float64Array): number;
+  boxParts?(xM: number, yM: number, hM: number, out: Float64Array, normal?: Float64Array): number;
   /**
    * The perfect conductors of the scene as shapes (sample() also reports SAMPLE_PEC inside them):
    * the solver uses them to place the conductor's surface between grid nodes. Points sample()

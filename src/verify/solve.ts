@@ -148,6 +148,6 @@ export function withGround(scene: Scene, yM: number): Scene {
     conductors: [...(scene.conductors ?? []), ground],
     sample: (x, y, out) => (y < yM ? SAMPLE_PEC : scene.sample(x, y, out)),
     // a box that reaches the ground is sampled point by point (the conductor's treatment needs it)
-    boxParts: scene.boxParts && ((x, y, h, out) => (y - 0.75 * h < yM ? 0 : scene.boxParts!(x, y, h, out))),
+    boxParts: scene.boxParts && ((x, y, h, out, normal) => (y - 0.75 * h < yM ? 0 : scene.boxParts!(x, y, h, out, normal))),
   };
 }

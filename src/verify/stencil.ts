@@ -8,9 +8,14 @@
  *   diagonal part  [a⁺ₓ(u_{i+1,j} − u_{ij}) − a⁻ₓ(u_{ij} − u_{i−1,j}) + same along y] / h²,
  *   cross part     from the form Σ_cells A_xy,c (ḡx_c(u) ḡy_c(v) + ḡy_c(u) ḡx_c(v)) where ḡ are
  *                  the gradients averaged over the cell's four corners;
- * both come from one symmetric bilinear form, so the matrix is complex symmetric, and it is
- * positive semi-definite in the diagonal-plus-cross part whenever A is (each cell's energy bounds
- * Axx ḡx² + 2Axy ḡx ḡy + Ayy ḡy² from above). For constant A_xy the cross part is the usual
+ * or, where the coefficients carry A_xy on the faces (drawn scenes, gridCoefficients.ts), half of
+ *                  2 A_xy u_x u_y on the x-faces (g_x of the face times ḡ_y, the mean of the four
+ *                  y-differences around it) and half on the y-faces likewise (faceCrossTerms);
+ * both come from one symmetric bilinear form, so the matrix is complex symmetric. With the cross
+ * term at the centres it is positive semi-definite in the diagonal-plus-cross part whenever A is
+ * (each cell's energy bounds Axx ḡx² + 2Axy ḡx ḡy + Ayy ḡy² from above); on the faces that bound is
+ * not proven (the drawn scenes' Kottke tensors are isotropic but near interfaces, |A_xy| ≤ the
+ * spread of A there). For constant A_xy the cross part is the usual
  * 2A_xy (u_{i+1,j+1} − u_{i+1,j−1} − u_{i−1,j+1} + u_{i−1,j−1}) / (4h²).
  */
 import type { FdfdGrid } from "./fdfdGrid.js";
@@ -85,6 +90,7 @@ export function nodeStencil(g: FdfdGrid, c: GridCoefficients, stretch: PmlStretc
       }
     }
   }
+  if (c.axyXRe && c.axyXIm && c.axyYRe && c.axyYIm) faceCrossTerms(c.axyXRe, c.axyXIm, c.axyYRe, c.axyYIm, nx, ny, ih2, i, j, w);
   // k0² b (× s_x s_y)
   let bRe = c.bRe[id], bIm = c.bIm[id];
   if (stretch) {
@@ -94,6 +100,57 @@ export function nodeStencil(g: FdfdGrid, c: GridCoefficients, stretch: PmlStretc
   }
   w[8] += k0 * k0 * bRe; w[9] += k0 * k0 * bIm;
   return w;
+}
+
+/** w[slot of node (ni, nj)] += f·(re, im) when the node is on the grid (else: the Dirichlet wall). */
+function addWeight(w: StencilWeights, i: number, j: number, nx: number, ny: number, ni: number, nj: number, f: number, re: number, im: number): void {
+  if (ni < 0 || nj < 0 || ni >= nx || nj >= ny) return;
+  const slot = 2 * ((ni - i + 1) + 3 * (nj - j + 1));
+  w[slot] += f * re; w[slot + 1] += f * im;
+}
+
+/**
+ * The cross term 2 A_xy u_x u_y carried by the faces (GridCoefficients.axyX*, axyY*): half of it on
+ * the x-faces, with g_x the face's difference and ḡ_y the mean of the four y-differences around it,
+ * half on the y-faces likewise — the bilinear form Σ_f (A_xy,f / 2)(g_x(u) ḡ_y(v) + ḡ_y(u) g_x(v)) h²,
+ * so the matrix stays symmetric and nine-point. Node (i, j)'s row: w_m −= (A_xy,f / 2)(g_m e_n + ḡ_m d_n)
+ * over the faces whose differences hold the node (d_n, e_n: the node's weights in g and ḡ).
+ */
+function faceCrossTerms(xRe: Float64Array, xIm: Float64Array, yRe: Float64Array, yIm: Float64Array, nx: number, ny: number, ih2: number, i: number, j: number, w: StencilWeights): void {
+  // x-faces (fi + ½, fj), stored at fi + nx·fj: g_x = u(fi+1, fj) − u(fi, fj); ḡ_y = ¼[u(fi, fj+1) + u(fi+1, fj+1) − u(fi, fj−1) − u(fi+1, fj−1)]
+  for (let fj = Math.max(0, j - 1); fj <= Math.min(ny - 1, j + 1); fj++) {
+    for (let fi = Math.max(0, i - 1); fi <= Math.min(nx - 2, i); fi++) {
+      const f = fi + nx * fj;
+      const cRe = xRe[f], cIm = xIm[f];
+      if (cRe === 0 && cIm === 0) continue;
+      const dn = fj === j ? (fi === i ? -1 : 1) : 0;
+      const en = fj === j - 1 ? 0.25 : fj === j + 1 ? -0.25 : 0;
+      const k = -0.5 * ih2;
+      if (en !== 0) { addWeight(w, i, j, nx, ny, fi, fj, -k * en, cRe, cIm); addWeight(w, i, j, nx, ny, fi + 1, fj, k * en, cRe, cIm); }
+      if (dn !== 0) {
+        const q = 0.25 * k * dn;
+        addWeight(w, i, j, nx, ny, fi, fj + 1, q, cRe, cIm); addWeight(w, i, j, nx, ny, fi + 1, fj + 1, q, cRe, cIm);
+        addWeight(w, i, j, nx, ny, fi, fj - 1, -q, cRe, cIm); addWeight(w, i, j, nx, ny, fi + 1, fj - 1, -q, cRe, cIm);
+      }
+    }
+  }
+  // y-faces (fi, fj + ½), stored at fi + nx·fj: g_y = u(fi, fj+1) − u(fi, fj); ḡ_x = ¼[u(fi+1, fj) + u(fi+1, fj+1) − u(fi−1, fj) − u(fi−1, fj+1)]
+  for (let fj = Math.max(0, j - 1); fj <= Math.min(ny - 2, j); fj++) {
+    for (let fi = Math.max(0, i - 1); fi <= Math.min(nx - 1, i + 1); fi++) {
+      const f = fi + nx * fj;
+      const cRe = yRe[f], cIm = yIm[f];
+      if (cRe === 0 && cIm === 0) continue;
+      const dn = fi === i ? (fj === j ? -1 : 1) : 0;
+      const en = fi === i - 1 ? 0.25 : fi === i + 1 ? -0.25 : 0;
+      const k = -0.5 * ih2;
+      if (en !== 0) { addWeight(w, i, j, nx, ny, fi, fj, -k * en, cRe, cIm); addWeight(w, i, j, nx, ny, fi, fj + 1, k * en, cRe, cIm); }
+      if (dn !== 0) {
+        const q = 0.25 * k * dn;
+        addWeight(w, i, j, nx, ny, fi + 1, fj, q, cRe, cIm); addWeight(w, i, j, nx, ny, fi + 1, fj + 1, q, cRe, cIm);
+        addWeight(w, i, j, nx, ny, fi - 1, fj, -q, cRe, cIm); addWeight(w, i, j, nx, ny, fi - 1, fj + 1, -q, cRe, cIm);
+      }
+    }
+  }
 }
 
 /**

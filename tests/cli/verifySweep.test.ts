@@ -61,7 +61,6 @@ describe("--sweep parser", () => {
       [CLOAK, "--sweep", "8 GHz..10 GHz", "--out", out],
       [CLOAK, "--threshold", "2", "--out", out],
       [CLOAK, "--sweep", "8 GHz..10 GHz:3", "--threshold", "0.9", "--out", out],
-      [CLOAK, "--sweep", "8 GHz..10 GHz:3", "--method", "radial"],
       [CLOAK, "--workers", "2", "--out", out],
       [CLOAK, "--sweep", "8 GHz..10 GHz:3", "--workers", "0", "--out", out],
       [CLOAK, "--sweep", "8 GHz..10 GHz:3", "--workers", "1.5", "--out", out],
@@ -71,6 +70,15 @@ describe("--sweep parser", () => {
       expect(r.err).toMatch(/error: --(sweep|threshold|workers)/);
       expect(r.out).toBe("");
     }
+    expect(existsSync(out)).toBe(false);
+  });
+
+  it("--method radial where it does not apply is refused before anything is solved, naming --method", async () => {
+    const out = join(cli.dir, "refused-radial");
+    const r = await run([join(DEMO, "plan-microwave-rod-lens.json"), "--sweep", "8 GHz..10 GHz:3", "--method", "radial", "--out", out]);
+    expect(r.code, r.err).toBe(1);
+    expect(r.err).toMatch(/error: --method: radial does not apply/);
+    expect(r.err).not.toMatch(/sweep: 1 of/);
     expect(existsSync(out)).toBe(false);
   });
 });
@@ -99,7 +107,10 @@ describe("verify --sweep", () => {
     expect(text).not.toMatch(/NaN|Infinity/);
     const rows: Record<string, string>[] = parse(text, { columns: true });
     const header = text.split("\n")[0].split(",");
-    expect(header).toEqual(["frequency_hz", "case", "scattering_width_m", "absorption_width_m", "vs_bare", "uncertainty", "converged", "figure_uncertainty", "meets_limit"]);
+    expect(header).toEqual(["frequency_hz", "case", "method", "scattering_width_m", "absorption_width_m", "vs_bare", "uncertainty", "converged", "figure_uncertainty", "meets_limit"]);
+    // --resolution asks for the grid: auto then solves every case on it, as the single-frequency check
+    expect(rows.every((row) => row.method === "fdfd")).toBe(true);
+    expect(s.method).toBe("fdfd");
     // nFreq × computed cases, every row full length
     expect(rows).toHaveLength(3 * 3);
     for (const line of text.trim().split("\n")) expect(line.split(",")).toHaveLength(header.length);
@@ -122,7 +133,12 @@ describe("verify --sweep", () => {
     expect(r.code, r.err).toBe(0);
     const s = JSON.parse(r.out);
     const byName = Object.fromEntries(s.sweep.cases.map((c: { name: string }) => [c.name, c]));
-    expect(Object.keys(byName)).toEqual(["bare", "ideal", "reduced", "realized"]);
+    expect(Object.keys(byName)).toEqual(["bare", "ideal", "reduced", "realized", "realized-geometry"]);
+    // split rings cannot be drawn: the drawn case says why at every frequency, never a copy of another case
+    expect(byName["realized-geometry"].available).toBe(false);
+    expect(byName["realized-geometry"].reason).toMatch(/split-ring cells are resonant metal structures/);
+    expect(byName["realized-geometry"].scatteringWidthM).toEqual([null, null, null]);
+    expect(s.sweep.homogenization).toBeNull();
     const plain = JSON.parse((await run([MAST, "--method", "fdfd", "--resolution", "8", "--json"])).out);
     for (const name of ["bare", "ideal", "reduced", "realized"]) {
       const one = plain.cases.find((c: { name: string }) => c.name === name);

@@ -5,7 +5,7 @@ import { gridOrdering } from "../../src/numerics/gridNestedDissection.js";
 import { partialLdlt } from "../../src/numerics/multifrontalLdlt.js";
 import { solveGridSystem } from "../../src/numerics/sparseLdltSolve.js";
 import { checkSymmetricMatrix, multiplySymmetric, type SparseSymmetricMatrix } from "../../src/numerics/sparseSymmetricMatrix.js";
-import { factorSymBanded, newSymBandMatrix, solveSymFactored, symIndex } from "../../src/verify/bandedLdlt.js";
+import { factorSymBanded, newSymBandMatrix, solveSymFactored, symIndex } from "../helpers/bandedLdlt.js";
 import { expectClose } from "../helpers/close.js";
 import { denseSolve } from "../helpers/denseComplexSolve.js";
 

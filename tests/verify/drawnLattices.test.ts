@@ -91,17 +91,18 @@ describe("drawn lattices against their effective medium (a = λ0/32, fill 0.6, �
     const hexPlan = blockPlan("hex", rHex, solved);
     const ws = wignerSeitzBody(hexPlan, solved);
     const coarse = ratio(ws, hexPlan, 2), fine = ratio(ws, hexPlan, 3);
-    // measured (67 sites built, the block's share rule): 1.0120 at 10.7 steps per pitch (2 across
-    // the 0.19·a wall), 1.0116 at 16 (3 across); a 9 × 9 block (77 sites) 1.0133, 1.0115; with the
-    // exact box fractions of the drawing (session 5) 1.0127, 1.0104. The grid
-    // has converged (the two grids within 0.05 %); what is left, about 1.2 % whichever block, is the
-    // finite block's edge (a quarter of its sites stand at the edge), not the drawing. (With the
+    // measured (67 sites built, the block's share rule), at 2, 3, 4.5 and 6 steps across the 0.19·a
+    // wall (10.7, 16, 24, 32 steps per pitch): with the exact Kottke boxes and the cross term on the
+    // faces (session 6) 1.0096, 1.0026, 1.0019, 1.0020; with sampled Kottke boxes and the cross term
+    // at the cell centres (session 5) 1.0127, 1.0104, 1.0032, 1.0032. Both settle at 1.002: the 1.2 %
+    // once read at 2–3 steps (and put down to the finite block's edge) was the grid's. (With the
     // hexagons approximated by one strip per row the same drawings read 1.019–1.027, and 0.9997–1.018
     // with other anchors and edge rules: a strip body is not a good enough reference at 1 %.)
     const x = richardson([1 / coarse.stepsPerPitch, 1 / fine.stepsPerPitch], [coarse.ratio, fine.ratio]);
-    expect(Math.abs(fine.ratio - coarse.ratio), `σ ratio ${coarse.ratio} → ${fine.ratio}`).toBeLessThan(0.005);
-    expect(Math.abs(fine.ratio - 1), `σ ratio ${coarse.ratio} → ${fine.ratio}`).toBeLessThan(0.015);
-    expect(Math.abs(x.value - 1), `σ ratio ${coarse.ratio} → ${fine.ratio} → ${x.value}`).toBeLessThan(0.015);
+    expect(Math.abs(fine.ratio - 1), `σ ratio ${coarse.ratio} → ${fine.ratio}`).toBeLessThan(Math.abs(coarse.ratio - 1));
+    expect(Math.abs(coarse.ratio - 1), `σ ratio ${coarse.ratio} → ${fine.ratio}`).toBeLessThan(0.012);
+    expect(Math.abs(fine.ratio - 1), `σ ratio ${coarse.ratio} → ${fine.ratio}`).toBeLessThan(0.005);
+    expect(Math.abs(x.value - 1), `σ ratio ${coarse.ratio} → ${fine.ratio} → ${x.value}`).toBeLessThan(0.005);
     // the same radius one per square cell (what the layout files draw): area fraction fill·√3/2,
     // σ about (√3/2)² = 0.75 of the hexagonal body's (measured 0.74)
     const squarePlan = blockPlan("square", rHex, solved);
@@ -115,9 +116,12 @@ describe("drawn lattices against their effective medium (a = λ0/32, fill 0.6, �
     const plan = blockPlan("square", A * Math.sqrt(fill / Math.PI), perrins, fill);
     const hom = deviceScene(plan.grid as DeviceGrid, "Hz", vacuum, mapFromPlan(plan as Plan, { b: 1, t: 1 }), null);
     const coarse = ratio(hom, plan, 2), fine = ratio(hom, plan, 3);
-    // measured: 1.0317 at 9.9 steps per pitch (2 across the wall), 1.0140 at 14.8 (3 across),
-    // extrapolated at the scheme's second order 0.9999 (session 5, exact box fractions; point-sampled
-    // boxes before: 1.0272, 1.0131 → 1.0018, and at fill 0.6: 1.0114, 1.0080 → 1.0053)
+    // measured (session 6, exact Kottke boxes, cross term on the faces): 1.0216 at 9.9 steps per
+    // pitch (2 across the wall), 1.0101 at 14.8 (3 across), extrapolated at second order 1.0009; on
+    // at 4.5 and 6 steps across: 1.0098, 1.0089 (session 5, exact b fractions, sampled Kottke boxes:
+    // 1.0317, 1.0140 → 0.9999; 1.0119, 1.0108 at 4.5 and 6 steps) — the finer grids still read
+    // about 1.009, so the two-grid extrapolation to 1.00 owes something to the ladder; what is left
+    // (under 1 %) is the finite 8 × 8 block against Perrins' infinite array or the grid (not separated here)
     const x = richardson([1 / coarse.stepsPerPitch, 1 / fine.stepsPerPitch], [coarse.ratio, fine.ratio]);
     expect(Math.abs(fine.ratio - 1), `σ ratio ${coarse.ratio} → ${fine.ratio}`).toBeLessThan(Math.abs(coarse.ratio - 1));
     expect(Math.abs(x.value - 1), `σ ratio ${coarse.ratio} → ${fine.ratio} → ${x.value}`).toBeLessThan(0.01);

@@ -1,17 +1,19 @@
 /**
- * The sparse nested-dissection solve of the FDFD operator (assemble.ts, solve.ts) against the
- * banded LDLᵀ it replaced (kept as the reference), on scenes with a PML, a perfect conductor
- * (held nodes) and rotated anisotropy (cross terms); and the grid-size refusal.
+ * The sparse nested-dissection solve of the FDFD operator (assemble.ts, solve.ts) checked by the
+ * matrix-free operator (stencil.ts `applyOperator`, which never builds a matrix): the solution
+ * must satisfy L u = f on the open nodes and u = f on the held ones, on scenes with a PML, a
+ * perfect conductor (held nodes) and rotated anisotropy (cross terms); and the grid-size refusal.
+ * (The solver itself is compared with banded and dense references in tests/numerics.)
  */
 import { describe, expect, it } from "vitest";
 import { InputError } from "../../src/core/errors.js";
-import { factorSymBanded, solveSymFactored } from "../../src/verify/bandedLdlt.js";
-import { assembleOperator, checkGridSize, gridFits, nodeOrder, solveCost } from "../../src/verify/assemble.js";
+import { checkGridSize, gridFits, solveCost } from "../../src/verify/assemble.js";
 import { gridForWindow, type FdfdGrid } from "../../src/verify/fdfdGrid.js";
 import { gridCoefficients } from "../../src/verify/gridCoefficients.js";
 import { pmlStretch } from "../../src/verify/pml.js";
 import { SAMPLE_MEDIUM, SAMPLE_PEC, S_B, S_TXX, S_TXY, S_TYY, type Scene } from "../../src/verify/scene.js";
 import { solveLinear } from "../../src/verify/solve.js";
+import { applyOperator } from "../../src/verify/stencil.js";
 import { expectClose } from "../helpers/close.js";
 
 const k0 = 2 * Math.PI;
@@ -35,24 +37,24 @@ function scene(pol: "Ez" | "Hz"): Scene {
   };
 }
 
-/** The pre-existing banded path (natural order along the shorter side, band LDLᵀ). */
-function bandedSolve(g: FdfdGrid, sc: Scene, fRe: Float64Array, fIm: Float64Array, hold: Uint8Array | null): [Float64Array, Float64Array] {
+/** Relative residual of u against L u = f (open nodes) and u = f (held nodes), by the matrix-free operator. */
+function matrixFreeResidual(g: FdfdGrid, sc: Scene, uRe: Float64Array, uIm: Float64Array, fRe: Float64Array, fIm: Float64Array, hold: Uint8Array | null): { open: number; held: number } {
   const c = gridCoefficients(g, sc, 3);
-  const order = nodeOrder(g), n = g.nx * g.ny;
-  const f2Re = fRe.slice(), f2Im = fIm.slice();
-  const m = assembleOperator(g, c, pmlStretch(g, k0, 1), k0, order, hold, f2Re, f2Im);
-  expect(factorSymBanded(m).ok).toBe(true);
-  const bRe = new Float64Array(n), bIm = new Float64Array(n);
-  for (let id = 0; id < n; id++) { bRe[order.row[id]] = f2Re[id]; bIm[order.row[id]] = f2Im[id]; }
-  solveSymFactored(m, bRe, bIm);
-  const re = new Float64Array(n), im = new Float64Array(n);
-  for (let id = 0; id < n; id++) { re[id] = bRe[order.row[id]]; im[id] = bIm[order.row[id]]; }
-  return [re, im];
+  const n = g.nx * g.ny;
+  const oRe = new Float64Array(n), oIm = new Float64Array(n);
+  applyOperator(g, c, pmlStretch(g, k0, 1), k0, uRe, uIm, oRe, oIm);
+  let num = 0, den = 0, held = 0;
+  for (let id = 0; id < n; id++) {
+    if (hold && hold[id]) { held = Math.max(held, Math.hypot(uRe[id] - fRe[id], uIm[id] - fIm[id])); continue; }
+    num += (oRe[id] - fRe[id]) ** 2 + (oIm[id] - fIm[id]) ** 2;
+    den += fRe[id] ** 2 + fIm[id] ** 2;
+  }
+  return { open: Math.sqrt(num / den), held };
 }
 
 describe("sparse FDFD solve", () => {
   for (const pol of ["Ez", "Hz"] as const) {
-    it(`${pol}: equals the banded reference (PML, conductor, cross terms, loss) and reports its residual`, () => {
+    it(`${pol}: satisfies the matrix-free operator (PML, conductor, cross terms, loss) and reports its residual`, () => {
       const g = gridForWindow({ minX: -0.45, maxX: 0.45, minY: -0.4, maxY: 0.4 }, 1 / 40, 10);
       const sc = scene(pol);
       const c = gridCoefficients(g, sc, 3);
@@ -62,9 +64,12 @@ describe("sparse FDFD solve", () => {
       const hold = pol === "Ez" ? c.pecNode : null;
       if (pol === "Ez") expect(hold!.some((x) => x === 1)).toBe(true);
       const sol = solveLinear(g, c, pmlStretch(g, k0, 1), k0, fRe, fIm, hold);
-      const [re, im] = bandedSolve(g, sc, fRe, fIm, hold);
-      expectClose(sol.re, re, { rel: 1e-8, abs: 1e-9, label: `${pol} re` });
-      expectClose(sol.im, im, { rel: 1e-8, abs: 1e-9, label: `${pol} im` });
+      const r = matrixFreeResidual(g, sc, sol.re, sol.im, fRe, fIm, hold);
+      expect(r.open).toBeLessThan(1e-9);
+      expect(r.held).toBeLessThan(1e-12);
+      // the check can fail: a solution off by a small perturbation is seen
+      const bent = sol.re.slice(); bent[7 + g.nx * 9] += 1e-6; // an open node (the conductor sits at the centre)
+      expect(matrixFreeResidual(g, sc, bent, sol.im, fRe, fIm, hold).open).toBeGreaterThan(1e-9);
       expect(sol.residual).toBeLessThan(1e-10);
       expect(sol.pivotRatio).toBeGreaterThan(0);
     });

@@ -231,9 +231,9 @@ export const command: Command = {
     { name: "beam", type: "string", valueName: "W[, D[, S]]", description: "Gaussian beam of waist W, its focus offset by D across the beam from the device centre and shifted by S along it (negative: towards the source)" },
     { name: "scene", type: "string", valueName: "ground|free", description: "carpet designs: on their ground plane, lit by a beam from above (ground, default) or in free space (free)" },
     { name: "margin", type: "string", valueName: "L", description: "free space around the device, e.g. '20 mm' (default half a wavelength)" },
-    { name: "drawn-time", type: "string", valueName: "T", description: "estimated time the drawn realized case (realized-geometry) may take, e.g. '10 min' or '90 s' (default 5 min; 0: not run)" },
+    { name: "drawn-time", type: "string", valueName: "T", description: "estimated time the drawn realized case (realized-geometry) may take, e.g. '10 min' or '90 s' (default 5 min; with --sweep for the whole sweep; 0: not run)" },
     { name: "method", type: "string", valueName: "auto|fdfd|radial", description: "solver: auto (default: radial where the tensors depend on r only, fdfd for the rest), fdfd (finite differences on a grid) or radial (exact, per angular order; cloaks and concentrators, plane waves)" },
-    { name: "sweep", type: "string", valueName: "A..B:N", description: "solve every case at N frequencies from A to B on the grid, e.g. '8 GHz..10 GHz:21' (dispersive recipes re-evaluated at each)" },
+    { name: "sweep", type: "string", valueName: "A..B:N", description: "solve every case at N frequencies from A to B, e.g. '8 GHz..10 GHz:21', each on the solver --method picks (dispersive recipes and the drawn case's materials re-evaluated at each; --drawn-time is shared by the frequencies)" },
     { name: "threshold", type: "string", valueName: "T", description: "with --sweep: the band is where the realized figure stays within T× the reduced design's at the centre (default 2)" },
     { name: "workers", type: "string", valueName: "N", description: "with --sweep: frequencies solved at once, on worker threads (default: from the time estimate, the cores and the memory)" },
     { name: "json", type: "boolean", description: "print the summary as one JSON object on stdout" },
@@ -254,8 +254,8 @@ export const command: Command = {
     if (!METHOD_OPTIONS.includes(method)) throw new InputError({ where: "--method", message: `expected ${METHOD_OPTIONS.join(", ")}, got '${method}'` });
     if (method === "radial" && beamText0(args) !== undefined) throw new InputError({ where: "--beam", message: "the radial method solves plane waves only; use --method fdfd for a beam" });
     for (const o of ["resolution", "margin"]) if (method === "radial" && stringOption(args, o) !== undefined) throw new InputError({ where: `--${o}`, message: "the radial method has no grid; drop this option or use --method fdfd" });
-    if (method === "radial" && stringOption(args, "out") !== undefined) throw new InputError({ where: "--out", message: "the radial method draws no field picture; use --method fdfd" });
     const sweepText = stringOption(args, "sweep");
+    if (method === "radial" && sweepText === undefined && stringOption(args, "out") !== undefined) throw new InputError({ where: "--out", message: "the radial method draws no field picture; use --method fdfd" });
     const thresholdText = stringOption(args, "threshold");
     if (thresholdText !== undefined && sweepText === undefined) throw new InputError({ where: "--threshold", message: "applies to a frequency sweep; give --sweep too" });
     const sweep = sweepText === undefined ? null : await parseSweep(sweepText);
@@ -263,7 +263,6 @@ export const command: Command = {
     const workersText = stringOption(args, "workers");
     if (workersText !== undefined && sweepText === undefined) throw new InputError({ where: "--workers", message: "applies to a frequency sweep; give --sweep too" });
     const workers = parseWorkers(workersText);
-    if (sweep && method === "radial") throw new InputError({ where: "--sweep", message: "the sweep runs the grid solver; drop --method radial" });
     const angleText = stringOption(args, "angle");
     const angleDeg = angleText === undefined ? 0 : Number(angleText);
     if (!Number.isFinite(angleDeg)) throw new InputError({ where: "--angle", message: `expected an angle in degrees, got '${angleText}'` });
@@ -321,11 +320,14 @@ export const command: Command = {
       illumination = { kind: "beam", angleRad, waistM: beam.waistM, focusM: beamFocus([cx, cy], angleRad, beam.offsetM, beam.shiftM) };
     }
     if (sweep) {
+      const sweepGridOption = ["resolution", "margin"].find((o) => stringOption(args, o) !== undefined);
       return runVerifySweep(io, {
-        designName: design.name, designPath: design.sourcePath, designFrequencyHz: design.frequencyHz, scheme: s.scheme, range: sweep, threshold, json, outDir: stringOption(args, "out"), notes: built.notes, workers,
+        designName: design.name, designPath: design.sourcePath, designFrequencyHz: design.frequencyHz, scheme: s.scheme, range: sweep, threshold, json, outDir: stringOption(args, "out"), notes: built.notes, workers, drawnSeconds,
         context: {
           transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid,
           ideal, reduced, plan, catalog: plan ? await loadMaterialCatalog() : [], illumination, resolution, accuracy, marginM, freeSpace: sceneKind === "free",
+          // as the single-frequency check, less --out (a sweep writes no field picture)
+          method, gridOption: sweepGridOption ? `--${sweepGridOption}` : null,
         },
       });
     }

@@ -1,6 +1,8 @@
 /**
  * `verify --sweep "8 GHz..10 GHz:21"`: the full-wave check at every frequency of a sweep (the bare
- * object, ideal, reduced and realized devices, dispersive recipes re-evaluated at each frequency),
+ * object, ideal, reduced and realized devices, dispersive recipes re-evaluated at each frequency;
+ * the drawn realized device where it can be drawn and its ladders fit --drawn-time; each case on
+ * the solver --method picks, as the single-frequency check),
  * the band where the realized device stays within --threshold of the reduced design at the centre,
  * and with --out the files verify-sweep.csv and verify-sweep.svg written as one output set
  * (manifest.json last). Frequencies run on worker threads (sweepPool.ts), as many as the cores,
@@ -18,6 +20,9 @@ import { sweepCsvText } from "../../verify/sweep/sweepCsv.js";
 import { chooseSweepThreads, sweepWallSeconds } from "../../verify/sweep/sweepTime.js";
 import { expectedTimeWarning, formatDuration } from "../../core/timeEstimate.js";
 import { MAX_SWEEP_POINTS, sweepFrequencies } from "../../verify/sweep/sweepFrequencies.js";
+import { sweepDrawnPlan } from "../../verify/sweep/sweepDrawn.js";
+import { MAX_DRAWN_SECONDS } from "../../verify/drawnLadder.js";
+import { DEFAULT_SOLVER_BYTES } from "../../verify/assemble.js";
 import type { SweepContext } from "../../verify/sweep/sweepPoint.js";
 import { summarizeSweep, sweepJson, sweepSeries, sweepTable } from "../../verify/sweep/sweepSummary.js";
 import { sweepSvg } from "../../verify/sweep/sweepSvg.js";
@@ -81,6 +86,8 @@ export interface SweepRun {
   notes: string[];
   /** --workers: threads asked for (undefined: chosen from the time estimate and the memory) */
   workers?: number;
+  /** --drawn-time: estimated seconds the drawn case may take over the whole sweep (undefined: the default) */
+  drawnSeconds?: number;
 }
 
 /** Parse --workers: a whole number of threads from 1 to 64. */
@@ -93,15 +100,18 @@ export function parseWorkers(text: string | undefined): number | undefined {
 
 /** Run the sweep and print (see file comment). Returns the exit code (2 when a figure is not converged). */
 export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> {
-  const { context, range } = run;
+  const { range } = run;
   const frequencies = sweepFrequencies(range.startHz, range.stopHz, range.count);
   const names = [SWEEP_CSV, SWEEP_SVG];
   // a folder that cannot take the outputs is refused before minutes of solving
   if (run.outDir !== undefined) await checkOutputFolder(resolve(io.cwd, run.outDir), names);
   const progress = (text: string): void => io.stderr(`… ${text}\n`);
   const budget = memoryBudget("verify");
+  const baseline = workerBaselineBytes(run.context.grid.count);
+  // the drawn case: swept at every frequency on a share of --drawn-time, or not at all with the reason
+  const drawnPlan = sweepDrawnPlan(run.context, frequencies, run.drawnSeconds ?? MAX_DRAWN_SECONDS, Math.min(DEFAULT_SOLVER_BYTES, budget.budgetBytes - baseline));
+  const context: SweepContext = { ...run.context, drawn: drawnPlan.drawn };
   const peaks = frequencies.map((f) => ({ frequencyHz: f, ...sweepPeakBytes(context, f) }));
-  const baseline = workerBaselineBytes(context.grid.count);
   // cores other work keeps busy do not help: without --workers, count only the idle ones (load average)
   const cores = availableParallelism();
   const idle = Math.max(1, Math.min(cores, Math.round(cores - loadavg()[0])));
@@ -123,8 +133,14 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   const pool = chosen.workers === memoryPool.workers ? memoryPool : planSweepPool(peaks, chosen.workers, budget.budgetBytes, budget.source, baseline) as typeof memoryPool;
   const planned = peaks.reduce((a, p) => a + p.seconds, 0);
   const atMost = peaks.reduce((a, p) => a + p.secondsAtMost, 0);
+  const radialSeconds = peaks.reduce((a, p) => a + p.radialSeconds, 0);
+  const drawnSeconds = peaks.reduce((a, p) => a + p.drawnSeconds, 0);
   const estimate = sweepWallSeconds(perFrequency, pool.workers);
-  const what = `${frequencies.length} frequenc${frequencies.length === 1 ? "y" : "ies"} on ${pool.workers} thread${pool.workers === 1 ? "" : "s"} (${atMost > 1.05 * planned ? `${formatDuration(planned)} of solving if the first rungs converge, up to ${formatDuration(atMost)} if the ladders add all their rungs` : `about ${formatDuration(planned)} of solving`})`;
+  const parts = [
+    ...(radialSeconds > 0 ? [`radial solver ${formatDuration(radialSeconds)}`] : []),
+    ...(drawnSeconds > 0 ? [`drawn realized case ${formatDuration(drawnSeconds)}`] : []),
+  ];
+  const what = `${frequencies.length} frequenc${frequencies.length === 1 ? "y" : "ies"} on ${pool.workers} thread${pool.workers === 1 ? "" : "s"} (${atMost > 1.05 * planned ? `${formatDuration(planned)} of solving if the first rungs converge, up to ${formatDuration(atMost)} if the ladders add all their rungs` : `about ${formatDuration(planned)} of solving`}${parts.length ? `; of which ${parts.join(", ")}` : ""})`;
   const warnings: string[] = [];
   const warning = expectedTimeWarning(estimate, what);
   if (warning !== null) { warnings.push(warning); io.stderr(`warning: ${warning}\n`); }
@@ -143,8 +159,14 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
       const hasBare = summary.points[0].cases.some((c) => c.name === "bare" && c.available);
       const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${r0band(summary)}`;
       const files: OutputFile[] = [
-        { name: SWEEP_CSV, produce: (write) => write(sweepCsvText(summary.points, { hasBare, beam: context.illumination.kind === "beam", figure: summary.figure, meetsLimit: summary.band?.meetsLimit ?? null })) },
-        { name: SWEEP_SVG, produce: (write) => write(sweepSvg(summary.frequenciesHz, sweepSeries(summary), summary.figure, summary.band, run.designName, subtitle)) },
+        {
+          name: SWEEP_CSV,
+          produce: (write) => write(sweepCsvText(summary.points, {
+            hasBare, beam: context.illumination.kind === "beam", figure: summary.figure, meetsLimit: summary.band?.meetsLimit ?? null,
+            drawn: summary.points.some((p) => p.homogenization !== null), drawnMeetsLimit: summary.drawnBand?.meetsLimit ?? null,
+          })),
+        },
+        { name: SWEEP_SVG, produce: (write) => write(sweepSvg(summary.frequenciesHz, sweepSeries(summary), summary.figure, summary.band, run.designName, subtitle, summary.drawnBand)) },
       ];
       written = await writeOutputSet(folder, files, { signal });
     }
@@ -155,9 +177,12 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   for (const note of result.notes) io.stderr(`note: ${note}\n`);
   const sweep = { ...sweepJson(result, run.threshold), workers: pool.workers, threads };
   const ladder = context.resolution !== undefined ? `one grid at ${context.resolution} points per wavelength` : `grid ladder per frequency, accuracy ${Number(((context.accuracy ?? 0.02) * 100).toPrecision(3))} %`;
+  const methods = [...new Set(result.points.map((p) => p.method))];
+  const method = methods.length === 1 ? methods[0] : "radial+fdfd";
+  const solverText = method === "radial" ? "exact radial solver (no grid)" : method === "fdfd" ? `FDFD, ${ladder}` : `exact radial solver and FDFD (${ladder})`;
   if (run.json) {
     io.stdout(`${JSON.stringify({
-      design: run.designName, method: "fdfd", polarization: context.polarization, scheme: run.scheme, frequencyHz: run.designFrequencyHz,
+      design: run.designName, method, methodOption: context.method ?? "auto", polarization: context.polarization, scheme: run.scheme, frequencyHz: run.designFrequencyHz,
       illumination: context.illumination.kind === "plane"
         ? { kind: "plane", angleDeg: (context.illumination.angleRad * 180) / Math.PI }
         : { kind: "beam", angleDeg: (context.illumination.angleRad * 180) / Math.PI, waistM: context.illumination.waistM, focusM: context.illumination.focusM },
@@ -165,11 +190,11 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
       resolution: context.resolution ?? null,
       converged: sweep.converged,
       sweep, notes: result.notes, warnings,
-      estimate: { solvingSeconds: planned, solvingSecondsAtMost: atMost, wallSeconds: estimate, threads: pool.workers },
+      estimate: { solvingSeconds: planned, solvingSecondsAtMost: atMost, radialSeconds, drawnSeconds, wallSeconds: estimate, threads: pool.workers },
       outputs,
     })}\n`);
   } else {
-    const header = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}; FDFD, ${ladder}; ${pool.workers} frequenc${pool.workers === 1 ? "y" : "ies"} at a time`;
+    const header = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}; ${solverText}; ${pool.workers} frequenc${pool.workers === 1 ? "y" : "ies"} at a time`;
     io.stdout(sweepTable(run.designName, header, result, run.threshold) + (outputs.length ? `outputs:\n${outputs.map((p) => `  ${p}`).join("\n")}\n` : ""));
   }
   return sweep.converged ? EXIT_OK : EXIT_NOT_BUILDABLE;

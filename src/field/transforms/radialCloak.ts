@@ -10,7 +10,7 @@ import type { RadialCloakSpec } from "../transformSpec.js";
 import { INNER_SLACK, OUTER_SLACK, type Transform } from "./transform.js";
 import { radialK2 } from "./radialJacobian.js";
 import { circleBoundary } from "./circleBoundary.js";
-import { rowRuns, ZONE_REL } from "../rowRuns.js";
+import { annulusRegion } from "./annulusRegion.js";
 
 /** Profile g(r), its inverse h(r') and h'(r') for the cloak radii a < b. */
 export interface RadialProfile {
@@ -42,22 +42,11 @@ export function radialCloak(spec: RadialCloakSpec): Transform {
   const p = cloakProfile(spec.profile, a, b);
   const linear = spec.profile === "linear";
   const s = (b - a) / b;
-  const runs = rowRuns(4), half = ZONE_REL * (b + Math.abs(cx) + Math.abs(cy));
-  const contains = (x: number, y: number): boolean => {
-    const r = Math.sqrt((x - cx) * (x - cx) + (y - cy) * (y - cy));
-    return r > aa && r <= bb;
-  };
+  const region = annulusRegion(cx, cy, aa, bb, b);
   return {
     kind: "radial-cloak",
     dimension: 2,
-    bounds: { minX: cx - b, maxX: cx + b, minY: cy - b, maxY: cy + b, minZ: 0, maxZ: 0 },
-    contains,
-    containsRow(out, y, z, x0, pitch) {
-      runs.reset();
-      runs.ring(cx, y - cy, aa, half);
-      runs.ring(cx, y - cy, bb, half);
-      runs.fill(out, x0, pitch, y, z, contains);
-    },
+    ...region,
     forward(out, x, y, z) {
       const dx = x - cx, dy = y - cy, r = Math.sqrt(dx * dx + dy * dy);
       if (!(r > 0 && r <= bb)) return false;

@@ -6,7 +6,7 @@
  */
 import type { RotatorSpec } from "../transformSpec.js";
 import { OUTER_SLACK, type Transform } from "./transform.js";
-import { rowRuns, ZONE_REL } from "../rowRuns.js";
+import { annulusRegion } from "./annulusRegion.js";
 import { circleBoundary } from "./circleBoundary.js";
 
 export function rotator(spec: RotatorSpec): Transform {
@@ -14,22 +14,11 @@ export function rotator(spec: RotatorSpec): Transform {
   const [cx, cy] = spec.center ?? [0, 0];
   const bb = b * OUTER_SLACK;
   const t = th0 / (b - a);
-  const runs = rowRuns(4), half = ZONE_REL * (b + Math.abs(cx) + Math.abs(cy));
-  const contains = (x: number, y: number): boolean => {
-    const r = Math.sqrt((x - cx) * (x - cx) + (y - cy) * (y - cy));
-    return r > a && r <= bb;
-  };
+  const region = annulusRegion(cx, cy, a, bb, b);
   return {
     kind: "rotator",
     dimension: 2,
-    bounds: { minX: cx - b, maxX: cx + b, minY: cy - b, maxY: cy + b, minZ: 0, maxZ: 0 },
-    contains,
-    containsRow(out, y, z, x0, pitch) {
-      runs.reset();
-      runs.ring(cx, y - cy, a, half);
-      runs.ring(cx, y - cy, bb, half);
-      runs.fill(out, x0, pitch, y, z, contains);
-    },
+    ...region,
     forward(out, x, y, z) {
       const dx = x - cx, dy = y - cy, r = Math.sqrt(dx * dx + dy * dy);
       if (!(r > a && r <= bb)) return false;

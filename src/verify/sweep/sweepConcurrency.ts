@@ -13,10 +13,11 @@ import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../../core/physicalConstants.js";
 import { BYTES_PER_CELL } from "../../core/memoryBudget.js";
 import { DEFAULT_SOLVER_BYTES, formatBytes } from "../assemble.js";
 import { formatFrequency } from "../formatQuantity.js";
-import { deviceCases } from "../deviceCases.js";
+import { DRAWN_STEPS, drawnLadderPlan } from "../drawnLadder.js";
 import { DEFAULT_ACCURACY, ladderGrids, ladderPeakBytes, ladderSeconds } from "../ladderGrids.js";
-import { planAtFrequency } from "./recipeAtFrequency.js";
-import { SWEEP_CASES, type SweepContext } from "./sweepPoint.js";
+import { radialProblemSeconds } from "../radialSolver.js";
+import { solverSplit } from "../runCheck.js";
+import { sweepCases, type SweepContext } from "./sweepPoint.js";
 
 /**
  * A worker's baseline besides its solves, bytes: the runtime and modules (WORKER_RUNTIME_BYTES)
@@ -32,24 +33,76 @@ export function workerBaselineBytes(cells: number): number {
   return WORKER_RUNTIME_BYTES + BYTES_PER_CELL.verify * cells;
 }
 
+/** What one frequency's check costs, estimated before anything is solved (see sweepPeakBytes). */
+export interface SweepPointCost {
+  /** peak memory of the wanted grid rungs (and of the drawn case's), bytes */
+  wantedBytes: number;
+  /** the same with the rungs the main ladder may add */
+  withAddedBytes: number;
+  /** the finest wanted main grid's nodes (0: no grid case) */
+  nodes: number;
+  /** estimated CPU seconds: the grid cases' wanted rungs, the radial cases and the drawn ladder */
+  seconds: number;
+  /** the same with every rung the main ladder may add */
+  secondsAtMost: number;
+  /** the radial cases' share of `seconds` */
+  radialSeconds: number;
+  /** the drawn case's share of `seconds` (0: not swept) */
+  drawnSeconds: number;
+  /** the solvers this frequency will use */
+  method: "fdfd" | "radial" | "radial+fdfd";
+}
+
 /**
- * What one frequency's check costs, before anything is solved: peak memory of its wanted rungs and
- * with the rungs the ladder may add, the finest wanted grid's nodes, and the estimated CPU seconds
- * (ladderSeconds: `seconds` for the wanted rungs, `secondsAtMost` with the added ones).
+ * What one frequency's check costs, before anything is solved, split between the solvers as the
+ * check will split it (runCheck.ts solverSplit: `--method`, and for auto the radial solver for every
+ * case whose tensors depend on r only): the grid cases' ladder (ladderSeconds, ladderPeakBytes at
+ * the rates of core/timeEstimate.ts), the radial cases (radialProblemSeconds), and the drawn case's
+ * own ladder when the sweep draws it (ctx.drawn; drawnLadder.ts, its rungs' memory counted in the
+ * peak). Throws InputError where the check would (`--method radial` where it does not apply).
  */
-export function sweepPeakBytes(ctx: SweepContext, frequencyHz: number): { wantedBytes: number; withAddedBytes: number; nodes: number; seconds: number; secondsAtMost: number } {
-  const plan = ctx.plan ? planAtFrequency(ctx.plan, ctx.catalog, frequencyHz) : null;
-  const built = deviceCases({ transform: ctx.transform, fieldBackground: ctx.fieldBackground, background: ctx.background, polarization: ctx.polarization, grid: ctx.grid, ideal: ctx.ideal, reduced: ctx.reduced, plan, freeSpace: ctx.freeSpace });
-  const cases = built.cases.filter((c) => SWEEP_CASES.includes(c.name) && c.scene);
+export function sweepPeakBytes(ctx: SweepContext, frequencyHz: number): SweepPointCost {
+  const built = sweepCases(ctx, frequencyHz);
+  const drawnSpec = built.cases.find((c) => c.name === "realized-geometry" && c.scene !== null && c.maxStepM !== undefined);
+  const realizedSpec = built.cases.find((c) => c.name === "realized" && c.scene !== null);
+  // the check solves the drawn case on its own ladder, apart from the others (runCheck.ts)
+  const mainCases = built.cases.map((c) => (c === drawnSpec ? { name: c.name, scene: null, reason: "solved on its own grid", indexHint: 0 } : c));
+  const method = ctx.method ?? "auto";
+  const split = solverSplit({ method, transform: ctx.transform, illumination: ctx.illumination, groundYM: built.ground?.groundYM, gridOption: ctx.gridOption ?? null, frequencyHz, cases: mainCases });
+  const radialSeconds = split.radial.reduce((a, p) => a + (p.problem ? radialProblemSeconds(p.problem) : 0), 0);
+  const gridCases = split.gridCases.filter((c) => c.scene !== null);
   const nb = Math.sqrt(ctx.background.eps * ctx.background.mu);
   const lambdaB = C0 / frequencyHz / nb;
-  const l = ladderGrids({
-    polarization: ctx.polarization, background: ctx.background, frequencyHz, deviceBox: built.deviceBox, caseIndexHints: cases.map((c) => c.indexHint),
-    resolution: ctx.resolution, accuracy: ctx.accuracy ?? DEFAULT_ACCURACY, marginM: ctx.marginM ?? lambdaB / 2, groundYM: built.ground?.groundYM,
-  });
-  const finest = l.makeGrid(l.wanted[l.wanted.length - 1]);
-  const time = ladderSeconds(l, cases.length);
-  return { wantedBytes: ladderPeakBytes(l, false), withAddedBytes: ladderPeakBytes(l, true), nodes: finest.nx * finest.ny, seconds: time.planned, secondsAtMost: time.atMost };
+  let wantedBytes = 0, withAddedBytes = 0, nodes = 0, planned = 0, atMost = 0;
+  if (gridCases.length > 0) {
+    const l = ladderGrids({
+      polarization: ctx.polarization, background: ctx.background, frequencyHz, deviceBox: built.deviceBox, caseIndexHints: gridCases.map((c) => c.indexHint),
+      resolution: ctx.resolution, accuracy: ctx.accuracy ?? DEFAULT_ACCURACY, marginM: ctx.marginM ?? lambdaB / 2, groundYM: built.ground?.groundYM,
+    });
+    const finest = l.makeGrid(l.wanted[l.wanted.length - 1]);
+    const time = ladderSeconds(l, gridCases.length);
+    wantedBytes = ladderPeakBytes(l, false); withAddedBytes = ladderPeakBytes(l, true);
+    nodes = finest.nx * finest.ny; planned = time.planned; atMost = time.atMost;
+  }
+  let drawnSeconds = 0;
+  const realizedOnMain = gridCases.some((c) => c.name === "realized") || split.radial.some((p) => p.name === "realized" && p.problem !== null);
+  if (drawnSpec && realizedSpec && realizedOnMain && method !== "radial" && ctx.drawn && "seconds" in ctx.drawn) {
+    const plan = drawnLadderPlan(
+      { polarization: ctx.polarization, background: ctx.background, frequencyHz, deviceBox: built.deviceBox, cases: built.cases, illumination: ctx.illumination, resolution: ctx.resolution, accuracy: ctx.accuracy, marginM: ctx.marginM, solverBytes: ctx.solverBytes, groundYM: built.ground?.groundYM },
+      realizedSpec, drawnSpec, drawnSpec.featureM ?? drawnSpec.maxStepM! * DRAWN_STEPS[0], { seconds: ctx.drawn.seconds },
+    );
+    if (plan.reason === null) {
+      drawnSeconds = plan.seconds;
+      const bytes = Math.max(...plan.rungs.map((r) => r.bytes));
+      wantedBytes = Math.max(wantedBytes, bytes); withAddedBytes = Math.max(withAddedBytes, bytes);
+    }
+  }
+  const usesGrid = gridCases.length > 0 || drawnSeconds > 0;
+  return {
+    wantedBytes, withAddedBytes, nodes,
+    seconds: planned + radialSeconds + drawnSeconds, secondsAtMost: atMost + radialSeconds + drawnSeconds, radialSeconds, drawnSeconds,
+    method: split.gridOnly !== null ? "fdfd" : usesGrid ? "radial+fdfd" : "radial",
+  };
 }
 
 export interface PoolPlan {

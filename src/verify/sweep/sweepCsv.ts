@@ -1,11 +1,17 @@
 /**
- * verify-sweep.csv: one row per frequency and case, frequencies ascending, cases in SWEEP_CASES
- * order (flat, bare, ideal, reduced, realized: those the scene has). Columns (units in the names): frequency_hz, case, scattering_width_m, absorption_width_m,
- * then vs_bare (only when the scene has a bare object), delivered_power and deviation_deg (only
- * for a beam; above a ground plane delivered_power is the specular share), then uncertainty (relative, of the headline figure) and converged (true/false),
- * then figure_uncertainty (absolute, of the sweep's figure of merit: vs_bare, delivered_power or
- * scattering_width_m) and meets_limit (realized rows: yes, no, or uncertain when the band's limit is
- * within the figure's uncertainty; empty on other rows; sweepBand.ts).
+ * verify-sweep.csv: one row per frequency and computed case, frequencies ascending, cases in
+ * SWEEP_CASES order (flat, bare, ideal, reduced, realized, realized-geometry: those the scene has
+ * and that were computed at that frequency). Columns (units in the names): frequency_hz, case,
+ * method (radial or fdfd: the solver that computed the row), scattering_width_m,
+ * absorption_width_m, then vs_bare (only when the scene has a bare object), delivered_power and
+ * deviation_deg (only for a beam; above a ground plane delivered_power is the specular share), then
+ * uncertainty (relative, of the headline figure) and converged (true/false), then
+ * figure_uncertainty (absolute, of the sweep's figure of merit: vs_bare, delivered_power or
+ * scattering_width_m) and meets_limit (realized and realized-geometry rows: yes, no, or uncertain
+ * when the band's limit is within the figure's uncertainty; empty on other rows; sweepBand.ts);
+ * when the drawn case was swept, last homogenization_difference and homogenization_uncertainty
+ * (realized-geometry rows: (σ_geometry − σ_realized)/σ_bare, or over the larger width without a
+ * bare object, on the drawn case's own grids, and its absolute uncertainty; empty elsewhere).
  * A field that does not apply is empty (a single grid has no uncertainty); never NaN or Infinity.
  */
 import { csvField, fmt } from "../../plan/outputs/csvText.js";
@@ -20,15 +26,20 @@ export interface SweepCsvLayout {
   figure: SweepFigure;
   /** the band's verdict per point, in the points' order (null: no band) */
   meetsLimit: readonly (LimitVerdict | null)[] | null;
+  /** the drawn case's band verdict per point (null: no band); with `drawn` the homogenization columns */
+  drawnMeetsLimit?: readonly (LimitVerdict | null)[] | null;
+  /** the drawn realized case was computed at some frequency: add the homogenization columns */
+  drawn?: boolean;
 }
 
 /** Column names for a layout, in order. */
 export function sweepCsvColumns(layout: SweepCsvLayout): string[] {
   return [
-    "frequency_hz", "case", "scattering_width_m", "absorption_width_m",
+    "frequency_hz", "case", "method", "scattering_width_m", "absorption_width_m",
     ...(layout.hasBare ? ["vs_bare"] : []),
     ...(layout.beam ? ["delivered_power", "deviation_deg"] : []),
     "uncertainty", "converged", "figure_uncertainty", "meets_limit",
+    ...(layout.drawn ? ["homogenization_difference", "homogenization_uncertainty"] : []),
   ];
 }
 
@@ -41,11 +52,15 @@ export function sweepCsvText(points: readonly SweepPoint[], layout: SweepCsvLayo
     for (const c of p.cases) {
       if (!c.available) continue;
       lines.push([
-        fmt(p.frequencyHz, 12), csvField(c.name), num(c.scatteringWidthM), num(c.absorptionWidthM),
+        fmt(p.frequencyHz, 12), csvField(c.name), c.method ?? "", num(c.scatteringWidthM), num(c.absorptionWidthM),
         ...(layout.hasBare ? [num(c.vsBare)] : []),
         ...(layout.beam ? [num(c.deliveredPower), num(c.deviationDeg, 6)] : []),
         num(c.uncertainty, 4), c.converged === null ? "" : String(c.converged),
-        num(uncertaintyOf(c, layout.figure), 4), c.name === "realized" ? layout.meetsLimit?.[k] ?? "" : "",
+        num(uncertaintyOf(c, layout.figure), 4),
+        c.name === "realized" ? layout.meetsLimit?.[k] ?? "" : c.name === "realized-geometry" ? layout.drawnMeetsLimit?.[k] ?? "" : "",
+        ...(layout.drawn
+          ? c.name === "realized-geometry" && p.homogenization ? [num(p.homogenization.difference), num(p.homogenization.differenceUncertainty, 4)] : ["", ""]
+          : []),
       ].join(","));
     }
   }

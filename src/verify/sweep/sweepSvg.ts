@@ -2,7 +2,8 @@
  * verify-sweep.svg: the sweep's figure of merit against frequency, one line per case (markers at
  * the solved frequencies; hollow markers where the figure is not converged), axes with ticks and
  * units, a legend, the limit the realized device is held to (dashed) and the band where it holds
- * (shaded). Pure: returns the SVG text.
+ * (shaded); the drawn realized case's band, where it was swept, as a bar along the top of the plot.
+ * Pure: returns the SVG text.
  */
 import type { SweepBand } from "./sweepBand.js";
 import type { SweepFigure } from "./sweepSummary.js";
@@ -15,7 +16,7 @@ export interface SweepSeries {
   converged: (boolean | null)[];
 }
 
-const COLOURS: Record<string, string> = { bare: "#7a7a7a", ideal: "#2166ac", reduced: "#1b9e77", realized: "#d95f02" };
+const COLOURS: Record<string, string> = { flat: "#b0b0b0", bare: "#7a7a7a", ideal: "#2166ac", reduced: "#1b9e77", realized: "#d95f02", "realized-geometry": "#7b3294" };
 const esc = (s: string): string => s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;");
 const num = (v: number): string => Number(v.toFixed(2)).toString();
 
@@ -47,7 +48,7 @@ function edgeRanges(band: SweepBand): [number, number][] {
   return [band.lowRangeHz, band.highRangeHz].filter((r): r is [number, number] => r !== null && r[1] > r[0]);
 }
 
-export function sweepSvg(frequenciesHz: readonly number[], series: readonly SweepSeries[], figure: SweepFigure, band: SweepBand | null, title: string, subtitle = ""): string {
+export function sweepSvg(frequenciesHz: readonly number[], series: readonly SweepSeries[], figure: SweepFigure, band: SweepBand | null, title: string, subtitle = "", drawnBand: SweepBand | null = null): string {
   const W = 720, H = 456, left = 78, right = 170, top = 64, bottom = 58;
   const pw = W - left - right, ph = H - top - bottom;
   const f0 = frequenciesHz[0], f1 = frequenciesHz[frequenciesHz.length - 1];
@@ -80,6 +81,11 @@ export function sweepSvg(frequenciesHz: readonly number[], series: readonly Swee
       const ra = X(r[0]), rb = X(r[1]);
       out.push(`<rect x="${num(ra)}" y="${top}" width="${num(Math.max(1, rb - ra))}" height="${ph}" fill="#999" fill-opacity="0.25"/>`);
     }
+  }
+  const drawnBar = drawnBand && drawnBand.lowHz !== null && drawnBand.highHz !== null;
+  if (drawnBar) {
+    const a = X(drawnBand.lowHz!), b = X(drawnBand.highHz!);
+    out.push(`<rect x="${num(a)}" y="${top + 1}" width="${num(Math.max(1, b - a))}" height="6" fill="${COLOURS["realized-geometry"]}" fill-opacity="0.55"/>`);
   }
   // axes, ticks, grid
   out.push(`<g stroke="#e4e4e4">`);
@@ -137,6 +143,10 @@ export function sweepSvg(frequenciesHz: readonly number[], series: readonly Swee
       out.push(`<rect x="${lx}" y="${ly - 7}" width="22" height="14" fill="#999" fill-opacity="0.4"/><text x="${lx + 28}" y="${ly}" dominant-baseline="middle">edge range (uncertainty)</text>`);
       ly += 20;
     }
+  }
+  if (drawnBar) {
+    out.push(`<rect x="${lx}" y="${ly - 3}" width="22" height="6" fill="${COLOURS["realized-geometry"]}" fill-opacity="0.55"/><text x="${lx + 28}" y="${ly}" dominant-baseline="middle">band (drawn)</text>`);
+    ly += 20;
   }
   out.push(`<circle cx="${lx + 11}" cy="${ly}" r="3" fill="white" stroke="#333"/><text x="${lx + 28}" y="${ly}" dominant-baseline="middle">not converged</text>`);
   out.push(`</svg>`);

@@ -14,7 +14,7 @@ const fs = [8e9, 8.5e9, 9e9, 9.5e9, 10e9];
 
 function figures(name: SweepCaseFigures["name"], vsBare: number, u: number | null, converged: boolean | null): SweepCaseFigures {
   return {
-    name, available: true, reason: null, scatteringWidthM: vsBare * 0.1, scatteringWidthUncertaintyM: u === null ? null : u * 0.1, absorptionWidthM: 0,
+    name, method: "fdfd", available: true, reason: null, scatteringWidthM: vsBare * 0.1, scatteringWidthUncertaintyM: u === null ? null : u * 0.1, absorptionWidthM: 0,
     vsBare, vsBareUncertainty: u, deliveredPower: null, deliveredPowerUncertainty: null, deviationDeg: null, uncertainty: u === null ? null : u / Math.max(vsBare, 1), converged,
   };
 }
@@ -22,7 +22,7 @@ function figures(name: SweepCaseFigures["name"], vsBare: number, u: number | nul
 function points(realized: number[], uReal: (number | null)[], conv: (boolean | null)[]): SweepPoint[] {
   // given out of order: the summary sorts them
   return [4, 0, 3, 1, 2].map((k) => ({
-    frequencyHz: fs[k], ground: false, resolutions: [12, 17, 24], grid: { nx: 10, ny: 10, stepM: 1e-3 }, notes: [],
+    frequencyHz: fs[k], method: "fdfd" as const, homogenization: null, ground: false, resolutions: [12, 17, 24], grid: { nx: 10, ny: 10, stepM: 1e-3 }, notes: [],
     cases: [figures("bare", 1, uReal[k] === null ? null : 0, conv[k]), figures("reduced", 0.3, uReal[k] === null ? null : 0.01, conv[k]), figures("realized", realized[k], uReal[k], conv[k])],
   }));
 }

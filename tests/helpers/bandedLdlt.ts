@@ -1,15 +1,20 @@
 /**
- * Complex symmetric banded matrices (A = Aᵀ, not Hermitian) and their factorization A = L D Lᵀ
- * without pivoting, in place. The FDFD operator is complex symmetric (stencil.ts), so this halves
- * the work and memory of a general banded LU (bandedLu.ts): about n·w²/2 complex multiply-adds and
- * 16·n·(w+1) bytes. (Golub & Van Loan, "Matrix Computations", 4th ed., 2013, §4.1.2 and §4.3.6:
+ * Test reference (the solver the sparse nested-dissection solve replaced; src/ no longer uses it):
+ * complex symmetric banded matrices (A = Aᵀ, not Hermitian) and their factorization A = L D Lᵀ
+ * without pivoting, in place: about n·w²/2 complex multiply-adds and 16·n·(w+1) bytes. (Golub & Van Loan, "Matrix Computations", 4th ed., 2013, §4.1.2 and §4.3.6:
  * LDLᵀ is Gaussian elimination that uses the symmetry; for complex symmetric matrices it applies
  * with the plain transpose.) A zero or tiny pivot is reported (`ok: false`), never divided by.
  *
  * Storage: lower band, row r holds columns r − w … r at offsets 0 … w, separate re and im arrays.
  * After factoring, offsets 0 … w−1 hold L (unit diagonal implied) and offset w holds D.
  */
-import type { LuResult } from "./bandedLu.js";
+export interface LuResult {
+  ok: boolean;
+  /** first row whose pivot was tiny (−1 when ok) */
+  badRow: number;
+  /** smallest |pivot| / largest |diagonal entry| seen */
+  pivotRatio: number;
+}
 
 export interface SymBandMatrix {
   n: number;
