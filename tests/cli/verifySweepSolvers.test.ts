@@ -85,6 +85,7 @@ describe("verify --sweep: the solver per case follows --method", () => {
     expect(auto.byName.reduced.scatteringWidthM).toEqual(radial.byName.reduced.scatteringWidthM.slice(1));
     const rows: Record<string, string>[] = parse(readFileSync(join(out, "verify-sweep.csv"), "utf8"), { columns: true });
     expect(rows.map((row) => `${row.case}:${row.method}`)).toEqual(["ideal:radial", "reduced:radial", "realized:fdfd", "ideal:radial", "reduced:radial", "realized:fdfd"]);
+    expect(readFileSync(join(out, "verify-sweep.svg"), "utf8")).toMatch(/design frequency 5\.8 GHz; radial solver: ideal, reduced/);
   }, 120_000);
 });
 

@@ -157,7 +157,10 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
     if (run.outDir !== undefined) {
       const folder = await prepareOutputFolder(resolve(io.cwd, run.outDir), names);
       const hasBare = summary.points[0].cases.some((c) => c.name === "bare" && c.available);
-      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${r0band(summary)}`;
+      // which lines the exact radial solver drew (the others are grid figures)
+      const radialNames = summary.caseNames.filter((n) => summary.points.some((p) => p.cases.some((c) => c.name === n && c.available && c.method === "radial")));
+      const solvers = radialNames.length ? `; radial solver: ${radialNames.join(", ")}` : "";
+      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${solvers}${r0band(summary)}`;
       const files: OutputFile[] = [
         {
           name: SWEEP_CSV,

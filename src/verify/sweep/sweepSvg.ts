@@ -2,7 +2,7 @@
  * verify-sweep.svg: the sweep's figure of merit against frequency, one line per case (markers at
  * the solved frequencies; hollow markers where the figure is not converged), axes with ticks and
  * units, a legend, the limit the realized device is held to (dashed) and the band where it holds
- * (shaded); the drawn realized case's band, where it was swept, as a bar along the top of the plot.
+ * (shaded); the drawn realized case's band, where it was swept, as a bar just above the plot.
  * Pure: returns the SVG text.
  */
 import type { SweepBand } from "./sweepBand.js";
@@ -85,7 +85,8 @@ export function sweepSvg(frequenciesHz: readonly number[], series: readonly Swee
   const drawnBar = drawnBand && drawnBand.lowHz !== null && drawnBand.highHz !== null;
   if (drawnBar) {
     const a = X(drawnBand.lowHz!), b = X(drawnBand.highHz!);
-    out.push(`<rect x="${num(a)}" y="${top + 1}" width="${num(Math.max(1, b - a))}" height="6" fill="${COLOURS["realized-geometry"]}" fill-opacity="0.55"/>`);
+    // just above the plot frame, so it hides no figure near the top of the axis
+    out.push(`<rect x="${num(a)}" y="${top - 9}" width="${num(Math.max(1, b - a))}" height="6" fill="${COLOURS["realized-geometry"]}" fill-opacity="0.55"/>`);
   }
   // axes, ticks, grid
   out.push(`<g stroke="#e4e4e4">`);
