@@ -14,7 +14,7 @@ import type { Candidate, LevelSearch } from "./match/levelCandidates.js";
 import type { EvaluatedMaterial } from "./match/matchContext.js";
 import type { PlanLevel, PlanSettings, TargetComponent } from "./planTypes.js";
 import { relErr } from "./quantize/relativeError.js";
-import { gridMisalignmentRad, misalignedRelError } from "./latticeMisalignment.js";
+import { gridMisalignmentRad, misalignedRelError, standsOnGrid } from "./latticeMisalignment.js";
 import { ROUNDING_TOLERANCE } from "../reduce/reduceCell.js";
 
 export interface FlagInput {
@@ -74,7 +74,7 @@ export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Fl
   const m = comps.length;
   // in-plane components (principal axes 1 and 2): a rect cell's lattice stands along the grid
   const k1 = comps.findIndex((x) => x.axis === "1"), k2 = comps.findIndex((x) => x.axis === "2");
-  const rectLevel = levels.map((lv) => lv.recipe?.lattice === "rect" && k1 >= 0 && k2 >= 0 && inp.axisAngleRad !== undefined);
+  const rectLevel = levels.map((lv) => lv.recipe !== null && lv.recipe !== undefined && standsOnGrid(lv.recipe) && k1 >= 0 && k2 >= 0 && inp.axisAngleRad !== undefined);
   let worstTurn = 0, worstAdded = 0, worstTurnedError = 0, turnedCells = 0;
   for (let c = 0; c < n; c++) {
     let f = 0;
@@ -129,7 +129,7 @@ export function computeFlags(inp: FlagInput): { flags: Uint16Array; relError: Fl
   if (epsLo === Infinity) warnings.push("no dielectric material is allowed at the design frequency");
   if (turnedCells > 0) {
     const deg = Number(((worstTurn * 180) / Math.PI).toPrecision(3));
-    warnings.push(`${turnedCells} rect-lattice cells stand with their lattice axes along the grid, up to ${deg}° from their target's principal axes; rel_error includes the turned tensor (adds up to ${Number((worstAdded * 100).toPrecision(3))} %, to ${Number((worstTurnedError * 100).toPrecision(3))} %)`);
+    warnings.push(`${turnedCells} rect-lattice or in-plane laminate cells stand with their lattice axes or layers along the grid, up to ${deg}° from their target's principal axes; rel_error includes the turned tensor (adds up to ${Number((worstAdded * 100).toPrecision(3))} %, to ${Number((worstTurnedError * 100).toPrecision(3))} %)`);
   }
   return { flags, relError, zeroTargetAbsError, warnings };
 }

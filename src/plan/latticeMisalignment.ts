@@ -19,7 +19,19 @@
  * tolerance 8 → 2, mean error 5.2 → 4.9 %, largest 14.2 → 14.9 %: quantization against an isotropic
  * recipe). Square and hex recipes are isotropic in the plane at long wavelengths (e₁ = e₂), so
  * turning them changes nothing.
+ *
+ * Laminates whose layer normal lies in the plane (orientation "1" or "2") are snapped the same
+ * way: the layout (layoutShapes.ts) draws the layers with their normal along the grid axis nearer
+ * the principal axis it stands for, which is turned from it by the same δ (the two principal axes
+ * are perpendicular, and so are the grid's). Their tensor diag(e₁, e₂) is as anisotropic as a
+ * laminate gets (Wiener's bounds), so a turn costs them more than a rect tiling; counted the same
+ * way since session 6.
  */
+
+/** True for a recipe the layout stands on the grid axes: a rect lattice, or a laminate with its layer normal in the plane. */
+export function standsOnGrid(r: { family: string; lattice?: string | null; orientation?: string | null }): boolean {
+  return r.lattice === "rect" || (r.family === "laminate" && (r.orientation === "1" || r.orientation === "2"));
+}
 
 /** Angle (rad, 0…π/4) between principal axis 1 (at axisRad + π/2; axisRad is axis 2's angle) and the grid axis nearer it. */
 export function gridMisalignmentRad(axisRad: number): number {

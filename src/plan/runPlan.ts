@@ -199,9 +199,10 @@ export function planFromField(
     cellCounts[level[c]]++;
     if (quantizationError[c] > maxQ[level[c]]) maxQ[level[c]] = quantizationError[c];
   }
-  // rect lattices stand on the grid: each level's largest turn of its cells' principal axes from it
+  // rect lattices and in-plane laminates stand on the grid: each level's largest turn of its cells'
+  // principal axes from it
   const turnRad = new Float64Array(q.centres.length);
-  if (settings.lattice === "rect") {
+  if (settings.lattice === "rect" || families.some((f) => f.id === "laminate")) {
     for (let c = 0; c < n; c++) {
       if (level[c] < 0) continue;
       const d = gridMisalignmentRad(axisAngleRad[c]);

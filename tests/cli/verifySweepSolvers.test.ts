@@ -9,11 +9,11 @@
  * (Balanis, "Advanced Engineering Electromagnetics", 2nd ed., 2012, §11.5; cylinderSeries.ts).
  * Against them the grid's figures are checked with the grid's own claims: a figure's stated
  * uncertainty (grid convergence index, richardson.ts) and, for a figure marked converged, the
- * accuracy asked. Measured here (session 6): the concentrator's reduced map at --accuracy 5 % lies
- * 0.7 %, 2.4 % and 0.8 % from the exact width at 5.4, 5.8 and 6.2 GHz — within the accuracy asked,
- * but 5.0, 0.20 and 0.09 times the grid's stated uncertainty, so the stated uncertainty is checked
- * only where it held at every frequency (the bare conductor, the ideal maps) and the reduced map
- * against the accuracy; the GCI's occasional understatement is reported in DEVELOPERS.md.
+ * accuracy asked. Measured here (session 6, with the safety factor 3 where the observed order is
+ * off the nominal): the largest |grid − exact| / stated uncertainty is 0.91 for the reduced cloak
+ * and 0.2 for the concentrator at --accuracy 5 %. (With Fs = 1.25 everywhere the concentrator's
+ * reduced map was 5 times its stated uncertainty off at 5.4 GHz, and the reduced cloak 2.8 to 9
+ * times at --accuracy 10 %.)
  */
 import { describe, expect, it } from "vitest";
 import { readFileSync, writeFileSync } from "node:fs";
@@ -39,7 +39,7 @@ const sweepOf = async (args: string[]) => {
 };
 
 describe("verify --sweep: the solver per case follows --method", () => {
-  it("a radial cloak: auto and radial solve every case radially; the grid's bare conductor agrees with them and with the series within its stated uncertainty", async () => {
+  it("a radial cloak: auto and radial solve every case radially; on the grid every case agrees with them (and the bare conductor with the series) within its stated uncertainty", async () => {
     const band = "9 GHz..9.8 GHz:2";
     const auto = await sweepOf([CLOAK, "--scheme", "unit-mu", "--sweep", band, "--json"]);
     expect(auto.s.method).toBe("radial");
@@ -48,7 +48,7 @@ describe("verify --sweep: the solver per case follows --method", () => {
     expect(auto.s.estimate.radialSeconds).toBeGreaterThan(0);
     const radial = await sweepOf([CLOAK, "--scheme", "unit-mu", "--method", "radial", "--sweep", band, "--json"]);
     for (const name of ["bare", "ideal", "reduced"]) expect(radial.byName[name].scatteringWidthM).toEqual(auto.byName[name].scatteringWidthM);
-    const grid = await sweepOf([CLOAK, "--scheme", "unit-mu", "--method", "fdfd", "--accuracy", "10%", "--sweep", band, "--json"]);
+    const grid = await sweepOf([CLOAK, "--scheme", "unit-mu", "--method", "fdfd", "--accuracy", "5%", "--sweep", band, "--json"]);
     expect(grid.s.method).toBe("fdfd");
     expect(grid.byName.bare.method).toEqual(["fdfd", "fdfd"]);
     expect(grid.s.estimate.radialSeconds).toBe(0);
@@ -56,13 +56,15 @@ describe("verify --sweep: the solver per case follows --method", () => {
       // PEC cylinder, a = 20 mm, Ez (Balanis 2012, §11.5)
       const series = seriesScatteringWidth(cylinderSeries({ polarization: "Ez", k0: (2 * Math.PI * f) / C0, radiusM: 0.02, background: { eps: 1, mu: 1 }, interior: { kind: "pec" } }));
       expectClose(radial.byName.bare.scatteringWidthM[k]!, series, { rel: 1e-8, label: `radial bare at ${f / 1e9} GHz against the series` });
-      const u = grid.byName.bare.scatteringWidthUncertaintyM[k]!;
-      expect(u).toBeGreaterThan(0);
-      expect(Math.abs(grid.byName.bare.scatteringWidthM[k]! - series), `grid bare at ${f / 1e9} GHz within its uncertainty ${u}`).toBeLessThanOrEqual(u);
+      for (const name of ["bare", "ideal", "reduced"]) {
+        const g = grid.byName[name], u = g.scatteringWidthUncertaintyM[k]!;
+        expect(u, `${name} at ${f / 1e9} GHz`).toBeGreaterThan(0);
+        expect(Math.abs(g.scatteringWidthM[k]! - radial.byName[name].scatteringWidthM[k]!), `grid ${name} at ${f / 1e9} GHz within its uncertainty ${u}`).toBeLessThanOrEqual(u);
+      }
     }
-  }, 120_000);
+  }, 240_000);
 
-  it("a concentrator: radial and grid sweeps agree — ideal within the grid's stated uncertainty, every converged figure within the accuracy asked; auto mixes the solvers and says so per case", async () => {
+  it("a concentrator: radial and grid sweeps agree within the grid's stated uncertainty, every converged figure within the accuracy asked; auto mixes the solvers and says so per case", async () => {
     const band = "5.4 GHz..6.2 GHz:3";
     const radial = await sweepOf([CONC, "--method", "radial", "--sweep", band, "--json"]);
     expect(radial.byName.realized.available).toBe(false);
@@ -73,8 +75,8 @@ describe("verify --sweep: the solver per case follows --method", () => {
       const g = grid.byName.ideal, x = radial.byName.ideal;
       expect(Math.abs(g.scatteringWidthM[k]! - x.scatteringWidthM[k]!), `ideal at point ${k}`).toBeLessThanOrEqual(g.scatteringWidthUncertaintyM[k]!);
       const gr = grid.byName.reduced, xr = radial.byName.reduced;
-      expect(gr.converged[k]).toBe(true);
-      expect(Math.abs(gr.scatteringWidthM[k]! - xr.scatteringWidthM[k]!) / xr.scatteringWidthM[k]!, `reduced at point ${k}`).toBeLessThanOrEqual(0.05);
+      expect(Math.abs(gr.scatteringWidthM[k]! - xr.scatteringWidthM[k]!), `reduced at point ${k}`).toBeLessThanOrEqual(gr.scatteringWidthUncertaintyM[k]!);
+      if (gr.converged[k]) expect(Math.abs(gr.scatteringWidthM[k]! - xr.scatteringWidthM[k]!) / xr.scatteringWidthM[k]!, `reduced at point ${k}`).toBeLessThanOrEqual(0.05);
     }
     const out = join(cli.dir, "conc-auto");
     const auto = await sweepOf([CONC, "--accuracy", "5%", "--drawn-time", "0", "--sweep", "5.8 GHz..6.2 GHz:2", "--json", "--out", out]);

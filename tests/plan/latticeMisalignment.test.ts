@@ -60,11 +60,11 @@ describe("rect plans turned from the grid (tests/plan/fixtures/rect-holes-turned
     };
     const straight = await run("tests/io/layout-fixtures/rect-holes.json");
     expect(straight.verdict.buildable).toBe(true);
-    expect(straight.warnings.join("\n")).not.toContain("rect-lattice cells stand");
+    expect(straight.warnings.join("\n")).not.toContain("cells stand with their lattice axes");
     const turned = await run("tests/plan/fixtures/rect-holes-turned-20.json");
     // measured: 10 cells, adds up to 4.65 % (to 10.3 %), inside the 12 % tolerance
     expect(turned.verdict.buildable).toBe(true);
-    expect(turned.warnings.join("\n")).toMatch(/rect-lattice cells stand with their lattice axes along the grid, up to 20° from their target's principal axes/);
+    expect(turned.warnings.join("\n")).toMatch(/rect-lattice or in-plane laminate cells stand with their lattice axes or layers along the grid, up to 20° from their target's principal axes/);
     let checked = 0, added = 0;
     const levelTurn = new Float64Array(turned.levels.length);
     for (let c = 0; c < turned.grid.count; c++) {
@@ -94,4 +94,36 @@ describe("rect plans turned from the grid (tests/plan/fixtures/rect-holes-turned
     expect(turned30.levels.every((lv) => !lv.recipe || lv.recipe.aspect === 1)).toBe(true);
     expect(turned30.verdict.missed.map((m) => m.what)).toContain("tolerance");
   }, 240_000);
+});
+
+describe("in-plane laminates turned from the grid (tests/plan/fixtures/laminate-turned-20.json)", () => {
+  it("the layers stand on the grid axis nearer their principal axis: cells and levels carry the turned tensor's error", async () => {
+    const catalogs = { materials: await loadMaterialCatalog(), processes: await loadProcessCatalog() };
+    const design = await loadDesign("tests/plan/fixtures/laminate-turned-20.json");
+    const plan = planFromField(design, await loadFieldForDesign(design), catalogs, {});
+    expect(plan.warnings.join("\n")).toMatch(/in-plane laminate cells stand with their lattice axes or layers along the grid, up to 20° from their target's principal axes/);
+    const levelTurn = new Float64Array(plan.levels.length);
+    for (let c = 0; c < plan.grid.count; c++) {
+      const l = plan.level[c];
+      if (l >= 0) levelTurn[l] = Math.max(levelTurn[l], gridMisalignmentRad(plan.axisAngleRad[c]));
+    }
+    let checked = 0, turnedDiffers = 0;
+    for (let c = 0; c < plan.grid.count; c++) {
+      const r = plan.levels[plan.level[c]]?.recipe;
+      if (!r || r.family !== "laminate" || (r.orientation !== "1" && r.orientation !== "2")) continue;
+      const d = gridMisalignmentRad(plan.axisAngleRad[c]);
+      const e = misalignedRelError(r.achieved[1], r.achievedIm[1], r.achieved[2], r.achievedIm[2], plan.targets[1][c], plan.targets[2][c], d);
+      expectClose(plan.relError[c], Math.max(e, Math.hypot(r.achieved[0] - plan.targets[0][c], r.achievedIm[0]) / plan.targets[0][c]), { rel: 1e-12, label: `cell ${c}` });
+      if (e !== misalignedRelError(r.achieved[1], r.achievedIm[1], r.achieved[2], r.achievedIm[2], plan.targets[1][c], plan.targets[2][c], 0)) turnedDiffers++;
+      checked++;
+    }
+    expect(checked).toBeGreaterThan(0);
+    expect(turnedDiffers).toBe(checked); // anisotropic layers: the turn changes every such cell's figure
+    for (const [l, lv] of plan.levels.entries()) {
+      const r = lv.recipe;
+      if (!r || r.family !== "laminate" || (r.orientation !== "1" && r.orientation !== "2")) continue;
+      const t = lv.target;
+      expectClose(r.relError, Math.max(misalignedRelError(r.achieved[1], r.achievedIm[1], r.achieved[2], r.achievedIm[2], t[1], t[2], levelTurn[l]), Math.hypot(r.achieved[0] - t[0], r.achievedIm[0]) / t[0]), { rel: 1e-12, label: `level ${lv.index}` });
+    }
+  }, 120_000);
 });

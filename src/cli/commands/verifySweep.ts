@@ -117,7 +117,8 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   const idle = Math.max(1, Math.min(cores, Math.round(cores - loadavg()[0])));
   const memoryPool = planSweepPool(peaks, run.workers ?? idle, budget.budgetBytes, budget.source, baseline);
   if ("refusal" in memoryPool) throw new InputError({ where: "--sweep", message: memoryPool.refusal });
-  const notes = [...run.notes];
+  // notes about drawing the inclusions say nothing when the drawn case is not swept (its reason does)
+  const notes = "reason" in drawnPlan.drawn ? run.notes.filter((n) => !n.startsWith("realized-geometry:")) : [...run.notes];
   if (memoryPool.note) notes.push(memoryPool.note);
   // threads: as many as memory allows when asked for, else from the time estimate (sweepTime.ts)
   // the ladder may add rungs: plan for the most it may add (a needless pool costs a start-up; a

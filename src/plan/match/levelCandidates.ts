@@ -266,10 +266,11 @@ function mixed(
     }
   }
   let { fill, achieved, err } = best;
-  // a rect lattice stands on the grid: where the level's principal axes are turned from it, the
-  // built tensor is turned too (its error as the cells will carry it, at the level's largest angle)
+  // a rect lattice or an in-plane laminate stands on the grid: where the level's principal axes
+  // are turned from it, the built tensor is turned too (its error as the cells will carry it, at
+  // the level's largest angle)
   const k1 = comps.findIndex((c) => c.axis === "1"), k2 = comps.findIndex((c) => c.axis === "2");
-  if (lattice === "rect" && (ctx.turnRad ?? 0) > 1e-12 && k1 >= 0 && k2 >= 0 && target[k1] !== 0 && target[k2] !== 0 && achieved[k1].re !== achieved[k2].re) {
+  if ((lattice === "rect" || (family.id === "laminate" && (o === "1" || o === "2"))) && (ctx.turnRad ?? 0) > 1e-12 && k1 >= 0 && k2 >= 0 && target[k1] !== 0 && target[k2] !== 0 && achieved[k1].re !== achieved[k2].re) {
     const others = comps.map((_, k) => k).filter((k) => k !== k1 && k !== k2);
     const rest = others.length ? largestErrors(others.map((k) => achieved[k].re), others.map((k) => achieved[k].im), others.map((k) => target[k])).rel : 0;
     const turned = misalignedRelError(achieved[k1].re, achieved[k1].im, achieved[k2].re, achieved[k2].im, target[k1], target[k2], ctx.turnRad!);

@@ -228,6 +228,21 @@ function fillRows(r: RowSource, buf: Uint8Array, view: DataView, at: number, fro
   return c;
 }
 
+/** Rows per call of `fillRows`. */
+const ROWS_PER_CALL = 32;
+
+/**
+ * `fillRows` up to `limit`, a few rows per call: the row loop is then compiled once, as a function
+ * between calls, instead of first while one long call runs in the interpreter (on-stack
+ * replacement) and then again as a function — each compilation of it costs about 50 ms of CPU.
+ */
+function fillChunk(r: RowSource, buf: Uint8Array, view: DataView, at: number, from: number, count: number, limit: number, end: Int32Array): number {
+  let c = from;
+  end[0] = at;
+  while (c < count && end[0] < limit) c = fillRows(r, buf, view, end[0], c, Math.min(count, c + ROWS_PER_CALL), limit, end);
+  return c;
+}
+
 /**
  * Calls `emit` with successive chunks of the build list as UTF-8 bytes (whole rows, about
  * `BUILD_LIST_CHUNK_BYTES` each, the header first). A chunk's bytes stay valid until the promise
@@ -297,7 +312,7 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
     return v;
   };
   for (let c = 0; c < g.count;) {
-    c = fillRows(rows, buf, viewOf(buf), at, c, g.count, BUILD_LIST_CHUNK_BYTES, end);
+    c = fillChunk(rows, buf, viewOf(buf), at, c, g.count, BUILD_LIST_CHUNK_BYTES, end);
     at = end[0];
     if (at >= BUILD_LIST_CHUNK_BYTES) await flush();
   }
