@@ -2,7 +2,8 @@
  * levels.csv: one row per level with its target, its recipe and up to three runners-up.
  * Columns: level, cells, regions, target_<c>…, max_quantization_error, family, host, inclusion,
  * lattice, orientation, fill_fraction, achieved_<c>…, rel_error, <dimension>_m…, loss_tangent, model_uncertainty,
- * bandwidth, smallest_feature_m, flags, reasons, runner_up_1, runner_up_2, runner_up_3.
+ * bandwidth, smallest_feature_m, flags, reasons, runner_up_1, runner_up_2, runner_up_3, recipe_notes
+ * (the chosen recipe's notes, e.g. where the solved cell replaced a closed form, joined by "; ").
  */
 import { orientationCode } from "./orientationText.js";
 import type { Plan, Recipe } from "../planTypes.js";
@@ -33,6 +34,7 @@ export function levelsCsvText(plan: Plan): string {
     "rel_error", ...dims.map((d) => unitColumn(d, unit)), "loss_tangent", "model_uncertainty", "bandwidth", `smallest_feature_${unit.suffix}`,
     "flags", "reasons",
     ...Array.from({ length: RUNNERS_UP_SHOWN }, (_, k) => `runner_up_${k + 1}`),
+    "recipe_notes",
   ];
   const regionsPerLevel = new Int32Array(plan.levels.length);
   for (const r of plan.regions) regionsPerLevel[r.level - 1]++;
@@ -53,6 +55,7 @@ export function levelsCsvText(plan: Plan): string {
     }
     row.push([flagList(lv.flags), ...(lv.unresolvable ? ["unresolvable"] : [])].filter(Boolean).join(";"), csvField(lv.reasons.join("; ")));
     for (let k = 0; k < RUNNERS_UP_SHOWN; k++) row.push(lv.runnersUp[k] ? csvField(recipeLabel(lv.runnersUp[k])) : "");
+    row.push(r ? csvField(r.notes.join("; ")) : "");
     lines.push(row.join(","));
   }
   return lines.join("\n") + "\n";
