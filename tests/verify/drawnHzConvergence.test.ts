@@ -13,9 +13,10 @@
  * Order: the scheme is second order in smooth media; Kottke et al. report second order with their
  * average on grids where every field component has its own place. Here, at a curved interface, the
  * measured error is first order with a small constant (about 1.5 %/N at N steps across the radius
- * of an ε 9.6 rod): the cross term's ḡ_y at an x-face is the mean over a 2h × h patch of nodes, not
- * over the face's own h × h box, so the Kottke identity ⟨A∇u⟩ = A_K⟨∇u⟩ holds to O(1) only in a band
- * of width h along the interface (our reading of the remaining first-order term, not proven).
+ * of an ε 9.6 rod). Why it is not second order is not established: ḡ_y at an x-face is the
+ * derivative of the bilinear interpolant averaged over the face's own box, so the boxes agree; a
+ * candidate is that it reads nodes a step above and below the face, across which the field's
+ * gradient jumps where the interface passes between them.
  * Measured before this rule (sampled fractions and normal, A_xy at the cell centres only), placement
  * (0.3, 0.1): the rod 9.1e-3, 3.5e-3, 4.4e-3, 3.7e-3, 3.4e-3 at 4, 6, 8, 12, 16 steps, the hole
  * 2.6e-3, −5.5e-3, −2.7e-3, −9.5e-4, −2.4e-3 (and −7.8e-3 at 12 steps with the disc centred on a
