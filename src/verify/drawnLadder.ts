@@ -18,7 +18,7 @@
  *
  * Cost: each rung's grid is costed with the nested-dissection solver's own estimate (solveCost:
  * memory and factor operations) and the time rates of core/timeEstimate.ts. Rungs are taken in
- * order while they fit the solver's memory, MAX_AUTO_UNKNOWNS and, together, MAX_DRAWN_SECONDS of
+ * order while they fit the solver's memory, MAX_DRAWN_UNKNOWNS and, together, MAX_DRAWN_SECONDS of
  * estimated time; fewer than two rungs and the case is not run, with one line that names the
  * grid, its memory and time estimates and the limits. Pure.
  */
@@ -27,7 +27,7 @@ import { formatDuration, solveSeconds } from "../core/timeEstimate.js";
 import { DEFAULT_SOLVER_BYTES, formatBytes, solveCost } from "./assemble.js";
 import type { FdfdGrid } from "./fdfdGrid.js";
 import { formatLength } from "./formatQuantity.js";
-import { DEFAULT_ACCURACY, ladderGrids, ladderStart, MAX_AUTO_UNKNOWNS } from "./ladderGrids.js";
+import { DEFAULT_ACCURACY, ladderGrids, ladderStart } from "./ladderGrids.js";
 import type { CaseSpec, VerifyInput } from "./verifyDevice.js";
 
 /** Grid steps across the smallest drawn feature on each rung (coarsest first). */
@@ -41,6 +41,15 @@ export function drawnStepFeature(smallestFeatureM: number, pitchM: number): numb
 export const DRAWN_MIN_RUNGS = 2;
 /** Estimated seconds (one idle core) the check spends on the drawn case. */
 export const MAX_DRAWN_SECONDS = 300;
+/**
+ * Largest drawn grid the check solves on its own: 2 × 10⁶ nodes (the grid ladder's own cap is
+ * 1.2 × 10⁶). The drawn case has only three rungs and needs the third for an observed order; at
+ * 1.2 × 10⁶ the silicon bend's third rung (1203 × 1203 = 1.45 × 10⁶ nodes) was refused and its
+ * figure stayed "not converged" (+0.107 ± 0.034); with it, +0.106 ± 0.013 in 2 min 24 s and
+ * 2.4 GB peak (measured in session 6). Time stays bounded by MAX_DRAWN_SECONDS, memory by the
+ * solver's limit.
+ */
+export const MAX_DRAWN_UNKNOWNS = 2e6;
 
 export interface DrawnRung {
   /** steps across the smallest feature */
@@ -70,7 +79,7 @@ export function drawnLadderPlan(input: VerifyInput, realized: CaseSpec, drawn: C
   const resolution = input.resolution ?? ladderStart(input.accuracy ?? DEFAULT_ACCURACY);
   const bytesLimit = limits.bytes ?? input.solverBytes ?? DEFAULT_SOLVER_BYTES;
   const secondsLimit = limits.seconds ?? MAX_DRAWN_SECONDS;
-  const unknownsLimit = limits.unknowns ?? MAX_AUTO_UNKNOWNS;
+  const unknownsLimit = limits.unknowns ?? MAX_DRAWN_UNKNOWNS;
   const gridAt = (stepsAcross: number, scale = 1): FdfdGrid => ladderGrids({
     polarization: input.polarization, background: input.background, frequencyHz: input.frequencyHz, deviceBox: input.deviceBox, groundYM: input.groundYM,
     resolution, accuracy: input.accuracy ?? DEFAULT_ACCURACY, marginM, maxStepM: (featureM * scale) / stepsAcross, caseIndexHints: [realized.indexHint, drawn.indexHint],
