@@ -78,6 +78,18 @@ describe("verify command", () => {
   });
 });
 
+describe("verify notes", () => {
+  it("human output prints each note once (in the table, not again on stderr); --json puts them in the JSON and on stderr", async () => {
+    const h = await run([CLOAK, "--method", "fdfd", "--resolution", "8"]);
+    expect(h.code, h.err).toBe(0);
+    expect(h.out).toMatch(/^  note: single grid \(--resolution\): no convergence ladder/m);
+    expect(h.err).not.toMatch(/note: single grid/);
+    const j = await run([CLOAK, "--method", "fdfd", "--resolution", "8", "--json"]);
+    expect(JSON.parse(j.out).notes.join("\n")).toMatch(/single grid \(--resolution\)/);
+    expect(j.err).toMatch(/note: single grid/);
+  }, 60_000);
+});
+
 describe("verify --method auto (the default)", () => {
   it("the cylindrical cloak demo goes to the exact radial solver: no grid, the bare mast equals the PEC series (Balanis, Advanced Engineering Electromagnetics, 2nd ed. 2012, §11.5)", async () => {
     const r = await run([CLOAK, "--json"]);

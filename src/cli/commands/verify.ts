@@ -358,7 +358,8 @@ export const command: Command = {
       },
     });
     result.notes.unshift(...built.notes);
-    for (const note of result.notes) io.stderr(`note: ${note}\n`);
+    // with --json the notes also go to stderr (the JSON holds them too); the human table prints them itself
+    if (json) for (const note of result.notes) io.stderr(`note: ${note}\n`);
     const outputs: string[] = [];
     const outDir = stringOption(args, "out");
     if (outDir !== undefined && result.grid) {

@@ -178,7 +178,8 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   });
   if (ran.interrupted) return EXIT_INTERRUPTED;
   const { result, outputs, threads } = ran.value;
-  for (const note of result.notes) io.stderr(`note: ${note}\n`);
+  // with --json the notes also go to stderr (the JSON holds them too); the human table prints them itself
+  if (run.json) for (const note of result.notes) io.stderr(`note: ${note}\n`);
   const sweep = { ...sweepJson(result, run.threshold), workers: pool.workers, threads };
   const ladder = context.resolution !== undefined ? `one grid at ${context.resolution} points per wavelength` : `grid ladder per frequency, accuracy ${Number(((context.accuracy ?? 0.02) * 100).toPrecision(3))} %`;
   const methods = [...new Set(result.points.map((p) => p.method))];
