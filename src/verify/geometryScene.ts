@@ -345,7 +345,7 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
   }
   if (rectCells) {
     const rectLevels = plan.levels.flatMap((lv, l) => (tiles[l] && used[l] ? [`${lv.index} (${tiles[l]!.m} × ${tiles[l]!.n})`] : []));
-    notes.push(`realized-geometry: rect-lattice recipes (levels ${rectLevels.join(", ")} per cell) are drawn m × n discs per cell with the lattice axes along the grid axes nearer the cells' principal axes, as the layout files draw them: ${rectDiscs} discs in ${rectCells} cells; largest turn from the principal axes ${Number(((maxTurn * 180) / Math.PI).toPrecision(3))}° (the homogenized map keeps the cells' own axes)`);
+    notes.push(`realized-geometry: rect-lattice recipes (levels ${rectLevels.join(", ")} per cell) are drawn m × n discs per cell with the lattice axes along the grid axes nearer the cells' principal axes, as the layout files draw them: ${rectDiscs} discs in ${rectCells} cells; largest turn from the principal axes ${Number(((maxTurn * 180) / Math.PI).toPrecision(3))}° (the homogenized realized map stands on the same axes)`);
   }
   return { ok: true, scene, smallestFeatureM: feature, indexHint: index, notes };
 }
