@@ -24,6 +24,7 @@ import { sweepDrawnPlan } from "../../verify/sweep/sweepDrawn.js";
 import { MAX_DRAWN_SECONDS } from "../../verify/drawnLadder.js";
 import { DEFAULT_SOLVER_BYTES } from "../../verify/assemble.js";
 import type { SweepContext } from "../../verify/sweep/sweepPoint.js";
+import { backgroundAt } from "../../verify/sweep/backgroundAtFrequency.js";
 import { summarizeSweep, sweepJson, sweepSeries, sweepTable } from "../../verify/sweep/sweepSummary.js";
 import { sweepSvg } from "../../verify/sweep/sweepSvg.js";
 import type { CliIo } from "../cliIo.js";
@@ -120,6 +121,12 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   // notes about drawing the inclusions say nothing when the drawn case is not swept (its reason does)
   const notes = "reason" in drawnPlan.drawn ? run.notes.filter((n) => !n.startsWith("realized-geometry:")) : [...run.notes];
   if (memoryPool.note) notes.push(memoryPool.note);
+  // a background material followed beyond its model's valid range: said, not refused (as the recipes' materials)
+  const bgd = run.context.backgroundDispersion;
+  if (bgd) {
+    const outside = frequencies.filter((f) => !backgroundAt(bgd, run.context.catalog, f).inRange);
+    if (outside.length) notes.push(`background: '${bgd.materialId}' is outside the valid range of its dispersion model at ${outside.map((f) => formatFrequency(f)).join(", ")}: its values there are extrapolated`);
+  }
   // threads: as many as memory allows when asked for, else from the time estimate (sweepTime.ts)
   // the ladder may add rungs: plan for the most it may add (a needless pool costs a start-up; a
   // missing one up to half the time), and warn on that figure as the one-frequency check does
@@ -151,7 +158,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
       workers: pool.workers, signal, formatHz: formatFrequency, designPath: run.designPath, cwd: io.cwd,
       onDone: (done, total, f) => progress(`sweep: ${done} of ${total} done (${formatFrequency(f)})`),
     });
-    const summary = summarizeSweep(pooled.points, { designFrequencyHz: run.designFrequencyHz, threshold: run.threshold, beam: context.illumination.kind === "beam" });
+    const summary = summarizeSweep(pooled.points, { designFrequencyHz: run.designFrequencyHz, threshold: run.threshold, beam: context.illumination.kind === "beam", backgroundMaterial: context.backgroundDispersion?.materialId ?? null });
     summary.notes = [...new Set([...notes, ...summary.notes])];
     if (pooled.threads === 0 && pool.workers > 1) summary.notes.push("the worker file is not built (running from the sources): frequencies were solved one after the other");
     let written: string[] = [];
@@ -161,13 +168,15 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
       // which lines the exact radial solver drew (the others are grid figures)
       const radialNames = summary.caseNames.filter((n) => summary.points.some((p) => p.cases.some((c) => c.name === n && c.available && c.method === "radial")));
       const solvers = radialNames.length ? `; radial solver: ${radialNames.join(", ")}` : "";
-      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${solvers}${r0band(summary)}`;
+      const followed = context.backgroundDispersion ? `; background ${context.backgroundDispersion.materialId} (its dispersion followed)` : "";
+      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${solvers}${followed}${r0band(summary)}`;
       const files: OutputFile[] = [
         {
           name: SWEEP_CSV,
           produce: (write) => write(sweepCsvText(summary.points, {
             hasBare, beam: context.illumination.kind === "beam", figure: summary.figure, meetsLimit: summary.band?.meetsLimit ?? null,
             drawn: summary.points.some((p) => p.homogenization !== null), drawnMeetsLimit: summary.drawnBand?.meetsLimit ?? null,
+            background: context.backgroundDispersion !== undefined,
           })),
         },
         { name: SWEEP_SVG, produce: (write) => write(sweepSvg(summary.frequenciesHz, sweepSeries(summary), summary.figure, summary.band, run.designName, subtitle, summary.drawnBand)) },

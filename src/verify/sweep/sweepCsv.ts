@@ -11,7 +11,10 @@
  * when the band's limit is within the figure's uncertainty; empty on other rows; sweepBand.ts);
  * when the drawn case was swept, last homogenization_difference and homogenization_uncertainty
  * (realized-geometry rows: (σ_geometry − σ_realized)/σ_bare, or over the larger width without a
- * bare object, on the drawn case's own grids, and its absolute uncertainty; empty elsewhere).
+ * bare object, on the drawn case's own grids, and its absolute uncertainty; empty elsewhere); when
+ * the design names a background material, last background_eps (the relative permittivity of the
+ * background every case stood in at that frequency: the material's dispersion followed,
+ * backgroundAtFrequency.ts).
  * A field that does not apply is empty (a single grid has no uncertainty); never NaN or Infinity.
  */
 import { csvField, fmt } from "../../plan/outputs/csvText.js";
@@ -30,6 +33,8 @@ export interface SweepCsvLayout {
   drawnMeetsLimit?: readonly (LimitVerdict | null)[] | null;
   /** the drawn realized case was computed at some frequency: add the homogenization columns */
   drawn?: boolean;
+  /** the design names a background material: add background_eps */
+  background?: boolean;
 }
 
 /** Column names for a layout, in order. */
@@ -40,6 +45,7 @@ export function sweepCsvColumns(layout: SweepCsvLayout): string[] {
     ...(layout.beam ? ["delivered_power", "deviation_deg"] : []),
     "uncertainty", "converged", "figure_uncertainty", "meets_limit",
     ...(layout.drawn ? ["homogenization_difference", "homogenization_uncertainty"] : []),
+    ...(layout.background ? ["background_eps"] : []),
   ];
 }
 
@@ -61,6 +67,7 @@ export function sweepCsvText(points: readonly SweepPoint[], layout: SweepCsvLayo
         ...(layout.drawn
           ? c.name === "realized-geometry" && p.homogenization ? [num(p.homogenization.difference), num(p.homogenization.differenceUncertainty, 4)] : ["", ""]
           : []),
+        ...(layout.background ? [num(p.background.eps, 10)] : []),
       ].join(","));
     }
   }
