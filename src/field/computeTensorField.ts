@@ -45,7 +45,7 @@ type Derived = Pick<TensorField, "detJ" | "epsPrincipal" | "muPrincipal" | "epsA
 export interface FieldOptions {
   /**
    * "eager" (default): det J, principal values and anisotropy ratios are computed with the
-   * tensors. "lazy": on first read of any of them, by a second pass of the same arithmetic (same
+   * tensors, in the same pass. "lazy": on first read of any of them, by a second pass of the same arithmetic (same
    * values); a plan never reads them, so it never pays their five fresh 8-byte-per-cell arrays.
    */
   derived?: "eager" | "lazy";
@@ -173,6 +173,28 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     return 0;
   };
 
+  /** Fresh arrays for det J, the principal values and the anisotropy ratios of every cell. */
+  const allocateDerived = (): Derived => {
+    const epsPrincipal: [Float64Array, Float64Array, Float64Array] = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
+    const epsAnisotropy = new Float64Array(n);
+    return {
+      detJ: new Float64Array(n),
+      epsPrincipal,
+      muPrincipal: sameMaterial ? epsPrincipal : [new Float64Array(n), new Float64Array(n), new Float64Array(n)],
+      epsAnisotropy,
+      muAnisotropy: sameMaterial ? epsAnisotropy : new Float64Array(n),
+    };
+  };
+  // eager: the derived arrays are written in the same pass as the tensors (one evaluation per
+  // cell); lazy: a second pass on first read. A one-cell stand-in keeps the loop's stores
+  // monomorphic when lazy (they go to index 0 of it, never read).
+  const eager = options.derived !== "lazy";
+  const out = eager ? allocateDerived() : null;
+  const stand = new Float64Array(1);
+  const dDet = out ? out.detJ : stand, dE0 = out ? out.epsPrincipal[0] : stand, dE1 = out ? out.epsPrincipal[1] : stand;
+  const dE2 = out ? out.epsPrincipal[2] : stand, dEa = out ? out.epsAnisotropy : stand;
+  const dM0 = out && !sameMaterial ? out.muPrincipal[0] : stand, dM1 = out && !sameMaterial ? out.muPrincipal[1] : stand;
+  const dM2 = out && !sameMaterial ? out.muPrincipal[2] : stand, dMa = out && !sameMaterial ? out.muAnisotropy : stand;
   const bad: BadCell[] = [];
   let badCount = 0, overflowCount = 0, firstOverflow = -1;
   // hoisted array references: the hot loop touches only locals
@@ -197,6 +219,15 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
       if (!planar) { mxz[c] = tm[4]; myz[c] = tm[5]; }
     }
     if (state[1] !== 0) capped[c] = 1;
+    if (eager) {
+      dDet[c] = 1 / state[0];
+      dE0[c] = ve[0]; dE1[c] = ve[1]; dE2[c] = ve[2];
+      dEa[c] = ve[2] / ve[0];
+      if (!sameMaterial) {
+        dM0[c] = vm[0]; dM1[c] = vm[1]; dM2[c] = vm[2];
+        dMa[c] = vm[2] / vm[0];
+      }
+    }
   }
   if (badCount > 0) {
     const where = spec.kind === "expression" ? `${file}: $.transform.virtual` : `${file}: $.transform`;
@@ -212,13 +243,11 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
     });
   }
 
-  /** det J, principal values and anisotropy ratios of every cell (a second pass when lazy). */
+  /** det J, principal values and anisotropy ratios of every cell: the lazy path's second pass. */
   const derive = (): Derived => {
-    const detJ = new Float64Array(n);
-    const epsPrincipal: [Float64Array, Float64Array, Float64Array] = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
-    const muPrincipal: [Float64Array, Float64Array, Float64Array] = sameMaterial ? epsPrincipal : [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
-    const epsAnisotropy = new Float64Array(n), muAnisotropy = sameMaterial ? epsAnisotropy : new Float64Array(n);
-    const [ep0, ep1, ep2] = epsPrincipal, [mp0, mp1, mp2] = muPrincipal;
+    const d = allocateDerived();
+    const { detJ, epsAnisotropy, muAnisotropy } = d;
+    const [ep0, ep1, ep2] = d.epsPrincipal, [mp0, mp1, mp2] = d.muPrincipal;
     for (let c = 0; c < n; c++) {
       evaluate(c); // 0 for every cell: the first pass threw otherwise
       detJ[c] = 1 / state[0];
@@ -229,9 +258,9 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
         muAnisotropy[c] = vm[2] / vm[0];
       }
     }
-    return { detJ, epsPrincipal, muPrincipal, epsAnisotropy, muAnisotropy };
+    return d;
   };
-  let derived: Derived | null = options.derived === "lazy" ? null : derive();
+  let derived: Derived | null = out;
   const get = (): Derived => (derived ??= derive());
   return {
     source: spec.kind,

@@ -70,7 +70,7 @@ export interface RadialScattering {
   aIm: Float64Array;
   scatteringWidthM: number;
   extinctionWidthM: number;
-  /** extinction − scattering (≈ 0 for lossless devices) */
+  /** extinction − scattering; exactly 0 where the difference is within what the two widths are known to (lossless devices) */
   absorptionWidthM: number;
   /** bistatic width σ(φ) at φ = 2π p / patternPoints */
   patternAnglesRad: Float64Array;
@@ -257,12 +257,18 @@ export function radialScattering(p: RadialProblem): RadialScattering {
     angles[q] = phi;
     pattern[q] = (4 / k) * (sRe * sRe + sIm * sIm);
   }
+  // σ_abs = σ_ext − σ_s cancels for a lossless device: a difference within what the two widths
+  // are known to (the tolerance check's change, and never below 1e-12 of them for the sums'
+  // rounding) is no absorption, reported as 0 rather than as ±1e-19 m of noise
+  const relativeChange = sigma > 0 ? Math.abs(sigma - fine) / sigma : Math.abs(sigma - fine);
+  const absorbed = ext - sigma;
+  const absorbedResolution = Math.max(relativeChange, 1e-12) * Math.max(Math.abs(ext), sigma);
   return {
     k, order: orders,
     aRe: Float64Array.from(res, (o) => o.aRe), aIm: Float64Array.from(res, (o) => o.aIm),
-    scatteringWidthM: sigma, extinctionWidthM: ext, absorptionWidthM: ext - sigma,
+    scatteringWidthM: sigma, extinctionWidthM: ext, absorptionWidthM: Math.abs(absorbed) <= absorbedResolution ? 0 : absorbed,
     patternAnglesRad: angles, patternWidthM: pattern,
-    convergence: { tolerance: tol, relativeChange: sigma > 0 ? Math.abs(sigma - fine) / sigma : Math.abs(sigma - fine), tail, maxSteps: Math.max(...res.map((o) => o.steps)) },
+    convergence: { tolerance: tol, relativeChange, tail, maxSteps: Math.max(...res.map((o) => o.steps)) },
   };
 }
 

@@ -38,6 +38,23 @@ describe("radial solver", () => {
     });
   }
 
+  it("absorption: exactly 0 for a lossless shell (not ±1e-19 m of cancellation noise), σ_ext − σ_s > 0 for a lossy one", () => {
+    for (const pol of ["Ez", "Hz"] as const) {
+      for (const ka of [1, Math.PI, 2 * Math.PI]) {
+        const r = ka / k0;
+        const lossless = radialScattering({ polarization: pol, k0, background: vacuum, coreRadiusM: 0.4 * r, core: { kind: "pec" }, shells: [homogeneousShell(pol, 0.4 * r, r, 3, 1.5)] });
+        expect(Object.is(lossless.absorptionWidthM, 0), `${pol} ka=${ka}: ${lossless.absorptionWidthM}`).toBe(true);
+      }
+      // a lossy shell (Im b = 0.1 Re b: loss tangent 0.1 of ε_z in Ez, of μ_z in Hz): absorbed width well above the resolution
+      const lossy = radialScattering({
+        polarization: pol, k0, background: vacuum, coreRadiusM: 0.1, core: { kind: "pec" },
+        shells: [{ innerRadiusM: 0.1, outerRadiusM: 0.3, sample: (_r, o) => { o[0] = 3; o[1] = 0.3; o[2] = 1; o[3] = 0; o[4] = 1; o[5] = 0; } }],
+      });
+      expect(lossy.absorptionWidthM).toBeGreaterThan(1e-3 * lossy.scatteringWidthM);
+      expectClose(lossy.absorptionWidthM, lossy.extinctionWidthM - lossy.scatteringWidthM, { rel: 1e-12, label: `${pol} lossy σ_abs` });
+    }
+  });
+
   it("the bistatic pattern integrates to the total width, is symmetric (φ ↔ −φ) and peaks forward for a large cylinder", () => {
     const s = radialScattering({ polarization: "Ez", k0, background: vacuum, coreRadiusM: 0.8, core: { kind: "pec" }, shells: [], patternPoints: 720 });
     let mean = 0;

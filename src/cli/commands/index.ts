@@ -14,5 +14,5 @@ export const COMMANDS: Record<string, { summary: string; load: () => Promise<Com
   mix: { summary: "effective permittivity of a two-phase mixture, or the fill fraction for a target", load: () => import("./mix.js").then((m) => m.command) },
   cell: { summary: "design one unit cell: dimensions, effective ε or μ, process and homogenization checks", load: () => import("./cell.js").then((m) => m.command) },
   plan: { summary: "plan a device: levels, recipes, flags, build list, report and maps", load: () => import("./plan.js").then((m) => m.command) },
-  verify: { summary: "2D full-wave check: ideal vs reduced vs realized material maps under a plane wave", load: () => import("./verify.js").then((m) => m.command) },
+  verify: { summary: "2D full-wave check: ideal, reduced, realized and drawn devices, with uncertainties", load: () => import("./verify.js").then((m) => m.command) },
 };

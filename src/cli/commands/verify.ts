@@ -210,13 +210,17 @@ export function defaultGroundWaist(deviceWidthM: number, angleRad: number, lambd
 
 export const command: Command = {
   name: "verify",
-  summary: "2D full-wave check: bare, ideal, reduced and realized devices, converged figures with uncertainties",
+  summary: "2D full-wave check: ideal, reduced, realized and drawn devices, with uncertainties",
   usage: "verify <design.json> [--polarization Ez|Hz] [--scheme NAME] [--accuracy P | --resolution N] [--angle DEG] [--beam 'WAIST[, OFFSET[, SHIFT]]'] [--scene ground|free] [--margin L] [--drawn-time T] [--method auto|fdfd|radial] [--sweep 'START..STOP:COUNT' [--threshold T] [--workers N]] [--json] [--out DIR]",
   details: [
-    "Solves each case with a frequency-domain finite-difference solver (PML on all sides): the bare",
-    "hidden object of a cloak (a perfect conductor), the ideal device (scheme full) and the reduced one",
-    "(the chosen scheme), both sampled from the continuous map at the solver's own points, and the",
-    "realized device (the plan's levels as built, with their loss) when the design has a realization.",
+    "Solves each case with a frequency-domain finite-difference solver (PML on all sides), or, for",
+    "devices whose tensors depend on the radius only (cloaks, concentrators), exactly per angular",
+    "order (--method): the bare hidden object of a cloak (a perfect conductor), the ideal device",
+    "(scheme full) and the reduced one (the chosen scheme), both sampled from the continuous map at",
+    "the solver's own points, and the realized device (the plan's levels as built, with their loss)",
+    "when the design has a realization; where the recipes' inclusions can be drawn in 2D (rods and",
+    "holes along z, in-plane laminates), also the drawn structure (realized-geometry), whose",
+    "difference from the homogenized one is the plan's homogenization error.",
     "By default a ladder of grids is solved and every figure is extrapolated with an uncertainty;",
     "figures whose uncertainty exceeds --accuracy are marked 'not converged' (exit code 2).",
     "A carpet design (quasi-conformal, only the bottom side replaced by a bump) stands on a perfectly",

@@ -11,7 +11,9 @@
  * when the band's limit is within the figure's uncertainty; empty on other rows; sweepBand.ts);
  * when the drawn case was swept, last homogenization_difference and homogenization_uncertainty
  * (realized-geometry rows: (σ_geometry − σ_realized)/σ_bare, or over the larger width without a
- * bare object, on the drawn case's own grids, and its absolute uncertainty; empty elsewhere); when
+ * bare object, on the drawn case's own grids, and its absolute uncertainty; empty elsewhere), and
+ * for a beam then homogenization_delivered_difference and homogenization_delivered_uncertainty
+ * (the drawn structure's delivered share minus the homogenized map's, on the same grids); when
  * the design names a background material, last background_eps (the relative permittivity of the
  * background every case stood in at that frequency: the material's dispersion followed,
  * backgroundAtFrequency.ts).
@@ -45,6 +47,7 @@ export function sweepCsvColumns(layout: SweepCsvLayout): string[] {
     ...(layout.beam ? ["delivered_power", "deviation_deg"] : []),
     "uncertainty", "converged", "figure_uncertainty", "meets_limit",
     ...(layout.drawn ? ["homogenization_difference", "homogenization_uncertainty"] : []),
+    ...(layout.drawn && layout.beam ? ["homogenization_delivered_difference", "homogenization_delivered_uncertainty"] : []),
     ...(layout.background ? ["background_eps"] : []),
   ];
 }
@@ -66,6 +69,11 @@ export function sweepCsvText(points: readonly SweepPoint[], layout: SweepCsvLayo
         c.name === "realized" ? layout.meetsLimit?.[k] ?? "" : c.name === "realized-geometry" ? layout.drawnMeetsLimit?.[k] ?? "" : "",
         ...(layout.drawn
           ? c.name === "realized-geometry" && p.homogenization ? [num(p.homogenization.difference), num(p.homogenization.differenceUncertainty, 4)] : ["", ""]
+          : []),
+        ...(layout.drawn && layout.beam
+          ? c.name === "realized-geometry" && p.homogenization
+            ? [num(p.homogenization.deliveredPowerDifference), num(p.homogenization.deliveredPowerDifferenceUncertainty, 4)]
+            : ["", ""]
           : []),
         ...(layout.background ? [num(p.background.eps, 10)] : []),
       ].join(","));

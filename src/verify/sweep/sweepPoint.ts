@@ -93,6 +93,8 @@ export interface SweepHomogenization {
   relative: number | null;
   /** beams: delivered share of the drawn structure minus the homogenized map's (null otherwise) */
   deliveredPowerDifference: number | null;
+  /** its absolute uncertainty (null: not a beam, or a single grid) */
+  deliveredPowerDifferenceUncertainty: number | null;
   /** the difference's uncertainty within the accuracy (null: a single grid) */
   converged: boolean | null;
   /** grid steps across the smallest drawn feature on each rung */
@@ -170,7 +172,7 @@ export function solveSweepPoint(ctx: SweepContext, frequencyHz: number, onProgre
     homogenization: e && Number.isFinite(e.difference)
       ? {
         difference: e.difference, differenceUncertainty: fin(e.differenceUncertainty), differenceScale: e.differenceScale,
-        relative: fin(e.relative), deliveredPowerDifference: fin(e.deliveredPowerDifference), converged: e.converged, stepsAcrossFeature: e.stepsAcrossFeature,
+        relative: fin(e.relative), deliveredPowerDifference: fin(e.deliveredPowerDifference), deliveredPowerDifferenceUncertainty: fin(e.deliveredPowerDifferenceUncertainty), converged: e.converged, stepsAcrossFeature: e.stepsAcrossFeature,
       }
       : null,
     resolutions: r.resolutions,

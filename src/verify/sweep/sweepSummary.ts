@@ -131,6 +131,7 @@ export function sweepJson(r: SweepResult, threshold: number): Record<string, unk
         differenceUncertainty: r.points.map((p) => p.homogenization?.differenceUncertainty ?? null),
         relative: r.points.map((p) => p.homogenization?.relative ?? null),
         deliveredPowerDifference: r.points.map((p) => p.homogenization?.deliveredPowerDifference ?? null),
+        deliveredPowerDifferenceUncertainty: r.points.map((p) => p.homogenization?.deliveredPowerDifferenceUncertainty ?? null),
         converged: r.points.map((p) => p.homogenization?.converged ?? null),
         stepsAcrossFeature: r.points.map((p) => p.homogenization?.stepsAcrossFeature ?? null),
       }

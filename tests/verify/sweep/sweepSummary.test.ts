@@ -64,4 +64,33 @@ describe("sweep summary with uncertainties", () => {
     const rows: Record<string, string>[] = parse(sweepCsvText(r.points, { hasBare: true, beam: false, figure: r.figure, meetsLimit: r.band!.meetsLimit }), { columns: true });
     expect(rows.every((row) => row.figure_uncertainty === "")).toBe(true);
   });
+
+  it("a beam's drawn case: the delivered-share homogenization difference and its uncertainty in CSV (realized-geometry rows) and JSON", () => {
+    const beamCase = (name: SweepCaseFigures["name"], share: number): SweepCaseFigures => ({
+      name, method: "fdfd", available: true, reason: null, scatteringWidthM: 0.02, scatteringWidthUncertaintyM: 1e-4, absorptionWidthM: 0,
+      vsBare: null, vsBareUncertainty: null, deliveredPower: share, deliveredPowerUncertainty: 0.002, deviationDeg: 1, uncertainty: 0.005, converged: true,
+    });
+    const pts: SweepPoint[] = fs.slice(0, 2).map((f, k) => ({
+      frequencyHz: f, method: "fdfd" as const, ground: false, resolutions: [12, 17, 24], grid: { nx: 10, ny: 10, stepM: 1e-3 }, background: { eps: 1, mu: 1 }, backgroundLossTangent: null, notes: [],
+      homogenization: {
+        difference: 0.03 + k, differenceUncertainty: 0.001, differenceScale: "larger-width" as const, relative: 0.05,
+        deliveredPowerDifference: -0.0125 - k, deliveredPowerDifferenceUncertainty: 0.0025, converged: true, stepsAcrossFeature: [2, 3, 4.5],
+      },
+      cases: [beamCase("reduced", 0.9), beamCase("realized", 0.85), beamCase("realized-geometry", 0.84)],
+    }));
+    const r = summarizeSweep(pts, { designFrequencyHz: 8e9, threshold: 2, beam: true });
+    const layout = { hasBare: false, beam: true, figure: r.figure, meetsLimit: null, drawn: true };
+    const text = sweepCsvText(r.points, layout);
+    const header = text.split("\n")[0].split(",");
+    expect(header.slice(-4)).toEqual(["homogenization_difference", "homogenization_uncertainty", "homogenization_delivered_difference", "homogenization_delivered_uncertainty"]);
+    const rows: Record<string, string>[] = parse(text, { columns: true });
+    const drawn = rows.filter((row) => row.case === "realized-geometry");
+    expect(drawn.map((row) => Number(row.homogenization_delivered_difference))).toEqual([-0.0125, -1.0125]);
+    expect(drawn.map((row) => Number(row.homogenization_delivered_uncertainty))).toEqual([0.0025, 0.0025]);
+    expect(rows.filter((row) => row.case !== "realized-geometry").every((row) => row.homogenization_delivered_difference === "" && row.homogenization_delivered_uncertainty === "")).toBe(true);
+    for (const row of rows) expect(Object.keys(row).length).toBe(header.length);
+    const json = sweepJson(r, 2) as unknown as { homogenization: { deliveredPowerDifference: number[]; deliveredPowerDifferenceUncertainty: number[] } };
+    expect(json.homogenization.deliveredPowerDifference).toEqual([-0.0125, -1.0125]);
+    expect(json.homogenization.deliveredPowerDifferenceUncertainty).toEqual([0.0025, 0.0025]);
+  });
 });
