@@ -175,6 +175,15 @@ interface RunFigures {
   imagePower: number | null;
 }
 
+/**
+ * Why a device `sizeM` across cannot be checked at a background wavelength `lambdaBM` (null: it
+ * can): below SMALLEST_DEVICE_WAVELENGTHS of a wavelength the field does not see it.
+ */
+export function deviceScaleProblem(sizeM: number, lambdaBM: number): string | null {
+  if (sizeM >= SMALLEST_DEVICE_WAVELENGTHS * lambdaBM) return null;
+  return `the device is ${fmt(sizeM)} m across, ${(sizeM / lambdaBM).toPrecision(2)} of the wavelength in the background (${fmt(lambdaBM)} m): below 1/${Math.round(1 / SMALLEST_DEVICE_WAVELENGTHS)} of a wavelength a full-wave check shows nothing; check the frequency and the device size`;
+}
+
 /** Run the check (see file comment). Throws InputError for bad options, a device too small, or a grid too large. */
 export function verifyDevice(input: VerifyInput): VerifyResult {
   const { polarization, background, frequencyHz, cases } = input;
@@ -187,12 +196,8 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   const lambda0 = C0 / frequencyHz, lambdaB = lambda0 / nb;
   const box = input.deviceBox;
   const size = Math.max(box.maxX - box.minX, box.maxY - box.minY);
-  if (!(size >= SMALLEST_DEVICE_WAVELENGTHS * lambdaB)) {
-    throw new InputError({
-      where: "frequency",
-      message: `the device is ${fmt(size)} m across, ${(size / lambdaB).toPrecision(2)} of the wavelength in the background (${fmt(lambdaB)} m): below 1/${Math.round(1 / SMALLEST_DEVICE_WAVELENGTHS)} of a wavelength a full-wave check shows nothing; check the frequency and the device size`,
-    });
-  }
+  const tooSmall = deviceScaleProblem(size, lambdaB);
+  if (tooSmall !== null) throw new InputError({ where: "frequency", message: tooSmall });
   const marginM = input.marginM ?? lambdaB / 2;
   if (!(marginM >= 0 && Number.isFinite(marginM))) throw new InputError({ where: "--margin", message: `expected a length ≥ 0, got ${marginM}` });
   const ladder = ladderGrids({

@@ -292,4 +292,19 @@ describe("found by the generated cases", () => {
     expect(r.err).toContain("$.reduction.scheme: expected one of");
     expect(r.err).toContain("got nothing (the key is missing)");
   });
+
+  it("verify --sweep far below the device's scale (1 Hz) is an input error at --sweep, as the single check refuses it (was exit 3: grid ordering)", async () => {
+    const r = await ok(["verify", put("sweep-cloak.json", demo("field-radial-cloak.json")), "--resolution", "6", "--sweep", "1 Hz..2 Hz:2"]);
+    expect(r.code, r.err).toBe(1);
+    expect(r.err).toContain("--sweep: at 1 Hz, the device is");
+    expect(r.err).toContain("below 1/100 of a wavelength");
+  });
+
+  it("verify --sweep at absurd frequencies (10⁹ THz) is refused by the memory estimate with a finite figure (was exit 3: grid ordering)", async () => {
+    for (const band of ["1000 THz..2000 THz:2", "1e9 THz..2e9 THz:2"]) {
+      const r = await ok(["verify", put("sweep-cloak.json", demo("field-radial-cloak.json")), "--resolution", "6", "--sweep", band]);
+      expect(r.code, r.err).toBe(1);
+      expect(r.err).toMatch(/--sweep: at .* THz one solve of the check needs about [\d.e+]+ GB/);
+    }
+  });
 });
