@@ -22,7 +22,10 @@ const byKind = new Map<string, number>();
 const exits = new Map<number, number>();
 let failed = 0;
 const started = Date.now();
-// --verify: only `verify` with random options (about a second a case; the other kinds take milliseconds)
+// --verify: only `verify` with random options (about 0.1 s a case; the other kinds take milliseconds).
+// A bare number is metres, so a margin of "2" legitimately asks for a 1300² grid and 3 minutes: the
+// memory limit keeps such cases to their refusal (the path under test) unless the caller set one
+if (values.verify && !process.env.CELLWRIGHT_MEMORY_LIMIT) process.env.CELLWRIGHT_MEMORY_LIMIT = "200 MB";
 const samples = fc.sample(values.verify ? verifyArgsCase : fuzzCase, { numRuns: cases, seed });
 for (let k = 0; k < samples.length; k++) {
   const c = samples[k];
