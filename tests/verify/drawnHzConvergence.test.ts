@@ -13,10 +13,10 @@
  * Order: the scheme is second order in smooth media; Kottke et al. report second order with their
  * average on grids where every field component has its own place. Here, at a curved interface, the
  * measured error is first order with a small constant (about 1.5 %/N at N steps across the radius
- * of an ε 9.6 rod). Why it is not second order is not established: ḡ_y at an x-face is the
- * derivative of the bilinear interpolant averaged over the face's own box, so the boxes agree; a
- * candidate is that it reads nodes a step above and below the face, across which the field's
- * gradient jumps where the interface passes between them.
+ * of an ε 9.6 rod). Why (measured in session 7, DEVELOPERS.md "Accuracy of the drawing"): the
+ * scheme is exact for a planar interface along a grid axis but not for an oblique one — its residual
+ * on the exact piecewise-linear field carries a mean dipole layer (about 0.016 h·sin²2θ for ε 9.6),
+ * which acts as an interface shifted by a fixed share of h: a first-order error of one sign.
  * Measured before this rule (sampled fractions and normal, A_xy at the cell centres only), placement
  * (0.3, 0.1): the rod 9.1e-3, 3.5e-3, 4.4e-3, 3.7e-3, 3.4e-3 at 4, 6, 8, 12, 16 steps, the hole
  * 2.6e-3, −5.5e-3, −2.7e-3, −9.5e-4, −2.4e-3 (and −7.8e-3 at 12 steps with the disc centred on a
