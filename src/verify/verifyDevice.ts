@@ -77,6 +77,8 @@ export interface VerifyInput {
   pattern?: boolean;
   /** memory one solve may use, bytes (default DEFAULT_SOLVER_BYTES; the sweep gives each worker its share) */
   solverBytes?: number;
+  /** where `solverBytes` comes from, for a refusal (e.g. "CELLWRIGHT_MEMORY_LIMIT less the 60 MB the command holds") */
+  solverBytesSource?: string;
   onProgress?: (step: string, fraction: number) => void;
   /** told once, before the first solve: estimated seconds of the planned solves and what they are */
   onEstimate?: (seconds: number, what: string) => void;
@@ -209,7 +211,7 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   const refuse = (res: number, g: FdfdGrid, over: string): never => {
     throw new InputError({
       where: input.resolution !== undefined ? "--resolution" : "--accuracy",
-      message: `the grid for ${res} points per wavelength in the densest material (index ${nMax.toPrecision(3)}) is ${g.nx} × ${g.ny} nodes, step ${fmt(g.h)} m, which needs ${over}; ${largestFitting(makeGrid, res, solverBytes)}`,
+      message: `the grid for ${res} points per wavelength in the densest material (index ${nMax.toPrecision(3)}) is ${g.nx} × ${g.ny} nodes, step ${fmt(g.h)} m, which needs ${over}${input.solverBytesSource ? ` (${input.solverBytesSource})` : ""}; ${largestFitting(makeGrid, res, solverBytes)}`,
     });
   };
   const rungs: Rung[] = [];
@@ -313,7 +315,7 @@ function largestFitting(makeGrid: (res: number) => FdfdGrid, res: number, limitB
   for (let tries = 0; tries < 12 && r >= MIN_RESOLUTION; tries++, r = Math.floor(r * 0.93)) {
     if (gridFits(makeGrid(r), limitBytes).ok) return `the largest resolution that fits is about ${r} points per wavelength (or give a smaller --margin)`;
   }
-  return `even ${MIN_RESOLUTION} points per wavelength do not fit: the device is too large for the 2D check on this machine`;
+  return `even ${MIN_RESOLUTION} points per wavelength do not fit: the device and its margin are too large for the 2D check in this memory (give a smaller --margin, or more memory)`;
 }
 
 /** Re T(φ_inc): the real part of the forward far-field amplitude, for the optical theorem. */

@@ -307,4 +307,19 @@ describe("found by the generated cases", () => {
       expect(r.err).toMatch(/--sweep: at .* THz one solve of the check needs about [\d.e+]+ GB/);
     }
   });
+
+  it("verify honours the memory budget (CELLWRIGHT_MEMORY_LIMIT) for its solver: a 2 m margin's 1308² grid is refused at once (was solved for 3 minutes in 2.8 GB)", async () => {
+    const before = process.env.CELLWRIGHT_MEMORY_LIMIT;
+    process.env.CELLWRIGHT_MEMORY_LIMIT = "200 MB";
+    try {
+      const r = await ok(["verify", put("budget-cloak.json", demo("field-radial-cloak.json")), "--resolution", "6", "--margin", "2"]);
+      expect(r.code, r.err).toBe(1);
+      expect(r.err).toContain("--resolution: the grid for 6 points per wavelength");
+      expect(r.err).toContain("CELLWRIGHT_MEMORY_LIMIT");
+      expect(r.err).toContain("smaller --margin");
+    } finally {
+      if (before === undefined) delete process.env.CELLWRIGHT_MEMORY_LIMIT;
+      else process.env.CELLWRIGHT_MEMORY_LIMIT = before;
+    }
+  });
 });
