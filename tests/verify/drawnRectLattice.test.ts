@@ -114,6 +114,36 @@ describe("rect-lattice recipes drawn as the layout files draw them", () => {
     }
   });
 
+  it("gives a box cut by one rect disc's edge the normal of that disc (Kottke's averaging), and none where two discs' edges cut it", () => {
+    const plan = rectBlock(2 / 3, 0.35, (c) => (c % N < N / 2 ? Math.PI / 2 : 0.2));
+    const d = geometryScene({ plan, materials, polarization: "Hz", background: vacuum, hidden: null });
+    if (!d.ok) throw new Error(d.reason);
+    const r = plan.levels[0].recipe!.dimensions.radius_m, h = r / 20;
+    const out = new Float64Array(BOX_MAX_PARTS * BOX_PART), normal = new Float64Array(2);
+    const polys = planLayout(plan as Plan).levels[0].polygons;
+    let checked = 0;
+    for (const [k, p] of polys.entries()) {
+      if (k % 5) continue;
+      let cx = 0, cy = 0;
+      const nv = p.xy.length / 2;
+      for (let v = 0; v < nv; v++) { cx += p.xy[2 * v] / nv; cy += p.xy[2 * v + 1] / nv; }
+      for (const t of [0.3, 1.9, 3.5, 5.1]) {
+        // a small box centred on the circle: its mean normal is the radial direction there to O(h/r)
+        const bx = cx + r * Math.cos(t), by = cy + r * Math.sin(t);
+        expect(d.scene.boxParts!(bx, by, h, out, normal)).toBe(2);
+        expect(normal[0] * Math.cos(t) + normal[1] * Math.sin(t), `disc at (${cx}, ${cy}), angle ${t}`).toBeGreaterThan(0.999);
+        checked++;
+      }
+    }
+    expect(checked).toBeGreaterThan(100);
+    // a box over the wall between two discs of a cell (2 × 3: rows A/3 apart, wall A/3 − 2r), cut by both edges: no single normal
+    const c0 = 0; // a cell of the left half: axis 1 along x, 2 columns, 3 rows
+    const x0 = plan.grid.xM[c0] - A / 4, y0 = plan.grid.yM[c0] - A / 3; // disc (column 0, row 0)
+    const wall = A / 3 - 2 * r;
+    expect(d.scene.boxParts!(x0, y0 + r + wall / 2, wall + r / 4, out, normal)).toBeGreaterThan(1);
+    expect([normal[0], normal[1]]).toEqual([0, 0]);
+  });
+
   it("refuses a rect recipe whose discs meet, and one without a tiling", () => {
     // fill 0.4 on 2 × 1: r = √(0.4/2π)·A = 0.2523·A, beyond half the A/2 spacing: the two discs of a cell overlap
     const plan = rectBlock(2, 0.4, (c) => (c % 2 ? Math.PI / 2 : 0));
