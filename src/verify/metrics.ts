@@ -21,9 +21,21 @@ export interface NodeBox { i0: number; i1: number; j0: number; j1: number }
 
 /** Outward flux F = Σ Im(ū_in u_out) over the faces leaving the box. */
 export function boxFlux(g: FdfdGrid, box: NodeBox, re: Float64Array, im: Float64Array): number {
+  return fluxSums(g, box, re, im, false);
+}
+
+/** Σ |Im(ū_in u_out)| over the same faces: the scale the flux's rounding is relative to. */
+export function boxFluxMagnitude(g: FdfdGrid, box: NodeBox, re: Float64Array, im: Float64Array): number {
+  return fluxSums(g, box, re, im, true);
+}
+
+function fluxSums(g: FdfdGrid, box: NodeBox, re: Float64Array, im: Float64Array, magnitude: boolean): number {
   const { i0, i1, j0, j1 } = box;
   if (i0 < 1 || j0 < 1 || i1 > g.nx - 2 || j1 > g.ny - 2 || i0 > i1 || j0 > j1) throw new RangeError("boxFlux: box must lie strictly inside the grid");
-  const term = (p: number, q: number): number => re[p] * im[q] - im[p] * re[q]; // Im(conj(u_p) u_q)
+  const term = (p: number, q: number): number => {
+    const t = re[p] * im[q] - im[p] * re[q]; // Im(conj(u_p) u_q)
+    return magnitude ? Math.abs(t) : t;
+  };
   let f = 0;
   for (let j = j0; j <= j1; j++) {
     f += term(i0 + g.nx * j, i0 - 1 + g.nx * j);
@@ -36,10 +48,16 @@ export function boxFlux(g: FdfdGrid, box: NodeBox, re: Float64Array, im: Float64
   return f;
 }
 
+/**
+ * Relative size, against Σ|terms| of the total field's flux, below which a net flux is rounding and
+ * the direct solver's residual (both ~1e-13 here) rather than absorption: reported as 0.
+ */
+export const ABSORPTION_RESOLUTION = 1e-9;
+
 export interface CrossSections {
   /** scattering width, metres */
   scatteringM: number;
-  /** absorption width, metres (negative means net gain inside the contour) */
+  /** absorption width, metres (negative means net gain inside the contour; 0 within ABSORPTION_RESOLUTION of the flux's scale) */
   absorptionM: number;
   extinctionM: number;
   /** incident flux per face, for reference: sin(k̃h) along x */
@@ -52,7 +70,9 @@ export function crossSections(sol: SceneSolution, box: NodeBox): CrossSections {
   const perFace = sol.incidentIntensityPerM * g.h;
   const toM = g.h / perFace;
   const scat = boxFlux(g, box, sol.scatteredRe, sol.scatteredIm) * toM;
-  const abs = -boxFlux(g, box, sol.totalRe, sol.totalIm) * toM;
+  const net = -boxFlux(g, box, sol.totalRe, sol.totalIm);
+  // a lossless scene's net flux is zero but for rounding (±1e-21 m in a CSV says nothing)
+  const abs = Math.abs(net) <= ABSORPTION_RESOLUTION * boxFluxMagnitude(g, box, sol.totalRe, sol.totalIm) ? 0 : net * toM;
   return { scatteringM: scat, absorptionM: abs, extinctionM: scat + abs, incidentPerFace: perFace };
 }
 
