@@ -15,11 +15,12 @@ import { memoryBudget } from "../../io/memoryLimit.js";
 import { checkOutputFolder, prepareOutputFolder, writeOutputSet, type OutputFile } from "../../io/outputSet.js";
 import { parseQuantity } from "../../io/quantity.js";
 import { formatFrequency } from "../../verify/formatQuantity.js";
+import { significant } from "../../core/formatQuantity.js";
 import { planSweepPool, sweepPeakBytes, workerBaselineBytes } from "../../verify/sweep/sweepConcurrency.js";
 import { sweepCsvText } from "../../verify/sweep/sweepCsv.js";
 import { chooseSweepThreads, sweepWallSeconds } from "../../verify/sweep/sweepTime.js";
 import { expectedTimeWarning, formatDuration } from "../../core/timeEstimate.js";
-import { MAX_SWEEP_POINTS, sweepFrequencies } from "../../verify/sweep/sweepFrequencies.js";
+import { MAX_SWEEP_POINTS, sweepFrequencies, sweepFrequencyFormat } from "../../verify/sweep/sweepFrequencies.js";
 import { sweepDrawnPlan } from "../../verify/sweep/sweepDrawn.js";
 import { MAX_DRAWN_SECONDS } from "../../verify/drawnLadder.js";
 import { DEFAULT_SOLVER_BYTES } from "../../verify/assemble.js";
@@ -69,9 +70,9 @@ export function parseThreshold(text: string | undefined): number {
 }
 
 /** ", band 8.48 GHz … 8.51 GHz" for the plot's subtitle (empty without a band). */
-function r0band(r: { band: { lowHz: number | null; highHz: number | null } | null }): string {
-  const b = r.band;
-  return b && b.lowHz !== null && b.highHz !== null ? `; band ${formatFrequency(b.lowHz)} … ${formatFrequency(b.highHz)}` : "";
+function r0band(r: { frequenciesHz: number[]; band: { lowHz: number | null; highHz: number | null } | null }): string {
+  const b = r.band, hz = sweepFrequencyFormat(r.frequenciesHz);
+  return b && b.lowHz !== null && b.highHz !== null ? `; band ${hz(b.lowHz)} … ${hz(b.highHz)}` : "";
 }
 
 export interface SweepRun {
@@ -105,6 +106,7 @@ export function parseWorkers(text: string | undefined): number | undefined {
 export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> {
   const { range } = run;
   const frequencies = sweepFrequencies(range.startHz, range.stopHz, range.count);
+  const fmtHz = sweepFrequencyFormat(frequencies);
   const names = [SWEEP_CSV, SWEEP_SVG];
   // a folder that cannot take the outputs is refused before minutes of solving
   if (run.outDir !== undefined) await checkOutputFolder(resolve(io.cwd, run.outDir), names);
@@ -120,7 +122,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
     const bg = sweepBackground(context, frequencies[0]); // a background material at that frequency
     const lambdaB = C0 / frequencies[0] / Math.sqrt(bg.eps * bg.mu);
     const tooSmall = deviceScaleProblem(Math.max(box.maxX - box.minX, box.maxY - box.minY), lambdaB);
-    if (tooSmall !== null) throw new InputError({ where: "--sweep", message: `at ${formatFrequency(frequencies[0])}, ${tooSmall}` });
+    if (tooSmall !== null) throw new InputError({ where: "--sweep", message: `at ${fmtHz(frequencies[0])}, ${tooSmall}` });
   }
   const peaks = frequencies.map((f) => ({ frequencyHz: f, ...sweepPeakBytes(context, f) }));
   // cores other work keeps busy do not help: without --workers, count only the idle ones (load average)
@@ -135,7 +137,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   const bgd = run.context.backgroundDispersion;
   if (bgd) {
     const outside = frequencies.filter((f) => !backgroundAt(bgd, run.context.catalog, f).inRange);
-    if (outside.length) notes.push(`background: '${bgd.materialId}' is outside the valid range of its dispersion model at ${outside.map((f) => formatFrequency(f)).join(", ")}: its values there are extrapolated`);
+    if (outside.length) notes.push(`background: '${bgd.materialId}' is outside the valid range of its dispersion model at ${outside.map((f) => fmtHz(f)).join(", ")}: its values there are extrapolated`);
   }
   // threads: as many as memory allows when asked for, else from the time estimate (sweepTime.ts)
   // the ladder may add rungs: plan for the most it may add (a needless pool costs a start-up; a
@@ -162,11 +164,11 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   const warnings: string[] = [];
   const warning = expectedTimeWarning(estimate, what);
   if (warning !== null) { warnings.push(warning); io.stderr(`warning: ${warning}\n`); }
-  progress(`sweep: ${frequencies.length} frequenc${frequencies.length === 1 ? "y" : "ies"} from ${formatFrequency(frequencies[0])} to ${formatFrequency(frequencies[frequencies.length - 1])}, ${pool.workers} at a time`);
+  progress(`sweep: ${frequencies.length} frequenc${frequencies.length === 1 ? "y" : "ies"} from ${fmtHz(frequencies[0])} to ${fmtHz(frequencies[frequencies.length - 1])}, ${pool.workers} at a time`);
   const ran = await runInterruptible(io, async (signal) => {
     const pooled = await runSweepPool({ ...context, solverBytes: pool.solverBytes }, frequencies, {
-      workers: pool.workers, signal, formatHz: formatFrequency, designPath: run.designPath, cwd: io.cwd,
-      onDone: (done, total, f) => progress(`sweep: ${done} of ${total} done (${formatFrequency(f)})`),
+      workers: pool.workers, signal, formatHz: fmtHz, designPath: run.designPath, cwd: io.cwd,
+      onDone: (done, total, f) => progress(`sweep: ${done} of ${total} done (${fmtHz(f)})`),
     });
     const summary = summarizeSweep(pooled.points, { designFrequencyHz: run.designFrequencyHz, threshold: run.threshold, beam: context.illumination.kind === "beam", backgroundMaterial: context.backgroundDispersion?.materialId ?? null });
     summary.notes = [...new Set([...notes, ...summary.notes])];
@@ -179,7 +181,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
       const radialNames = summary.caseNames.filter((n) => summary.points.some((p) => p.cases.some((c) => c.name === n && c.available && c.method === "radial")));
       const solvers = radialNames.length ? `; radial solver: ${radialNames.join(", ")}` : "";
       const followed = context.backgroundDispersion ? `; background ${context.backgroundDispersion.materialId} (its dispersion followed)` : "";
-      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${solvers}${followed}${r0band(summary)}`;
+      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz, (v) => significant(v, 6))}${solvers}${followed}${r0band(summary)}`;
       const files: OutputFile[] = [
         {
           name: SWEEP_CSV,
@@ -218,7 +220,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
       outputs,
     })}\n`);
   } else {
-    const header = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}; ${solverText}; ${pool.workers} frequenc${pool.workers === 1 ? "y" : "ies"} at a time`;
+    const header = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz, (v) => significant(v, 6))}; ${solverText}; ${pool.workers} frequenc${pool.workers === 1 ? "y" : "ies"} at a time`;
     io.stdout(sweepTable(run.designName, header, result, run.threshold) + (outputs.length ? `outputs:\n${outputs.map((p) => `  ${p}`).join("\n")}\n` : ""));
   }
   return sweep.converged ? EXIT_OK : EXIT_NOT_BUILDABLE;

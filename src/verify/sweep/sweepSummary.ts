@@ -7,7 +7,8 @@
  * figures are null and `reason` says why. The background each frequency's scenes stood in is listed
  * (`background`: the design's, or its background material's ε at f, backgroundAtFrequency.ts). Pure.
  */
-import { formatFrequency, formatLength } from "../formatQuantity.js";
+import { formatLength } from "../formatQuantity.js";
+import { sweepFrequencyFormat } from "./sweepFrequencies.js";
 import { sweepBand, type FigureSense, type SweepBand } from "./sweepBand.js";
 import type { SweepCaseFigures, SweepPoint } from "./sweepPoint.js";
 import type { SweepSeries } from "./sweepSvg.js";
@@ -151,13 +152,16 @@ export function sweepConverged(r: SweepResult): boolean {
   return r.points.every((p) => p.cases.every((c) => !c.available || c.converged !== false) && p.homogenization?.converged !== false);
 }
 
+/** A frequency of this sweep as text, with the digits that tell its frequencies apart. */
+const hzText = (r: Pick<SweepResult, "frequenciesHz">, hz: number): string => sweepFrequencyFormat(r.frequenciesHz)(hz);
+
 /** Why a case is not computed: everywhere (its reason), at some frequencies (which, and why), or null when computed at all. */
 export function caseReason(r: SweepResult, name: string): string | null {
   const missing = r.points.map((p) => ({ f: p.frequencyHz, c: p.cases.find((c) => c.name === name) })).filter((x) => !x.c || !x.c.available);
   if (missing.length === 0) return null;
   const reasons = [...new Set(missing.map((x) => x.c?.reason ?? "not computed"))];
   if (missing.length === r.points.length && reasons.length === 1) return reasons[0];
-  return reasons.map((why) => `at ${missing.filter((x) => (x.c?.reason ?? "not computed") === why).map((x) => formatFrequency(x.f)).join(", ")}: ${why}`).join("; ");
+  return reasons.map((why) => `at ${missing.filter((x) => (x.c?.reason ?? "not computed") === why).map((x) => hzText(r, x.f)).join(", ")}: ${why}`).join("; ");
 }
 
 function bandJson(b: SweepBand | null, r: SweepResult, threshold: number, noneReason: string): Record<string, unknown> {
@@ -177,12 +181,12 @@ export function bandSentence(r: SweepResult, threshold: number, drawn = false): 
   const b = drawn ? r.drawnBand : r.band;
   const who = drawn ? "drawn realized (realized-geometry)" : "realized";
   if (!b) return drawn ? `no band of the drawn realized case: ${caseReason(r, "realized-geometry") ?? "not swept"}` : `no band: the design has no realized case (threshold ${threshold}×)`;
-  const what = b.sense === "lower-is-better" ? `at most ${fmtFig(b.limit, r.figure)} (${b.threshold}× the reduced design's ${fmtFig(b.reference, r.figure)} at ${formatFrequency(b.centreHz)})` : `at least ${fmtFig(b.limit, r.figure)} (the reduced design's ${fmtFig(b.reference, r.figure)} at ${formatFrequency(b.centreHz)} / ${b.threshold})`;
+  const what = b.sense === "lower-is-better" ? `at most ${fmtFig(b.limit, r.figure)} (${b.threshold}× the reduced design's ${fmtFig(b.reference, r.figure)} at ${hzText(r, b.centreHz)})` : `at least ${fmtFig(b.limit, r.figure)} (the reduced design's ${fmtFig(b.reference, r.figure)} at ${hzText(r, b.centreHz)} / ${b.threshold})`;
   if (b.lowHz === null || b.highHz === null) return `${drawn ? "drawn realized (realized-geometry): " : ""}no band: ${b.reason}; the ${who} ${r.figure.label} must be ${what}`;
   const range = (x: [number, number] | null, conv: boolean | null): string =>
-    (x && x[1] > x[0] ? ` (${formatFrequency(x[0])} … ${formatFrequency(x[1])})` : "") + (conv === false ? " [not converged]" : "");
-  const lo = `${b.openLow ? "≤ " : ""}${formatFrequency(b.lowHz)}${range(b.lowRangeHz, b.lowConverged)}`;
-  const hi = `${b.openHigh ? "≥ " : ""}${formatFrequency(b.highHz)}${range(b.highRangeHz, b.highConverged)}`;
+    (x && x[1] > x[0] ? ` (${hzText(r, x[0])} … ${hzText(r, x[1])})` : "") + (conv === false ? " [not converged]" : "");
+  const lo = `${b.openLow ? "≤ " : ""}${hzText(r, b.lowHz)}${range(b.lowRangeHz, b.lowConverged)}`;
+  const hi = `${b.openHigh ? "≥ " : ""}${hzText(r, b.highHz)}${range(b.highRangeHz, b.highConverged)}`;
   const frac = b.lowHz > 0 ? ` (${Number(((100 * (b.highHz - b.lowHz)) / b.centreHz).toPrecision(3))} % of the centre${b.openLow || b.openHigh ? ", at least" : ""})` : "";
   const ranged = b.lowRangeHz !== null && (b.lowRangeHz[1] > b.lowRangeHz[0] || b.highRangeHz![1] > b.highRangeHz![0]);
   return [
@@ -204,7 +208,7 @@ export function sweepTable(designName: string, header: string, r: SweepResult, t
   const names = sweepSeries(r).map((s) => s.name);
   const head = ["frequency", ...names];
   const rows = r.points.map((p) => [
-    formatFrequency(p.frequencyHz),
+    hzText(r, p.frequencyHz),
     ...names.map((n) => {
       const c = p.cases.find((x) => x.name === n);
       const v = figureOf(c, r.figure);
@@ -240,7 +244,7 @@ export function sweepTable(designName: string, header: string, r: SweepResult, t
     ...(hom ? [`  homogenization Δ: (σ_geometry − σ_realized)/${scale === "bare" ? "σ_bare" : "the larger width"} at each frequency, the drawn structure against its effective-medium map on the same grids`] : []),
     `  ${bandSentence(r, threshold)}`,
     ...(r.caseNames.includes("realized-geometry") && availableAt(r.points, "realized") ? [`  ${bandSentence(r, threshold, true)}`] : []),
-    ...(r.backgroundMaterial !== null ? [`  background ('${r.backgroundMaterial}', followed): Re ε ${r.points.map((p) => `${Number(p.background.eps.toPrecision(6))} at ${formatFrequency(p.frequencyHz)}`).join(", ")}`] : []),
+    ...(r.backgroundMaterial !== null ? [`  background ('${r.backgroundMaterial}', followed): Re ε ${r.points.map((p) => `${Number(p.background.eps.toPrecision(6))} at ${hzText(r, p.frequencyHz)}`).join(", ")}`] : []),
     ...r.notes.map((n) => `  note: ${n}`),
   ].join("\n") + "\n";
 }

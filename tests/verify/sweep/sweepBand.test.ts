@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { sweepBand } from "../../../src/verify/sweep/sweepBand.js";
-import { sweepFrequencies } from "../../../src/verify/sweep/sweepFrequencies.js";
+import { sweepFrequencies, sweepFrequencyFormat } from "../../../src/verify/sweep/sweepFrequencies.js";
 import { expectClose } from "../../helpers/close.js";
 
 const fs = [8e9, 8.5e9, 9e9, 9.5e9, 10e9];
@@ -159,3 +159,17 @@ describe("sweepFrequencies", () => {
     expect(() => sweepFrequencies(8e9, 10e9, 1)).toThrow(RangeError);
   });
 });
+
+describe("sweepFrequencyFormat", () => {
+  it("gives every frequency of a sweep its own text, with no more digits than that takes", () => {
+    const fine = sweepFrequencies(193e12, 194e12, 5); // 193, 193.25, 193.5, 193.75, 194 THz
+    const fmt = sweepFrequencyFormat(fine);
+    expect(fine.map(fmt)).toEqual(["193 THz", "193.25 THz", "193.5 THz", "193.75 THz", "194 THz"]);
+    expect(sweepFrequencies(8e9, 10e9, 21).map(sweepFrequencyFormat(sweepFrequencies(8e9, 10e9, 21))).slice(0, 3)).toEqual(["8 GHz", "8.1 GHz", "8.2 GHz"]);
+    const many = sweepFrequencies(9.4e9, 9.41e9, 11);
+    expect(new Set(many.map(sweepFrequencyFormat(many))).size).toBe(11);
+    // a lone frequency keeps six digits
+    expect(sweepFrequencyFormat([193.45e12])(193.45e12)).toBe("193.45 THz");
+  });
+});
+
