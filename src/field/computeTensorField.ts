@@ -185,16 +185,26 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
       muAnisotropy: sameMaterial ? epsAnisotropy : new Float64Array(n),
     };
   };
+  /** The derived arrays of one field as the loop writes them (μ's are ε's when the materials are one). */
+  interface DerivedTargets { det: Float64Array; e0: Float64Array; e1: Float64Array; e2: Float64Array; ea: Float64Array; m0: Float64Array; m1: Float64Array; m2: Float64Array; ma: Float64Array }
+  const targets = (d: Derived): DerivedTargets => ({
+    det: d.detJ, e0: d.epsPrincipal[0], e1: d.epsPrincipal[1], e2: d.epsPrincipal[2], ea: d.epsAnisotropy,
+    m0: d.muPrincipal[0], m1: d.muPrincipal[1], m2: d.muPrincipal[2], ma: d.muAnisotropy,
+  });
+  /** det J, principal values and anisotropy of the cell `evaluate` last computed, into `t` at c. */
+  const storeDerived = (t: DerivedTargets, c: number): void => {
+    t.det[c] = 1 / state[0];
+    t.e0[c] = ve[0]; t.e1[c] = ve[1]; t.e2[c] = ve[2];
+    t.ea[c] = ve[2] / ve[0];
+    if (!sameMaterial) {
+      t.m0[c] = vm[0]; t.m1[c] = vm[1]; t.m2[c] = vm[2];
+      t.ma[c] = vm[2] / vm[0];
+    }
+  };
   // eager: the derived arrays are written in the same pass as the tensors (one evaluation per
-  // cell); lazy: a second pass on first read. A one-cell stand-in keeps the loop's stores
-  // monomorphic when lazy (they go to index 0 of it, never read).
-  const eager = options.derived !== "lazy";
-  const out = eager ? allocateDerived() : null;
-  const stand = new Float64Array(1);
-  const dDet = out ? out.detJ : stand, dE0 = out ? out.epsPrincipal[0] : stand, dE1 = out ? out.epsPrincipal[1] : stand;
-  const dE2 = out ? out.epsPrincipal[2] : stand, dEa = out ? out.epsAnisotropy : stand;
-  const dM0 = out && !sameMaterial ? out.muPrincipal[0] : stand, dM1 = out && !sameMaterial ? out.muPrincipal[1] : stand;
-  const dM2 = out && !sameMaterial ? out.muPrincipal[2] : stand, dMa = out && !sameMaterial ? out.muAnisotropy : stand;
+  // cell); lazy: by a second pass on first read
+  const out = options.derived !== "lazy" ? allocateDerived() : null;
+  const eagerTargets = out ? targets(out) : null;
   const bad: BadCell[] = [];
   let badCount = 0, overflowCount = 0, firstOverflow = -1;
   // hoisted array references: the hot loop touches only locals
@@ -219,15 +229,7 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
       if (!planar) { mxz[c] = tm[4]; myz[c] = tm[5]; }
     }
     if (state[1] !== 0) capped[c] = 1;
-    if (eager) {
-      dDet[c] = 1 / state[0];
-      dE0[c] = ve[0]; dE1[c] = ve[1]; dE2[c] = ve[2];
-      dEa[c] = ve[2] / ve[0];
-      if (!sameMaterial) {
-        dM0[c] = vm[0]; dM1[c] = vm[1]; dM2[c] = vm[2];
-        dMa[c] = vm[2] / vm[0];
-      }
-    }
+    if (eagerTargets !== null) storeDerived(eagerTargets, c);
   }
   if (badCount > 0) {
     const where = spec.kind === "expression" ? `${file}: $.transform.virtual` : `${file}: $.transform`;
@@ -246,17 +248,10 @@ export function computeTensorField(design: FieldDesign, importedField?: TensorFi
   /** det J, principal values and anisotropy ratios of every cell: the lazy path's second pass. */
   const derive = (): Derived => {
     const d = allocateDerived();
-    const { detJ, epsAnisotropy, muAnisotropy } = d;
-    const [ep0, ep1, ep2] = d.epsPrincipal, [mp0, mp1, mp2] = d.muPrincipal;
+    const t = targets(d);
     for (let c = 0; c < n; c++) {
       evaluate(c); // 0 for every cell: the first pass threw otherwise
-      detJ[c] = 1 / state[0];
-      ep0[c] = ve[0]; ep1[c] = ve[1]; ep2[c] = ve[2];
-      epsAnisotropy[c] = ve[2] / ve[0];
-      if (!sameMaterial) {
-        mp0[c] = vm[0]; mp1[c] = vm[1]; mp2[c] = vm[2];
-        muAnisotropy[c] = vm[2] / vm[0];
-      }
+      storeDerived(t, c);
     }
     return d;
   };

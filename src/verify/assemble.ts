@@ -35,8 +35,24 @@ export interface SolveCost {
   symbolic: SymbolicCost;
 }
 
-/** Memory and work of solving on grid g with the nested-dissection solver (symbolic phase only). */
+/**
+ * Grids of more nodes are not costed front by front: the unknowns' own arrays alone would take
+ * above 100 GB, and the symbolic walk (and the ordering's 2³¹ limit) would cost time for nothing.
+ */
+const COSTED_NODES = 2 ** 28;
+
+/**
+ * Memory and work of solving on grid g with the nested-dissection solver (symbolic phase only).
+ * Above COSTED_NODES a lower bound (the unknowns' arrays and one factor entry per unknown), which
+ * is enough to refuse the grid with a finite figure.
+ */
 export function solveCost(g: FdfdGrid): SolveCost {
+  const nodes = g.nx * g.ny;
+  if (!(nodes <= COSTED_NODES)) {
+    const n = Math.min(nodes, Number.MAX_SAFE_INTEGER);
+    const symbolic: SymbolicCost = { unknowns: n, fronts: 1, factorEntries: n, work: n, largestFront: 1, peakStackEntries: 0, factorBytes: 16 * n, workspaceBytes: 0 };
+    return { megabytes: ((16 + BYTES_PER_UNKNOWN) * n) / 1e6, work: n, unknowns: n, factorEntries: n, symbolic };
+  }
   const s = gridFactorCost(g.nx, g.ny);
   const bytes = s.factorBytes + s.workspaceBytes + BYTES_PER_UNKNOWN * s.unknowns;
   return { megabytes: bytes / 1e6, work: s.work, unknowns: s.unknowns, factorEntries: s.factorEntries, symbolic: s };
@@ -47,8 +63,9 @@ export function gridFits(g: FdfdGrid, limitBytes = DEFAULT_SOLVER_BYTES): boolea
   return solveCost(g).megabytes * 1e6 <= limitBytes;
 }
 
-/** "1.2 GB" / "850 MB" */
+/** "1.2 GB" / "850 MB" / "3.2e+6 GB" (beyond 10⁵ GB: two significant digits) */
 export function formatBytes(bytes: number): string {
+  if (bytes >= 1e14) return `${(bytes / 1e9).toPrecision(2)} GB`;
   return bytes >= 1e9 ? `${(bytes / 1e9).toFixed(1)} GB` : `${Math.max(1, Math.round(bytes / 1e6))} MB`;
 }
 

@@ -77,6 +77,8 @@ export interface VerifyInput {
   pattern?: boolean;
   /** memory one solve may use, bytes (default DEFAULT_SOLVER_BYTES; the sweep gives each worker its share) */
   solverBytes?: number;
+  /** where `solverBytes` comes from, for a refusal (e.g. "CELLWRIGHT_MEMORY_LIMIT less the 60 MB the command holds") */
+  solverBytesSource?: string;
   onProgress?: (step: string, fraction: number) => void;
   /** told once, before the first solve: estimated seconds of the planned solves and what they are */
   onEstimate?: (seconds: number, what: string) => void;
@@ -175,6 +177,15 @@ interface RunFigures {
   imagePower: number | null;
 }
 
+/**
+ * Why a device `sizeM` across cannot be checked at a background wavelength `lambdaBM` (null: it
+ * can): below SMALLEST_DEVICE_WAVELENGTHS of a wavelength the field does not see it.
+ */
+export function deviceScaleProblem(sizeM: number, lambdaBM: number): string | null {
+  if (sizeM >= SMALLEST_DEVICE_WAVELENGTHS * lambdaBM) return null;
+  return `the device is ${fmt(sizeM)} m across, ${(sizeM / lambdaBM).toPrecision(2)} of the wavelength in the background (${fmt(lambdaBM)} m): below 1/${Math.round(1 / SMALLEST_DEVICE_WAVELENGTHS)} of a wavelength a full-wave check shows nothing; check the frequency and the device size`;
+}
+
 /** Run the check (see file comment). Throws InputError for bad options, a device too small, or a grid too large. */
 export function verifyDevice(input: VerifyInput): VerifyResult {
   const { polarization, background, frequencyHz, cases } = input;
@@ -187,12 +198,8 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   const lambda0 = C0 / frequencyHz, lambdaB = lambda0 / nb;
   const box = input.deviceBox;
   const size = Math.max(box.maxX - box.minX, box.maxY - box.minY);
-  if (!(size >= SMALLEST_DEVICE_WAVELENGTHS * lambdaB)) {
-    throw new InputError({
-      where: "frequency",
-      message: `the device is ${fmt(size)} m across, ${(size / lambdaB).toPrecision(2)} of the wavelength in the background (${fmt(lambdaB)} m): below 1/${Math.round(1 / SMALLEST_DEVICE_WAVELENGTHS)} of a wavelength a full-wave check shows nothing; check the frequency and the device size`,
-    });
-  }
+  const tooSmall = deviceScaleProblem(size, lambdaB);
+  if (tooSmall !== null) throw new InputError({ where: "frequency", message: tooSmall });
   const marginM = input.marginM ?? lambdaB / 2;
   if (!(marginM >= 0 && Number.isFinite(marginM))) throw new InputError({ where: "--margin", message: `expected a length ≥ 0, got ${marginM}` });
   const ladder = ladderGrids({
@@ -204,7 +211,7 @@ export function verifyDevice(input: VerifyInput): VerifyResult {
   const refuse = (res: number, g: FdfdGrid, over: string): never => {
     throw new InputError({
       where: input.resolution !== undefined ? "--resolution" : "--accuracy",
-      message: `the grid for ${res} points per wavelength in the densest material (index ${nMax.toPrecision(3)}) is ${g.nx} × ${g.ny} nodes, step ${fmt(g.h)} m, which needs ${over}; ${largestFitting(makeGrid, res, solverBytes)}`,
+      message: `the grid for ${res} points per wavelength in the densest material (index ${nMax.toPrecision(3)}) is ${g.nx} × ${g.ny} nodes, step ${fmt(g.h)} m, which needs ${over}${input.solverBytesSource ? ` (${input.solverBytesSource})` : ""}; ${largestFitting(makeGrid, res, solverBytes)}`,
     });
   };
   const rungs: Rung[] = [];
@@ -308,7 +315,7 @@ function largestFitting(makeGrid: (res: number) => FdfdGrid, res: number, limitB
   for (let tries = 0; tries < 12 && r >= MIN_RESOLUTION; tries++, r = Math.floor(r * 0.93)) {
     if (gridFits(makeGrid(r), limitBytes).ok) return `the largest resolution that fits is about ${r} points per wavelength (or give a smaller --margin)`;
   }
-  return `even ${MIN_RESOLUTION} points per wavelength do not fit: the device is too large for the 2D check on this machine`;
+  return `even ${MIN_RESOLUTION} points per wavelength do not fit: the device and its margin are too large for the 2D check in this memory (give a smaller --margin, or more memory)`;
 }
 
 /** Re T(φ_inc): the real part of the forward far-field amplitude, for the optical theorem. */

@@ -32,7 +32,7 @@ const DEMOS: Record<string, string> = {
 };
 
 export interface FuzzCase {
-  kind: "design" | "json" | "csv" | "args";
+  kind: "design" | "json" | "csv" | "args" | "verify";
   /** files to write into the case folder: name → text */
   files: Record<string, string>;
   /** argv; "@/" is replaced by the case folder */
@@ -191,6 +191,35 @@ const argsCase: fc.Arbitrary<FuzzCase> = fc
     return { kind: "args" as const, files: {}, argv };
   });
 
+const VERIFY_VALUES = fc.constantFrom("", "0", "-1", "1e300", "1e-300", "abc", "3", "6", "12", "0.05", "5%", "50%", "0.5%", "Ez", "Hz", "full", "unit-mu",
+  "isotropic", "non-magnetic", "matched", "auto", "fdfd", "radial", "ground", "free", "20 mm", "1e-30 mm", "1e300 m", "30 deg", "90", "-45", "400",
+  "10 mm, 5 mm", "10 mm, 500 mm", "8 mm, 2 mm, 1 mm", "0 s", "2 s", "10 min", "1e300 s", "9 GHz..10 GHz:2", "10 GHz..9 GHz:2", "1 Hz..2 Hz:2",
+  "9 GHz..10 GHz:1", "9 GHz..10 GHz:1e9", "23 GHz..25 GHz:2", "9..10:2", "1", "2", "@/out");
+
+const VERIFY_OPTIONS = ["--polarization", "--scheme", "--accuracy", "--resolution", "--angle", "--beam", "--scene", "--margin", "--drawn-time", "--method",
+  "--sweep", "--threshold", "--workers", "--json", "--out"];
+
+/**
+ * `verify` with random options on two small field demos (a cloak: radial and grid solvers; a
+ * shifter: beams). `--resolution 6` comes first so a case that parses runs one coarse grid in
+ * about a second; a later `--resolution` or `--accuracy` replaces or conflicts with it.
+ */
+export const verifyArgsCase: fc.Arbitrary<FuzzCase> = fc
+  .tuple(
+    fc.constantFrom("field-radial-cloak.json", "field-beam-shifter.json"),
+    fc.array(fc.tuple(fc.nat(), VERIFY_VALUES, fc.boolean()), { minLength: 0, maxLength: 5 }),
+  )
+  .map(([demo, opts]) => {
+    const argv = ["verify", `@/../demo/${demo}`, "--resolution", "6"];
+    for (const [k, value, joined] of opts) {
+      const name = VERIFY_OPTIONS[k % VERIFY_OPTIONS.length];
+      if (name === "--json") argv.push(name);
+      else if (joined) argv.push(`${name}=${value}`);
+      else argv.push(name, value);
+    }
+    return { kind: "verify" as const, files: {}, argv };
+  });
+
 export const fuzzCase: fc.Arbitrary<FuzzCase> = fc.oneof(
   { weight: 4, arbitrary: designCase },
   { weight: 2, arbitrary: jsonCase },
@@ -209,14 +238,15 @@ function echoedNameRemoved<R extends { out: string; err: string }>(r: R, designT
   return { ...r, out: r.out.replaceAll(name, "<name>"), err: r.err.replaceAll(name, "<name>") };
 }
 
-/** Run one case in a fresh folder; returns the invariant problems (empty: passed). */
-export async function runCase(c: FuzzCase, root: string): Promise<string[]> {
+/** Run one case in a fresh folder; returns the invariant problems (empty: passed). `onExit` hears the exit code. */
+export async function runCase(c: FuzzCase, root: string, onExit?: (code: number) => void): Promise<string[]> {
   const dir = mkdtempSync(join(root, "case-"));
   const demo = join(root, "demo");
   try {
     for (const [name, text] of Object.entries(c.files)) writeFileSync(join(dir, name), text);
     const argv = c.argv.map((a) => a.replace("@/../demo", demo).replace(/@\//g, `${dir}/`));
     const r = echoedNameRemoved(await run(argv, dir), c.files["design.json"]);
+    onExit?.(r.code);
     const out = join(dir, "out");
     const problems = runProblems(r, out, true);
     // files written next to the case (outside out/) after an input error are partial output too

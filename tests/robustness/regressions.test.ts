@@ -292,4 +292,34 @@ describe("found by the generated cases", () => {
     expect(r.err).toContain("$.reduction.scheme: expected one of");
     expect(r.err).toContain("got nothing (the key is missing)");
   });
+
+  it("verify --sweep far below the device's scale (1 Hz) is an input error at --sweep, as the single check refuses it (was exit 3: grid ordering)", async () => {
+    const r = await ok(["verify", put("sweep-cloak.json", demo("field-radial-cloak.json")), "--resolution", "6", "--sweep", "1 Hz..2 Hz:2"]);
+    expect(r.code, r.err).toBe(1);
+    expect(r.err).toContain("--sweep: at 1 Hz, the device is");
+    expect(r.err).toContain("below 1/100 of a wavelength");
+  });
+
+  it("verify --sweep at absurd frequencies (10⁹ THz) is refused by the memory estimate with a finite figure (was exit 3: grid ordering)", async () => {
+    for (const band of ["1000 THz..2000 THz:2", "1e9 THz..2e9 THz:2"]) {
+      const r = await ok(["verify", put("sweep-cloak.json", demo("field-radial-cloak.json")), "--resolution", "6", "--sweep", band]);
+      expect(r.code, r.err).toBe(1);
+      expect(r.err).toMatch(/--sweep: at .* THz one solve of the check needs about [\d.e+]+ GB/);
+    }
+  });
+
+  it("verify honours the memory budget (CELLWRIGHT_MEMORY_LIMIT) for its solver: a 2 m margin's 1308² grid is refused at once (was solved for 3 minutes in 2.8 GB)", async () => {
+    const before = process.env.CELLWRIGHT_MEMORY_LIMIT;
+    process.env.CELLWRIGHT_MEMORY_LIMIT = "200 MB";
+    try {
+      const r = await ok(["verify", put("budget-cloak.json", demo("field-radial-cloak.json")), "--resolution", "6", "--margin", "2"]);
+      expect(r.code, r.err).toBe(1);
+      expect(r.err).toContain("--resolution: the grid for 6 points per wavelength");
+      expect(r.err).toContain("CELLWRIGHT_MEMORY_LIMIT");
+      expect(r.err).toContain("smaller --margin");
+    } finally {
+      if (before === undefined) delete process.env.CELLWRIGHT_MEMORY_LIMIT;
+      else process.env.CELLWRIGHT_MEMORY_LIMIT = before;
+    }
+  });
 });

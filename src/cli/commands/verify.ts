@@ -26,6 +26,9 @@ import { formatFrequency, formatLength } from "../../verify/formatQuantity.js";
 import { formatPoint } from "../../core/formatQuantity.js";
 import type { Illumination } from "../../verify/illumination.js";
 import { DEFAULT_ACCURACY } from "../../verify/verifyDevice.js";
+import { DEFAULT_SOLVER_BYTES, formatBytes } from "../../verify/assemble.js";
+import { workerBaselineBytes } from "../../verify/sweep/sweepConcurrency.js";
+import { memoryBudget } from "../../io/memoryLimit.js";
 import { METHOD_OPTIONS, runCheck, type CheckCase, type CheckResult, type MethodOption } from "../../verify/runCheck.js";
 import { flagOption, stringOption } from "../args.js";
 import { parseSweep, parseThreshold, parseWorkers, runVerifySweep, SWEEP_CSV, SWEEP_SVG } from "./verifySweep.js";
@@ -338,8 +341,16 @@ export const command: Command = {
     let last = "";
     const warnings: string[] = [];
     const gridOption = ["resolution", "margin", "out"].find((o) => stringOption(args, o) !== undefined);
+    // one solve may use the solver's own limit, or less where the machine's budget (or
+    // CELLWRIGHT_MEMORY_LIMIT) minus what the command already holds is smaller
+    const budget = memoryBudget("verify");
+    const heldBytes = workerBaselineBytes(field.grid.count);
+    const solverBytes = Math.max(0, Math.min(DEFAULT_SOLVER_BYTES, budget.budgetBytes - heldBytes));
+    const solverBytesSource = solverBytes < DEFAULT_SOLVER_BYTES
+      ? `the memory budget, ${budget.source}, less about ${formatBytes(heldBytes)} the command holds` : undefined;
     const result = runCheck({
       method, transform: design.transform, gridOption: gridOption && `--${gridOption}`,
+      solverBytes, solverBytesSource,
       polarization: s.polarization,
       background,
       frequencyHz: design.frequencyHz,

@@ -23,7 +23,9 @@ import { MAX_SWEEP_POINTS, sweepFrequencies } from "../../verify/sweep/sweepFreq
 import { sweepDrawnPlan } from "../../verify/sweep/sweepDrawn.js";
 import { MAX_DRAWN_SECONDS } from "../../verify/drawnLadder.js";
 import { DEFAULT_SOLVER_BYTES } from "../../verify/assemble.js";
-import type { SweepContext } from "../../verify/sweep/sweepPoint.js";
+import { sweepCases, type SweepContext } from "../../verify/sweep/sweepPoint.js";
+import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../../core/physicalConstants.js";
+import { deviceScaleProblem } from "../../verify/verifyDevice.js";
 import { summarizeSweep, sweepJson, sweepSeries, sweepTable } from "../../verify/sweep/sweepSummary.js";
 import { sweepSvg } from "../../verify/sweep/sweepSvg.js";
 import type { CliIo } from "../cliIo.js";
@@ -111,6 +113,13 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   // the drawn case: swept at every frequency on a share of --drawn-time, or not at all with the reason
   const drawnPlan = sweepDrawnPlan(run.context, frequencies, run.drawnSeconds ?? MAX_DRAWN_SECONDS, Math.min(DEFAULT_SOLVER_BYTES, budget.budgetBytes - baseline));
   const context: SweepContext = { ...run.context, drawn: drawnPlan.drawn };
+  // the lowest frequency has the longest wavelength: a device too small for it is refused as the single check does
+  {
+    const box = sweepCases(context, frequencies[0]).deviceBox;
+    const lambdaB = C0 / frequencies[0] / Math.sqrt(context.background.eps * context.background.mu);
+    const tooSmall = deviceScaleProblem(Math.max(box.maxX - box.minX, box.maxY - box.minY), lambdaB);
+    if (tooSmall !== null) throw new InputError({ where: "--sweep", message: `at ${formatFrequency(frequencies[0])}, ${tooSmall}` });
+  }
   const peaks = frequencies.map((f) => ({ frequencyHz: f, ...sweepPeakBytes(context, f) }));
   // cores other work keeps busy do not help: without --workers, count only the idle ones (load average)
   const cores = availableParallelism();
