@@ -15,9 +15,13 @@
  *   at their cell centres, hexagonal-lattice ones on the built sites of the hexagonal lattice of
  *   their pitch (src/plan/layout/planHexSites.ts: one site per (√3/2)·a², each with the recipe of
  *   the cell containing it, sites whose share would cross the outline or reach a cell of another
- *   kind left out), so the drawn area fraction is the recipe's fill in both cases — the very sites
- *   the layout files draw. Discs that touch or overlap anywhere are refused (a safeguard: the
- *   sites' edge rule keeps them apart); other lattices (rectangular) are refused by name;
+ *   kind left out), rect-lattice ones (aspect b/a = m/n) as m × n discs per cell, spacing p/m along
+ *   the lattice's x axis and p/n along y, that axis along the grid axis nearer the cell's principal
+ *   axis 1 (src/plan/layout/rectSites.ts: the lattice stands on the grid, as in the layout files;
+ *   plan/latticeMisalignment.ts counts the turn), so the drawn area fraction is the recipe's fill
+ *   in every case — the very sites the layout files draw. Discs that touch or overlap anywhere are
+ *   refused (a safeguard: the sites' edge rule keeps hexagonal discs apart, and a rect disc stays
+ *   in its p/mx × p/my share of the cell unless its own recipe's discs meet);
  * - laminates whose layer normal lies in the plane: one layer of thickness `thickness_m` across the
  *   cell, its normal along x or y (the lattice axis nearer the cell's principal axis, as the layout);
  * - solid cells: the cell square of the material.
@@ -38,6 +42,9 @@ import type { Plan, Recipe } from "../plan/planTypes.js";
 import { diskConductor, type Conductor } from "./conductor.js";
 import { HEX_ROW, builtSiteAt, nearestHexSite, type HexSites } from "../plan/layout/hexSites.js";
 import { droppedSitesNote, planHexSites, type PlanHexSites } from "../plan/layout/planHexSites.js";
+import { rectCellCounts, rectSiteM } from "../plan/layout/rectSites.js";
+import { rectTiling } from "../cells/lattice.js";
+import { gridMisalignmentRad } from "../plan/latticeMisalignment.js";
 import type { DeviceGrid } from "../field/deviceGrid.js";
 import { deviceBounds, latticeLookup, type HiddenDisk } from "./deviceScene.js";
 import { discBoxNormal } from "./discBoxNormal.js";
@@ -104,15 +111,30 @@ const K_NONE = 0, K_SOLID = 1, K_DISC = 2, K_LAYER = 3, K_HEX_DISC = 4;
 
 interface DiscCentres { x: Float64Array; y: Float64Array; cell: Int32Array; hexCount: number }
 
-/** Centres of every drawn disc: square-lattice discs at their cell centres, hexagonal ones on the built sites (planHexSites.ts). */
-function discCentres(g: DeviceGrid, hexSites: PlanHexSites | null, kindOf: Uint8Array): DiscCentres {
+/**
+ * Centres of every drawn disc: square-lattice discs at their cell centres, rect-lattice ones
+ * `cols` × `rows` per cell (rectSites.ts; 1 × 1 for square), hexagonal ones on the built sites
+ * (planHexSites.ts).
+ */
+function discCentres(g: DeviceGrid, hexSites: PlanHexSites | null, kindOf: Uint8Array, cols: Uint8Array, rows: Uint8Array): DiscCentres {
   const hex = hexSites?.sites ?? { xM: new Float64Array(0), yM: new Float64Array(0), cell: new Int32Array(0) };
+  const a = g.pitchM;
   let sq = 0;
-  for (let c = 0; c < g.count; c++) if (kindOf[c] === K_DISC) sq++;
+  for (let c = 0; c < g.count; c++) if (kindOf[c] === K_DISC) sq += cols[c] * rows[c];
   const m = sq + hex.cell.length;
   const out: DiscCentres = { x: new Float64Array(m), y: new Float64Array(m), cell: new Int32Array(m), hexCount: hex.cell.length };
   let k = 0;
-  for (let c = 0; c < g.count; c++) if (kindOf[c] === K_DISC) { out.x[k] = g.xM[c]; out.y[k] = g.yM[c]; out.cell[k++] = c; }
+  for (let c = 0; c < g.count; c++) {
+    if (kindOf[c] !== K_DISC) continue;
+    const cx = g.originXM + g.i[c] * a, cy = g.originYM + g.j[c] * a;
+    for (let q = 0; q < rows[c]; q++) {
+      for (let p = 0; p < cols[c]; p++) {
+        out.x[k] = cols[c] === 1 ? g.xM[c] : rectSiteM(cx, p, cols[c], a);
+        out.y[k] = rows[c] === 1 ? g.yM[c] : rectSiteM(cy, q, rows[c], a);
+        out.cell[k++] = c;
+      }
+    }
+  }
   out.x.set(hex.xM, k); out.y.set(hex.yM, k); out.cell.set(hex.cell, k);
   return out;
 }
@@ -169,6 +191,8 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
   const mat = (id: string): BulkMaterial | undefined => (id === "vacuum" ? materials.get(id) ?? VACUUM : materials.get(id));
   let feature = Infinity, index = 0;
   const hexLevels = new Set<number>();
+  /** per level: the rect tiling (m × n circles per cell), or null */
+  const tiles: ({ m: number; n: number } | null)[] = plan.levels.map(() => null);
   plan.levels.forEach((lv, l) => {
     const r = lv.recipe;
     if (!used[l] || !r) { drawings.push(null); return; }
@@ -182,9 +206,16 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
       index = Math.max(index, Math.sqrt(Math.hypot(m.eps.re, m.eps.im) * Math.hypot(m.mu.re, m.mu.im)));
     }
     if (d.kind === "disc") {
-      if (r.lattice !== "square" && r.lattice !== "hex") { refused.push({ level: lv.index, reason: `a ${r.lattice} lattice is not drawn (square and hexagonal lattices only)` }); drawings.push(null); return; }
-      // the wall to a neighbour of the same level (a − 2r) beside the disc's diameter; mixed neighbours below
-      feature = Math.min(feature, 2 * d.radiusM, a - 2 * d.radiusM);
+      if (r.lattice !== "square" && r.lattice !== "hex" && r.lattice !== "rect") { refused.push({ level: lv.index, reason: `a ${r.lattice} lattice is not drawn (square, hexagonal and rectangular lattices only)` }); drawings.push(null); return; }
+      let spacing = a;
+      if (r.lattice === "rect") {
+        const t = r.aspect !== undefined ? rectTiling(r.aspect) : null;
+        if (!t) { refused.push({ level: lv.index, reason: `rect-lattice recipe without a tiling aspect (${r.aspect})` }); drawings.push(null); return; }
+        tiles[l] = t;
+        spacing = a / Math.max(t.m, t.n); // the shorter of the spacings p/m and p/n
+      }
+      // the wall to a neighbour of the same level (spacing − 2r) beside the disc's diameter; mixed neighbours below
+      feature = Math.min(feature, 2 * d.radiusM, spacing - 2 * d.radiusM);
       if (r.lattice === "hex") hexLevels.add(l);
     } else if (d.kind === "layer") {
       if (d.thicknessM >= a) { refused.push({ level: lv.index, reason: `a layer ${d.thicknessM.toPrecision(3)} m thick fills the ${a.toPrecision(3)} m cell` }); drawings.push(null); return; }
@@ -198,6 +229,10 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
   const n = g.count;
   // per cell: drawing kind code, radius or thickness, normalX, inside and outside material values
   const kindOf = new Uint8Array(n), size = new Float64Array(n), normalX = new Uint8Array(n);
+  // discs per cell along grid x and y: 1 × 1 (square lattice), or a rect tiling turned to the cell (rectSites.ts)
+  const cols = new Uint8Array(n).fill(1), rows = new Uint8Array(n).fill(1);
+  const counts = new Int32Array(2);
+  let rectCells = 0, rectDiscs = 0, maxTurn = 0;
   const inside = new Float64Array(4 * n), outside = new Float64Array(4 * n);
   const put = (dst: Float64Array, c: number, m: BulkMaterial): void => { dst[4 * c] = m.eps.re; dst[4 * c + 1] = m.eps.im; dst[4 * c + 2] = m.mu.re; dst[4 * c + 3] = m.mu.im; };
   for (let c = 0; c < n; c++) {
@@ -206,16 +241,25 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
     if (!d) { kindOf[c] = K_NONE; continue; } // no recipe: background, as in the homogenized realized map
     if (d.kind === "solid") { kindOf[c] = K_SOLID; put(inside, c, mat(d.material)!); continue; }
     put(inside, c, mat(d.inside)!); put(outside, c, mat(d.outside)!);
-    if (d.kind === "disc") { kindOf[c] = hexLevels.has(l) ? K_HEX_DISC : K_DISC; size[c] = d.radiusM; continue; }
+    if (d.kind === "disc") {
+      kindOf[c] = hexLevels.has(l) ? K_HEX_DISC : K_DISC; size[c] = d.radiusM;
+      const t = tiles[l];
+      if (t) {
+        rectCellCounts(t, plan.axisAngleRad[c], counts);
+        cols[c] = counts[0]; rows[c] = counts[1];
+        rectCells++; rectDiscs += counts[0] * counts[1]; maxTurn = Math.max(maxTurn, gridMisalignmentRad(plan.axisAngleRad[c]));
+      }
+      continue;
+    }
     kindOf[c] = K_LAYER; size[c] = d.thicknessM;
     // the layer normal is the principal axis (2 at axisAngle, 1 across it), snapped to x or y (layoutShapes.ts)
     const r = plan.levels[l].recipe!;
     const th = plan.axisAngleRad[c], nrm = r.orientation === "2" ? th : th + Math.PI / 2;
     normalX[c] = Math.abs(Math.cos(nrm)) >= Math.abs(Math.sin(nrm)) ? 1 : 0;
   }
-  // the discs as built: square-lattice recipes at their cell centres, hexagonal ones on the built hexagonal sites
+  // the discs as built: square-lattice recipes at their cell centres, rect ones m × n per cell, hexagonal ones on the built hexagonal sites
   const hexPlan = hexLevels.size ? planHexSites(plan) : null;
-  const discs = discCentres(g, hexPlan, kindOf);
+  const discs = discCentres(g, hexPlan, kindOf, cols, rows);
   const wall = narrowestWall(discs, size, a);
   if (wall.value <= 0) {
     const [x, y] = wall.at;
@@ -245,7 +289,7 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
   const hexBuilt = hexPlan?.sites;
   let rHexMax = 0;
   for (let c = 0; c < n; c++) if (kindOf[c] === K_HEX_DISC) rHexMax = Math.max(rHexMax, size[c]);
-  const boxParts = exactBoxParts({ g, lut, kindOf, size, normalX, inside, outside, conductors, ez, background: input.background, rHexMax, hexBuilt });
+  const boxParts = exactBoxParts({ g, lut, kindOf, size, normalX, cols, rows, inside, outside, conductors, ez, background: input.background, rHexMax, hexBuilt });
   const scene: Scene = {
     polarization,
     background: input.background,
@@ -271,7 +315,13 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
         if (c < 0 || kindOf[c] === K_NONE) return SAMPLE_BACKGROUND;
         const lx = x - (ox + i * a), ly = y - (oy + j * a);
         const k = kindOf[c];
-        within = k === K_SOLID || (k === K_DISC ? lx * lx + ly * ly < size[c] * size[c] : k === K_LAYER ? Math.abs(normalX[c] ? lx : ly) < size[c] / 2 : false);
+        if (k === K_DISC) {
+          // the nearest of the cell's cols × rows discs (one for a square lattice: the cell centre)
+          const mx = cols[c], my = rows[c];
+          const dx = mx === 1 ? lx : lx - (rectSiteM(0, Math.min(mx - 1, Math.max(0, Math.floor(((lx + a / 2) * mx) / a))), mx, a));
+          const dy = my === 1 ? ly : ly - (rectSiteM(0, Math.min(my - 1, Math.max(0, Math.floor(((ly + a / 2) * my) / a))), my, a));
+          within = dx * dx + dy * dy < size[c] * size[c];
+        } else within = k === K_SOLID || (k === K_LAYER ? Math.abs(normalX[c] ? lx : ly) < size[c] / 2 : false);
       }
       const src = within ? inside : outside, o = 4 * c;
       // Ez: b = ε, T = μ·I; Hz: b = μ, T = ε·I
@@ -293,6 +343,10 @@ export function geometryScene(input: GeometrySceneInput): GeometrySceneResult {
     const dropped = droppedSitesNote(hexPlan, plan);
     if (dropped) notes.push(`realized-geometry: ${dropped}`);
   }
+  if (rectCells) {
+    const rectLevels = plan.levels.flatMap((lv, l) => (tiles[l] && used[l] ? [`${lv.index} (${tiles[l]!.m} × ${tiles[l]!.n})`] : []));
+    notes.push(`realized-geometry: rect-lattice recipes (levels ${rectLevels.join(", ")} per cell) are drawn m × n discs per cell with the lattice axes along the grid axes nearer the cells' principal axes, as the layout files draw them: ${rectDiscs} discs in ${rectCells} cells; largest turn from the principal axes ${Number(((maxTurn * 180) / Math.PI).toPrecision(3))}° (the homogenized realized map stands on the same axes)`);
+  }
   return { ok: true, scene, smallestFeatureM: feature, indexHint: index, notes };
 }
 
@@ -302,6 +356,9 @@ interface BoxPartsInput {
   kindOf: Uint8Array;
   size: Float64Array;
   normalX: Uint8Array;
+  /** discs per cell along grid x and y (K_DISC cells: 1 × 1 on a square lattice, the rect tiling turned to the cell) */
+  cols: Uint8Array;
+  rows: Uint8Array;
   inside: Float64Array;
   outside: Float64Array;
   conductors: readonly Conductor[];
@@ -324,7 +381,7 @@ const MAX_BOX_DISCS = 16;
  * (sample() then clips it at the nearest-site boundary, which this exact split does not).
  */
 function exactBoxParts(p: BoxPartsInput): ((x: number, y: number, h: number, out: Float64Array, normal?: Float64Array) => number) | undefined {
-  const { g, lut, kindOf, size, normalX, inside, outside, conductors, ez, background, rHexMax, hexBuilt } = p;
+  const { g, lut, kindOf, size, normalX, cols, rows, inside, outside, conductors, ez, background, rHexMax, hexBuilt } = p;
   const a = g.pitchM, ox = g.originXM, oy = g.originYM;
   const nm = new Int32Array(2);
   if (rHexMax >= a / 2) return undefined;
@@ -391,10 +448,21 @@ function exactBoxParts(p: BoxPartsInput): ((x: number, y: number, h: number, out
         else if (kind === K_SOLID) add(area - hexArea, SAMPLE_MEDIUM, inside, o);
         else if (kind === K_HEX_DISC) add(area - hexArea, SAMPLE_MEDIUM, outside, o);
         else if (kind === K_DISC) {
-          // hexagonal and square discs never overlap (narrowestWall), so a hexagonal disc here lies in the rest
-          const d = discRectArea(cx, cy, size[c], rx0, rx1, ry0, ry1);
-          // a disc wider than its cell is clipped at the cell's edge (sample()): not a plain circle then
-          if (normal) { if (2 * size[c] <= a) noteDisc(cx, cy, size[c], d, h * h, inside, o); else nCut = 2; }
+          // hexagonal and square or rect discs never overlap (narrowestWall), so a hexagonal disc here lies in the rest;
+          // the cell's mx × my discs (1 × 1: the cell centre), each within its own sub-cell of the cell, so only those whose sub-cell meets the piece
+          const mx = cols[c], my = rows[c], sx = a / mx, sy = a / my, r = size[c];
+          const p0 = Math.max(0, Math.floor((rx0 - (cx - a / 2)) / sx)), p1 = Math.min(mx - 1, Math.floor((rx1 - (cx - a / 2)) / sx));
+          const q0 = Math.max(0, Math.floor((ry0 - (cy - a / 2)) / sy)), q1 = Math.min(my - 1, Math.floor((ry1 - (cy - a / 2)) / sy));
+          let d = 0;
+          for (let q = q0; q <= q1; q++) {
+            for (let pp = p0; pp <= p1; pp++) {
+              const dcx = mx === 1 ? cx : rectSiteM(cx, pp, mx, a), dcy = my === 1 ? cy : rectSiteM(cy, q, my, a);
+              const dd = discRectArea(dcx, dcy, r, rx0, rx1, ry0, ry1);
+              d += dd;
+              // a disc wider than its sub-cell is clipped at the cell's edge (sample()): not a plain circle then
+              if (normal) { if (2 * r <= Math.min(sx, sy)) noteDisc(dcx, dcy, r, dd, h * h, inside, o); else nCut = 2; }
+            }
+          }
           add(d, SAMPLE_MEDIUM, inside, o);
           add(area - d - hexArea, SAMPLE_MEDIUM, outside, o);
         } else {

@@ -5,7 +5,9 @@
  * Built from a reduced field (ideal = scheme `full`, reduced = the chosen scheme) or from a plan's
  * achieved per-cell values (realized).
  */
-import type { Plan } from "../plan/planTypes.js";
+import type { Plan, Recipe } from "../plan/planTypes.js";
+import { standsOnGrid } from "../plan/latticeMisalignment.js";
+import { axis1AlongX } from "../plan/layout/rectSites.js";
 import type { ReducedField } from "../reduce/reducedField.js";
 
 export interface MaterialMap {
@@ -45,6 +47,11 @@ export function mapFromReduced(reduced: ReducedField, background: { b: number; t
  * has no recipe are set to the background (nothing can be built there) and counted.
  * Loss: the recipe's achieved imaginary parts at the design frequency (the same principal-frame
  * rotation applies to them).
+ * Recipes the shop stands on the grid (plan/latticeMisalignment.ts `standsOnGrid`: rect lattices,
+ * laminates with their layer normal in the plane) are built with their axes along the grid axes
+ * nearer the cell's principal axes (layout/rectSites.ts, layoutShapes.ts), so their tensor takes
+ * that snapped angle (builtAxisAngleRad), not the target's: the map is the device as built, whose
+ * turn from the target the plan counts in rel_error.
  */
 export function mapFromPlan(plan: Plan, background: { b: number; t: number }): MaterialMap {
   const n = plan.grid.count;
@@ -57,8 +64,9 @@ export function mapFromPlan(plan: Plan, background: { b: number; t: number }): M
     const recipe = l >= 0 ? plan.levels[l]?.recipe ?? null : null;
     if (!recipe) { m.b[c] = background.b; m.txx[c] = background.t; m.tyy[c] = background.t; m.txy[c] = 0; m.missing++; continue; }
     const [z, l1, l2] = recipe.achieved;
-    const th = plan.axisAngleRad[c];
-    const co = Math.cos(th), si = Math.sin(th), d = l2 - l1;
+    const th = builtAxisAngleRad(recipe, plan.axisAngleRad[c]);
+    // a snapped angle exactly (cos π/2 is not 0 in floating point)
+    const co = th === Math.PI / 2 && th !== plan.axisAngleRad[c] ? 0 : Math.cos(th), si = Math.sin(th), d = l2 - l1;
     m.b[c] = z;
     m.txx[c] = l1 + d * co * co;
     m.tyy[c] = l1 + d * si * si;
@@ -68,6 +76,24 @@ export function mapFromPlan(plan: Plan, background: { b: number; t: number }): M
     m.bIm![c] = zi ?? 0; m.txxIm![c] = (l1i ?? 0) + di * co * co; m.tyyIm![c] = (l1i ?? 0) + di * si * si; m.txyIm![c] = di * co * si;
   }
   return m;
+}
+
+/**
+ * Angle (rad) of principal axis 2 as the recipe is built in a cell whose target's axis 2 stands at
+ * `axisRad`: for recipes standing on the grid, 0 or π/2 as the layouts and the drawn case place
+ * them (a rect lattice's x axis, along axis 1, on the grid axis nearer axis 1; a laminate's layer
+ * normal on the grid axis nearer the principal axis it stands for, geometryScene.ts); otherwise
+ * `axisRad` itself. Example: a rect recipe at axisRad = 1.2 (axis 1 at 159°, nearer x) → π/2.
+ */
+export function builtAxisAngleRad(recipe: Pick<Recipe, "family" | "lattice" | "orientation">, axisRad: number): number {
+  if (!standsOnGrid(recipe)) return axisRad;
+  if (recipe.family === "laminate") {
+    const normal = recipe.orientation === "2" ? axisRad : axisRad + Math.PI / 2;
+    const normalX = Math.abs(Math.cos(normal)) >= Math.abs(Math.sin(normal));
+    // the normal is axis 2 (orientation "2") or axis 1: axis 2 along x exactly when the normal along x is axis 2's
+    return (recipe.orientation === "2") === normalX ? 0 : Math.PI / 2;
+  }
+  return axis1AlongX(axisRad) ? Math.PI / 2 : 0;
 }
 
 /** Largest local index over the map: max over cells of sqrt(|b| · largest |principal value of T|). */

@@ -172,7 +172,7 @@ describe("drawn lattices against their effective medium (a = λ0/32, fill 0.6, �
     expect(onEdges).toBe(23 * 39); // every even row here
   });
 
-  it("draws a hexagonal recipe at its fill (area fraction inside the block), refuses other lattices by name, and leaves out the hexagonal sites whose share reaches a square-lattice half", () => {
+  it("draws a hexagonal recipe at its fill (area fraction inside the block), refuses a 3D lattice by name, and leaves out the hexagonal sites whose share reaches a square-lattice half", () => {
     const rHex = A * Math.sqrt((FILL * HEX_ROW) / Math.PI);
     const plan = blockPlan("hex", rHex, 3);
     const d = geometryScene({ plan, materials, polarization: "Hz", background: vacuum, hidden: null });
@@ -189,9 +189,10 @@ describe("drawn lattices against their effective medium (a = λ0/32, fill 0.6, �
     }
     // a 4a × 4a window holds 18.5 Wigner–Seitz cells' worth of sites: fill within a disc or so (1/18)
     expect(Math.abs(inside / (m * m) - FILL)).toBeLessThan(FILL / 18);
-    const rect = { ...plan, levels: [{ ...plan.levels[0], recipe: { ...plan.levels[0].recipe!, lattice: "rect" } as unknown as Recipe }] };
-    const r = geometryScene({ plan: rect, materials, polarization: "Hz", background: vacuum, hidden: null });
-    expect(r.ok ? "" : r.reason).toMatch(/level 1: a rect lattice is not drawn \(square and hexagonal lattices only\)/);
+    // rect lattices are drawn (drawnRectLattice.test.ts); a 3D lattice under a rod is refused by name
+    const cubic = { ...plan, levels: [{ ...plan.levels[0], recipe: { ...plan.levels[0].recipe!, lattice: "cubic" } as unknown as Recipe }] };
+    const r = geometryScene({ plan: cubic, materials, polarization: "Hz", background: vacuum, hidden: null });
+    expect(r.ok ? "" : r.reason).toMatch(/level 1: a cubic lattice is not drawn \(square, hexagonal and rectangular lattices only\)/);
     // left half square-lattice discs of radius 0.45·a, right half hexagonal ones: the hexagonal sites
     // whose share reaches the square half are left out, so no disc crosses into the other half
     const mixed = { ...plan, level: Int32Array.from({ length: N * N }, (_, c) => (c % N < N / 2 ? 0 : 1)),

@@ -36,6 +36,8 @@ import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_OK } from "../run.js";
 import { optionOverrides } from "./plan.js";
+import { checkBackgroundMaterial, type BackgroundDispersion } from "../../verify/sweep/backgroundAtFrequency.js";
+import type { Material } from "../../media/material.js";
 
 export const VERIFY_SVG = "verify-fields.svg";
 
@@ -240,7 +242,7 @@ export const command: Command = {
     { name: "margin", type: "string", valueName: "L", description: "free space around the device, e.g. '20 mm' (default half a wavelength)" },
     { name: "drawn-time", type: "string", valueName: "T", description: "estimated time the drawn realized case (realized-geometry) may take, e.g. '10 min' or '90 s' (default 5 min; with --sweep for the whole sweep; 0: not run)" },
     { name: "method", type: "string", valueName: "auto|fdfd|radial", description: "solver: auto (default: radial where the tensors depend on r only, fdfd for the rest), fdfd (finite differences on a grid) or radial (exact, per angular order; cloaks and concentrators, plane waves)" },
-    { name: "sweep", type: "string", valueName: "A..B:N", description: "solve every case at N frequencies from A to B, e.g. '8 GHz..10 GHz:21', each on the solver --method picks (dispersive recipes and the drawn case's materials re-evaluated at each; --drawn-time is shared by the frequencies)" },
+    { name: "sweep", type: "string", valueName: "A..B:N", description: "solve every case at N frequencies from A to B, e.g. '8 GHz..10 GHz:21', each on the solver --method picks (dispersive recipes, the drawn case's materials and a background named by reduction.backgroundMaterial re-evaluated at each; --drawn-time is shared by the frequencies)" },
     { name: "threshold", type: "string", valueName: "T", description: "with --sweep: the band is where the realized figure stays within T× the reduced design's at the centre (default 2)" },
     { name: "workers", type: "string", valueName: "N", description: "with --sweep: frequencies solved at once, on worker threads (default: from the time estimate, the cores and the memory)" },
     { name: "json", type: "boolean", description: "print the summary as one JSON object on stdout" },
@@ -295,10 +297,11 @@ export const command: Command = {
     if (isVolumeDevice(field)) throw new InputError({ where: `${design.sourcePath}: $.transform`, message: "the full-wave check is two-dimensional (devices invariant along z); a 3D design cannot be verified" });
     const progress = (text: string): void => io.stderr(`… ${text}\n`);
     const s = resolveSettings(design, overrides);
-    let plan = null, bulk;
+    let plan = null, bulk, catalog: Material[] = [];
     if (design.realization !== undefined) {
       progress("plan (for the realized map)");
       const [materials, processes] = await Promise.all([loadMaterialCatalog(), loadProcessCatalog()]);
+      catalog = materials;
       plan = planFromField(design, field, { materials, processes }, overrides);
       bulk = bulkMaterials(materials, design.frequencyHz, plan);
     }
@@ -307,7 +310,21 @@ export const command: Command = {
     const reduced = reduceField(field, { polarization: s.polarization, scheme: s.scheme, unitAxis: s.unitAxis, backgroundIndex });
     const n = reduced.settings.backgroundIndex, z = reduced.settings.backgroundImpedance;
     const background = { eps: n / z, mu: n * z };
+    // a background material: checked against the background index, followed across a sweep (backgroundAtFrequency.ts)
+    let backgroundDispersion: BackgroundDispersion | undefined;
+    let backgroundNote: string | null = null;
+    const backgroundId = design.reduction?.backgroundMaterial;
+    if (backgroundId !== undefined) {
+      if (catalog.length === 0) catalog = await loadMaterialCatalog();
+      const indexWhere = overrides.backgroundIndex !== undefined ? "--background-index" : design.reduction?.backgroundIndex !== undefined ? `${design.sourcePath}: $.reduction.backgroundIndex` : `the design's background, ${design.sourcePath}: $.background`;
+      const bg = checkBackgroundMaterial(backgroundId, catalog, design.frequencyHz, n, `${design.sourcePath}: $.reduction.backgroundMaterial`, indexWhere);
+      backgroundDispersion = { materialId: backgroundId, designFrequencyHz: design.frequencyHz };
+      backgroundNote = `background: ${bg.material.name} ('${backgroundId}', ${bg.material.model} model; ${bg.material.source}), Re ε ${Number(bg.epsRe.toPrecision(6))} at ${formatFrequency(design.frequencyHz)} (index ${bg.index.toPrecision(6)}, the design's ${n.toPrecision(6)})${sweep
+        ? ": followed at each frequency of the sweep (ε_bg(f) = ε_bg(f₀)·Re ε(f)/Re ε(f₀), its loss not modelled), with the ideal and reduced maps scaled by the same factor (ε′ = J ε_b Jᵀ/det J is linear in ε_b)"
+        : "; a --sweep follows its dispersion"}`;
+    }
     const built = deviceCases({ transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid, ideal, reduced, plan, materials: bulk, freeSpace: sceneKind === "free" });
+    if (backgroundNote) built.notes.push(backgroundNote);
     if (sceneKind === "ground" && !built.ground) throw new InputError({ where: "--scene", message: `the ground-plane scene needs a carpet design: ${carpetGround(design.transform).reason}` });
     let angleRad = (angleDeg * Math.PI) / 180;
     let illumination: Illumination = { kind: "plane", angleRad };
@@ -332,7 +349,8 @@ export const command: Command = {
         designName: design.name, designPath: design.sourcePath, designFrequencyHz: design.frequencyHz, scheme: s.scheme, range: sweep, threshold, json, outDir: stringOption(args, "out"), notes: built.notes, workers, drawnSeconds,
         context: {
           transform: design.transform, fieldBackground: design.background, background, polarization: s.polarization, grid: field.grid,
-          ideal, reduced, plan, catalog: plan ? await loadMaterialCatalog() : [], illumination, resolution, accuracy, marginM, freeSpace: sceneKind === "free",
+          ideal, reduced, plan, catalog, illumination, resolution, accuracy, marginM, freeSpace: sceneKind === "free",
+          ...(backgroundDispersion ? { backgroundDispersion } : {}),
           // as the single-frequency check, less --out (a sweep writes no field picture)
           method, gridOption: sweepGridOption ? `--${sweepGridOption}` : null,
         },

@@ -23,7 +23,8 @@ import { MAX_SWEEP_POINTS, sweepFrequencies } from "../../verify/sweep/sweepFreq
 import { sweepDrawnPlan } from "../../verify/sweep/sweepDrawn.js";
 import { MAX_DRAWN_SECONDS } from "../../verify/drawnLadder.js";
 import { DEFAULT_SOLVER_BYTES } from "../../verify/assemble.js";
-import { sweepCases, type SweepContext } from "../../verify/sweep/sweepPoint.js";
+import { sweepBackground, sweepCases, type SweepContext } from "../../verify/sweep/sweepPoint.js";
+import { backgroundAt } from "../../verify/sweep/backgroundAtFrequency.js";
 import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../../core/physicalConstants.js";
 import { deviceScaleProblem } from "../../verify/verifyDevice.js";
 import { summarizeSweep, sweepJson, sweepSeries, sweepTable } from "../../verify/sweep/sweepSummary.js";
@@ -116,7 +117,8 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   // the lowest frequency has the longest wavelength: a device too small for it is refused as the single check does
   {
     const box = sweepCases(context, frequencies[0]).deviceBox;
-    const lambdaB = C0 / frequencies[0] / Math.sqrt(context.background.eps * context.background.mu);
+    const bg = sweepBackground(context, frequencies[0]); // a background material at that frequency
+    const lambdaB = C0 / frequencies[0] / Math.sqrt(bg.eps * bg.mu);
     const tooSmall = deviceScaleProblem(Math.max(box.maxX - box.minX, box.maxY - box.minY), lambdaB);
     if (tooSmall !== null) throw new InputError({ where: "--sweep", message: `at ${formatFrequency(frequencies[0])}, ${tooSmall}` });
   }
@@ -129,6 +131,12 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
   // notes about drawing the inclusions say nothing when the drawn case is not swept (its reason does)
   const notes = "reason" in drawnPlan.drawn ? run.notes.filter((n) => !n.startsWith("realized-geometry:")) : [...run.notes];
   if (memoryPool.note) notes.push(memoryPool.note);
+  // a background material followed beyond its model's valid range: said, not refused (as the recipes' materials)
+  const bgd = run.context.backgroundDispersion;
+  if (bgd) {
+    const outside = frequencies.filter((f) => !backgroundAt(bgd, run.context.catalog, f).inRange);
+    if (outside.length) notes.push(`background: '${bgd.materialId}' is outside the valid range of its dispersion model at ${outside.map((f) => formatFrequency(f)).join(", ")}: its values there are extrapolated`);
+  }
   // threads: as many as memory allows when asked for, else from the time estimate (sweepTime.ts)
   // the ladder may add rungs: plan for the most it may add (a needless pool costs a start-up; a
   // missing one up to half the time), and warn on that figure as the one-frequency check does
@@ -160,7 +168,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
       workers: pool.workers, signal, formatHz: formatFrequency, designPath: run.designPath, cwd: io.cwd,
       onDone: (done, total, f) => progress(`sweep: ${done} of ${total} done (${formatFrequency(f)})`),
     });
-    const summary = summarizeSweep(pooled.points, { designFrequencyHz: run.designFrequencyHz, threshold: run.threshold, beam: context.illumination.kind === "beam" });
+    const summary = summarizeSweep(pooled.points, { designFrequencyHz: run.designFrequencyHz, threshold: run.threshold, beam: context.illumination.kind === "beam", backgroundMaterial: context.backgroundDispersion?.materialId ?? null });
     summary.notes = [...new Set([...notes, ...summary.notes])];
     if (pooled.threads === 0 && pool.workers > 1) summary.notes.push("the worker file is not built (running from the sources): frequencies were solved one after the other");
     let written: string[] = [];
@@ -170,13 +178,15 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
       // which lines the exact radial solver drew (the others are grid figures)
       const radialNames = summary.caseNames.filter((n) => summary.points.some((p) => p.cases.some((c) => c.name === n && c.available && c.method === "radial")));
       const solvers = radialNames.length ? `; radial solver: ${radialNames.join(", ")}` : "";
-      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${solvers}${r0band(summary)}`;
+      const followed = context.backgroundDispersion ? `; background ${context.backgroundDispersion.materialId} (its dispersion followed)` : "";
+      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz)}${solvers}${followed}${r0band(summary)}`;
       const files: OutputFile[] = [
         {
           name: SWEEP_CSV,
           produce: (write) => write(sweepCsvText(summary.points, {
             hasBare, beam: context.illumination.kind === "beam", figure: summary.figure, meetsLimit: summary.band?.meetsLimit ?? null,
             drawn: summary.points.some((p) => p.homogenization !== null), drawnMeetsLimit: summary.drawnBand?.meetsLimit ?? null,
+            background: context.backgroundDispersion !== undefined,
           })),
         },
         { name: SWEEP_SVG, produce: (write) => write(sweepSvg(summary.frequenciesHz, sweepSeries(summary), summary.figure, summary.band, run.designName, subtitle, summary.drawnBand)) },

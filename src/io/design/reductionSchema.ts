@@ -12,6 +12,12 @@ export const reductionSchema = z
     unitAxis: z.enum(["larger", "smaller"]).optional(),
     /** index of the non-magnetic dielectric the device sits in (ε × n_b², replacing the design's background) */
     backgroundIndex: z.number().positive().optional(),
+    /**
+     * catalog id of the material the device is embedded in: its index at the design frequency must
+     * be the background index (within 1 %); `verify --sweep` follows its dispersion
+     * (verify/sweep/backgroundAtFrequency.ts)
+     */
+    backgroundMaterial: z.string().min(1).optional(),
     /** permittivity floor used for the minimum background index (default 1) */
     epsFloor: z.number().positive().optional(),
     /** |μ − 1| above this counts as magnetic (default 0.001) */

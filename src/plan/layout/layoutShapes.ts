@@ -29,6 +29,7 @@ import type { Plan, Recipe } from "../planTypes.js";
 import { rectTiling } from "../../cells/lattice.js";
 import { droppedSitesNote, planHexSites } from "./planHexSites.js";
 import { HEX_ROW } from "./hexSites.js";
+import { rectCellCounts, rectSiteM } from "./rectSites.js";
 
 export const CIRCLE_VERTICES = 64;
 
@@ -82,9 +83,6 @@ function rect(cx: number, cy: number, w: number, h: number): Float64Array {
   return Float64Array.from([cx - w / 2, cy - h / 2, cx + w / 2, cy - h / 2, cx + w / 2, cy + h / 2, cx - w / 2, cy + h / 2]);
 }
 
-/** Does principal axis 1 (at axisRad + π/2; axisRad is axis 2's angle) lie nearer grid x than grid y? */
-export const axis1AlongX = (axisRad: number): boolean => Math.abs(Math.cos(axisRad + Math.PI / 2)) >= Math.abs(Math.sin(axisRad + Math.PI / 2));
-
 /** Angle (rad) between principal axis 1 and the grid axis it is snapped to. */
 export function snapAngleRad(axisRad: number): number {
   const t = axisRad + Math.PI / 2;
@@ -106,10 +104,10 @@ function shapeOf(r: Recipe, a: number): { draw: ((cx: number, cy: number, axisRa
       if (!t) return { draw: null, what: fab, fraction: 0, reason: `rect-lattice recipe without a tiling aspect (${r.aspect})` };
       return {
         draw: (cx, cy, axisRad) => {
-          // m circles along the lattice's x axis (principal axis 1), n along y, snapped to the grid
-          const [mx, my] = axis1AlongX(axisRad) ? [t.m, t.n] : [t.n, t.m];
+          // m circles along the lattice's x axis (principal axis 1), n along y, snapped to the grid (rectSites.ts)
+          const [mx, my] = rectCellCounts(t, axisRad, new Int32Array(2));
           const out: Float64Array[] = [];
-          for (let j = 0; j < my; j++) for (let i = 0; i < mx; i++) out.push(circle(cx - a / 2 + ((i + 0.5) * a) / mx, cy - a / 2 + ((j + 0.5) * a) / my, radius));
+          for (let j = 0; j < my; j++) for (let i = 0; i < mx; i++) out.push(circle(rectSiteM(cx, i, mx, a), rectSiteM(cy, j, my, a), radius));
           return out;
         },
         what: `${fab} (rect lattice ${t.m} × ${t.n} per cell)`,

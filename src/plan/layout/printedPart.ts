@@ -51,7 +51,7 @@
 import type { Plan, Recipe } from "../planTypes.js";
 import { HEX_ROW } from "./hexSites.js";
 import { rectTiling } from "../../cells/lattice.js";
-import { axis1AlongX } from "./layoutShapes.js";
+import { rectCellCounts, rectSiteM } from "./rectSites.js";
 import { droppedSitesNote, planHexSites } from "./planHexSites.js";
 import { slabFace, type FaceMesh } from "./slabFace.js";
 
@@ -295,10 +295,10 @@ export function printedPart(plan: Plan, heightM: number, resolutionM: number | n
       for (const k of byCell[c]) { siteX.push(hexPlan!.sites.xM[k]); siteY.push(hexPlan!.sites.yM[k]); hexBuilt++; }
       const sh = plan.level[c] >= 0 ? shapes[plan.level[c]] : null;
       if (onSites(sh) && sh.tile) {
-        // m circles along the lattice's x axis (principal axis 1), n along y, snapped to the grid (layoutShapes.ts)
-        const [mx, my] = axis1AlongX(plan.axisAngleRad[c]) ? [sh.tile.m, sh.tile.n] : [sh.tile.n, sh.tile.m];
+        // m circles along the lattice's x axis (principal axis 1), n along y, snapped to the grid (rectSites.ts)
+        const [mx, my] = rectCellCounts(sh.tile, plan.axisAngleRad[c], new Int32Array(2));
         const X = g.originXM + g.i[c] * a, Y = g.originYM + g.j[c] * a;
-        for (let jj = 0; jj < my; jj++) for (let ii = 0; ii < mx; ii++) { siteX.push(X - a / 2 + ((ii + 0.5) * a) / mx); siteY.push(Y - a / 2 + ((jj + 0.5) * a) / my); rectBuilt++; }
+        for (let jj = 0; jj < my; jj++) for (let ii = 0; ii < mx; ii++) { siteX.push(rectSiteM(X, ii, mx, a)); siteY.push(rectSiteM(Y, jj, my, a)); rectBuilt++; }
       }
     }
     siteStart[g.count] = siteX.length;

@@ -17,7 +17,7 @@ import { DRAWN_STEPS, drawnLadderPlan } from "../drawnLadder.js";
 import { DEFAULT_ACCURACY, ladderGrids, ladderPeakBytes, ladderSeconds } from "../ladderGrids.js";
 import { radialProblemSeconds } from "../radialSolver.js";
 import { solverSplit } from "../runCheck.js";
-import { sweepCases, type SweepContext } from "./sweepPoint.js";
+import { sweepBackground, sweepCases, type SweepContext } from "./sweepPoint.js";
 
 /**
  * A worker's baseline besides its solves, bytes: the runtime and modules (WORKER_RUNTIME_BYTES)
@@ -71,12 +71,13 @@ export function sweepPeakBytes(ctx: SweepContext, frequencyHz: number): SweepPoi
   const split = solverSplit({ method, transform: ctx.transform, illumination: ctx.illumination, groundYM: built.ground?.groundYM, gridOption: ctx.gridOption ?? null, frequencyHz, cases: mainCases });
   const radialSeconds = split.radial.reduce((a, p) => a + (p.problem ? radialProblemSeconds(p.problem) : 0), 0);
   const gridCases = split.gridCases.filter((c) => c.scene !== null);
-  const nb = Math.sqrt(ctx.background.eps * ctx.background.mu);
+  const background = sweepBackground(ctx, frequencyHz);
+  const nb = Math.sqrt(background.eps * background.mu);
   const lambdaB = C0 / frequencyHz / nb;
   let wantedBytes = 0, withAddedBytes = 0, nodes = 0, planned = 0, atMost = 0;
   if (gridCases.length > 0) {
     const l = ladderGrids({
-      polarization: ctx.polarization, background: ctx.background, frequencyHz, deviceBox: built.deviceBox, caseIndexHints: gridCases.map((c) => c.indexHint),
+      polarization: ctx.polarization, background, frequencyHz, deviceBox: built.deviceBox, caseIndexHints: gridCases.map((c) => c.indexHint),
       resolution: ctx.resolution, accuracy: ctx.accuracy ?? DEFAULT_ACCURACY, marginM: ctx.marginM ?? lambdaB / 2, groundYM: built.ground?.groundYM,
     });
     const finest = l.makeGrid(l.wanted[l.wanted.length - 1]);
@@ -88,7 +89,7 @@ export function sweepPeakBytes(ctx: SweepContext, frequencyHz: number): SweepPoi
   const realizedOnMain = gridCases.some((c) => c.name === "realized") || split.radial.some((p) => p.name === "realized" && p.problem !== null);
   if (drawnSpec && realizedSpec && realizedOnMain && method !== "radial" && ctx.drawn && "seconds" in ctx.drawn) {
     const plan = drawnLadderPlan(
-      { polarization: ctx.polarization, background: ctx.background, frequencyHz, deviceBox: built.deviceBox, cases: built.cases, illumination: ctx.illumination, resolution: ctx.resolution, accuracy: ctx.accuracy, marginM: ctx.marginM, solverBytes: ctx.solverBytes, groundYM: built.ground?.groundYM },
+      { polarization: ctx.polarization, background, frequencyHz, deviceBox: built.deviceBox, cases: built.cases, illumination: ctx.illumination, resolution: ctx.resolution, accuracy: ctx.accuracy, marginM: ctx.marginM, solverBytes: ctx.solverBytes, groundYM: built.ground?.groundYM },
       realizedSpec, drawnSpec, drawnSpec.featureM ?? drawnSpec.maxStepM! * DRAWN_STEPS[0], { seconds: ctx.drawn.seconds },
     );
     if (plan.reason === null) {

@@ -13,7 +13,10 @@
  * (realized-geometry rows: (σ_geometry − σ_realized)/σ_bare, or over the larger width without a
  * bare object, on the drawn case's own grids, and its absolute uncertainty; empty elsewhere), and
  * for a beam then homogenization_delivered_difference and homogenization_delivered_uncertainty
- * (the drawn structure's delivered share minus the homogenized map's, on the same grids).
+ * (the drawn structure's delivered share minus the homogenized map's, on the same grids); when
+ * the design names a background material, last background_eps (the relative permittivity of the
+ * background every case stood in at that frequency: the material's dispersion followed,
+ * backgroundAtFrequency.ts).
  * A field that does not apply is empty (a single grid has no uncertainty); never NaN or Infinity.
  */
 import { csvField, fmt } from "../../plan/outputs/csvText.js";
@@ -32,6 +35,8 @@ export interface SweepCsvLayout {
   drawnMeetsLimit?: readonly (LimitVerdict | null)[] | null;
   /** the drawn realized case was computed at some frequency: add the homogenization columns */
   drawn?: boolean;
+  /** the design names a background material: add background_eps */
+  background?: boolean;
 }
 
 /** Column names for a layout, in order. */
@@ -43,6 +48,7 @@ export function sweepCsvColumns(layout: SweepCsvLayout): string[] {
     "uncertainty", "converged", "figure_uncertainty", "meets_limit",
     ...(layout.drawn ? ["homogenization_difference", "homogenization_uncertainty"] : []),
     ...(layout.drawn && layout.beam ? ["homogenization_delivered_difference", "homogenization_delivered_uncertainty"] : []),
+    ...(layout.background ? ["background_eps"] : []),
   ];
 }
 
@@ -69,6 +75,7 @@ export function sweepCsvText(points: readonly SweepPoint[], layout: SweepCsvLayo
             ? [num(p.homogenization.deliveredPowerDifference), num(p.homogenization.deliveredPowerDifferenceUncertainty, 4)]
             : ["", ""]
           : []),
+        ...(layout.background ? [num(p.background.eps, 10)] : []),
       ].join(","));
     }
   }

@@ -19,7 +19,7 @@ import { formatDuration } from "../../core/timeEstimate.js";
 import { formatFrequency } from "../formatQuantity.js";
 import { DRAWN_MIN_RUNGS, DRAWN_STEPS, drawnLadderPlan, MAX_DRAWN_SECONDS } from "../drawnLadder.js";
 import type { VerifyInput } from "../verifyDevice.js";
-import { sweepCases, type SweepContext, type SweepDrawn } from "./sweepPoint.js";
+import { sweepBackground, sweepCases, type SweepContext, type SweepDrawn } from "./sweepPoint.js";
 
 export interface SweepDrawnPlan {
   /** the budget every frequency gets, or why the drawn case is not swept */
@@ -50,7 +50,7 @@ export function sweepDrawnPlan(ctx: SweepContext, frequenciesHz: readonly number
     // not drawable (split rings, spheres …): the same reason at every frequency, the geometry does not change
     if (!drawn || drawn.scene === null || !realized) return none(drawn?.reason ?? "the realized (homogenized) case is not computed");
     const input: VerifyInput = {
-      polarization: ctx.polarization, background: ctx.background, frequencyHz: f, deviceBox: built.deviceBox, cases: built.cases,
+      polarization: ctx.polarization, background: sweepBackground(ctx, f), frequencyHz: f, deviceBox: built.deviceBox, cases: built.cases,
       illumination: ctx.illumination, resolution: ctx.resolution, accuracy: ctx.accuracy, marginM: ctx.marginM, solverBytes: bytesLimit, groundYM: built.ground?.groundYM,
     };
     const featureM = drawn.featureM ?? drawn.maxStepM! * DRAWN_STEPS[0];

@@ -12,7 +12,9 @@
  * catalog dispersion, the layer's mode at f); it runs on its own ladder beside the homogenized
  * realized map at f (drawnLadder.ts, drawnRun.ts), which gives the plan's homogenization error at
  * every frequency. Its time budget per frequency is decided by the shell before anything is solved
- * (`drawn`: the --drawn-time share, or why it is not swept). Pure: the shell runs these on worker
+ * (`drawn`: the --drawn-time share, or why it is not swept). A background material named by the
+ * design (`backgroundDispersion`) is followed at f (backgroundAtFrequency.ts): the medium around
+ * the device takes its ε at f, and the ideal and reduced maps are scaled with it. Pure: the shell runs these on worker
  * threads, one frequency per task, from a SweepContext that is plain data (it crosses the thread
  * boundary by structured clone).
  *
@@ -27,6 +29,7 @@ import type { Illumination } from "../illumination.js";
 import { runCheck, type MethodOption } from "../runCheck.js";
 import type { CaseName, CaseSpec } from "../verifyDevice.js";
 import { planAtFrequency } from "./recipeAtFrequency.js";
+import { backgroundAt, scaleReducedEps, type BackgroundDispersion } from "./backgroundAtFrequency.js";
 
 /** Cases a sweep solves, in this order (those the scene has). */
 export const SWEEP_CASES: readonly CaseName[] = ["flat", "bare", "ideal", "reduced", "realized", "realized-geometry"];
@@ -54,6 +57,8 @@ export type SweepContext = Omit<DeviceCasesInput, "materials"> & {
   marginM?: number;
   /** memory one solve may use (the worker's share), bytes */
   solverBytes?: number;
+  /** the design's background material, followed at each frequency (absent: the background is fixed) */
+  backgroundDispersion?: BackgroundDispersion;
 };
 
 /** The figures of one case at one frequency (null where they do not apply). */
@@ -108,16 +113,30 @@ export interface SweepPoint {
   resolutions: number[];
   /** the finest grid of the main cases (null: every case radial) */
   grid: { nx: number; ny: number; stepM: number } | null;
+  /** the background the cases stood in at this frequency (relative ε and μ, real) */
+  background: { eps: number; mu: number };
+  /** the background material's loss tangent at f, not modelled (null: no background material) */
+  backgroundLossTangent: number | null;
   notes: string[];
+}
+
+/** The background of the sweep's scenes at f: the design's, its ε scaled by the background material's dispersion when one is named. */
+export function sweepBackground(ctx: Pick<SweepContext, "background" | "backgroundDispersion" | "catalog">, frequencyHz: number): { eps: number; mu: number } {
+  if (!ctx.backgroundDispersion) return ctx.background;
+  const s = backgroundAt(ctx.backgroundDispersion, ctx.catalog, frequencyHz).scale;
+  return s === 1 ? ctx.background : { eps: ctx.background.eps * s, mu: ctx.background.mu };
 }
 
 /** The cases of one sweep point, built at f (the drawn case at f, or with the reason it is not swept). */
 export function sweepCases(ctx: SweepContext, frequencyHz: number): ReturnType<typeof deviceCases> {
-  const { catalog, illumination: _i, resolution: _r, accuracy: _a, marginM: _m, solverBytes: _s, method: _me, gridOption: _g, drawn, ...caseInput } = ctx;
+  const { catalog, illumination: _i, resolution: _r, accuracy: _a, marginM: _m, solverBytes: _s, method: _me, gridOption: _g, drawn, backgroundDispersion: _bd, ...caseInput } = ctx;
   const plan = ctx.plan ? planAtFrequency(ctx.plan, catalog, frequencyHz) : null;
   const swept = drawn !== undefined && "seconds" in drawn;
   const materials = ctx.plan && swept ? bulkMaterialsAt(catalog, frequencyHz, ctx.plan) : undefined;
-  const built = deviceCases({ ...caseInput, plan, materials });
+  // a dispersive background: the surroundings at f, the ideal and reduced maps scaled with them
+  const background = sweepBackground(ctx, frequencyHz);
+  const s = background.eps / ctx.background.eps;
+  const built = deviceCases({ ...caseInput, background, ideal: scaleReducedEps(ctx.ideal, s), reduced: scaleReducedEps(ctx.reduced, s), plan, materials });
   const cases = built.cases.filter((c) => SWEEP_CASES.includes(c.name));
   // a drawn case the shell did not budget is not solved; it says why (never a copy of another case)
   const out = plan && !swept
@@ -130,9 +149,10 @@ export function sweepCases(ctx: SweepContext, frequencyHz: number): ReturnType<t
 export function solveSweepPoint(ctx: SweepContext, frequencyHz: number, onProgress?: (step: string, fraction: number) => void): SweepPoint {
   const built = sweepCases(ctx, frequencyHz);
   const drawnSeconds = ctx.drawn && "seconds" in ctx.drawn ? ctx.drawn.seconds : 0;
+  const background = sweepBackground(ctx, frequencyHz);
   const r = runCheck({
     method: ctx.method ?? "auto", transform: ctx.transform, gridOption: ctx.gridOption ?? null,
-    polarization: ctx.polarization, background: ctx.background, frequencyHz, deviceBox: built.deviceBox, cases: built.cases,
+    polarization: ctx.polarization, background, frequencyHz, deviceBox: built.deviceBox, cases: built.cases,
     illumination: ctx.illumination, resolution: ctx.resolution, accuracy: ctx.accuracy, marginM: ctx.marginM, solverBytes: ctx.solverBytes,
     groundYM: built.ground?.groundYM, drawnSeconds,
     onProgress,
@@ -157,6 +177,8 @@ export function solveSweepPoint(ctx: SweepContext, frequencyHz: number, onProgre
       : null,
     resolutions: r.resolutions,
     grid: r.grid ? { nx: r.grid.nx, ny: r.grid.ny, stepM: r.grid.h } : null,
+    background,
+    backgroundLossTangent: ctx.backgroundDispersion ? backgroundAt(ctx.backgroundDispersion, ctx.catalog, frequencyHz).lossTangent : null,
     // the drawn case's ladder note differs per frequency: say which
     notes: [...built.notes, ...r.notes.map((n) => (n.startsWith("realized-geometry: drawn on grids") ? `at ${formatFrequency(frequencyHz)}, ${n}` : n))],
   };

@@ -4,7 +4,8 @@
  * `--json` object and the human table. The drawn realized case (`realized-geometry`), where it was
  * swept, gets its own band against the same limit (`drawnBand`) and the plan's homogenization error
  * per frequency. A case is listed when it was computed at any frequency; where it was not, its
- * figures are null and `reason` says why. Pure.
+ * figures are null and `reason` says why. The background each frequency's scenes stood in is listed
+ * (`background`: the design's, or its background material's ε at f, backgroundAtFrequency.ts). Pure.
  */
 import { formatFrequency, formatLength } from "../formatQuantity.js";
 import { sweepBand, type FigureSense, type SweepBand } from "./sweepBand.js";
@@ -37,13 +38,15 @@ export interface SweepResult {
   band: SweepBand | null;
   /** the drawn realized case's band against the same limit (null: not swept) */
   drawnBand: SweepBand | null;
+  /** the design's background material, followed at each frequency (null: a fixed background) */
+  backgroundMaterial: string | null;
   notes: string[];
 }
 
 const availableAt = (points: readonly SweepPoint[], name: string): boolean => points.some((p) => p.cases.some((c) => c.name === name && c.available));
 
 /** Put the points (any order) together: ascending frequencies, the figure, the band. */
-export function summarizeSweep(points: readonly SweepPoint[], options: { designFrequencyHz: number; threshold: number; beam: boolean }): SweepResult {
+export function summarizeSweep(points: readonly SweepPoint[], options: { designFrequencyHz: number; threshold: number; beam: boolean; backgroundMaterial?: string | null }): SweepResult {
   const sorted = [...points].sort((a, b) => a.frequencyHz - b.frequencyHz);
   const first = sorted[0];
   const caseNames = first.cases.map((c) => c.name);
@@ -61,7 +64,7 @@ export function summarizeSweep(points: readonly SweepPoint[], options: { designF
     : null);
   const notes: string[] = [];
   for (const p of sorted) for (const n of p.notes) if (!notes.includes(n)) notes.push(n);
-  return { frequenciesHz, points: sorted, caseNames, figure, band: bandOf("realized"), drawnBand: bandOf("realized-geometry"), notes };
+  return { frequenciesHz, points: sorted, caseNames, figure, band: bandOf("realized"), drawnBand: bandOf("realized-geometry"), backgroundMaterial: options.backgroundMaterial ?? null, notes };
 }
 
 function figureOf(c: SweepCaseFigures | undefined, figure: SweepFigure): number | null {
@@ -133,6 +136,12 @@ export function sweepJson(r: SweepResult, threshold: number): Record<string, unk
         stepsAcrossFeature: r.points.map((p) => p.homogenization?.stepsAcrossFeature ?? null),
       }
       : null,
+    background: {
+      material: r.backgroundMaterial,
+      eps: r.points.map((p) => p.background.eps),
+      mu: r.points.map((p) => p.background.mu),
+      lossTangent: r.backgroundMaterial === null ? null : r.points.map((p) => p.backgroundLossTangent),
+    },
     converged: sweepConverged(r),
   };
 }
@@ -231,6 +240,7 @@ export function sweepTable(designName: string, header: string, r: SweepResult, t
     ...(hom ? [`  homogenization Δ: (σ_geometry − σ_realized)/${scale === "bare" ? "σ_bare" : "the larger width"} at each frequency, the drawn structure against its effective-medium map on the same grids`] : []),
     `  ${bandSentence(r, threshold)}`,
     ...(r.caseNames.includes("realized-geometry") && availableAt(r.points, "realized") ? [`  ${bandSentence(r, threshold, true)}`] : []),
+    ...(r.backgroundMaterial !== null ? [`  background ('${r.backgroundMaterial}', followed): Re ε ${r.points.map((p) => `${Number(p.background.eps.toPrecision(6))} at ${formatFrequency(p.frequencyHz)}`).join(", ")}`] : []),
     ...r.notes.map((n) => `  note: ${n}`),
   ].join("\n") + "\n";
 }

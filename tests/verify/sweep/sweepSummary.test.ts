@@ -22,7 +22,7 @@ function figures(name: SweepCaseFigures["name"], vsBare: number, u: number | nul
 function points(realized: number[], uReal: (number | null)[], conv: (boolean | null)[]): SweepPoint[] {
   // given out of order: the summary sorts them
   return [4, 0, 3, 1, 2].map((k) => ({
-    frequencyHz: fs[k], method: "fdfd" as const, homogenization: null, ground: false, resolutions: [12, 17, 24], grid: { nx: 10, ny: 10, stepM: 1e-3 }, notes: [],
+    frequencyHz: fs[k], method: "fdfd" as const, homogenization: null, ground: false, resolutions: [12, 17, 24], grid: { nx: 10, ny: 10, stepM: 1e-3 }, background: { eps: 1, mu: 1 }, backgroundLossTangent: null, notes: [],
     cases: [figures("bare", 1, uReal[k] === null ? null : 0, conv[k]), figures("reduced", 0.3, uReal[k] === null ? null : 0.01, conv[k]), figures("realized", realized[k], uReal[k], conv[k])],
   }));
 }
@@ -71,7 +71,7 @@ describe("sweep summary with uncertainties", () => {
       vsBare: null, vsBareUncertainty: null, deliveredPower: share, deliveredPowerUncertainty: 0.002, deviationDeg: 1, uncertainty: 0.005, converged: true,
     });
     const pts: SweepPoint[] = fs.slice(0, 2).map((f, k) => ({
-      frequencyHz: f, method: "fdfd" as const, ground: false, resolutions: [12, 17, 24], grid: { nx: 10, ny: 10, stepM: 1e-3 }, notes: [],
+      frequencyHz: f, method: "fdfd" as const, ground: false, resolutions: [12, 17, 24], grid: { nx: 10, ny: 10, stepM: 1e-3 }, background: { eps: 1, mu: 1 }, backgroundLossTangent: null, notes: [],
       homogenization: {
         difference: 0.03 + k, differenceUncertainty: 0.001, differenceScale: "larger-width" as const, relative: 0.05,
         deliveredPowerDifference: -0.0125 - k, deliveredPowerDifferenceUncertainty: 0.0025, converged: true, stepsAcrossFeature: [2, 3, 4.5],
