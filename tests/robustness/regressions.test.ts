@@ -322,4 +322,16 @@ describe("found by the generated cases", () => {
       else process.env.CELLWRIGHT_MEMORY_LIMIT = before;
     }
   });
+
+  it("plan checks reduction.backgroundMaterial as verify does: a mistyped id and a mismatched index are input errors at its JSON path (were read only by verify)", async () => {
+    const d = JSON.parse(readFileSync(resolve("tests/verify/fixtures/silica-graded-block.json"), "utf8"));
+    const typo = await ok(["plan", put("bg-typo.json", { ...d, reduction: { ...d.reduction, backgroundMaterial: "fused-silca" } }), "--out", join(dir, "bg-typo-out")]);
+    expect(typo.code, typo.err).toBe(1);
+    expect(typo.err).toContain("$.reduction.backgroundMaterial: unknown material 'fused-silca'");
+    expect(typo.err).toContain("did you mean");
+    const off = await ok(["plan", put("bg-index.json", { ...d, reduction: { ...d.reduction, backgroundIndex: 1.6 } }), "--out", join(dir, "bg-index-out")]);
+    expect(off.code, off.err).toBe(1);
+    expect(off.err).toContain("$.reduction.backgroundMaterial");
+    expect(off.err).toContain("set reduction.backgroundIndex to 1.444");
+  });
 });

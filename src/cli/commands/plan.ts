@@ -21,6 +21,9 @@ import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_INPUT, EXIT_INTERRUPTED, EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
 import { runInterruptible } from "../interruptible.js";
+import { resolveSettings } from "../../plan/resolveSettings.js";
+import { backgroundMedium } from "../../reduce/backgroundMedium.js";
+import { checkBackgroundMaterial } from "../../verify/sweep/backgroundAtFrequency.js";
 import { join, resolve } from "node:path";
 
 export const DEFAULT_OUT_DIR = "cellwright-out";
@@ -89,6 +92,15 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
   // a folder that cannot take the outputs is refused before minutes of planning
   await preparePlanOutputs(resolve(io.cwd, outDir));
   const [field, materials, processes] = await Promise.all([loadFieldForDesign(design), loadMaterialCatalog(), loadProcessCatalog()]);
+  // a background material (read by verify's sweep) is checked here too, so a typo does not wait for verify
+  const backgroundId = design.reduction?.backgroundMaterial;
+  if (backgroundId !== undefined) {
+    // the background index the plan's reduction uses (runPlan.ts), from the same settings
+    const nb = resolveSettings(design, overrides).backgroundIndex;
+    const index = backgroundMedium(field.background, nb === 1 ? undefined : nb).index;
+    const indexWhere = overrides.backgroundIndex !== undefined ? "--background-index" : design.reduction?.backgroundIndex !== undefined ? `${design.sourcePath}: $.reduction.backgroundIndex` : `the design's background, ${design.sourcePath}: $.background`;
+    checkBackgroundMaterial(backgroundId, materials, design.frequencyHz, index, `${design.sourcePath}: $.reduction.backgroundMaterial`, indexWhere);
+  }
   const timeWarning = expectedTimeWarning(planSeconds(field.grid.count), `planning ${field.grid.count.toExponential(2)} cells and writing the outputs`);
   if (timeWarning !== null) io.stderr(`warning: ${timeWarning}\n`);
   let lastStage = "";
