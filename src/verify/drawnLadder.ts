@@ -20,7 +20,8 @@
  * memory and factor operations) and the time rates of core/timeEstimate.ts. Rungs are taken in
  * order while they fit the solver's memory, MAX_DRAWN_UNKNOWNS and, together, MAX_DRAWN_SECONDS of
  * estimated time; fewer than two rungs and the case is not run, with one line that names the
- * grid, its memory and time estimates and the limits. Pure.
+ * grid, its memory and time estimates and the limits. A fourth rung is costed too, for a figure the
+ * three leave unconverged (DRAWN_ADDED_STEPS). Pure.
  */
 import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
 import { formatDuration, solveSeconds } from "../core/timeEstimate.js";
@@ -50,6 +51,17 @@ export const MAX_DRAWN_SECONDS = 300;
  * solver's limit.
  */
 export const MAX_DRAWN_UNKNOWNS = 2e6;
+/**
+ * A ladder whose figure is not converged on its three rungs goes on to one more, 1.5 times finer
+ * (6.75 steps across the feature), when that rung fits the solver's memory, MAX_DRAWN_ADDED_UNKNOWNS
+ * and, with the rungs before it, the drawn case's time (--drawn-time). Then the last three rungs are
+ * extrapolated. Why: the first-order Hz drawing (DRAWN_HZ_ORDER) leaves the silicon bend's
+ * difference at ± 0.03 on 2, 3, 4.5 steps; its estimate on 3, 4.5, 6.75 is about ± 0.014
+ * (DEVELOPERS.md, "Accuracy of the drawing").
+ */
+export const DRAWN_ADDED_STEPS = 6.75;
+/** Largest added drawn grid: 4 × 10⁶ nodes (about 5–6 GB for the solver; memory is checked too). */
+export const MAX_DRAWN_ADDED_UNKNOWNS = 4e6;
 
 export interface DrawnRung {
   /** steps across the smallest feature */
@@ -69,6 +81,10 @@ export interface DrawnLadderPlan {
   marginM: number;
   /** why the case is not run (null when it is) */
   reason: string | null;
+  /** the rung added when the planned ones leave the figure unconverged (null: it does not fit; `addedReason` says why) */
+  added?: DrawnRung | null;
+  /** why no rung can be added (null with `added`), with the --drawn-time that would let it */
+  addedReason?: string | null;
 }
 
 /** Choose the drawn case's rungs (see file comment). `featureM`: the smallest drawn feature. */
@@ -102,7 +118,19 @@ export function drawnLadderPlan(input: VerifyInput, realized: CaseSpec, drawn: C
     rungs.push({ stepsAcross, grid, resolution, bytes: c.bytes, seconds: c.seconds });
     seconds += c.seconds;
   }
-  if (rungs.length >= DRAWN_MIN_RUNGS) return { rungs, seconds, marginM, reason: null };
+  if (rungs.length >= DRAWN_MIN_RUNGS) {
+    if (rungs.length < DRAWN_STEPS.length) return { rungs, seconds, marginM, reason: null, added: null, addedReason: null };
+    // the rung added should the figure not converge on these (see DRAWN_ADDED_STEPS)
+    const grid = gridAt(DRAWN_ADDED_STEPS);
+    const c = cost(grid);
+    const nodes = grid.nx * grid.ny;
+    const what = `a fourth drawn grid (${DRAWN_ADDED_STEPS} steps across the smallest feature, ${grid.nx} × ${grid.ny} nodes, about ${formatBytes(c.bytes)} and ${formatDuration(c.seconds)})`;
+    const addedReason = c.bytes > bytesLimit ? `${what} is over the solver's memory (limit ${formatBytes(bytesLimit)})`
+      : nodes > MAX_DRAWN_ADDED_UNKNOWNS ? `${what} is over the ${(MAX_DRAWN_ADDED_UNKNOWNS / 1e6).toPrecision(2)} million nodes the check adds on its own`
+      : seconds + c.seconds > secondsLimit ? `${what} would take the drawn case to about ${formatDuration(seconds + c.seconds)}, over its ${formatDuration(secondsLimit)}: give --drawn-time '${Math.ceil((seconds + c.seconds) / 60)} min' to let the ladder go on`
+      : null;
+    return { rungs, seconds, marginM, reason: null, added: addedReason === null ? { stepsAcross: DRAWN_ADDED_STEPS, grid, resolution, bytes: c.bytes, seconds: c.seconds } : null, addedReason };
+  }
   // how much larger the features would have to be for the two coarsest rungs to fit
   const fits = (scale: number): boolean => {
     let s = 0;

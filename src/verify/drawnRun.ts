@@ -20,7 +20,7 @@
  */
 import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
 import { InputError } from "../core/errors.js";
-import type { DrawnLadderPlan } from "./drawnLadder.js";
+import type { DrawnLadderPlan, DrawnRung } from "./drawnLadder.js";
 import { formatLength } from "./formatQuantity.js";
 import { resampleNodes } from "./resampleNodes.js";
 import { NOMINAL_ORDER, richardson } from "./richardson.js";
@@ -66,6 +66,8 @@ export interface HomogenizationError {
   featureM: number;
   /** σ_geometry/σ_realized on each rung (empty when the realized width is 0 on a rung) */
   ratios: number[];
+  /** not converged and no finer rung added: why (e.g. the --drawn-time that would let the ladder go on); null otherwise */
+  addedRungNote: string | null;
 }
 
 /** A case the check reports, with the solver that computed it. */
@@ -101,20 +103,43 @@ export function drawnRun(input: DrawnRunInput, drawn: CaseSpec, main: DrawnRunMa
   const accuracy = input.accuracy ?? DEFAULT_ACCURACY;
   const hom: LadderPoint[] = [], geo: LadderPoint[] = [];
   let last: VerifyResult | null = null;
-  for (const [k, rung] of plan.rungs.entries()) {
+  const rungs = [...plan.rungs];
+  /** Solve one rung (the homogenized map and the drawn structure on one grid); an error text when its grid is refused. */
+  const solveRung = (rung: DrawnRung, k: number, of: number): string | null => {
     let run: VerifyResult;
     try {
       run = verifyDevice({
         ...input, cases: [realizedSpec, drawn], resolution: rung.resolution, maxStepM: drawn.featureM! / rung.stepsAcross, marginM: plan.marginM, onEstimate: undefined,
-        onProgress: input.onProgress && ((step, f) => input.onProgress!(`realized-geometry grid ${k + 1} of ${plan.rungs.length}: ${step}`, (k + f) / plan.rungs.length)),
+        onProgress: input.onProgress && ((step, f) => input.onProgress!(`realized-geometry grid ${k + 1} of ${of}: ${step}`, (k + f) / of)),
       });
     } catch (e) {
-      if (e instanceof InputError) return { result: unavailableCase(drawn.name, `the drawn structure's grid was refused: ${e.issues.map((i) => i.message).join("; ")}`), error: null };
+      if (e instanceof InputError) return `the drawn structure's grid was refused: ${e.issues.map((i) => i.message).join("; ")}`;
       throw e;
     }
     hom.push(run.cases[0].ladder[0]); geo.push(run.cases[1].ladder[0]);
     last = run;
+    return null;
+  };
+  for (const [k, rung] of rungs.entries()) {
+    const refused = solveRung(rung, k, rungs.length);
+    if (refused !== null) return { result: unavailableCase(drawn.name, refused), error: null };
   }
+  let read = readDrawn(input, drawn, main, realizedMain, rungs, hom, geo, last!, accuracy);
+  // not converged on the planned rungs: one finer rung where it fits (drawnLadder.ts DRAWN_ADDED_STEPS)
+  const unconverged = (r: typeof read): boolean => r.result.converged === false || r.error?.converged === false;
+  if (unconverged(read) && plan.added) {
+    const refused = solveRung(plan.added, rungs.length, rungs.length + 1);
+    if (refused === null) {
+      rungs.push(plan.added);
+      read = readDrawn(input, drawn, main, realizedMain, rungs, hom, geo, last!, accuracy);
+    }
+  }
+  if (unconverged(read) && read.error && plan.addedReason) read.error.addedRungNote = plan.addedReason;
+  return read;
+}
+
+/** The drawn case's figures and the homogenization error from the rungs solved (see file comment). */
+function readDrawn(input: DrawnRunInput, drawn: CaseSpec, main: DrawnRunMain, realizedMain: CheckCase, rungs: readonly DrawnRung[], hom: readonly LadderPoint[], geo: readonly LadderPoint[], last: VerifyResult, accuracy: number): { result: CheckCase; error: HomogenizationError | null } {
   const hs = geo.map((p) => p.stepM);
   // the drawn scene's order: second in Ez (tests/verify/drawnEzConvergence.test.ts), first in Hz,
   // where a curved interface leaves a first-order remainder in the in-plane averaging (a single rod
@@ -122,7 +147,7 @@ export function drawnRun(input: DrawnRunInput, drawn: CaseSpec, main: DrawnRunMa
   // extrapolating an Hz ladder as second order would understate what is left
   const nominal = input.polarization === "Hz" ? DRAWN_HZ_ORDER : NOMINAL_ORDER;
   const g = last!.cases[1];
-  const why = `finite differences on grids that draw every inclusion (${plan.rungs.map((r) => r.stepsAcross).join(", ")} steps across the smallest feature, ${formatLength(drawn.featureM!)})`;
+  const why = `finite differences on grids that draw every inclusion (${rungs.map((r) => r.stepsAcross).join(", ")} steps across the smallest feature, ${formatLength(drawn.featureM!)})`;
   const magnitude = main.grid && g.magnitude ? resampleNodes(last!.grid, g.magnitude, main.grid) : null;
   // the drawn case's own figures, read as every grid case's
   const bare = main.cases.find((c) => c.name === "bare" && c.available && c.scatteringWidthM !== null && c.scatteringWidthM > 0);
@@ -167,8 +192,8 @@ export function drawnRun(input: DrawnRunInput, drawn: CaseSpec, main: DrawnRunMa
       vsBareDifference,
       deliveredPowerDifference: dd ? dd.value : null, deliveredPowerDifferenceUncertainty: dd ? dd.uncertainty : null,
       stepM: hs[0], resolutions: hs.map((h) => Math.round(C0 / (input.frequencyHz * last!.densestIndex * h))),
-      stepsM: hs, stepsAcrossFeature: plan.rungs.map((r) => r.stepsAcross), featureM: drawn.featureM!,
-      ratios,
+      stepsM: hs, stepsAcrossFeature: rungs.map((r) => r.stepsAcross), featureM: drawn.featureM!,
+      ratios, addedRungNote: null,
     },
   };
 }

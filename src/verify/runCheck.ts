@@ -24,6 +24,7 @@
 import { SPEED_OF_LIGHT_M_PER_S as C0 } from "../core/physicalConstants.js";
 import { InputError } from "../core/errors.js";
 import { formatBytes } from "./assemble.js";
+import { formatDuration } from "../core/timeEstimate.js";
 import { formatLength } from "./formatQuantity.js";
 import { DRAWN_STEPS, drawnLadderPlan, type DrawnLadderPlan } from "./drawnLadder.js";
 import type { TransformSpec } from "../field/transformSpec.js";
@@ -79,13 +80,15 @@ export function runCheck(input: CheckInput): CheckResult {
     : realizedSpec && input.method !== "radial" ? drawnLadderPlan(input, realizedSpec, drawn, drawn.featureM ?? drawn.maxStepM! * DRAWN_STEPS[0], { seconds: input.drawnSeconds }) : null;
   if (plan && plan.reason === null && input.onEstimate) {
     const last = plan.rungs[plan.rungs.length - 1].grid;
-    input.onEstimate(plan.seconds, `realized-geometry: ${2 * plan.rungs.length} solves (the drawn structure and the homogenized map on ${plan.rungs.length} grids, the finest ${last.nx} × ${last.ny} nodes, about ${formatBytes(Math.max(...plan.rungs.map((r) => r.bytes)))} for the solver)`);
+    const more = plan.added ? `; a fourth grid, ${plan.added.grid.nx} × ${plan.added.grid.ny} nodes, about ${formatDuration(plan.added.seconds)} and ${formatBytes(plan.added.bytes)} more if the three leave the figure unconverged` : "";
+    input.onEstimate(plan.seconds, `realized-geometry: ${2 * plan.rungs.length} solves (the drawn structure and the homogenized map on ${plan.rungs.length} grids, the finest ${last.nx} × ${last.ny} nodes, about ${formatBytes(Math.max(...plan.rungs.map((r) => r.bytes)))} for the solver${more})`);
   }
   const main = runMain({ ...input, cases: input.cases.map((c) => (c === drawn ? { name: c.name, scene: null, reason: "solved on its own grid", indexHint: 0 } : c)) });
   const at = main.cases.findIndex((c) => c.name === drawn.name);
   const { result, error } = drawnRun(input, { ...drawn, featureM: drawn.featureM ?? drawn.maxStepM! * DRAWN_STEPS[0] }, main, plan);
   main.cases[at] = result;
   if (result.available && error) main.notes.push(`realized-geometry: drawn on grids of its own (${error.stepsAcrossFeature.join(", ")} steps across the smallest feature, ${formatLength(error.featureM)}; steps ${error.stepsM.map((h) => formatLength(h)).join(", ")}), with the realized map solved again on each for the homogenization error; (σ_geometry − σ_realized)/${error.differenceScale === "bare" ? "σ_bare" : "the larger width"} per grid ${error.differences.map((r) => r.toFixed(4)).join(", ")}${error.ratios.length ? `, σ ratio per grid ${error.ratios.map((r) => r.toFixed(4)).join(", ")}` : ""}`);
+  if (result.available && error?.addedRungNote) main.notes.push(`realized-geometry: not converged; ${error.addedRungNote}`);
   return { ...main, homogenizationError: error };
 }
 

@@ -59,7 +59,9 @@ describe("verify: the drawn realized case of a rect-lattice design", () => {
     expect(geo.available, geo.reason).toBe(true);
     expect(r.err).toMatch(/rect-lattice recipes \(levels 1 \(1 × 2\), 2 \(1 × 2\) per cell\) are drawn m × n discs per cell .*: 90 discs in 45 cells; largest turn from the principal axes 0°/);
     const e = s.homogenizationError;
-    expect(e.stepsAcrossFeature).toEqual([2, 3, 4.5]);
+    // not converged on 2, 3, 4.5 steps (−0.017 ± 0.025), so the ladder went on to a fourth grid (drawnLadder.ts DRAWN_ADDED_STEPS)
+    expect(e.stepsAcrossFeature).toEqual([2, 3, 4.5, 6.75]);
+    expect(r.err).toMatch(/a fourth grid, \d+ × \d+ nodes, about .* more if the three leave the figure unconverged/);
     expect(e.differenceScale).toBe("larger-width");
     // the drawing converges toward the homogenized map: each finer grid's difference smaller
     for (let k = 1; k < e.differences.length; k++) expect(Math.abs(e.differences[k])).toBeLessThan(Math.abs(e.differences[k - 1]));
@@ -71,7 +73,7 @@ describe("verify: the drawn realized case of a rect-lattice design", () => {
     // the contract: the drawn and homogenized widths agree within the stated uncertainty plus the recipes' own error
     expect(Math.abs(e.relative), JSON.stringify(e)).toBeLessThan(e.uncertainty + allowance);
     expect(Math.abs(e.difference), JSON.stringify(e)).toBeLessThan(e.differenceUncertainty + allowance);
-    // and here within the uncertainty alone (measured −0.017 ± 0.025)
+    // and here within the uncertainty alone (measured −0.014 ± 0.023 on four grids)
     expect(Math.abs(e.difference), JSON.stringify(e)).toBeLessThan(e.differenceUncertainty);
     expect(r.code).toBe(s.converged ? 0 : 2);
   }, 300_000);

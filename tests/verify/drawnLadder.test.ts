@@ -16,7 +16,8 @@ import { resolveSettings } from "../../src/plan/resolveSettings.js";
 import { reduceField } from "../../src/reduce/reduceField.js";
 import { bulkMaterials } from "../../src/verify/bulkMaterials.js";
 import { deviceCases } from "../../src/verify/deviceCases.js";
-import { DRAWN_STEPS, drawnLadderPlan, MAX_DRAWN_SECONDS } from "../../src/verify/drawnLadder.js";
+import { DRAWN_ADDED_STEPS, DRAWN_STEPS, drawnLadderPlan, MAX_DRAWN_ADDED_UNKNOWNS, MAX_DRAWN_SECONDS } from "../../src/verify/drawnLadder.js";
+import { expectClose } from "../helpers/close.js";
 
 async function drawnCase(path: string) {
   const design = await loadDesign(path, process.cwd());
@@ -51,6 +52,25 @@ describe("the drawn ladder on the demos (costed, not solved)", () => {
     const none = drawnLadderPlan(input, realized, drawn, drawn.featureM!, { seconds: plan.rungs[0].seconds });
     expect(none.reason).toMatch(/^drawing the inclusions \(smallest feature 500 µm\) needs a ladder of at least 2 grids from 2 steps across the smallest feature; at 3 steps across it: \d+ × \d+ nodes, over the time \(about .* in all, the check spends at most .* on the drawn case; --drawn-time sets it\); it would fit with every feature about [\d.]+ times larger/);
     expect(none.reason).not.toMatch(/\n/);
+  }, 60_000);
+
+  it("a fourth, finer rung (6.75 steps) is costed for an unconverged figure: taken when it fits the time and size limits, else one line gives the --drawn-time that would let it", async () => {
+    const { drawn, realized, input } = await drawnCase("demo-designs/plan-microwave-rod-lens.json");
+    const plan = drawnLadderPlan(input, realized, drawn, drawn.featureM!);
+    expect(plan.added, plan.addedReason ?? "").not.toBeNull();
+    expect(plan.added!.stepsAcross).toBe(DRAWN_ADDED_STEPS);
+    expect(plan.added!.grid.h).toBeLessThan(plan.rungs[2].grid.h);
+    expectClose(plan.rungs[2].grid.h / plan.added!.grid.h, DRAWN_ADDED_STEPS / DRAWN_STEPS[2], { rel: 0.02, label: "the added rung is 1.5 times finer" });
+    expect(plan.seconds + plan.added!.seconds).toBeLessThanOrEqual(MAX_DRAWN_SECONDS);
+    // a time limit that holds the three planned rungs but not the fourth: no fourth, and the --drawn-time that would do
+    const tight = drawnLadderPlan(input, realized, drawn, drawn.featureM!, { seconds: plan.seconds + 0.5 * plan.added!.seconds });
+    expect(tight.rungs.length).toBe(3);
+    expect(tight.added).toBeNull();
+    const minutes = Math.ceil((plan.seconds + plan.added!.seconds) / 60);
+    expect(tight.addedReason).toContain(`give --drawn-time '${minutes} min' to let the ladder go on`);
+    // the fourth stays within the size limit the check adds on its own
+    const fourth = plan.added!.grid.nx * plan.added!.grid.ny;
+    expect(fourth).toBeLessThanOrEqual(MAX_DRAWN_ADDED_UNKNOWNS);
   }, 60_000);
 
   it.each([
