@@ -23,7 +23,7 @@ import { carpetGround } from "../../verify/carpetGround.js";
 import { SPEED_OF_LIGHT_M_PER_S } from "../../core/physicalConstants.js";
 import { fieldSvg } from "../../verify/fieldSvg.js";
 import { formatFrequency, formatLength } from "../../verify/formatQuantity.js";
-import { formatPoint } from "../../core/formatQuantity.js";
+import { formatPoint, significant } from "../../core/formatQuantity.js";
 import type { Illumination } from "../../verify/illumination.js";
 import { DEFAULT_ACCURACY } from "../../verify/verifyDevice.js";
 import { DEFAULT_SOLVER_BYTES, formatBytes } from "../../verify/assemble.js";
@@ -131,7 +131,7 @@ export function verifyTable(design: string, scheme: string, r: CheckResult): str
   const solver = r.method === "radial" ? "exact radial solver (no grid)" : r.method === "fdfd" ? "FDFD" : "exact radial solver and FDFD";
   return [
     design,
-    `  ${r.polarization}, scheme ${scheme}, ${formatFrequency(r.frequencyHz)}, ${ill}; ${solver}, ${ladder}${r.grid ? `; finest grid ${r.grid.nx} × ${r.grid.ny} nodes, step ${formatLength(r.grid.h)} (densest index ${Number(r.densestIndex.toPrecision(3))})` : ""}`,
+    `  ${r.polarization}, scheme ${scheme}, ${formatFrequency(r.frequencyHz, (v) => significant(v, 6))}, ${ill}; ${solver}, ${ladder}${r.grid ? `; finest grid ${r.grid.nx} × ${r.grid.ny} nodes, step ${formatLength(r.grid.h)} (densest index ${Number(r.densestIndex.toPrecision(3))})` : ""}`,
     `  solver: ${r.methodReason}`,
     line(head),
     ...rows.map(line),
@@ -319,7 +319,7 @@ export const command: Command = {
       const indexWhere = overrides.backgroundIndex !== undefined ? "--background-index" : design.reduction?.backgroundIndex !== undefined ? `${design.sourcePath}: $.reduction.backgroundIndex` : `the design's background, ${design.sourcePath}: $.background`;
       const bg = checkBackgroundMaterial(backgroundId, catalog, design.frequencyHz, n, `${design.sourcePath}: $.reduction.backgroundMaterial`, indexWhere);
       backgroundDispersion = { materialId: backgroundId, designFrequencyHz: design.frequencyHz };
-      backgroundNote = `background: ${bg.material.name} ('${backgroundId}', ${bg.material.model} model; ${bg.material.source}), Re ε ${Number(bg.epsRe.toPrecision(6))} at ${formatFrequency(design.frequencyHz)} (index ${bg.index.toPrecision(6)}, the design's ${n.toPrecision(6)})${sweep
+      backgroundNote = `background: ${bg.material.name} ('${backgroundId}', ${bg.material.model} model; ${bg.material.source}), Re ε ${Number(bg.epsRe.toPrecision(6))} at ${formatFrequency(design.frequencyHz, (v) => significant(v, 6))} (index ${bg.index.toPrecision(6)}, the design's ${n.toPrecision(6)})${sweep
         ? ": followed at each frequency of the sweep (ε_bg(f) = ε_bg(f₀)·Re ε(f)/Re ε(f₀), its loss not modelled), with the ideal and reduced maps scaled by the same factor (ε′ = J ε_b Jᵀ/det J is linear in ε_b)"
         : "; a --sweep follows its dispersion"}`;
     }
