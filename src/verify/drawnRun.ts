@@ -146,9 +146,9 @@ function readDrawn(input: DrawnRunInput, drawn: CaseSpec, main: DrawnRunMain, re
   // against the series: order 0.84–1.4, about 1.0–1.1 on fine grids, drawnHzConvergence.test.ts);
   // extrapolating an Hz ladder as second order would understate what is left
   const nominal = input.polarization === "Hz" ? DRAWN_HZ_ORDER : NOMINAL_ORDER;
-  const g = last!.cases[1];
+  const g = last.cases[1];
   const why = `finite differences on grids that draw every inclusion (${rungs.map((r) => r.stepsAcross).join(", ")} steps across the smallest feature, ${formatLength(drawn.featureM!)})`;
-  const magnitude = main.grid && g.magnitude ? resampleNodes(last!.grid, g.magnitude, main.grid) : null;
+  const magnitude = main.grid && g.magnitude ? resampleNodes(last.grid, g.magnitude, main.grid) : null;
   // the drawn case's own figures, read as every grid case's
   const bare = main.cases.find((c) => c.name === "bare" && c.available && c.scatteringWidthM !== null && c.scatteringWidthM > 0);
   const box = input.deviceBox;
@@ -191,7 +191,7 @@ function readDrawn(input: DrawnRunInput, drawn: CaseSpec, main: DrawnRunMain, re
       relative: ratio ? ratio.value - 1 : null, uncertainty: ratio ? ratio.uncertainty : null,
       vsBareDifference,
       deliveredPowerDifference: dd ? dd.value : null, deliveredPowerDifferenceUncertainty: dd ? dd.uncertainty : null,
-      stepM: hs[0], resolutions: hs.map((h) => Math.round(C0 / (input.frequencyHz * last!.densestIndex * h))),
+      stepM: hs[0], resolutions: hs.map((h) => Math.round(C0 / (input.frequencyHz * last.densestIndex * h))),
       stepsM: hs, stepsAcrossFeature: rungs.map((r) => r.stepsAcross), featureM: drawn.featureM!,
       ratios, addedRungNote: null,
     },

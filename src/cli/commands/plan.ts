@@ -23,7 +23,7 @@ import { EXIT_INPUT, EXIT_INTERRUPTED, EXIT_NOT_BUILDABLE, EXIT_OK } from "../ru
 import { runInterruptible } from "../interruptible.js";
 import { resolveSettings } from "../../plan/resolveSettings.js";
 import { backgroundMedium } from "../../reduce/backgroundMedium.js";
-import { checkBackgroundMaterial } from "../../verify/sweep/backgroundAtFrequency.js";
+import { checkDesignBackgroundMaterial } from "../../verify/sweep/backgroundAtFrequency.js";
 import { join, resolve } from "node:path";
 
 export const DEFAULT_OUT_DIR = "cellwright-out";
@@ -92,14 +92,11 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
   // a folder that cannot take the outputs is refused before minutes of planning
   await preparePlanOutputs(resolve(io.cwd, outDir));
   const [field, materials, processes] = await Promise.all([loadFieldForDesign(design), loadMaterialCatalog(), loadProcessCatalog()]);
-  // a background material (read by verify's sweep) is checked here too, so a typo does not wait for verify
-  const backgroundId = design.reduction?.backgroundMaterial;
-  if (backgroundId !== undefined) {
-    // the background index the plan's reduction uses (runPlan.ts), from the same settings
+  // a background material (read by verify's sweep) is checked here too, so a typo does not wait for verify;
+  // against the background index the plan's reduction uses (runPlan.ts), from the same settings
+  if (design.reduction?.backgroundMaterial !== undefined) {
     const nb = resolveSettings(design, overrides).backgroundIndex;
-    const index = backgroundMedium(field.background, nb === 1 ? undefined : nb).index;
-    const indexWhere = overrides.backgroundIndex !== undefined ? "--background-index" : design.reduction?.backgroundIndex !== undefined ? `${design.sourcePath}: $.reduction.backgroundIndex` : `the design's background, ${design.sourcePath}: $.background`;
-    checkBackgroundMaterial(backgroundId, materials, design.frequencyHz, index, `${design.sourcePath}: $.reduction.backgroundMaterial`, indexWhere);
+    checkDesignBackgroundMaterial(design, overrides.backgroundIndex !== undefined, materials, backgroundMedium(field.background, nb === 1 ? undefined : nb).index);
   }
   const timeWarning = expectedTimeWarning(planSeconds(field.grid.count), `planning ${field.grid.count.toExponential(2)} cells and writing the outputs`);
   if (timeWarning !== null) io.stderr(`warning: ${timeWarning}\n`);

@@ -36,7 +36,7 @@ import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_OK } from "../run.js";
 import { optionOverrides } from "./plan.js";
-import { checkBackgroundMaterial, type BackgroundDispersion } from "../../verify/sweep/backgroundAtFrequency.js";
+import { checkDesignBackgroundMaterial, type BackgroundDispersion } from "../../verify/sweep/backgroundAtFrequency.js";
 import type { Material } from "../../media/material.js";
 
 export const VERIFY_SVG = "verify-fields.svg";
@@ -316,8 +316,7 @@ export const command: Command = {
     const backgroundId = design.reduction?.backgroundMaterial;
     if (backgroundId !== undefined) {
       if (catalog.length === 0) catalog = await loadMaterialCatalog();
-      const indexWhere = overrides.backgroundIndex !== undefined ? "--background-index" : design.reduction?.backgroundIndex !== undefined ? `${design.sourcePath}: $.reduction.backgroundIndex` : `the design's background, ${design.sourcePath}: $.background`;
-      const bg = checkBackgroundMaterial(backgroundId, catalog, design.frequencyHz, n, `${design.sourcePath}: $.reduction.backgroundMaterial`, indexWhere);
+      const bg = checkDesignBackgroundMaterial(design, overrides.backgroundIndex !== undefined, catalog, n)!;
       backgroundDispersion = { materialId: backgroundId, designFrequencyHz: design.frequencyHz };
       backgroundNote = `background: ${bg.material.name} ('${backgroundId}', ${bg.material.model} model; ${bg.material.source}), Re ε ${Number(bg.epsRe.toPrecision(6))} at ${formatFrequency(design.frequencyHz, (v) => significant(v, 6))} (index ${bg.index.toPrecision(6)}, the design's ${n.toPrecision(6)})${sweep
         ? ": followed at each frequency of the sweep (ε_bg(f) = ε_bg(f₀)·Re ε(f)/Re ε(f₀), its loss not modelled), with the ideal and reduced maps scaled by the same factor (ε′ = J ε_b Jᵀ/det J is linear in ε_b)"

@@ -73,6 +73,21 @@ export function checkBackgroundMaterial(id: string, catalog: readonly Material[]
   return { material, epsRe: v.eps.re, index };
 }
 
+/**
+ * The design's `reduction.backgroundMaterial` checked against the background index the reduction
+ * uses (`checkBackgroundMaterial`), with the JSON paths and option named as `plan` and `verify`
+ * report them; null when the design names no background material.
+ */
+export function checkDesignBackgroundMaterial(
+  design: { sourcePath: string; frequencyHz: number; reduction?: { backgroundMaterial?: string; backgroundIndex?: number } },
+  indexOverridden: boolean, catalog: readonly Material[], backgroundIndex: number,
+): BackgroundMaterialInfo | null {
+  const id = design.reduction?.backgroundMaterial;
+  if (id === undefined) return null;
+  const indexWhere = indexOverridden ? "--background-index" : design.reduction?.backgroundIndex !== undefined ? `${design.sourcePath}: $.reduction.backgroundIndex` : `the design's background, ${design.sourcePath}: $.background`;
+  return checkBackgroundMaterial(id, catalog, design.frequencyHz, backgroundIndex, `${design.sourcePath}: $.reduction.backgroundMaterial`, indexWhere);
+}
+
 /** The background at one frequency: the scale s(f) on ε, and the material's values there. */
 export interface BackgroundAt {
   /** s(f) = Re ε_m(f) / Re ε_m(f₀) */
