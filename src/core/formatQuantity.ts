@@ -39,6 +39,14 @@ export function formatFrequency(hz: number, number: (v: number) => string = (v) 
   return `${number(hz)} Hz`;
 }
 
+/**
+ * A frequency as given or solved at (a design frequency, one sweep point): six significant digits,
+ * so 193.5 THz does not read "194 THz" as formatFrequency's three would. Example: 1.935e14 → "193.5 THz"
+ */
+export function formatFrequencyPrecise(hz: number): string {
+  return formatFrequency(hz, (v) => significant(v, 6));
+}
+
 /** A count in exponent form; one past the number range reads "more than 1.80e+308". Example: formatCount(1.5e6) → "1.50e+6" */
 export function formatCount(n: number): string {
   return Number.isFinite(n) ? n.toExponential(2) : `more than ${Number.MAX_VALUE.toExponential(2)}`;

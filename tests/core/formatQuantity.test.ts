@@ -1,6 +1,6 @@
 /** One formatter for lengths and frequencies: unit choice, digits, and no NaN/Infinity (identities, SI prefixes). */
 import { describe, it, expect } from "vitest";
-import { formatFrequency, formatLength, formatPoint, significant } from "../../src/core/formatQuantity.js";
+import { formatFrequency, formatFrequencyPrecise, formatLength, formatPoint, significant } from "../../src/core/formatQuantity.js";
 
 describe("formatQuantity", () => {
   it("picks the readable SI unit", () => {
@@ -12,6 +12,10 @@ describe("formatQuantity", () => {
     expect(formatFrequency(1.05e10)).toBe("10.5 GHz");
     expect(formatFrequency(1.934e14)).toBe("193 THz");
     expect(formatFrequency(50)).toBe("50 Hz");
+    // a frequency as given keeps six digits: 193.5 THz (1549.3 nm) is not 194 THz
+    expect(formatFrequencyPrecise(1.935e14)).toBe("193.5 THz");
+    expect(formatFrequencyPrecise(9.4e9)).toBe("9.4 GHz");
+    expect(formatFrequencyPrecise(Number.NaN)).toBe("—");
   });
   it("takes the caller's number style and never prints NaN or Infinity", () => {
     expect(formatLength(0.0012, (v) => v.toPrecision(3))).toBe("1.20 mm");

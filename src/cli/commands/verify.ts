@@ -22,8 +22,8 @@ import { bulkMaterials } from "../../verify/bulkMaterials.js";
 import { carpetGround } from "../../verify/carpetGround.js";
 import { SPEED_OF_LIGHT_M_PER_S } from "../../core/physicalConstants.js";
 import { fieldSvg } from "../../verify/fieldSvg.js";
-import { formatFrequency, formatLength } from "../../verify/formatQuantity.js";
-import { formatPoint, significant } from "../../core/formatQuantity.js";
+import { formatLength } from "../../verify/formatQuantity.js";
+import { formatFrequencyPrecise, formatPoint } from "../../core/formatQuantity.js";
 import type { Illumination } from "../../verify/illumination.js";
 import { DEFAULT_ACCURACY } from "../../verify/verifyDevice.js";
 import { DEFAULT_SOLVER_BYTES, formatBytes } from "../../verify/assemble.js";
@@ -131,7 +131,7 @@ export function verifyTable(design: string, scheme: string, r: CheckResult): str
   const solver = r.method === "radial" ? "exact radial solver (no grid)" : r.method === "fdfd" ? "FDFD" : "exact radial solver and FDFD";
   return [
     design,
-    `  ${r.polarization}, scheme ${scheme}, ${formatFrequency(r.frequencyHz, (v) => significant(v, 6))}, ${ill}; ${solver}, ${ladder}${r.grid ? `; finest grid ${r.grid.nx} × ${r.grid.ny} nodes, step ${formatLength(r.grid.h)} (densest index ${Number(r.densestIndex.toPrecision(3))})` : ""}`,
+    `  ${r.polarization}, scheme ${scheme}, ${formatFrequencyPrecise(r.frequencyHz)}, ${ill}; ${solver}, ${ladder}${r.grid ? `; finest grid ${r.grid.nx} × ${r.grid.ny} nodes, step ${formatLength(r.grid.h)} (densest index ${Number(r.densestIndex.toPrecision(3))})` : ""}`,
     `  solver: ${r.methodReason}`,
     line(head),
     ...rows.map(line),
@@ -318,7 +318,7 @@ export const command: Command = {
       if (catalog.length === 0) catalog = await loadMaterialCatalog();
       const bg = checkDesignBackgroundMaterial(design, overrides.backgroundIndex !== undefined, catalog, n)!;
       backgroundDispersion = { materialId: backgroundId, designFrequencyHz: design.frequencyHz };
-      backgroundNote = `background: ${bg.material.name} ('${backgroundId}', ${bg.material.model} model; ${bg.material.source}), Re ε ${Number(bg.epsRe.toPrecision(6))} at ${formatFrequency(design.frequencyHz, (v) => significant(v, 6))} (index ${bg.index.toPrecision(6)}, the design's ${n.toPrecision(6)})${sweep
+      backgroundNote = `background: ${bg.material.name} ('${backgroundId}', ${bg.material.model} model; ${bg.material.source}), Re ε ${Number(bg.epsRe.toPrecision(6))} at ${formatFrequencyPrecise(design.frequencyHz)} (index ${bg.index.toPrecision(6)}, the design's ${n.toPrecision(6)})${sweep
         ? ": followed at each frequency of the sweep (ε_bg(f) = ε_bg(f₀)·Re ε(f)/Re ε(f₀), its loss not modelled), with the ideal and reduced maps scaled by the same factor (ε′ = J ε_b Jᵀ/det J is linear in ε_b)"
         : "; a --sweep follows its dispersion"}`;
     }

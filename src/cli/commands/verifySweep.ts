@@ -14,8 +14,7 @@ import { InputError } from "../../core/errors.js";
 import { memoryBudget } from "../../io/memoryLimit.js";
 import { checkOutputFolder, prepareOutputFolder, writeOutputSet, type OutputFile } from "../../io/outputSet.js";
 import { parseQuantity } from "../../io/quantity.js";
-import { formatFrequency } from "../../verify/formatQuantity.js";
-import { significant } from "../../core/formatQuantity.js";
+import { formatFrequencyPrecise } from "../../core/formatQuantity.js";
 import { planSweepPool, sweepPeakBytes, workerBaselineBytes } from "../../verify/sweep/sweepConcurrency.js";
 import { sweepCsvText } from "../../verify/sweep/sweepCsv.js";
 import { chooseSweepThreads, sweepWallSeconds } from "../../verify/sweep/sweepTime.js";
@@ -181,7 +180,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
       const radialNames = summary.caseNames.filter((n) => summary.points.some((p) => p.cases.some((c) => c.name === n && c.available && c.method === "radial")));
       const solvers = radialNames.length ? `; radial solver: ${radialNames.join(", ")}` : "";
       const followed = context.backgroundDispersion ? `; background ${context.backgroundDispersion.materialId} (its dispersion followed)` : "";
-      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz, (v) => significant(v, 6))}${solvers}${followed}${r0band(summary)}`;
+      const subtitle = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequencyPrecise(run.designFrequencyHz)}${solvers}${followed}${r0band(summary)}`;
       const files: OutputFile[] = [
         {
           name: SWEEP_CSV,
@@ -220,7 +219,7 @@ export async function runVerifySweep(io: CliIo, run: SweepRun): Promise<number> 
       outputs,
     })}\n`);
   } else {
-    const header = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequency(run.designFrequencyHz, (v) => significant(v, 6))}; ${solverText}; ${pool.workers} frequenc${pool.workers === 1 ? "y" : "ies"} at a time`;
+    const header = `${context.polarization}, scheme ${run.scheme}, design frequency ${formatFrequencyPrecise(run.designFrequencyHz)}; ${solverText}; ${pool.workers} frequenc${pool.workers === 1 ? "y" : "ies"} at a time`;
     io.stdout(sweepTable(run.designName, header, result, run.threshold) + (outputs.length ? `outputs:\n${outputs.map((p) => `  ${p}`).join("\n")}\n` : ""));
   }
   return sweep.converged ? EXIT_OK : EXIT_NOT_BUILDABLE;

@@ -16,8 +16,7 @@
  * drawn scene built at each frequency (geometryScene.ts). Pure.
  */
 import { formatDuration } from "../../core/timeEstimate.js";
-import { formatFrequency } from "../formatQuantity.js";
-import { significant } from "../../core/formatQuantity.js";
+import { formatFrequencyPrecise } from "../../core/formatQuantity.js";
 import { DRAWN_MIN_RUNGS, DRAWN_STEPS, drawnLadderPlan, MAX_DRAWN_SECONDS } from "../drawnLadder.js";
 import type { VerifyInput } from "../verifyDevice.js";
 import { sweepBackground, sweepCases, type SweepContext, type SweepDrawn } from "./sweepPoint.js";
@@ -57,7 +56,7 @@ export function sweepDrawnPlan(ctx: SweepContext, frequenciesHz: readonly number
     const featureM = drawn.featureM ?? drawn.maxStepM! * DRAWN_STEPS[0];
     // without a time limit: memory and grid size alone, and the cost of the two rungs it needs at least
     const open = drawnLadderPlan(input, realized, drawn, featureM, { seconds: Number.MAX_VALUE, bytes: bytesLimit });
-    if (open.reason !== null) return none(`not swept: at ${formatFrequency(f, (v) => significant(v, 6))}, ${open.reason}`);
+    if (open.reason !== null) return none(`not swept: at ${formatFrequencyPrecise(f)}, ${open.reason}`);
     const least = open.rungs.slice(0, DRAWN_MIN_RUNGS).reduce((a, r) => a + r.seconds, 0);
     needed += least;
     const planned = drawnLadderPlan(input, realized, drawn, featureM, { seconds: share, bytes: bytesLimit });
@@ -70,7 +69,7 @@ export function sweepDrawnPlan(ctx: SweepContext, frequenciesHz: readonly number
   }
   if (short) {
     const n = frequenciesHz.length;
-    return none(`not swept: its ladder of ${DRAWN_MIN_RUNGS} drawn grids (the drawn structure and the homogenized map on each) needs about ${formatDuration(short.seconds)} at ${formatFrequency(short.frequencyHz, (v) => significant(v, 6))} and about ${formatDuration(needed)} over the ${n} frequencies, more than --drawn-time (${formatDuration(budgetSeconds)} for the whole sweep, ${formatDuration(share)} per frequency); give --drawn-time '${needed < 90 ? `${Math.ceil(needed)} s` : `${Math.ceil(needed / 60)} min`}' or more, or fewer frequencies`);
+    return none(`not swept: its ladder of ${DRAWN_MIN_RUNGS} drawn grids (the drawn structure and the homogenized map on each) needs about ${formatDuration(short.seconds)} at ${formatFrequencyPrecise(short.frequencyHz)} and about ${formatDuration(needed)} over the ${n} frequencies, more than --drawn-time (${formatDuration(budgetSeconds)} for the whole sweep, ${formatDuration(share)} per frequency); give --drawn-time '${needed < 90 ? `${Math.ceil(needed)} s` : `${Math.ceil(needed / 60)} min`}' or more, or fewer frequencies`);
   }
   return { drawn: { seconds: share }, seconds, bytes };
 }

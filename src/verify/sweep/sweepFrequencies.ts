@@ -3,7 +3,7 @@
  * (one frequency when count is 1, then start and stop are equal), and the text that tells them
  * apart. Pure; the shell parses the text.
  */
-import { formatFrequency, significant } from "../../core/formatQuantity.js";
+import { formatFrequency, formatFrequencyPrecise, significant } from "../../core/formatQuantity.js";
 
 /** Largest number of frequencies one sweep solves (each is a full check on its own ladder). */
 export const MAX_SWEEP_POINTS = 401;
@@ -27,7 +27,7 @@ export function sweepFrequencies(startHz: number, stopHz: number, count: number)
 export function sweepFrequencyFormat(frequenciesHz: readonly number[]): (hz: number) => string {
   const fs = [...new Set(frequenciesHz.filter((f) => Number.isFinite(f) && f > 0))].sort((a, b) => a - b);
   const withDigits = (digits: number) => (hz: number): string => formatFrequency(hz, (v) => significant(v, digits));
-  if (fs.length < 2) return withDigits(6);
+  if (fs.length < 2) return formatFrequencyPrecise;
   let spacing = Infinity;
   for (let k = 1; k < fs.length; k++) spacing = Math.min(spacing, fs[k] - fs[k - 1]);
   for (let digits = 3; digits < 12; digits++) {

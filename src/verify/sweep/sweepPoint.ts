@@ -24,8 +24,7 @@
 import type { Material } from "../../media/material.js";
 import { bulkMaterialsAt } from "../bulkMaterials.js";
 import { deviceCases, type DeviceCasesInput } from "../deviceCases.js";
-import { formatFrequency } from "../formatQuantity.js";
-import { significant } from "../../core/formatQuantity.js";
+import { formatFrequencyPrecise } from "../../core/formatQuantity.js";
 import type { Illumination } from "../illumination.js";
 import { runCheck, type MethodOption } from "../runCheck.js";
 import type { CaseName, CaseSpec } from "../verifyDevice.js";
@@ -181,6 +180,6 @@ export function solveSweepPoint(ctx: SweepContext, frequencyHz: number, onProgre
     background,
     backgroundLossTangent: ctx.backgroundDispersion ? backgroundAt(ctx.backgroundDispersion, ctx.catalog, frequencyHz).lossTangent : null,
     // the drawn case's ladder note differs per frequency: say which
-    notes: [...built.notes, ...r.notes.map((n) => (n.startsWith("realized-geometry: drawn on grids") ? `at ${formatFrequency(frequencyHz, (v) => significant(v, 6))}, ${n}` : n))],
+    notes: [...built.notes, ...r.notes.map((n) => (n.startsWith("realized-geometry: drawn on grids") ? `at ${formatFrequencyPrecise(frequencyHz)}, ${n}` : n))],
   };
 }
