@@ -97,8 +97,8 @@ export function checkDesignBackgroundMaterial(
  * The same check from the design alone, before its field is computed: the field's background is the
  * design's (`$.background`), so the index the reduction will use is `backgroundMedium(background,
  * reductionIndex).index`, where `reductionIndex` is the background index the command hands its
- * reduction (undefined: none, the design's own background). Used by `plan`, `start`, the
- * interactive session and `reduce`; `verify` checks against its computed reduction.
+ * reduction (undefined: none, the design's own background). Used by `plan`, `start`, `verify`,
+ * `reduce` and the interactive session.
  */
 export function checkBackgroundMaterialBeforeReduction(
   design: { sourcePath: string; frequencyHz: number; background: { eps: number; mu: number }; reduction?: { backgroundMaterial?: string; backgroundIndex?: number } },
