@@ -188,6 +188,9 @@ function backgroundNotes(plan: Plan, context: RemedyContext): string[] {
   const bg = context.background;
   const min = plan.minBackgroundIndex;
   if (!bg || min === null || !Number.isFinite(min) || !(min > plan.settings.backgroundIndex)) return [];
+  // the same conditions as the background changes in candidateChanges
+  const counts = plan.figures.flagCounts;
+  if ((counts.subunity ?? 0) === 0 && (counts.unreachable ?? 0) === 0) return [];
   if (!plan.verdict.missed.some((m) => m.what === "recipes" || m.what === "tolerance")) return [];
   if (bg.choices.some((m) => m.id !== bg.materialId && m.index >= min)) return [];
   return [`no other background tried: the design names its background material ('${bg.materialId}'), and no catalog material that can surround the device has index ${Number(min.toPrecision(4))} or more at the design frequency (the index that lifts every ε above the lowest allowed material)`];
