@@ -1,6 +1,6 @@
 import { describe, it, expect } from "vitest";
 import fc from "fast-check";
-import { EVERY_BRANCH, runEveryBranch, writeDecimal, writeFmt } from "../../../src/plan/outputs/decimalBytes.js";
+import { EVERY_BRANCH, LOG10_2_Q12, runEveryBranch, writeDecimal, writeFmt } from "../../../src/plan/outputs/decimalBytes.js";
 import { fmt } from "../../../src/plan/outputs/csvText.js";
 import { precisionReference } from "../../helpers/precisionReference.js";
 
@@ -72,6 +72,13 @@ describe("writeDecimal", () => {
       }
     }
     expect(checked).toBeGreaterThan(2000);
+  });
+
+  it("estimates the decimal exponent from the binary one: (b·1233) >> 12 = ⌊b·log10 2⌋ over 1e-15 … 1e20", () => {
+    // binary exponents of 1e-15 (2^-50 …) up to 1e20 (… 2^66); log10 2 from its definition
+    for (let b = Math.floor(Math.log2(1e-15)); b <= Math.ceil(Math.log2(1e20)); b++) {
+      expect((b * LOG10_2_Q12) >> 12, `b = ${b}`).toBe(Math.floor(b * Math.log10(2)));
+    }
   });
 
   it("declines what it cannot promise: more than 6 digits, tiny and huge magnitudes", () => {
