@@ -48,10 +48,38 @@ const ZERO = 48, DOT = 46, MINUS = 45, LOWER_E = 101;
  * toPrecision's digits and the caller must format with `fmt`.
  */
 export function writeDecimal(buf: Uint8Array, at: number, x: number, digits: number): number {
-  if (digits > 6 || digits < 1) return -1;
+  return formatNumber(buf, at, x, digits, true);
+}
+
+/**
+ * Write exactly `fmt(x, digits)` (csvText.ts) into `buf` at `at` (room for 24 bytes needed) and
+ * return the position after it: "0" for ±0, nothing for NaN and ±Infinity (an empty CSV cell),
+ * the fast path where it can promise the bytes, `fmt`'s own text otherwise.
+ */
+export function writeFmt(buf: Uint8Array, at: number, x: number, digits: number): number {
+  return formatNumber(buf, at, x, digits, false);
+}
+
+/** `fmt`'s text at `at`; returns the position after it. */
+function writeFallback(buf: Uint8Array, at: number, x: number, digits: number): number {
+  const t = fmt(x, digits);
+  for (let k = 0; k < t.length; k++) buf[at++] = t.charCodeAt(k);
+  return at;
+}
+
+/**
+ * `writeFmt`, or with `decline` `writeDecimal`: one function holding the fast path, zero, non-finite
+ * values and the fallback, large enough that the optimizing compiler calls it rather than copying
+ * it into each caller — the build list's row loop has five number columns, and five inlined copies
+ * (with `fmt`'s string code for the fallback) made it slow to compile and slower to run.
+ */
+function formatNumber(buf: Uint8Array, at: number, x: number, digits: number, decline: boolean): number {
+  if (x === 0) { buf[at] = ZERO; return at + 1; }
+  if (!Number.isFinite(x)) return decline ? -1 : at;
+  if (digits > 6 || digits < 1) return decline ? -1 : writeFallback(buf, at, x, digits);
   const neg = x < 0;
   const a = neg ? -x : x;
-  if (!(a >= 1e-15 && a < 1e20)) return -1;
+  if (!(a >= 1e-15 && a < 1e20)) return decline ? -1 : writeFallback(buf, at, x, digits);
   // decimal exponent from the binary one: a ∈ [2^b, 2^(b+1)) puts ⌊log10 a⌋ at ⌊b·log10 2⌋ or one
   // above, told by one comparison with the double nearest that power of ten (no loop, no branch)
   BITS_F64[0] = a;
@@ -73,7 +101,7 @@ export function writeDecimal(buf: Uint8Array, at: number, x: number, digits: num
   const shifted = s + 0.5;
   const rounded = Math.floor(shifted);
   const above = shifted - rounded;
-  if (above < HALF_GUARD || above > 1 - HALF_GUARD) return -1;
+  if (above < HALF_GUARD || above > 1 - HALF_GUARD) return decline ? -1 : writeFallback(buf, at, x, digits);
   // below 10⁶ + 1: small integers from here on (integer division and remainder, no fmod)
   let n = rounded | 0;
   if (n >= POW10[digits]) { n = POW10[digits - 1] | 0; e++; }
@@ -121,21 +149,6 @@ export function writeDecimal(buf: Uint8Array, at: number, x: number, digits: num
     n = q;
   }
   return at + nd;
-}
-
-/**
- * Write exactly `fmt(x, digits)` (csvText.ts) into `buf` at `at` (room for 24 bytes needed) and
- * return the position after it: "0" for ±0, nothing for NaN and ±Infinity (an empty CSV cell),
- * `writeDecimal` where it can promise the bytes, `fmt`'s own text otherwise.
- */
-export function writeFmt(buf: Uint8Array, at: number, x: number, digits: number): number {
-  if (x === 0) { buf[at] = ZERO; return at + 1; }
-  if (!Number.isFinite(x)) return at;
-  const end = writeDecimal(buf, at, x, digits);
-  if (end >= 0) return end;
-  const t = fmt(x, digits);
-  for (let k = 0; k < t.length; k++) buf[at++] = t.charCodeAt(k);
-  return at;
 }
 
 /**
