@@ -149,8 +149,11 @@ interface RowSource {
   firstTail: number; masks: number; maskIndex: Int32Array; firstFlags: number;
   /** scratch for the cell number's digits */
   counter: Uint8Array;
-  /** the previous value of each target column and its bytes (a constant column reuses them) */
-  lastTarget: Float64Array; lastLength: Int32Array; lastBytes: Uint8Array;
+  /**
+   * the previous value of each target column and where its bytes are in the buffer being filled (a
+   * constant column copies them); `fillChunk` forgets them when it starts a buffer
+   */
+  lastTarget: Float64Array; lastAt: Int32Array; lastLength: Int32Array;
 }
 
 const DEG_PER_RAD = 180 / Math.PI;
@@ -164,7 +167,7 @@ const DEG_PER_RAD = 180 / Math.PI;
 function fillRows(r: RowSource, buf: Uint8Array, view: DataView, at: number, from: number, count: number, limit: number, end: Int32Array): number {
   const { three, m, gi, gj, gk, targets, axisAngleRad, region, level, relError, quantizationError, zeroTargetAbsError, flags } = r;
   const { words, start, length, firstI, firstJ, firstK, firstX, firstY, firstZ, firstAchieved, noAchieved } = r;
-  const { firstRegion, firstLevel, firstTail, masks, maskIndex, firstFlags, counter, lastTarget, lastLength, lastBytes } = r;
+  const { firstRegion, firstLevel, firstTail, masks, maskIndex, firstFlags, counter, lastTarget, lastAt, lastLength } = r;
   // the cell number as ASCII digits ending at counter[COUNTER_END - 1], incremented per row
   const first = String(from + 1);
   let cs = COUNTER_END - first.length;
@@ -195,13 +198,12 @@ function fillRows(r: RowSource, buf: Uint8Array, view: DataView, at: number, fro
       buf[at++] = COMMA;
       // a value equal to the column's previous one (a constant component) reuses its bytes
       const v = targets[k][c];
-      const from = k * NUMBER_BYTES;
       if (v === lastTarget[k]) {
-        for (let q = 0, len = lastLength[k]; q < len; q++) buf[at++] = lastBytes[from + q];
+        for (let q = lastAt[k], n = q + lastLength[k]; q < n; q++) buf[at++] = buf[q];
       } else {
         const e = putNumber(buf, at, v, 6);
-        for (let q = at; q < e; q++) lastBytes[from + q - at] = buf[q];
         lastTarget[k] = v;
+        lastAt[k] = at;
         lastLength[k] = e - at;
         at = e;
       }
@@ -234,6 +236,7 @@ const ROWS_PER_CALL = 32;
  * replacement) and then again as a function — each compilation of it costs about 50 ms of CPU.
  */
 function fillChunk(r: RowSource, buf: Uint8Array, view: DataView, at: number, from: number, count: number, limit: number, end: Int32Array): number {
+  r.lastTarget.fill(NaN); // their bytes were in the buffer before
   let c = from;
   end[0] = at;
   while (c < count && end[0] < limit) c = fillRows(r, buf, view, end[0], c, Math.min(count, c + ROWS_PER_CALL), limit, end);
@@ -312,7 +315,7 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
     targets: plan.targets, axisAngleRad: plan.axisAngleRad, region: plan.region, level: plan.level,
     relError: plan.relError, quantizationError: plan.quantizationError, zeroTargetAbsError: plan.zeroTargetAbsError,
     flags: plan.flags, ...texts, counter: new Uint8Array(COUNTER_END),
-    lastTarget: new Float64Array(m).fill(NaN), lastLength: new Int32Array(m), lastBytes: new Uint8Array(m * NUMBER_BYTES),
+    lastTarget: new Float64Array(m).fill(NaN), lastAt: new Int32Array(m), lastLength: new Int32Array(m),
   };
   // two buffers in turn: the caller may hold one until its emit promise settles
   let buf: Uint8Array = new Uint8Array(size);
