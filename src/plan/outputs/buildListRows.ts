@@ -14,7 +14,7 @@ import { orientationCode } from "./orientationText.js";
 import type { Plan } from "../planTypes.js";
 import { flagList } from "../flags.js";
 import { csvField, fmt } from "./csvText.js";
-import { runEveryBranch, writeFmt } from "./decimalBytes.js";
+import { NUMBER_ROOM, runEveryBranch, writeFmt } from "./decimalBytes.js";
 import { makeTextPool } from "./textPool.js";
 
 /** Dimension keys (metres, "radius_m") used by any level's recipe, sorted by name. */
@@ -112,8 +112,6 @@ function putText(view: DataView, at: number, words: Float64Array, start: Int32Ar
 /** `fmt(x, digits)` at `at` without making a string (decimalBytes.ts). */
 const putNumber = writeFmt;
 
-/** Most bytes one number takes (fmt's longest: "-1.23457e-100" and then some). */
-const NUMBER_BYTES = 24;
 
 /**
  * Everything a row needs besides the cell index: the plan's per-cell arrays and the ids of the
@@ -188,7 +186,7 @@ function fillRows(r: RowSource, buf: Uint8Array, view: DataView, at: number, fro
     at = putText(view, at, words, start, length, firstX + i);
     at = putText(view, at, words, start, length, firstY + j);
     if (three) at = putText(view, at, words, start, length, firstZ + gk[c]);
-    at = putNumber(buf, at, axisAngleRad[c] * DEG_PER_RAD, 4); buf[at++] = COMMA;
+    at = putNumber(buf, view, at, axisAngleRad[c] * DEG_PER_RAD, 4); buf[at++] = COMMA;
     if (firstRegion >= 0) at = putText(view, at, words, start, length, firstRegion + region[c]);
     else {
       at = putInt(buf, at, region[c] + 1); buf[at++] = COMMA;
@@ -201,7 +199,7 @@ function fillRows(r: RowSource, buf: Uint8Array, view: DataView, at: number, fro
       if (v === lastTarget[k]) {
         for (let q = lastAt[k], n = q + lastLength[k]; q < n; q++) buf[at++] = buf[q];
       } else {
-        const e = putNumber(buf, at, v, 6);
+        const e = putNumber(buf, view, at, v, 6);
         lastTarget[k] = v;
         lastAt[k] = at;
         lastLength[k] = e - at;
@@ -209,10 +207,10 @@ function fillRows(r: RowSource, buf: Uint8Array, view: DataView, at: number, fro
       }
     }
     at = putText(view, at, words, start, length, lv >= 0 ? firstAchieved + lv : noAchieved);
-    buf[at++] = COMMA; at = putNumber(buf, at, relError[c], 4);
-    buf[at++] = COMMA; at = putNumber(buf, at, quantizationError[c], 4);
+    buf[at++] = COMMA; at = putNumber(buf, view, at, relError[c], 4);
+    buf[at++] = COMMA; at = putNumber(buf, view, at, quantizationError[c], 4);
     buf[at++] = COMMA;
-    if (zeroTargetAbsError) at = putNumber(buf, at, zeroTargetAbsError[c], 4);
+    if (zeroTargetAbsError) at = putNumber(buf, view, at, zeroTargetAbsError[c], 4);
     if (masks > 0) at = putText(view, at, words, start, length, firstTail + (lv + 1) * masks + maskIndex[flags[c]]);
     else {
       at = putText(view, at, words, start, length, firstTail + lv + 1);
@@ -308,7 +306,7 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
   const texts = rowTexts(plan, limits);
   // the most one row can take: at most 11 texts (with their word padding), the cell number, m + 4
   // numbers, the commas between, a region number written digit by digit
-  const rowBytes = 11 * texts.longest + COUNTER_END + (m + 4) * (NUMBER_BYTES + 1) + 32;
+  const rowBytes = 11 * texts.longest + COUNTER_END + (m + 4) * (NUMBER_ROOM + 1) + 32;
   const size = BUILD_LIST_CHUNK_BYTES + Math.max(65536, rowBytes);
   const rows: RowSource = {
     three, m, gi: g.i, gj: g.j, gk: g.k,
