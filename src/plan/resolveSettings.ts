@@ -45,3 +45,11 @@ export function resolveSettings(design: SettingsSource, overrides: PlanOverrides
   }
   return out;
 }
+
+/**
+ * The background index a plan hands its reduction: undefined for 1, which keeps the design's own
+ * background (`$.background`, as the field was computed), else the index.
+ */
+export function planReductionIndex(settings: Pick<PlanSettings, "backgroundIndex">): number | undefined {
+  return settings.backgroundIndex === 1 ? undefined : settings.backgroundIndex;
+}

@@ -3,17 +3,16 @@
  * that long recomputations never block the session's key handling. Requests that arrive while a
  * plan is being computed are collapsed: only the newest is computed next.
  *
- * Messages in: { type: "init", designPath, cwd } · { type: "plan", seq, overrides }
+ * Messages in: { type: "init", designPath, cwd, sessionPath } · { type: "plan", seq, overrides }
  * Messages out: { type: "ready" } · { type: "initFailed", error } · { type: "progress", seq, stage, fraction }
  *               · { type: "plan", seq, plan } · { type: "failed", seq, error }
  */
 import { parentPort } from "node:worker_threads";
 import type { PlanOverrides } from "../plan/planTypes.js";
 import { loadPlanInputs, type PlanInputs } from "./planInputs.js";
-import { searchRemedies } from "../io/planRemedies.js";
-import { planFromField } from "../plan/runPlan.js";
+import { planSession } from "./planSession.js";
 
-export type WorkerRequest = { type: "init"; designPath: string; cwd: string } | { type: "plan"; seq: number; overrides: PlanOverrides };
+export type WorkerRequest = { type: "init"; designPath: string; cwd: string; sessionPath: string } | { type: "plan"; seq: number; overrides: PlanOverrides };
 
 /** An error as plain data (InputError issues kept) for postMessage. */
 export function errorData(err: unknown): { message: string; issues?: { where: string; message: string }[] } {
@@ -24,6 +23,7 @@ export function errorData(err: unknown): { message: string; issues?: { where: st
 const port = parentPort;
 if (port) {
   let inputs: Promise<PlanInputs> | null = null;
+  let sessionPath = "";
   let pending: { seq: number; overrides: PlanOverrides } | null = null;
   let scheduled = false;
 
@@ -39,11 +39,9 @@ if (port) {
       return; // initFailed was reported
     }
     try {
-      const plan = planFromField(loaded.design, loaded.field, loaded.catalogs, job.overrides, (stage, fraction) => {
+      const plan = planSession(loaded, job.overrides, sessionPath, (stage, fraction) => {
         port.postMessage({ type: "progress", seq: job.seq, stage, fraction });
       });
-      // remedies are tried here too (off the session's thread), so export writes what `plan` writes
-      if (!plan.verdict.buildable) plan.remedies = searchRemedies(plan, loaded.design, loaded.field, loaded.catalogs, job.overrides);
       port.postMessage({ type: "plan", seq: job.seq, plan });
     } catch (err) {
       port.postMessage({ type: "failed", seq: job.seq, error: errorData(err) });
@@ -57,6 +55,7 @@ if (port) {
   port.on("message", (msg: WorkerRequest) => {
     if (msg.type === "init") {
       inputs = loadPlanInputs(msg.designPath, msg.cwd);
+      sessionPath = msg.sessionPath;
       inputs.then(
         () => port.postMessage({ type: "ready" }),
         (err) => port.postMessage({ type: "initFailed", error: errorData(err) }),

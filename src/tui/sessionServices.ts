@@ -10,14 +10,13 @@ import { Worker } from "node:worker_threads";
 import { CELL_FAMILIES } from "../cells/registry.js";
 import { InputError } from "../core/errors.js";
 import { writePlanOutputs } from "../io/planOutputs.js";
-import { searchRemedies } from "../io/planRemedies.js";
 import { saveSessionFile } from "../io/sessionFile.js";
 import type { Plan, PlanOverrides, PlanSettings, PlanStage } from "../plan/planTypes.js";
 import { resolveSettings } from "../plan/resolveSettings.js";
 import { layoutFiles } from "../io/layout/layoutFiles.js";
-import { planFromField } from "../plan/runPlan.js";
 import { compareSchemes } from "../reduce/schemeMetrics.js";
 import { loadPlanInputs, type PlanInputs } from "./planInputs.js";
+import { planSession } from "./planSession.js";
 import type { SessionServices } from "./SessionApp.js";
 import { schemeTableView } from "./state/schemeTableView.js";
 
@@ -42,13 +41,13 @@ class WorkerPlanner {
   private seq = 0;
   private pending = new Map<number, Pending>();
 
-  constructor(designPath: string, cwd: string) {
+  constructor(designPath: string, cwd: string, sessionPath: string) {
     const url = new URL("./planWorker.js", import.meta.url);
     this.worker = new Worker(url);
     this.worker.unref();
     this.worker.on("message", (msg: any) => this.onMessage(msg));
     this.worker.on("error", (err) => this.failAll(err));
-    this.worker.postMessage({ type: "init", designPath, cwd });
+    this.worker.postMessage({ type: "init", designPath, cwd, sessionPath });
   }
 
   private failAll(err: unknown): void {
@@ -108,7 +107,7 @@ function yieldToEventLoop(): Promise<void> {
 export function createSessionServices(opts: ServiceOptions): SessionServices & { close(): Promise<void> } {
   let inputs: Promise<PlanInputs> | null = null;
   const load = (): Promise<PlanInputs> => (inputs ??= loadPlanInputs(opts.designPath, opts.cwd));
-  const worker = (opts.useWorker ?? workerAvailable()) ? new WorkerPlanner(opts.designPath, opts.cwd) : null;
+  const worker = (opts.useWorker ?? workerAvailable()) ? new WorkerPlanner(opts.designPath, opts.cwd, opts.sessionPath) : null;
 
   return {
     async open() {
@@ -126,11 +125,9 @@ export function createSessionServices(opts: ServiceOptions): SessionServices & {
 
     async plan(overrides, onProgress) {
       if (worker) return worker.plan(overrides, onProgress);
-      const { design, field, catalogs } = await load();
+      const inputs = await load();
       await yieldToEventLoop();
-      const plan = planFromField(design, field, catalogs, overrides, onProgress);
-      if (!plan.verdict.buildable) plan.remedies = searchRemedies(plan, design, field, catalogs, overrides);
-      return plan;
+      return planSession(inputs, overrides, opts.sessionPath, onProgress);
     },
 
     async schemes(settings) {

@@ -4,15 +4,15 @@
  * Infinity.
  */
 import { describe, it, expect } from "vitest";
-import { mkdtemp, readFile, writeFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readFile, writeFile } from "node:fs/promises";
 import { join, resolve } from "node:path";
 import { runCli, EXIT_OK } from "../../src/cli/run.js";
 import { bufferIo } from "../../src/cli/cliIo.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 describe("field on an imported tensor that is not positive definite", () => {
   it("warns, counts it and keeps every printed number finite", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-npd-"));
+    const dir = tempDir("cw-npd-");
     const csv = (await readFile("demo-designs/field-imported.csv", "utf8")).split("\n");
     // third line is the first data row: make eps_xx = −1 there
     const cells = csv[2].split(",");

@@ -3,17 +3,17 @@
  * naming the path), not an internal error (exit 3) — and nothing is left behind.
  */
 import { describe, it, expect } from "vitest";
-import { mkdtemp, mkdir, writeFile, readdir, readFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { mkdir, writeFile, readdir, readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { runCli, EXIT_INPUT } from "../../src/cli/run.js";
 import { bufferIo } from "../../src/cli/cliIo.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 const CLOAK = "demo-designs/field-radial-cloak.json";
 
 describe("unusable paths are input errors", () => {
   it("--out through a file, onto a folder, and a missing imported CSV", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-paths-"));
+    const dir = tempDir("cw-paths-");
     await writeFile(join(dir, "afile"), "x");
     await mkdir(join(dir, "adir"));
     const cases: [string[], string][] = [

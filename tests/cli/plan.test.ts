@@ -1,15 +1,15 @@
 import { describe, it, expect } from "vitest";
-import { mkdtemp, readFile, writeFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readFile, writeFile } from "node:fs/promises";
 import { join, resolve } from "node:path";
 import { runCli, EXIT_INPUT, EXIT_OK, EXIT_NOT_BUILDABLE } from "../../src/cli/run.js";
 import { bufferIo } from "../../src/cli/cliIo.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 const DEMO = "tests/plan/golden/small-bend.json";
 
 describe("cellwright plan", () => {
   it("--json prints exactly one JSON object with the summary fields", async () => {
-    const out = await mkdtemp(join(tmpdir(), "cw-cli-"));
+    const out = tempDir("cw-cli-");
     const io = bufferIo();
     expect(await runCli(["plan", DEMO, "--out", out, "--json"], io)).toBe(EXIT_OK);
     const lines = io.out().trim().split("\n");
@@ -33,8 +33,8 @@ describe("cellwright plan", () => {
     const nb = JSON.parse(r.out()).minBackgroundIndex as number;
     expect(nb).toBeGreaterThan(1);
     const before = bufferIo(), after = bufferIo();
-    await runCli(["plan", demo, "--out", await mkdtemp(join(tmpdir(), "cw-cli-")), "--json"], before);
-    await runCli(["plan", demo, "--out", await mkdtemp(join(tmpdir(), "cw-cli-")), "--json", "--background-index", String(nb)], after);
+    await runCli(["plan", demo, "--out", tempDir("cw-cli-"), "--json"], before);
+    await runCli(["plan", demo, "--out", tempDir("cw-cli-"), "--json", "--background-index", String(nb)], after);
     expect(JSON.parse(before.out()).flags.subunity).toBeGreaterThan(0);
     expect(JSON.parse(after.out()).flags.subunity ?? 0).toBe(0);
     const bad = bufferIo();
@@ -43,7 +43,7 @@ describe("cellwright plan", () => {
   }, 60_000);
 
   it("--levels and --tolerance override the design", async () => {
-    const out = await mkdtemp(join(tmpdir(), "cw-cli-"));
+    const out = tempDir("cw-cli-");
     const io = bufferIo();
     await runCli(["plan", DEMO, "--out", out, "--json", "--levels", "2", "--tolerance", "0.2"], io);
     const s = JSON.parse(io.out());
@@ -52,7 +52,7 @@ describe("cellwright plan", () => {
   }, 30_000);
 
   it("--session takes the design and overrides from a session file", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-cli-"));
+    const dir = tempDir("cw-cli-");
     const session = join(dir, "session.json");
     await writeFile(session, JSON.stringify({ cellwrightSession: 1, design: resolve(DEMO), overrides: { levels: 3 } }));
     const io = bufferIo();
@@ -74,7 +74,7 @@ describe("cellwright plan", () => {
 
 describe("plan --session mistakes are named in the session file", () => {
   it("an unknown material among the session's overrides, and a session of another design", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-sess-"));
+    const dir = tempDir("cw-sess-");
     const session = join(dir, "s.json");
     await writeFile(session, JSON.stringify({ cellwrightSession: 1, design: resolve(DEMO), overrides: { materials: ["photopolymer-resin", "plaa"] } }));
     const io = bufferIo();

@@ -1,6 +1,5 @@
 import { describe, it, expect } from "vitest";
-import { mkdtemp, readFile, readdir } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readFile, readdir } from "node:fs/promises";
 import { join, resolve } from "node:path";
 import { spawnSync } from "node:child_process";
 import { runCli } from "../../src/cli/run.js";
@@ -9,6 +8,7 @@ import { sessionStart, noTerminalMessage } from "../../src/cli/commands/session.
 import { createSessionServices } from "../../src/tui/sessionServices.js";
 import { saveSessionFile } from "../../src/io/sessionFile.js";
 import { InputError } from "../../src/core/errors.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 const ROOT = resolve(import.meta.dirname, "..", "..");
 const DEMO = join(ROOT, "demo-designs", "plan-microwave-mast-cloak.json");
@@ -53,7 +53,7 @@ describe("cellwright session without a terminal", () => {
 
 describe("a session on a design with mistakes", () => {
   it("reports every mistake before the screen opens, exit 1, as plan would", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-sess-bad-"));
+    const dir = tempDir("cw-sess-bad-");
     const bad = join(dir, "bad.json");
     await (await import("node:fs/promises")).writeFile(bad, JSON.stringify({ name: "x", frequency: "10 mm", transform: { kind: "rotator", innerRadius: "1 mm" }, grid: { pitch: "1 mm" } }));
     const io = { ...bufferIo(dir), isTTY: true };
@@ -66,7 +66,7 @@ describe("a session on a design with mistakes", () => {
 
 describe("where a session starts", () => {
   it("opens the built-in demo when no design is given", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-sess-"));
+    const dir = tempDir("cw-sess-");
     const s = await sessionStart({ positionals: [], options: {} }, ttyIo(dir));
     expect(s.designPath).toMatch(/demo-designs[\\/]plan-printed-bend\.json$/);
     expect(s.outDir).toBe(join(dir, "cellwright-out"));
@@ -75,7 +75,7 @@ describe("where a session starts", () => {
   });
 
   it("resumes the output folder's session file for the same design, unless --fresh", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-sess-"));
+    const dir = tempDir("cw-sess-");
     const out = join(dir, "out");
     await saveSessionFile(join(out, "session.json"), { designPath: DEMO, overrides: { levels: 5 }, view: { screen: "levels" } });
     const s = await sessionStart({ positionals: [DEMO], options: { out: "out" } }, ttyIo(dir));
@@ -92,7 +92,7 @@ describe("where a session starts", () => {
   });
 
   it("refuses an explicit session file of another design, or a missing one without a design", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-sess-"));
+    const dir = tempDir("cw-sess-");
     await saveSessionFile(join(dir, "s.json"), { designPath: DEMO, overrides: {} });
     const other = join(ROOT, "demo-designs", "plan-printed-bend.json");
     await expect(sessionStart({ positionals: [other], options: { session: "s.json" } }, ttyIo(dir))).rejects.toBeInstanceOf(InputError);
@@ -102,7 +102,7 @@ describe("where a session starts", () => {
 
 describe("session export = cellwright plan --session", () => {
   it("writes the same build list, levels, report, maps and summary as the command line", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-sess-"));
+    const dir = tempDir("cw-sess-");
     const outA = join(dir, "from-session");
     const outB = join(dir, "from-plan");
     const services = createSessionServices({ designPath: DEMO, cwd: dir, outDir: outA, sessionPath: join(outA, "session.json"), useWorker: false });

@@ -7,17 +7,16 @@
  * direction, and the quasi-conformal carpet restores the flat mirror's specular reflection. A flat
  * "bump" must give exactly the flat ground's results (the map is then the identity).
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { beforeAll, describe, expect, it } from "vitest";
+import { writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { bufferIo } from "../../src/cli/cliIo.js";
 import { runCli } from "../../src/cli/run.js";
 import { carpetGround } from "../../src/verify/carpetGround.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 let dir = "";
-beforeAll(() => { dir = mkdtempSync(join(tmpdir(), "cw-carpet-")); });
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
+beforeAll(() => { dir = tempDir("cw-carpet-"); });
 
 /** A test scenario: 10 GHz (λ0 = 30 mm), background index 1.5 (λ_b = 20 mm), a 200 mm × 40 mm carpet over a bump of height h, 60 mm wide. */
 function carpet(name: string, bottomY: string, polarization: "Ez" | "Hz"): string {

@@ -6,8 +6,6 @@
  */
 import { describe, expect, it } from "vitest";
 import { resolve } from "node:path";
-import { mkdtempSync } from "node:fs";
-import { tmpdir } from "node:os";
 import { join } from "node:path";
 import {
   PLAN_SECONDS_FIXED, PLAN_SECONDS_PER_CELL, SOLVER_SECONDS_PER_NODE, SOLVER_SECONDS_PER_OPERATION, WARN_ABOVE_SECONDS,
@@ -18,6 +16,7 @@ import { cylinderScene } from "../../src/verify/cylinderScene.js";
 import { verifyDevice, type CaseSpec } from "../../src/verify/verifyDevice.js";
 import { bufferIo } from "../../src/cli/cliIo.js";
 import { runCli } from "../../src/cli/run.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 describe("time estimates", () => {
   it("plan: fixed part plus a rate per cell; verify: per operation plus per node (identities)", () => {
@@ -91,7 +90,7 @@ describe("verify tells its estimate before the first solve", () => {
 
 describe("small runs print no time warning", () => {
   it("plan and verify of a small demo: nothing on stderr, nothing in the JSON warnings", async () => {
-    const out = mkdtempSync(join(tmpdir(), "cw-time-"));
+    const out = tempDir("cw-time-");
     const demo = resolve("demo-designs/plan-concentrator-subunity.json");
     const io = bufferIo(process.cwd());
     await runCli(["plan", demo, "--out", out, "--json"], io);

@@ -5,14 +5,14 @@
  * allows.
  */
 import { describe, it, expect } from "vitest";
-import { mkdtemp, writeFile, readFile, readdir } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { writeFile, readFile, readdir } from "node:fs/promises";
 import { join } from "node:path";
 import { parse } from "csv-parse/sync";
 import { runCli, EXIT_OK, EXIT_NOT_BUILDABLE } from "../../src/cli/run.js";
 import { bufferIo } from "../../src/cli/cliIo.js";
 import { loadDesign } from "../../src/io/design/loadDesign.js";
 import { loadFieldForDesign } from "../../src/io/fieldCsv.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 const DEMOS = [
   "demo-designs/plan-microwave-mast-cloak.json",
@@ -25,7 +25,7 @@ const EXPLAINS = ["norecipe", "inexact", "capped", "unreachable", "narrowband"];
 
 describe.each(DEMOS)("plan %s", (demo) => {
   it("writes a build list that honours the contract", async () => {
-    const out = await mkdtemp(join(tmpdir(), "cw-e2e-"));
+    const out = tempDir("cw-e2e-");
     const io = bufferIo();
     const code = await runCli(["plan", demo, "--out", out, "--json"], io);
     expect([EXIT_OK, EXIT_NOT_BUILDABLE], io.err()).toContain(code);
@@ -84,7 +84,7 @@ describe.each(DEMOS)("plan %s", (demo) => {
 
 describe("verdicts of the demos", () => {
   it("the mast cloak exits 2 naming its missed tolerance, loss budget and bandwidth", async () => {
-    const out = await mkdtemp(join(tmpdir(), "cw-e2e-"));
+    const out = tempDir("cw-e2e-");
     const io = bufferIo();
     const code = await runCli(["plan", "demo-designs/plan-microwave-mast-cloak.json", "--out", out, "--json"], io);
     expect(code).toBe(EXIT_NOT_BUILDABLE);
@@ -118,7 +118,7 @@ describe("verdicts of the demos", () => {
   }, 60_000);
 
   it("the demo npm start plans meets its own requirements and exits 0", async () => {
-    const out = await mkdtemp(join(tmpdir(), "cw-e2e-"));
+    const out = tempDir("cw-e2e-");
     const io = bufferIo();
     const code = await runCli(["start", "--batch", "--out", out, "--json"], io);
     expect(code, io.err()).toBe(EXIT_OK);
@@ -132,7 +132,7 @@ describe("verdicts of the demos", () => {
   it("coarse cells are a missed requirement: the same demo at 28 GHz exits 2 naming homogenization", async () => {
     const d = JSON.parse(await readFile("demo-designs/plan-printed-bend.json", "utf8"));
     d.frequency = "28 GHz"; // 1.2 mm is λ/6.4 in resin of ε 2.8 (rule of thumb, common practice: λ/10)
-    const dir = await mkdtemp(join(tmpdir(), "cw-e2e-"));
+    const dir = tempDir("cw-e2e-");
     const path = join(dir, "bend28.json");
     await writeFile(path, JSON.stringify(d));
     const io = bufferIo();
@@ -154,7 +154,7 @@ describe("verdicts of the demos", () => {
 
 describe("the imported-field demo", () => {
   it("builds ε = μ = 1 cells as empty (solid vacuum) cells instead of refusing them", async () => {
-    const out = await mkdtemp(join(tmpdir(), "cw-e2e-"));
+    const out = tempDir("cw-e2e-");
     const io = bufferIo();
     const code = await runCli(["plan", "demo-designs/field-imported.json", "--out", out, "--json"], io);
     const rows: Record<string, string>[] = parse(await readFile(join(out, "build-list.csv"), "utf8"), { columns: true });
@@ -167,7 +167,7 @@ describe("the imported-field demo", () => {
 
 describe("the subunity concentrator demo", () => {
   it("is not buildable as asked, says so, and names the background-index way out", async () => {
-    const out = await mkdtemp(join(tmpdir(), "cw-e2e-"));
+    const out = tempDir("cw-e2e-");
     const io = bufferIo();
     const code = await runCli(["plan", "demo-designs/plan-concentrator-subunity.json", "--out", out], io);
     expect(code).toBe(EXIT_NOT_BUILDABLE);

@@ -6,8 +6,6 @@
  * our own definition (README, "What would help"), not a published value.
  */
 import { describe, it, expect, beforeAll } from "vitest";
-import { mkdtemp } from "node:fs/promises";
-import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { runCli } from "../../src/cli/run.js";
 import { bufferIo } from "../../src/cli/cliIo.js";
@@ -18,6 +16,7 @@ import { loadProcessCatalog } from "../../src/io/processCatalog.js";
 import { computeTensorField } from "../../src/field/computeTensorField.js";
 import { planFromField, type PlanCatalogs } from "../../src/plan/runPlan.js";
 import { expectClose } from "../helpers/close.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 const ORDER = ["recipes", "tolerance", "process", "homogenization", "loss", "bandwidth", "anisotropy", "model-uncertainty"];
 const FAILING = ["demo-designs/plan-microwave-mast-cloak.json", "demo-designs/plan-concentrator-subunity.json", "demo-designs/plan-silicon-chip-bend.json"];
@@ -31,7 +30,7 @@ interface Effect { what: string; before: number | null; after: number | null; li
 
 describe.each(FAILING)("remedies printed for %s", (demo) => {
   it("each re-plans to the figures it claims and improves the first requirement it changes", async () => {
-    const out = await mkdtemp(join(tmpdir(), "cw-remedy-"));
+    const out = tempDir("cw-remedy-");
     const io = bufferIo();
     await runCli(["plan", demo, "--out", out, "--json"], io);
     const s = JSON.parse(io.out());

@@ -5,12 +5,12 @@
  */
 import { describe, expect, it } from "vitest";
 import { spawnSync } from "node:child_process";
-import { existsSync, mkdtempSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { existsSync } from "node:fs";
 import { join, resolve } from "node:path";
 import { bufferIo } from "../../src/cli/cliIo.js";
 import { runCli } from "../../src/cli/run.js";
 import { checkOutputSet } from "../../src/io/outputSet.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 const BIN = resolve("dist/cli/main.js");
 const CLOAK = resolve("demo-designs/field-radial-cloak.json");
@@ -24,23 +24,19 @@ describe("verify --sweep from the built command line", () => {
   it("runs the frequencies on worker threads and matches the in-thread sweep", async () => {
     expect(existsSync(BIN), "dist/ is missing: run npm run build").toBe(true);
     expect(existsSync(resolve("dist/cli/sweepWorker.js")), "the worker is not in dist/").toBe(true);
-    const dir = mkdtempSync(join(tmpdir(), "cw-sweep-built-"));
-    try {
-      const p = spawnSync(process.execPath, [BIN, ...ARGS, "--out", join(dir, "out")], { encoding: "utf8", timeout: 110_000 });
-      expect(p.status, p.stderr).toBe(0);
-      const built = JSON.parse(p.stdout);
-      expect(built.sweep.workers).toBe(2);
-      expect(built.sweep.threads).toBe(built.sweep.workers > 1 ? built.sweep.workers : 0);
-      expect((await checkOutputSet(join(dir, "out"))).ok).toBe(true);
-      const io = bufferIo(dir);
-      expect(await runCli(ARGS, io), io.err()).toBe(0);
-      const here = JSON.parse(io.out());
-      expect(here.sweep.threads).toBe(0);
-      const strip = (s: Record<string, unknown>) => ({ ...s, threads: undefined, workers: undefined });
-      expect(strip(built.sweep)).toEqual(strip(here.sweep));
-    } finally {
-      rmSync(dir, { recursive: true, force: true });
-    }
+    const dir = tempDir("cw-sweep-built-");
+    const p = spawnSync(process.execPath, [BIN, ...ARGS, "--out", join(dir, "out")], { encoding: "utf8", timeout: 110_000 });
+    expect(p.status, p.stderr).toBe(0);
+    const built = JSON.parse(p.stdout);
+    expect(built.sweep.workers).toBe(2);
+    expect(built.sweep.threads).toBe(built.sweep.workers > 1 ? built.sweep.workers : 0);
+    expect((await checkOutputSet(join(dir, "out"))).ok).toBe(true);
+    const io = bufferIo(dir);
+    expect(await runCli(ARGS, io), io.err()).toBe(0);
+    const here = JSON.parse(io.out());
+    expect(here.sweep.threads).toBe(0);
+    const strip = (s: Record<string, unknown>) => ({ ...s, threads: undefined, workers: undefined });
+    expect(strip(built.sweep)).toEqual(strip(here.sweep));
   }, 120_000);
 
   it("without --workers a short sweep runs in the command's own thread and says why", () => {

@@ -2,12 +2,11 @@
  * One command of the command line run in-process with a fresh temporary working folder per test
  * file (made before the tests, removed after): `run(args)` gives the exit code and both streams.
  */
-import { afterAll, beforeAll } from "vitest";
-import { mkdtempSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { beforeAll } from "vitest";
 import { join } from "node:path";
 import { bufferIo } from "../../src/cli/cliIo.js";
 import { runCli } from "../../src/cli/run.js";
+import { tempDir } from "./tempDir.js";
 
 export const DEMO_DIR = join(import.meta.dirname, "..", "..", "demo-designs");
 
@@ -15,8 +14,7 @@ export interface CliRun { code: number; out: string; err: string }
 
 export function cliInTempDir(command: string, prefix: string): { readonly dir: string; run: (args: string[]) => Promise<CliRun> } {
   let dir = "";
-  beforeAll(() => { dir = mkdtempSync(join(tmpdir(), prefix)); });
-  afterAll(() => rmSync(dir, { recursive: true, force: true }));
+  beforeAll(() => { dir = tempDir(prefix); });
   return {
     get dir() { return dir; },
     async run(args: string[]): Promise<CliRun> {

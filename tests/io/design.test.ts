@@ -1,11 +1,11 @@
 /** Design loading: quantities, defaults, and every error naming the file, the JSON path and what was expected. */
-import { describe, it, expect, beforeAll, afterAll } from "vitest";
-import { mkdtempSync, writeFileSync, rmSync, readdirSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { describe, it, expect, beforeAll } from "vitest";
+import { writeFileSync, readdirSync } from "node:fs";
 import { join, resolve } from "node:path";
 import { expectClose } from "../helpers/close.js";
 import { loadDesign, parseDesign } from "../../src/io/design/loadDesign.js";
 import { InputError } from "../../src/core/errors.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 const cloak = { kind: "radial-cloak", innerRadius: "20 mm", outerRadius: "40 mm" };
 const ok = { name: "d", frequency: "10.5 GHz", transform: cloak, grid: { pitch: "3 mm" } };
@@ -93,8 +93,7 @@ describe("parseDesign", () => {
 
 describe("loadDesign", () => {
   let dir = "";
-  beforeAll(() => { dir = mkdtempSync(join(tmpdir(), "cw-design-")); });
-  afterAll(() => rmSync(dir, { recursive: true, force: true }));
+  beforeAll(() => { dir = tempDir("cw-design-"); });
 
   it("reports JSON syntax errors with line and column", async () => {
     writeFileSync(join(dir, "bad.json"), '{\n  "name": "x",\n  "frequency": 5,,\n}\n');

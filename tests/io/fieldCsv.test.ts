@@ -1,18 +1,17 @@
 /** Field CSV: write → import round trip, and every malformed input named by line and column. */
-import { describe, it, expect, beforeAll, afterAll } from "vitest";
+import { describe, it, expect, beforeAll } from "vitest";
 import fc from "fast-check";
-import { mkdtempSync, writeFileSync, rmSync, readFileSync, existsSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { writeFileSync, readFileSync, existsSync } from "node:fs";
 import { join } from "node:path";
 import { expectClose } from "../helpers/close.js";
 import { computeTensorField } from "../../src/field/computeTensorField.js";
 import { readFieldCsv, writeFieldCsv, fieldCsvColumns, loadFieldForDesign } from "../../src/io/fieldCsv.js";
 import { loadDesign } from "../../src/io/design/loadDesign.js";
 import { SYM_COMPONENTS } from "../../src/core/symTensor.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 let dir = "";
-beforeAll(() => { dir = mkdtempSync(join(tmpdir(), "cw-csv-")); });
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
+beforeAll(() => { dir = tempDir("cw-csv-"); });
 
 const HEAD = "x_m,y_m,eps_xx,eps_yy,eps_zz,eps_xy,eps_xz,eps_yz";
 

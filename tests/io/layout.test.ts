@@ -10,8 +10,7 @@
  * and DXF) and against the drawn full-wave case's sites (verify's realized-geometry scene).
  */
 import { describe, it, expect, beforeAll } from "vitest";
-import { mkdtemp, readFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { parse } from "csv-parse/sync";
 import * as dxfParserModule from "dxf-parser";
@@ -28,6 +27,7 @@ import { loadProcessCatalog } from "../../src/io/processCatalog.js";
 import { planFromField } from "../../src/plan/runPlan.js";
 import { bulkMaterials } from "../../src/verify/bulkMaterials.js";
 import { geometryScene } from "../../src/verify/geometryScene.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 /** Independent GDSII reader: boundaries with their layer and points, and the UNITS pair. */
 function readGds(buf: Uint8Array): { units: [number, number]; boundaries: { layer: number; xy: number[] }[]; structures: string[] } {
@@ -79,7 +79,7 @@ function centroid(xy: number[]): [number, number] {
 }
 
 async function planWithLayout(design: string, extra: string[] = []): Promise<{ out: string; rows: Record<string, string>[]; levels: Record<string, string>[]; code: number; err: string }> {
-  const out = await mkdtemp(join(tmpdir(), "cw-layout-"));
+  const out = tempDir("cw-layout-");
   const io = bufferIo();
   const code = await runCli(["plan", design, "--out", out, "--layout", "--json", ...extra], io);
   const rows: Record<string, string>[] = parse(await readFile(join(out, "build-list.csv"), "utf8"), { columns: true });

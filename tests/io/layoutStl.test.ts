@@ -10,8 +10,7 @@
  * n_z = 0), so each cell column's printed volume is the sum over the triangles above its square.
  */
 import { describe, it, expect, beforeAll } from "vitest";
-import { mkdtemp, readFile, writeFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readFile, writeFile } from "node:fs/promises";
 import { join } from "node:path";
 import { parse } from "csv-parse/sync";
 import { parseSTL } from "@amandaghassaei/stl-parser";
@@ -28,6 +27,7 @@ import { planLayout } from "../../src/plan/layout/layoutShapes.js";
 import { rectTiling } from "../../src/cells/lattice.js";
 import { stlChunks } from "../../src/io/layout/stlWriter.js";
 import type { Plan, Recipe } from "../../src/plan/planTypes.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 type Row = Record<string, string>;
 
@@ -85,7 +85,7 @@ function analyse(buf: Buffer, pitchMm: number, x0Mm: number, y0Mm: number): Anal
 }
 
 async function planWithLayout(design: string): Promise<{ out: string; rows: Row[]; levels: Row[]; code: number; err: string; summary: Record<string, unknown> }> {
-  const out = await mkdtemp(join(tmpdir(), "cw-stl-"));
+  const out = tempDir("cw-stl-");
   const io = bufferIo();
   const code = await runCli(["plan", design, "--out", out, "--layout", "--json"], io);
   const rows: Row[] = parse(await readFile(join(out, "build-list.csv"), "utf8"), { columns: true });
@@ -288,7 +288,7 @@ describe("STL of spheres, voids and cubes (recipes set by hand on a planned devi
   it("refuses a part whose STL would be too large, with the estimate, and writes nothing", async () => {
     const d = JSON.parse(await readFile("demo-designs/plan-printed-bend.json", "utf8"));
     d.realization.height = "2 m";
-    const dir = await mkdtemp(join(tmpdir(), "cw-stl-big-"));
+    const dir = tempDir("cw-stl-big-");
     const path = join(dir, "tall.json");
     await writeFile(path, JSON.stringify(d));
     const io = bufferIo();

@@ -8,10 +8,10 @@
  */
 import { describe, it, expect } from "vitest";
 import { spawn } from "node:child_process";
-import { mkdtempSync, readFileSync, readdirSync, existsSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { readFileSync, readdirSync, existsSync } from "node:fs";
 import { join, resolve } from "node:path";
 import { checkOutputSet, MANIFEST_NAME } from "../../src/io/outputSet.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 const DRIVER = resolve("tests/io/killDriver.mjs");
 const STEPS = 10; // write × 4, switch, rename × 4, manifest
@@ -59,7 +59,7 @@ describe("output set under SIGKILL", () => {
   it("killed at every step of the writer: one set or visibly incomplete; the next run cleans up", async () => {
     const names = ["build-list.csv", "levels.csv", "report.md", "summary.json"];
     const seen = new Set<string>();
-    const dir = mkdtempSync(join(tmpdir(), "cw-kill-"));
+    const dir = tempDir("cw-kill-");
     const first = await runAndKill([DRIVER, dir, "old", "-1"], {});
     expect(first.stdout).toBe("done\n");
     for (let step = 0; step < STEPS; step++) {
@@ -87,7 +87,7 @@ describe("output set under SIGKILL", () => {
   it("the real plan killed at a few moments leaves one set or an incomplete one, and the next plan repairs it", async () => {
     const bin = resolve("dist/cli/main.js");
     const design = resolve("demo-designs/field-beam-bend.json");
-    const dir = mkdtempSync(join(tmpdir(), "cw-killplan-"));
+    const dir = tempDir("cw-killplan-");
     const full = await runAndKill([bin, "plan", design, "--out", dir, "--levels", "3"], {});
     expect(full.killed).toBe(false);
     for (const ms of [700, 1800]) {

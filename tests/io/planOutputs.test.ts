@@ -1,6 +1,5 @@
 import { describe, it, expect } from "vitest";
-import { mkdtemp, readFile, rm } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { parseDesign } from "../../src/io/design/loadDesign.js";
 import { computeTensorField } from "../../src/field/computeTensorField.js";
@@ -9,6 +8,7 @@ import { loadProcessCatalog } from "../../src/io/processCatalog.js";
 import { planFromField } from "../../src/plan/runPlan.js";
 import { writePlanOutputs } from "../../src/io/planOutputs.js";
 import { BUILD_LIST_CHUNK_BYTES, emitBuildList } from "../../src/plan/outputs/buildListRows.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 describe("build list on disk", () => {
   it("holds exactly the bytes the rows were made of, over many reused chunk buffers", async () => {
@@ -37,13 +37,9 @@ describe("build list on disk", () => {
     expect(made.toString("utf8").split("\n").length).toBe(plan.grid.count + 2); // header, rows, final newline
     // the writer must be done with a chunk's bytes before its promise settles: a writer that lets
     // the emitter reuse a buffer still queued in the stream writes later rows over earlier ones
-    const dir = await mkdtemp(join(tmpdir(), "cw-chunks-"));
-    try {
-      await writePlanOutputs(plan, dir);
-      const onDisk = await readFile(join(dir, "build-list.csv"));
-      expect(onDisk.equals(made)).toBe(true);
-    } finally {
-      await rm(dir, { recursive: true, force: true });
-    }
+    const dir = tempDir("cw-chunks-");
+    await writePlanOutputs(plan, dir);
+    const onDisk = await readFile(join(dir, "build-list.csv"));
+    expect(onDisk.equals(made)).toBe(true);
   }, 60_000);
 });

@@ -1,17 +1,13 @@
 import { describe, it, expect } from "vitest";
-import { mkdtemp, readFile, writeFile, readdir } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readFile, writeFile, readdir } from "node:fs/promises";
 import { join } from "node:path";
 import { loadSessionFile, saveSessionFile } from "../../src/io/sessionFile.js";
 import { InputError } from "../../src/core/errors.js";
-
-async function tempDir(): Promise<string> {
-  return mkdtemp(join(tmpdir(), "cw-session-"));
-}
+import { tempDir } from "../helpers/tempDir.js";
 
 describe("session file", () => {
   it("round-trips the design path and overrides", async () => {
-    const dir = await tempDir();
+    const dir = tempDir("cw-session-");
     const design = join(dir, "designs", "bend.json");
     const path = join(dir, "out", "session.json");
     const overrides = { scheme: "unit-mu" as const, levels: 8, tolerance: 0.03, materials: ["ptfe", "alumina-96"], process: null };
@@ -27,7 +23,7 @@ describe("session file", () => {
   });
 
   it("names the file and the JSON path of a bad value", async () => {
-    const dir = await tempDir();
+    const dir = tempDir("cw-session-");
     const path = join(dir, "s.json");
     await writeFile(path, JSON.stringify({ cellwrightSession: 1, design: "d.json", overrides: { levels: 0, scheme: "magic" } }));
     const err = await loadSessionFile(path).catch((e) => e);
@@ -37,7 +33,7 @@ describe("session file", () => {
   });
 
   it("refuses unknown keys, missing files and non-JSON, naming the path", async () => {
-    const dir = await tempDir();
+    const dir = tempDir("cw-session-");
     const path = join(dir, "s.json");
     await writeFile(path, JSON.stringify({ cellwrightSession: 1, design: "d.json", overrides: { level: 3 } }));
     const e1 = (await loadSessionFile(path).catch((e) => e)) as InputError;
@@ -51,7 +47,7 @@ describe("session file", () => {
   });
 
   it("refuses a newer version with a plain message", async () => {
-    const dir = await tempDir();
+    const dir = tempDir("cw-session-");
     const path = join(dir, "s.json");
     await writeFile(path, JSON.stringify({ cellwrightSession: 7, design: "d.json", overrides: {} }));
     const e = (await loadSessionFile(path).catch((e) => e)) as InputError;
@@ -59,7 +55,7 @@ describe("session file", () => {
   });
 
   it("will not write an invalid override", async () => {
-    const dir = await tempDir();
+    const dir = tempDir("cw-session-");
     const path = join(dir, "s.json");
     await expect(saveSessionFile(path, { designPath: "/x.json", overrides: { tolerance: -1 } })).rejects.toBeInstanceOf(InputError);
     expect(await readdir(dir)).toEqual([]);
@@ -68,7 +64,7 @@ describe("session file", () => {
 
 describe("session file design path", () => {
   it("is stored absolute when the design is far from the session file", async () => {
-    const dir = await tempDir();
+    const dir = tempDir("cw-session-");
     const path = join(dir, "a", "b", "c", "session.json");
     const design = join(dir, "designs", "x.json");
     await saveSessionFile(path, { designPath: design, overrides: {} });

@@ -1,6 +1,5 @@
 import { describe, it, expect } from "vitest";
-import { mkdtemp, readdir, writeFile, readFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readdir, writeFile, readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { runCli, EXIT_INPUT, EXIT_NOT_BUILDABLE } from "../../src/cli/run.js";
 import { bufferIo } from "../../src/cli/cliIo.js";
@@ -10,6 +9,7 @@ import { loadMaterialCatalog } from "../../src/io/materialCatalog.js";
 import { loadProcessCatalog } from "../../src/io/processCatalog.js";
 import { planFromField } from "../../src/plan/runPlan.js";
 import { writePlanOutputs } from "../../src/io/planOutputs.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 async function designFile(dir: string, body: object): Promise<string> {
   const p = join(dir, "design.json");
@@ -28,7 +28,7 @@ const bend = {
 
 describe("plan with bad or impossible input", () => {
   it("refuses a 3D device, even its z = 0 slice (not invariant along z), and writes nothing", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-bad-"));
+    const dir = tempDir("cw-bad-");
     const out = join(dir, "out");
     for (const grid of [{ pitch: "5 mm" }, { pitch: "2.5 mm", slice: true }]) {
       const p = await designFile(dir, { name: "sphere", frequency: "8 GHz", transform: { kind: "spherical-cloak", innerRadius: "15 mm", outerRadius: "35 mm" }, grid });
@@ -40,7 +40,7 @@ describe("plan with bad or impossible input", () => {
   });
 
   it("still writes a complete report when no recipe is feasible anywhere (exit 2)", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-bad-"));
+    const dir = tempDir("cw-bad-");
     // PTFE (ε' 2.05) with air cannot reach ε ≥ 2.05·1.05 … the targets here are 1.49–1.88, so
     // ask for a pair that brackets none of them: alumina (9.4) and titania (100)
     const p = await designFile(dir, { ...bend, realization: { materials: ["alumina-96", "titania"], families: ["rods-in-host"] } });
@@ -57,7 +57,7 @@ describe("plan with bad or impossible input", () => {
   }, 30_000);
 
   it("refuses an empty device region (exit 1, nothing written)", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-bad-"));
+    const dir = tempDir("cw-bad-");
     // a 0.2 mm thin shell sampled every 10 mm: no cell centre falls inside it
     const p = await designFile(dir, { ...bend, transform: { kind: "radial-cloak", innerRadius: "20.05 mm", outerRadius: "20.25 mm", profile: "linear" }, grid: { pitch: "10 mm" } });
     const out = join(dir, "out");
@@ -68,7 +68,7 @@ describe("plan with bad or impossible input", () => {
   }, 30_000);
 
   it("leaves no partial output when interrupted", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-bad-"));
+    const dir = tempDir("cw-bad-");
     const p = await designFile(dir, { ...bend, realization: { materials: ["photopolymer-resin", "air"], families: ["strut-lattice"] } });
     const design = await loadDesign(p);
     const plan = planFromField(design, await loadFieldForDesign(design), { materials: await loadMaterialCatalog(), processes: await loadProcessCatalog() });
@@ -85,7 +85,7 @@ describe("plan with bad or impossible input", () => {
   }, 30_000);
 
   it("rejects unknown realization keys with a suggestion", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-bad-"));
+    const dir = tempDir("cw-bad-");
     const p = await designFile(dir, { ...bend, realization: { levles: 4 } });
     const io = bufferIo();
     expect(await runCli(["plan", p, "--out", join(dir, "out")], io)).toBe(EXIT_INPUT);
@@ -93,7 +93,7 @@ describe("plan with bad or impossible input", () => {
   });
 
   it("rejects unknown material ids with a suggestion", async () => {
-    const dir = await mkdtemp(join(tmpdir(), "cw-bad-"));
+    const dir = tempDir("cw-bad-");
     const p = await designFile(dir, { ...bend, realization: { materials: ["ptfee"] } });
     const io = bufferIo();
     expect(await runCli(["plan", p, "--out", join(dir, "out")], io)).toBe(EXIT_INPUT);

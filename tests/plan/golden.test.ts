@@ -1,11 +1,11 @@
 import { describe, it, expect } from "vitest";
-import { mkdtemp, readFile, writeFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readFile, writeFile } from "node:fs/promises";
 import { join } from "node:path";
 import { parse } from "csv-parse/sync";
 import { runCli } from "../../src/cli/run.js";
 import { bufferIo } from "../../src/cli/cliIo.js";
 import { expectClose } from "../helpers/close.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 const DESIGN = "tests/plan/golden/small-bend.json";
 const GOLDEN = "tests/plan/golden/small-bend-build-list.csv";
@@ -18,7 +18,7 @@ function bruggeman3d(e1: number, e2: number, f: number): number {
 
 describe("golden build list of a small design", () => {
   it("matches the committed file and independent spot checks", async () => {
-    const out = await mkdtemp(join(tmpdir(), "cw-golden-"));
+    const out = tempDir("cw-golden-");
     const io = bufferIo();
     const code = await runCli(["plan", DESIGN, "--out", out], io);
     expect(code, io.err()).toBe(0);

@@ -4,8 +4,7 @@
  * DXF with dxf-parser, an independent npm reader).
  */
 import { beforeAll, describe, expect, it } from "vitest";
-import { mkdtemp, readFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { parse } from "csv-parse/sync";
 import * as dxfParserModule from "dxf-parser";
@@ -24,6 +23,7 @@ import type { MatchContext } from "../../src/plan/match/matchContext.js";
 import type { TargetComponent } from "../../src/plan/planTypes.js";
 import type { Material } from "../../src/media/material.js";
 import { expectClose } from "../helpers/close.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 const DxfParser = ((dxfParserModule as unknown as { DxfParser?: unknown }).DxfParser ?? (dxfParserModule as unknown as { default: unknown }).default) as typeof dxfParserModule.DxfParser;
 
@@ -100,7 +100,7 @@ describe("rect lattices in the recipe search", () => {
 
 describe("plan with realization.lattice rect (tests/io/layout-fixtures/rect-holes.json)", () => {
   it("exit 0; a rect level of m × n holes per cell in the DXF, drawn fraction = fill", async () => {
-    const out = await mkdtemp(join(tmpdir(), "cw-rect-"));
+    const out = tempDir("cw-rect-");
     const io = bufferIo();
     const code = await runCli(["plan", "tests/io/layout-fixtures/rect-holes.json", "--out", out, "--layout", "--json"], io);
     expect(code).toBe(0);

@@ -4,8 +4,7 @@
  * no plan view and are harder to build (plan/match/chooseRecipes.ts, IN_PLANE_PENALTY).
  */
 import { describe, it, expect } from "vitest";
-import { mkdtemp, readFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { parse } from "csv-parse/sync";
 import { runCli } from "../../src/cli/run.js";
@@ -13,10 +12,11 @@ import { bufferIo } from "../../src/cli/cliIo.js";
 import { baseScore, IN_PLANE_PENALTY } from "../../src/plan/match/chooseRecipes.js";
 import type { Candidate } from "../../src/plan/match/levelCandidates.js";
 import { expectClose } from "../helpers/close.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 describe("rod orientation for Ez isotropic targets", () => {
   it("the printed rods fixture gets rods along z on every level (they were along 1 on two levels before)", async () => {
-    const out = await mkdtemp(join(tmpdir(), "cw-orient-"));
+    const out = tempDir("cw-orient-");
     const io = bufferIo();
     await runCli(["plan", "tests/io/layout-fixtures/printed-rods.json", "--out", out, "--json"], io);
     const levels: Record<string, string>[] = parse(await readFile(join(out, "levels.csv"), "utf8"), { columns: true });

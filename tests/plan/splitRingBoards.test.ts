@@ -6,8 +6,7 @@
  * (Wiener 1912, exact for layers), so the board fill is f = (ε_z − ε_air)/(ε_board − ε_air).
  */
 import { describe, it, expect } from "vitest";
-import { mkdtemp, readFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { parse } from "csv-parse/sync";
 import { runCli } from "../../src/cli/run.js";
@@ -15,6 +14,7 @@ import { bufferIo } from "../../src/cli/cliIo.js";
 import { expectClose } from "../helpers/close.js";
 import { loadMaterialCatalog, findMaterial } from "../../src/io/materialCatalog.js";
 import { evaluateMaterial } from "../../src/media/material.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 const DEMO = "demo-designs/plan-microwave-mast-cloak.json";
 
@@ -33,7 +33,7 @@ describe("split rings on boards in air (mast cloak demo)", () => {
     const epsAir = evaluateMaterial(findMaterial(catalog, "air"), fHz).eps.re;
     expect(demo.realization.materials).toContain("ptfe-ceramic-10");
 
-    const out = await mkdtemp(join(tmpdir(), "cw-rings-"));
+    const out = tempDir("cw-rings-");
     const io = bufferIo();
     await runCli(["plan", DEMO, "--out", out, "--json"], io);
     const levels: Record<string, string>[] = parse(await readFile(join(out, "levels.csv"), "utf8"), { columns: true });

@@ -1,17 +1,16 @@
 /** The reduced-field CSV writer (src/io/reducedCsv.ts; kept beside the reduce tests it belongs to). */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { mkdtempSync, readFileSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { beforeAll, describe, expect, it } from "vitest";
+import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { parse } from "csv-parse/sync";
 import { reducedCsvColumns, writeReducedCsv } from "../../src/io/reducedCsv.js";
 import { reduceField } from "../../src/reduce/reduceField.js";
 import { expectClose } from "../helpers/close.js";
 import { linearMap, radialCloakField, sphericalCloakField } from "./fixtures/fields.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 let dir = "";
-beforeAll(() => { dir = mkdtempSync(join(tmpdir(), "cw-reduced-csv-")); });
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
+beforeAll(() => { dir = tempDir("cw-reduced-csv-"); });
 
 describe("writeReducedCsv", () => {
   it("writes every cell with the kept components, round-tripping the numbers; undefined cells stay, empty", async () => {

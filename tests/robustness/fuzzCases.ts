@@ -260,9 +260,8 @@ export async function runCase(c: FuzzCase, root: string, onExit?: (code: number)
   }
 }
 
-/** A folder for a run of cases, with the demos the argument cases read copied under demo/. */
-export function fuzzRoot(): string {
-  const root = mkdtempSync(join(tmpdir(), "cw-fuzz-"));
+/** A folder for a run of cases (`root`, else a new one), with the demos the argument cases read copied under demo/. */
+export function fuzzRoot(root = mkdtempSync(join(tmpdir(), "cw-fuzz-"))): string {
   const demo = join(root, "demo");
   mkdirSync(demo);
   for (const name of ["field-radial-cloak.json", "field-rotator.json", "field-beam-shifter.json"]) {

@@ -4,10 +4,10 @@
  * held to the shared invariants (invariants.ts).
  */
 import { describe, it, expect, beforeAll } from "vitest";
-import { mkdtempSync, mkdirSync, readFileSync, writeFileSync, symlinkSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { mkdirSync, readFileSync, writeFileSync, symlinkSync } from "node:fs";
 import { join, resolve } from "node:path";
 import { run, runProblems, listFiles, type RunResult } from "./invariants.js";
+import { tempDir } from "../helpers/tempDir.js";
 
 const DEMO = resolve("demo-designs");
 let dir = "";
@@ -41,7 +41,7 @@ async function ok(argv: string[], outDir: string | null = null): Promise<RunResu
 }
 
 beforeAll(() => {
-  dir = mkdtempSync(join(tmpdir(), "cw-regress-"));
+  dir = tempDir("cw-regress-");
 });
 
 describe("output rows are complete and finite", () => {

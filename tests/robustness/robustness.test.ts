@@ -3,13 +3,12 @@
  * imported CSVs and command-line arguments, each held to the invariants of invariants.ts. More
  * cases: `npm run fuzz -- --cases 10000 --seed N`.
  */
-import { describe, it, expect, afterAll } from "vitest";
+import { describe, it, expect } from "vitest";
 import fc from "fast-check";
-import { rmSync } from "node:fs";
 import { fuzzCase, fuzzRoot, runCase } from "./fuzzCases.js";
+import { tempDir } from "../helpers/tempDir.js";
 
-const root = fuzzRoot();
-afterAll(() => rmSync(root, { recursive: true, force: true }));
+const root = fuzzRoot(tempDir("cw-fuzz-"));
 
 describe("robustness: generated inputs keep the invariants", () => {
   it("200 cases: exit 0/1/2, errors name their place, no NaN/Infinity, full CSV rows, nothing partial", async () => {

@@ -21,9 +21,8 @@ import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_INPUT, EXIT_INTERRUPTED, EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
 import { runInterruptible } from "../interruptible.js";
-import { resolveSettings } from "../../plan/resolveSettings.js";
-import { backgroundMedium } from "../../reduce/backgroundMedium.js";
-import { checkDesignBackgroundMaterial } from "../../verify/sweep/backgroundAtFrequency.js";
+import { planReductionIndex, resolveSettings } from "../../plan/resolveSettings.js";
+import { checkBackgroundMaterialBeforeReduction } from "../../verify/sweep/backgroundAtFrequency.js";
 import { join, resolve } from "node:path";
 
 export const DEFAULT_OUT_DIR = "cellwright-out";
@@ -86,18 +85,19 @@ export function humanSummary(plan: Plan, outputs: string[]): string {
   return lines.join("\n") + "\n";
 }
 
-/** Load, plan and write; shared by `plan` and `start`. Returns the exit code. */
-export async function runPlanCommand(designPath: string, overrides: PlanOverrides, outDir: string, json: boolean, io: CliIo, opts: { layout?: boolean } = {}): Promise<number> {
+/**
+ * Load, plan and write; shared by `plan` and `start`. Returns the exit code. `backgroundIndexWhere`
+ * names where an overriding background index came from when it is not --background-index (a session file).
+ */
+export async function runPlanCommand(designPath: string, overrides: PlanOverrides, outDir: string, json: boolean, io: CliIo, opts: { layout?: boolean; backgroundIndexWhere?: string } = {}): Promise<number> {
   const design = await loadDesign(designPath, io.cwd);
   // a folder that cannot take the outputs is refused before minutes of planning
   await preparePlanOutputs(resolve(io.cwd, outDir));
-  const [field, materials, processes] = await Promise.all([loadFieldForDesign(design), loadMaterialCatalog(), loadProcessCatalog()]);
-  // a background material (read by verify's sweep) is checked here too, so a typo does not wait for verify;
-  // against the background index the plan's reduction uses (runPlan.ts), from the same settings
-  if (design.reduction?.backgroundMaterial !== undefined) {
-    const nb = resolveSettings(design, overrides).backgroundIndex;
-    checkDesignBackgroundMaterial(design, overrides.backgroundIndex !== undefined, materials, backgroundMedium(field.background, nb === 1 ? undefined : nb).index);
-  }
+  const [materials, processes] = await Promise.all([loadMaterialCatalog(), loadProcessCatalog()]);
+  // a background material (read by verify's sweep) is checked as every command checks it, before the
+  // field is computed so a typo does not wait; against the index the plan's reduction uses (runPlan.ts)
+  checkBackgroundMaterialBeforeReduction(design, overrides.backgroundIndex !== undefined && (opts.backgroundIndexWhere ?? true), materials, planReductionIndex(resolveSettings(design, overrides)));
+  const field = await loadFieldForDesign(design);
   const timeWarning = expectedTimeWarning(planSeconds(field.grid.count), `planning ${field.grid.count.toExponential(2)} cells and writing the outputs`);
   if (timeWarning !== null) io.stderr(`warning: ${timeWarning}\n`);
   let lastStage = "";
@@ -175,7 +175,8 @@ export const command: Command = {
     const fromSession = overrides;
     overrides = { ...overrides, ...fromOptions };
     try {
-      return await runPlanCommand(designPath, overrides, stringOption(args, "out") ?? DEFAULT_OUT_DIR, flagOption(args, "json"), io, { layout: flagOption(args, "layout") });
+      const backgroundIndexWhere = fromSession.backgroundIndex !== undefined && fromOptions.backgroundIndex === undefined ? `${sessionPath}: $.overrides.backgroundIndex` : undefined;
+      return await runPlanCommand(designPath, overrides, stringOption(args, "out") ?? DEFAULT_OUT_DIR, flagOption(args, "json"), io, { layout: flagOption(args, "layout"), backgroundIndexWhere });
     } catch (err) {
       // an override that came from the session file is named there ("s.json: $.overrides.materials[1]")
       if (!(err instanceof InputError) || sessionPath === undefined) throw err;

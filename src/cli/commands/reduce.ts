@@ -174,6 +174,14 @@ export const command: Command = {
     const point = at !== undefined ? await parsePoint(at) : undefined;
 
     const design = await loadDesign(designPath, io.cwd);
+    // a background material is checked as plan and verify check it, against the index this
+    // reduction uses, before the field is computed (catalog and check loaded only when named)
+    if (design.reduction?.backgroundMaterial !== undefined) {
+      const [{ loadMaterialCatalog }, { checkBackgroundMaterialBeforeReduction }] = await Promise.all([
+        import("../../io/materialCatalog.js"), import("../../verify/sweep/backgroundAtFrequency.js"),
+      ]);
+      checkBackgroundMaterialBeforeReduction(design, nbFromFlag !== undefined, await loadMaterialCatalog(), nbFromFlag ?? design.reduction.backgroundIndex);
+    }
     const field = await loadFieldForDesign(design, "reduce");
     const file = design.sourcePath;
     const spec = design.reduction;

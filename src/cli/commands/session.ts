@@ -100,8 +100,13 @@ export const command: Command = {
     }
     const start = await sessionStart(args, io);
     if (!existsSync(start.designPath)) throw new InputError({ where: start.designPath, message: "design file not found" });
-    // A design with mistakes is reported in full before the screen opens, as `plan` would.
-    await loadDesign(start.designPath, io.cwd);
+    // A design with mistakes is reported in full before the screen opens, as `plan` would; a
+    // background material too (same check and message as plan's, with the session's choices)
+    const design = await loadDesign(start.designPath, io.cwd);
+    if (design.reduction?.backgroundMaterial !== undefined) {
+      const [{ loadMaterialCatalog }, { checkSessionBackground }] = await Promise.all([import("../../io/materialCatalog.js"), import("../../tui/planSession.js")]);
+      checkSessionBackground(design, await loadMaterialCatalog(), start.overrides, start.sessionPath);
+    }
     const { runSession } = await import("../../tui/runSession.js");
     const { unsaved } = await runSession({ ...start, cwd: io.cwd });
     io.stderr(

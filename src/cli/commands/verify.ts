@@ -36,7 +36,7 @@ import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_OK } from "../run.js";
 import { optionOverrides } from "./plan.js";
-import { checkDesignBackgroundMaterial, type BackgroundDispersion } from "../../verify/sweep/backgroundAtFrequency.js";
+import { checkBackgroundMaterialBeforeReduction, type BackgroundDispersion } from "../../verify/sweep/backgroundAtFrequency.js";
 import type { Material } from "../../media/material.js";
 
 export const VERIFY_SVG = "verify-fields.svg";
@@ -293,30 +293,32 @@ export const command: Command = {
       beam = { waistM, offsetM, shiftM };
     }
     const design = await loadDesign(designPath, io.cwd);
+    const s = resolveSettings(design, overrides);
+    const backgroundIndex = s.backgroundIndex === 1 && !design.reduction?.backgroundIndex ? undefined : s.backgroundIndex;
+    // a background material is checked as plan, reduce and the session check it, before the field and
+    // the plan are computed, against the index of this command's reductions (below)
+    let plan = null, bulk, catalog: Material[] = [];
+    const bg = design.reduction?.backgroundMaterial === undefined ? null
+      : checkBackgroundMaterialBeforeReduction(design, overrides.backgroundIndex !== undefined, (catalog = await loadMaterialCatalog()), backgroundIndex);
     const field = await loadFieldForDesign(design);
     if (isVolumeDevice(field)) throw new InputError({ where: `${design.sourcePath}: $.transform`, message: "the full-wave check is two-dimensional (devices invariant along z); a 3D design cannot be verified" });
     const progress = (text: string): void => io.stderr(`… ${text}\n`);
-    const s = resolveSettings(design, overrides);
-    let plan = null, bulk, catalog: Material[] = [];
     if (design.realization !== undefined) {
       progress("plan (for the realized map)");
-      const [materials, processes] = await Promise.all([loadMaterialCatalog(), loadProcessCatalog()]);
+      const [materials, processes] = await Promise.all([catalog.length ? catalog : loadMaterialCatalog(), loadProcessCatalog()]);
       catalog = materials;
       plan = planFromField(design, field, { materials, processes }, overrides);
       bulk = bulkMaterials(materials, design.frequencyHz, plan);
     }
-    const backgroundIndex = s.backgroundIndex === 1 && !design.reduction?.backgroundIndex ? undefined : s.backgroundIndex;
     const ideal = reduceField(field, { polarization: s.polarization, scheme: "full", backgroundIndex });
     const reduced = reduceField(field, { polarization: s.polarization, scheme: s.scheme, unitAxis: s.unitAxis, backgroundIndex });
     const n = reduced.settings.backgroundIndex, z = reduced.settings.backgroundImpedance;
     const background = { eps: n / z, mu: n * z };
-    // a background material: checked against the background index, followed across a sweep (backgroundAtFrequency.ts)
+    // a background material (checked above): followed across a sweep (backgroundAtFrequency.ts)
     let backgroundDispersion: BackgroundDispersion | undefined;
     let backgroundNote: string | null = null;
     const backgroundId = design.reduction?.backgroundMaterial;
-    if (backgroundId !== undefined) {
-      if (catalog.length === 0) catalog = await loadMaterialCatalog();
-      const bg = checkDesignBackgroundMaterial(design, overrides.backgroundIndex !== undefined, catalog, n)!;
+    if (backgroundId !== undefined && bg !== null) {
       backgroundDispersion = { materialId: backgroundId, designFrequencyHz: design.frequencyHz };
       backgroundNote = `background: ${bg.material.name} ('${backgroundId}', ${bg.material.model} model; ${bg.material.source}), Re ε ${Number(bg.epsRe.toPrecision(6))} at ${formatFrequencyPrecise(design.frequencyHz)} (index ${bg.index.toPrecision(6)}, the design's ${n.toPrecision(6)})${sweep
         ? ": followed at each frequency of the sweep (ε_bg(f) = ε_bg(f₀)·Re ε(f)/Re ε(f₀), its loss not modelled), with the ideal and reduced maps scaled by the same factor (ε′ = J ε_b Jᵀ/det J is linear in ε_b)"

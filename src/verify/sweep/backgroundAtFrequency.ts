@@ -25,6 +25,7 @@
  */
 import { InputError, closest } from "../../core/errors.js";
 import { evaluateMaterial, type Material } from "../../media/material.js";
+import { backgroundMedium } from "../../reduce/backgroundMedium.js";
 import type { ReducedField } from "../../reduce/reducedField.js";
 
 /** Largest relative difference between the material's index at f₀ and the design's background index. */
@@ -75,17 +76,36 @@ export function checkBackgroundMaterial(id: string, catalog: readonly Material[]
 
 /**
  * The design's `reduction.backgroundMaterial` checked against the background index the reduction
- * uses (`checkBackgroundMaterial`), with the JSON paths and option named as `plan` and `verify`
- * report them; null when the design names no background material.
+ * uses (`checkBackgroundMaterial`), with the JSON paths and option named as every command reports
+ * them; null when the design names no background material. `indexOverride` says where an index
+ * that overrides the design's came from (`true`: the --background-index option; a string: that
+ * place, e.g. a session file's key), false when none did.
  */
 export function checkDesignBackgroundMaterial(
   design: { sourcePath: string; frequencyHz: number; reduction?: { backgroundMaterial?: string; backgroundIndex?: number } },
-  indexOverridden: boolean, catalog: readonly Material[], backgroundIndex: number,
+  indexOverride: boolean | string, catalog: readonly Material[], backgroundIndex: number,
 ): BackgroundMaterialInfo | null {
   const id = design.reduction?.backgroundMaterial;
   if (id === undefined) return null;
-  const indexWhere = indexOverridden ? "--background-index" : design.reduction?.backgroundIndex !== undefined ? `${design.sourcePath}: $.reduction.backgroundIndex` : `the design's background, ${design.sourcePath}: $.background`;
+  const indexWhere = indexOverride === true ? "--background-index"
+    : typeof indexOverride === "string" ? indexOverride
+      : design.reduction?.backgroundIndex !== undefined ? `${design.sourcePath}: $.reduction.backgroundIndex` : `the design's background, ${design.sourcePath}: $.background`;
   return checkBackgroundMaterial(id, catalog, design.frequencyHz, backgroundIndex, `${design.sourcePath}: $.reduction.backgroundMaterial`, indexWhere);
+}
+
+/**
+ * The same check from the design alone, before its field is computed: the field's background is the
+ * design's (`$.background`), so the index the reduction will use is `backgroundMedium(background,
+ * reductionIndex).index`, where `reductionIndex` is the background index the command hands its
+ * reduction (undefined: none, the design's own background). Used by `plan`, `start`, `verify`,
+ * `reduce` and the interactive session.
+ */
+export function checkBackgroundMaterialBeforeReduction(
+  design: { sourcePath: string; frequencyHz: number; background: { eps: number; mu: number }; reduction?: { backgroundMaterial?: string; backgroundIndex?: number } },
+  indexOverride: boolean | string, catalog: readonly Material[], reductionIndex: number | undefined,
+): BackgroundMaterialInfo | null {
+  if (design.reduction?.backgroundMaterial === undefined) return null;
+  return checkDesignBackgroundMaterial(design, indexOverride, catalog, backgroundMedium(design.background, reductionIndex).index);
 }
 
 /** The background at one frequency: the scale s(f) on ε, and the material's values there. */

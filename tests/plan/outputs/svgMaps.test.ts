@@ -6,8 +6,7 @@
  * component with each level's target and cell count as in levels.csv.
  */
 import { describe, it, expect, beforeAll } from "vitest";
-import { mkdtemp, readFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { parse } from "csv-parse/sync";
 import { XMLParser } from "fast-xml-parser";
@@ -15,12 +14,13 @@ import { runCli } from "../../../src/cli/run.js";
 import { bufferIo } from "../../../src/cli/cliIo.js";
 import { expectClose } from "../../helpers/close.js";
 import { niceStep } from "../../../src/plan/outputs/svgMaps.js";
+import { tempDir } from "../../helpers/tempDir.js";
 
 type Row = Record<string, string>;
 type El = Record<string, unknown>;
 
 async function planned(design: string): Promise<{ svg: El; rows: Row[]; levels: Row[] }> {
-  const out = await mkdtemp(join(tmpdir(), "cw-svg-"));
+  const out = tempDir("cw-svg-");
   const io = bufferIo();
   await runCli(["plan", design, "--out", out, "--json"], io);
   const text = await readFile(join(out, "maps.svg"), "utf8");
