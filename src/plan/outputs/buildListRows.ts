@@ -14,7 +14,8 @@ import { orientationCode } from "./orientationText.js";
 import type { Plan } from "../planTypes.js";
 import { flagList } from "../flags.js";
 import { csvField, fmt } from "./csvText.js";
-import { runEveryBranch, writeFmt } from "./decimalBytes.js";
+import { NUMBER_ROOM, runEveryBranch, writeFmt } from "./decimalBytes.js";
+import { makeTextPool } from "./textPool.js";
 
 /** Dimension keys (metres, "radius_m") used by any level's recipe, sorted by name. */
 export function dimensionColumns(plan: Plan): string[] {
@@ -66,8 +67,14 @@ const COMMA = 44, NEWLINE = 10, DIGIT_0 = 48, DIGIT_9 = 57;
 /** Room for the cell number's digits (up to 2⁵³). */
 const COUNTER_END = 17;
 
-/** Regions up to this many get their number's text made once. */
-const MAX_REGION_TEXTS = 1 << 16;
+/**
+ * How many texts the build list makes once: regions up to `regions` get their number's text (with
+ * their level's), pairs of level and flag mask up to `tails` the row's end as one text. Past
+ * either, those columns are written in parts (same bytes); tests lower them to reach that path.
+ */
+export interface BuildListTextLimits { regions: number; tails: number }
+
+export const BUILD_LIST_TEXT_LIMITS: BuildListTextLimits = { regions: 1 << 16, tails: 1 << 14 };
 
 /** A non-negative integer in decimal at `at`; returns the position after it. */
 function putInt(buf: Uint8Array, at: number, v: number): number {
@@ -95,84 +102,70 @@ function putBytes(buf: Uint8Array, at: number, b: Uint8Array): number {
   return at + b.length;
 }
 
-/**
- * A text made once (per-level and per-index texts), kept as little-endian 32-bit words so a row
- * copies it four bytes at a time; up to three bytes past `len` are written too (the next field,
- * or the buffer's slack, takes them).
- */
-interface Text { words: Int32Array; len: number }
-
-function makeText(bytes: Uint8Array): Text {
-  const padded = new Uint8Array((bytes.length + 3) & ~3);
-  padded.set(bytes);
-  return { words: new Int32Array(padded.buffer), len: bytes.length };
-}
-
-/** `t` at `at` through the buffer's DataView; returns the position after it. */
-function putText(view: DataView, at: number, t: Text): number {
-  const w = t.words;
-  for (let q = 0, n = w.length; q < n; q++) view.setInt32(at + 4 * q, w[q], true);
-  return at + t.len;
+/** Text `id` of the pool at `at` through the buffer's DataView; returns the position after it. */
+function putText(view: DataView, at: number, words: Float64Array, start: Int32Array, length: Int32Array, id: number): number {
+  const len = length[id];
+  for (let q = start[id], n = q + ((len + 7) >> 3), p = at; q < n; q++, p += 8) view.setFloat64(p, words[q], true);
+  return at + len;
 }
 
 /** `fmt(x, digits)` at `at` without making a string (decimalBytes.ts). */
 const putNumber = writeFmt;
 
-/** Most bytes one number takes (fmt's longest: "-1.23457e-100" and then some). */
-const NUMBER_BYTES = 24;
 
-/** Everything a row needs besides the cell index: the plan's per-cell arrays and the texts made once. */
+/**
+ * Everything a row needs besides the cell index: the plan's per-cell arrays and the ids of the
+ * texts made once (textPool.ts); a text that depends on an index has the id `first + index`.
+ */
 interface RowSource {
   three: boolean;
   m: number;
   gi: Int32Array; gj: Int32Array; gk: Int32Array;
-  /** "x," "y," "z," and "i," "j," "k," by lattice index */
-  xs: Text[]; ys: Text[]; zs: Text[]; is: Text[]; js: Text[]; ks: Text[];
   targets: Float64Array[];
   axisAngleRad: Float64Array; region: Int32Array; level: Int32Array;
   relError: Float64Array; quantizationError: Float64Array; zeroTargetAbsError: Float64Array | null;
   flags: Uint16Array;
-  achieved: Text[]; recipe: Text[]; noAchieved: Text; noRecipe: Text;
-  /** "r," by region index (null when there are too many regions to list: then written digit by digit) */
-  regionTexts: Text[] | null;
-  /** "l" by level index */
-  levelNumbers: Text[];
+  words: Float64Array; start: Int32Array; length: Int32Array;
+  /** "i," "j," "k," and "x," "y," "z," by lattice index */
+  firstI: number; firstJ: number; firstK: number; firstX: number; firstY: number; firstZ: number;
+  /** ",a,b,c" (achieved values) by level; the empty one for no level */
+  firstAchieved: number; noAchieved: number;
+  /**
+   * "r,l" (region and its level) by region index, when every cell's level is its region's; -1 when
+   * not, or when there are too many regions to list: then the region is written digit by digit and
+   * "l" is text `firstLevel + level`
+   */
+  firstRegion: number;
+  firstLevel: number;
+  /**
+   * The row's end — recipe columns, flags, line break — by level and flag mask: text
+   * `firstTail + (level + 1) · masks + maskIndex[mask]` (level −1: no recipe). When there would be
+   * more than `MAX_TAIL_TEXTS` of them, `masks` is 0 and the end is written in parts: text
+   * `firstTail + level + 1` (the recipe columns), a comma, text `firstFlags + maskIndex[mask]`, a
+   * line break.
+   */
+  firstTail: number; masks: number; maskIndex: Int32Array; firstFlags: number;
   /** scratch for the cell number's digits */
   counter: Uint8Array;
-  /** flag text by mask, for every mask that occurs (the empty text elsewhere) */
-  flagTexts: Text[];
-  /** the previous value of each target column and its bytes (a constant column reuses them) */
-  lastTarget: Float64Array; lastLength: Int32Array; lastBytes: Uint8Array;
+  /**
+   * the previous value of each target column and where its bytes are in the buffer being filled (a
+   * constant column copies them); `fillChunk` forgets them when it starts a buffer
+   */
+  lastTarget: Float64Array; lastAt: Int32Array; lastLength: Int32Array;
 }
 
 const DEG_PER_RAD = 180 / Math.PI;
 
 /**
- * The flag text of every mask in `flags` (index = mask), the empty text for the rest: made before
- * the rows, so the row loop has no branch that first runs after it was optimized.
- */
-function flagTexts(flags: Uint16Array, text: (t: string) => Text): Text[] {
-  let most = 0;
-  for (let c = 0; c < flags.length; c++) if (flags[c] > most) most = flags[c];
-  const none = text("");
-  const texts = new Array<Text>(most + 1).fill(none);
-  for (let c = 0; c < flags.length; c++) {
-    const f = flags[c];
-    if (f !== 0 && texts[f] === none) texts[f] = text(flagList(f));
-  }
-  return texts;
-}
-
-/**
  * Rows from cell `from` on into `buf` at `at`, until `at` passes `limit` or the cells run out;
  * returns the cell after the last row written and leaves the end position in `end[0]`. A plain
  * synchronous function with its state in locals and parameters, called once per chunk; texts
- * made once are copied four bytes at a time, the cell number is an ASCII counter.
+ * made once are copied eight bytes at a time from the pool, the cell number is an ASCII counter.
  */
 function fillRows(r: RowSource, buf: Uint8Array, view: DataView, at: number, from: number, count: number, limit: number, end: Int32Array): number {
-  const { three, m, gi, gj, gk, xs, ys, zs, is, js, ks, targets, axisAngleRad, region, level, relError, quantizationError, zeroTargetAbsError, flags } = r;
-  const { achieved, recipe, noAchieved, noRecipe, flagTexts, lastTarget, lastLength, lastBytes } = r;
-  const { regionTexts, levelNumbers, counter } = r;
+  const { three, m, gi, gj, gk, targets, axisAngleRad, region, level, relError, quantizationError, zeroTargetAbsError, flags } = r;
+  const { words, start, length, firstI, firstJ, firstK, firstX, firstY, firstZ, firstAchieved, noAchieved } = r;
+  const { firstRegion, firstLevel, firstTail, masks, maskIndex, firstFlags, counter, lastTarget, lastAt, lastLength } = r;
   // the cell number as ASCII digits ending at counter[COUNTER_END - 1], incremented per row
   const first = String(from + 1);
   let cs = COUNTER_END - first.length;
@@ -187,40 +180,44 @@ function fillRows(r: RowSource, buf: Uint8Array, view: DataView, at: number, fro
     while (counter[q] === DIGIT_9) { counter[q] = DIGIT_0; q--; }
     if (q < cs) { cs = q; counter[q] = DIGIT_0 + 1; } else counter[q]++;
     const i = gi[c], j = gj[c];
-    at = putText(view, at, is[i]);
-    at = putText(view, at, js[j]);
-    if (three) at = putText(view, at, ks[gk[c]]);
-    at = putText(view, at, xs[i]);
-    at = putText(view, at, ys[j]);
-    if (three) at = putText(view, at, zs[gk[c]]);
-    at = putNumber(buf, at, axisAngleRad[c] * DEG_PER_RAD, 4); buf[at++] = COMMA;
-    if (regionTexts !== null) at = putText(view, at, regionTexts[region[c]]);
-    else { at = putInt(buf, at, region[c] + 1); buf[at++] = COMMA; }
-    if (lv >= 0) at = putText(view, at, levelNumbers[lv]);
+    at = putText(view, at, words, start, length, firstI + i);
+    at = putText(view, at, words, start, length, firstJ + j);
+    if (three) at = putText(view, at, words, start, length, firstK + gk[c]);
+    at = putText(view, at, words, start, length, firstX + i);
+    at = putText(view, at, words, start, length, firstY + j);
+    if (three) at = putText(view, at, words, start, length, firstZ + gk[c]);
+    at = putNumber(buf, view, at, axisAngleRad[c] * DEG_PER_RAD, 4); buf[at++] = COMMA;
+    if (firstRegion >= 0) at = putText(view, at, words, start, length, firstRegion + region[c]);
+    else {
+      at = putInt(buf, at, region[c] + 1); buf[at++] = COMMA;
+      if (lv >= 0) at = putText(view, at, words, start, length, firstLevel + lv);
+    }
     for (let k = 0; k < m; k++) {
       buf[at++] = COMMA;
       // a value equal to the column's previous one (a constant component) reuses its bytes
       const v = targets[k][c];
-      const from = k * NUMBER_BYTES;
       if (v === lastTarget[k]) {
-        for (let q = 0, len = lastLength[k]; q < len; q++) buf[at++] = lastBytes[from + q];
+        for (let q = lastAt[k], n = q + lastLength[k]; q < n; q++) buf[at++] = buf[q];
       } else {
-        const e = putNumber(buf, at, v, 6);
-        for (let q = at; q < e; q++) lastBytes[from + q - at] = buf[q];
+        const e = putNumber(buf, view, at, v, 6);
         lastTarget[k] = v;
+        lastAt[k] = at;
         lastLength[k] = e - at;
         at = e;
       }
     }
-    at = putText(view, at, lv >= 0 ? achieved[lv] : noAchieved);
-    buf[at++] = COMMA; at = putNumber(buf, at, relError[c], 4);
-    buf[at++] = COMMA; at = putNumber(buf, at, quantizationError[c], 4);
+    at = putText(view, at, words, start, length, lv >= 0 ? firstAchieved + lv : noAchieved);
+    buf[at++] = COMMA; at = putNumber(buf, view, at, relError[c], 4);
+    buf[at++] = COMMA; at = putNumber(buf, view, at, quantizationError[c], 4);
     buf[at++] = COMMA;
-    if (zeroTargetAbsError) at = putNumber(buf, at, zeroTargetAbsError[c], 4);
-    at = putText(view, at, lv >= 0 ? recipe[lv] : noRecipe);
-    buf[at++] = COMMA;
-    at = putText(view, at, flagTexts[flags[c]]);
-    buf[at++] = NEWLINE;
+    if (zeroTargetAbsError) at = putNumber(buf, view, at, zeroTargetAbsError[c], 4);
+    if (masks > 0) at = putText(view, at, words, start, length, firstTail + (lv + 1) * masks + maskIndex[flags[c]]);
+    else {
+      at = putText(view, at, words, start, length, firstTail + lv + 1);
+      buf[at++] = COMMA;
+      at = putText(view, at, words, start, length, firstFlags + maskIndex[flags[c]]);
+      buf[at++] = NEWLINE;
+    }
     // stored per row, not after the loop: code after a loop that was optimized while running (on-stack
     // replacement) has no type feedback and was thrown away at the end of every chunk
     end[0] = at;
@@ -237,10 +234,61 @@ const ROWS_PER_CALL = 32;
  * replacement) and then again as a function — each compilation of it costs about 50 ms of CPU.
  */
 function fillChunk(r: RowSource, buf: Uint8Array, view: DataView, at: number, from: number, count: number, limit: number, end: Int32Array): number {
+  r.lastTarget.fill(NaN); // their bytes were in the buffer before
   let c = from;
   end[0] = at;
   while (c < count && end[0] < limit) c = fillRows(r, buf, view, end[0], c, Math.min(count, c + ROWS_PER_CALL), limit, end);
   return c;
+}
+
+/** The texts a build list's rows copy, pooled, with the ids the row loop needs. */
+function rowTexts(plan: Plan, limits: BuildListTextLimits): Pick<RowSource, "words" | "start" | "length" | "firstI" | "firstJ" | "firstK" | "firstX" | "firstY" | "firstZ" | "firstAchieved" | "noAchieved" | "firstRegion" | "firstLevel" | "firstTail" | "masks" | "maskIndex" | "firstFlags"> & { longest: number } {
+  const g = plan.grid;
+  const three = g.dimension === 3;
+  const encoder = new TextEncoder();
+  const texts: Uint8Array[] = [];
+  /** adds `list`; returns the first one's id */
+  const add = (list: readonly string[]): number => {
+    const first = texts.length;
+    for (const t of list) texts.push(encoder.encode(t));
+    return first;
+  };
+  const perM = designUnit(plan.design.wavelengthM).perM;
+  const coordinates = (n: number, originM: number): string[] => Array.from({ length: n }, (_, i) => `${fmt((originM + i * g.pitchM) * perM)},`);
+  const index = (n: number): string[] => Array.from({ length: n }, (_, i) => `${i},`);
+  const level = levelTexts(plan);
+  const m = plan.components.length;
+  const firstI = add(index(g.nx)), firstJ = add(index(g.ny)), firstK = add(three ? index(g.nz) : []);
+  const firstX = add(coordinates(g.nx, g.originXM)), firstY = add(coordinates(g.ny, g.originYM)), firstZ = add(three ? coordinates(g.nz, g.originZM) : []);
+  const firstAchieved = add(level.achieved);
+  const noAchieved = add([",".repeat(m)]);
+  // family, host, inclusion, lattice, orientation, fill_fraction, dimensions…, loss_tangent
+  const noRecipe = ",".repeat(6 + dimensionColumns(plan).length + 1);
+  const firstLevel = add(plan.levels.map((_, k) => `${k + 1}`));
+  // "r,l" when every cell's level is its region's (the plan finds regions within one level)
+  let regionsHoldLevels = plan.regions.length <= limits.regions;
+  for (let c = 0; c < plan.level.length && regionsHoldLevels; c++) regionsHoldLevels = plan.level[c] === plan.regions[plan.region[c]].level - 1;
+  const firstRegion = regionsHoldLevels ? add(plan.regions.map((rg, k) => `${k + 1},${rg.level > 0 ? rg.level : ""}`)) : -1;
+  // the row's end by level and flag mask, for every mask that occurs (mask index 0: no flags)
+  let most = 0;
+  for (let c = 0; c < plan.flags.length; c++) if (plan.flags[c] > most) most = plan.flags[c];
+  const maskIndex = new Int32Array(most + 1);
+  const flagTexts = [""];
+  for (let c = 0; c < plan.flags.length; c++) {
+    const f = plan.flags[c];
+    if (f !== 0 && maskIndex[f] === 0) { maskIndex[f] = flagTexts.length; flagTexts.push(flagList(f)); }
+  }
+  const recipes = [noRecipe, ...level.recipe];
+  const byPair = recipes.length * flagTexts.length <= limits.tails;
+  const firstTail = texts.length;
+  if (byPair) for (const recipe of recipes) add(flagTexts.map((f) => `${recipe},${f}\n`));
+  else add(recipes);
+  const firstFlags = byPair ? -1 : add(flagTexts);
+  const pool = makeTextPool(texts);
+  // the most bytes one text writes (its word padding included)
+  let longest = 0;
+  for (let id = 0; id < texts.length; id++) longest = Math.max(longest, 8 * ((pool.length[id] + 7) >> 3));
+  return { ...pool, firstI, firstJ, firstK, firstX, firstY, firstZ, firstAchieved, noAchieved, firstRegion, firstLevel, firstTail, masks: byPair ? flagTexts.length : 0, maskIndex, firstFlags, longest };
 }
 
 /**
@@ -251,38 +299,21 @@ function fillChunk(r: RowSource, buf: Uint8Array, view: DataView, at: number, fr
  * written straight into the buffer — no string per row or per number: a 10⁶-row list made by
  * string concatenation spends most of its time flattening and encoding ropes and collecting them.
  */
-export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Promise<void> | void): Promise<void> {
+export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Promise<void> | void, limits: BuildListTextLimits = BUILD_LIST_TEXT_LIMITS): Promise<void> {
   const g = plan.grid;
   const three = g.dimension === 3;
-  // texts that depend on one lattice index or one level each: made once, as UTF-8 bytes
-  const encoder = new TextEncoder();
-  const enc = (t: string): Uint8Array => encoder.encode(t);
-  const perM = designUnit(plan.design.wavelengthM).perM;
-  const text = (t: string): Text => makeText(enc(t));
-  const xs = Array.from({ length: g.nx }, (_, i) => text(`${fmt((g.originXM + i * g.pitchM) * perM)},`));
-  const ys = Array.from({ length: g.ny }, (_, j) => text(`${fmt((g.originYM + j * g.pitchM) * perM)},`));
-  const zs = three ? Array.from({ length: g.nz }, (_, k) => text(`${fmt((g.originZM + k * g.pitchM) * perM)},`)) : [];
-  const index = (n: number): Text[] => Array.from({ length: n }, (_, i) => text(`${i},`));
-  const is = index(g.nx), js = index(g.ny), ks = three ? index(g.nz) : [];
-  const texts = levelTexts(plan);
-  const achieved = texts.achieved.map(text), recipe = texts.recipe.map(text);
   const m = plan.components.length;
-  const noAchieved = text(",".repeat(m));
-  // family, host, inclusion, lattice, orientation, fill_fraction, dimensions…, loss_tangent
-  const noRecipe = text(",".repeat(6 + dimensionColumns(plan).length + 1));
-  const longest = (list: Text[]): number => list.reduce((a, b) => Math.max(a, b.len + 3), 0);
-  // the most one row can take (texts with their word padding): the buffer keeps that much room past a chunk
-  const rowBytes = 4 * 11 + 10 + longest(xs) + longest(ys) + longest(zs) + longest(is) + longest(js) + longest(ks) + (m + 4) * (NUMBER_BYTES + 1) +
-    longest([...achieved, noAchieved]) + longest([...recipe, noRecipe]) + enc(flagList(0xffff)).length + 6;
+  const texts = rowTexts(plan, limits);
+  // the most one row can take: at most 11 texts (with their word padding), the cell number, m + 4
+  // numbers, the commas between, a region number written digit by digit
+  const rowBytes = 11 * texts.longest + COUNTER_END + (m + 4) * (NUMBER_ROOM + 1) + 32;
   const size = BUILD_LIST_CHUNK_BYTES + Math.max(65536, rowBytes);
   const rows: RowSource = {
-    three, m, gi: g.i, gj: g.j, gk: g.k, xs, ys, zs,
-    is, js, ks, targets: plan.targets, axisAngleRad: plan.axisAngleRad, region: plan.region, level: plan.level,
+    three, m, gi: g.i, gj: g.j, gk: g.k,
+    targets: plan.targets, axisAngleRad: plan.axisAngleRad, region: plan.region, level: plan.level,
     relError: plan.relError, quantizationError: plan.quantizationError, zeroTargetAbsError: plan.zeroTargetAbsError,
-    flags: plan.flags, achieved, recipe, noAchieved, noRecipe, flagTexts: flagTexts(plan.flags, text),
-    regionTexts: plan.regions.length <= MAX_REGION_TEXTS ? Array.from({ length: plan.regions.length }, (_, k) => text(`${k + 1},`)) : null,
-    levelNumbers: plan.levels.map((_, k) => text(`${k + 1}`)), counter: new Uint8Array(COUNTER_END),
-    lastTarget: new Float64Array(m).fill(NaN), lastLength: new Int32Array(m), lastBytes: new Uint8Array(m * NUMBER_BYTES),
+    flags: plan.flags, ...texts, counter: new Uint8Array(COUNTER_END),
+    lastTarget: new Float64Array(m).fill(NaN), lastAt: new Int32Array(m), lastLength: new Int32Array(m),
   };
   // two buffers in turn: the caller may hold one until its emit promise settles
   let buf: Uint8Array = new Uint8Array(size);
@@ -299,7 +330,7 @@ export async function emitBuildList(plan: Plan, emit: (chunk: Uint8Array) => Pro
     await inFlight; // the buffer now being filled was the one of the chunk before
     inFlight = sent;
   };
-  const header = enc(`${buildListHeader(plan)}\n`);
+  const header = new TextEncoder().encode(`${buildListHeader(plan)}\n`);
   if (header.length > buf.length) buf = new Uint8Array(header.length);
   at = putBytes(buf, at, header);
   if (at >= BUILD_LIST_CHUNK_BYTES) await flush();

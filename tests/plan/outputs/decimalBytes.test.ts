@@ -1,23 +1,25 @@
 import { describe, it, expect } from "vitest";
 import fc from "fast-check";
-import { EVERY_BRANCH, runEveryBranch, writeDecimal, writeFmt } from "../../../src/plan/outputs/decimalBytes.js";
+import { EVERY_BRANCH, LOG10_2_Q12, NUMBER_ROOM, runEveryBranch, writeDecimal, writeFmt } from "../../../src/plan/outputs/decimalBytes.js";
 import { fmt } from "../../../src/plan/outputs/csvText.js";
 import { precisionReference } from "../../helpers/precisionReference.js";
 
 const reference = precisionReference;
 
 const buf = new Uint8Array(64);
+const view = new DataView(buf.buffer);
 const decoder = new TextDecoder();
 /** writeDecimal's text at an offset, or null when it declines. */
 function written(x: number, digits: number): string | null {
   buf.fill(0x7e);
-  const end = writeDecimal(buf, 3, x, digits);
+  const end = writeDecimal(buf, view, 3, x, digits);
   if (end < 0) {
     expect(buf.every((b) => b === 0x7e), `${x} @ ${digits}: declined but wrote`).toBe(true);
     return null;
   }
   expect(buf[2], "nothing written before the offset").toBe(0x7e);
-  expect(buf[end], "nothing written after the end").toBe(0x7e);
+  expect(end - 3, "the text within its room").toBeLessThanOrEqual(NUMBER_ROOM);
+  expect(buf.subarray(3 + NUMBER_ROOM).every((b) => b === 0x7e), "nothing written past the room").toBe(true);
   return decoder.decode(buf.subarray(3, end));
 }
 
@@ -74,6 +76,13 @@ describe("writeDecimal", () => {
     expect(checked).toBeGreaterThan(2000);
   });
 
+  it("estimates the decimal exponent from the binary one: (b·1233) >> 12 = ⌊b·log10 2⌋ over 1e-15 … 1e20", () => {
+    // binary exponents of 1e-15 (2^-50 …) up to 1e20 (… 2^66); log10 2 from its definition
+    for (let b = Math.floor(Math.log2(1e-15)); b <= Math.ceil(Math.log2(1e20)); b++) {
+      expect((b * LOG10_2_Q12) >> 12, `b = ${b}`).toBe(Math.floor(b * Math.log10(2)));
+    }
+  });
+
   it("declines what it cannot promise: more than 6 digits, tiny and huge magnitudes", () => {
     expect(written(1.5, 7)).toBeNull();
     expect(written(1e-300, 6)).toBeNull();
@@ -84,11 +93,12 @@ describe("writeDecimal", () => {
 
 describe("writeFmt (the build list's number columns)", () => {
   const out = new Uint8Array(64);
+  const outView = new DataView(out.buffer);
   const text = (x: number, d: number): string => {
     out.fill(0x7e);
-    const end = writeFmt(out, 5, x, d);
+    const end = writeFmt(out, outView, 5, x, d);
     expect(out[4], "nothing written before the offset").toBe(0x7e);
-    expect(out[end], "nothing written after the end").toBe(0x7e);
+    expect(out.subarray(5 + NUMBER_ROOM).every((b) => b === 0x7e), "nothing written past the room").toBe(true);
     return decoder.decode(out.subarray(5, end));
   };
 
@@ -109,12 +119,12 @@ describe("writeFmt (the build list's number columns)", () => {
   });
 
   it("runEveryBranch: its samples reach the exponential, 0.000ddd, rounding-up and fallback paths, each as fmt writes it", () => {
-    const scratch = new Uint8Array(24);
+    const scratch = new Uint8Array(NUMBER_ROOM);
     expect(runEveryBranch(scratch)).toBeGreaterThan(0);
     const texts = EVERY_BRANCH.flatMap((x) => [4, 6].map((d) => text(x, d)));
     for (const x of EVERY_BRANCH) for (const d of [4, 6]) expect(text(x, d), `${x} @ ${d}`).toBe(fmt(x, d));
     // the branches it is there to reach (fmt's texts, toPrecision's digits)
     for (const t of ["1.5e-12", "-1.5e-7", "1.235e6", "1200", "12.5", "0.00123", "-2.5", "10", "1e25", "0"]) expect(texts).toContain(t);
-    expect(EVERY_BRANCH.some((x) => x !== 0 && Number.isFinite(x) && writeDecimal(new Uint8Array(24), 0, x, 6) < 0), "a half-way fallback").toBe(true);
+    expect(EVERY_BRANCH.some((x) => x !== 0 && Number.isFinite(x) && writeDecimal(new Uint8Array(NUMBER_ROOM), new DataView(new ArrayBuffer(NUMBER_ROOM)), 0, x, 6) < 0), "a half-way fallback").toBe(true);
   });
 });
