@@ -39,38 +39,5 @@ export function inputError(where: string, message: string): never {
   throw new InputError({ where, message });
 }
 
-/** Levenshtein distance, for "did you mean" suggestions. */
-export function editDistance(a: string, b: string): number {
-  const m = a.length;
-  const n = b.length;
-  let prev = new Array<number>(n + 1);
-  let cur = new Array<number>(n + 1);
-  for (let j = 0; j <= n; j++) prev[j] = j;
-  for (let i = 1; i <= m; i++) {
-    cur[0] = i;
-    for (let j = 1; j <= n; j++) {
-      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
-      cur[j] = Math.min(prev[j] + 1, cur[j - 1] + 1, prev[j - 1] + cost);
-    }
-    [prev, cur] = [cur, prev];
-  }
-  return prev[n];
-}
-
-/** Up to `count` candidates closest to `word`, for "did you mean …" in messages. */
-export function closest(word: string, candidates: readonly string[], count = 3): string[] {
-  const w = word.toLowerCase();
-  return [...candidates]
-    .map((c) => ({ c, d: editDistance(w, c.toLowerCase()) - (c.toLowerCase().includes(w) ? 2 : 0) }))
-    .sort((x, y) => x.d - y.d || x.c.localeCompare(y.c))
-    .slice(0, count)
-    .map((x) => x.c);
-}
-
-/** "unknown material 'ptf'; did you mean ptfe, pla?" */
-export function unknownWithSuggestion(kind: string, word: string, candidates: readonly string[]): string {
-  const near = closest(word, candidates);
-  return near.length
-    ? `unknown ${kind} '${word}'; did you mean ${near.join(", ")}?`
-    : `unknown ${kind} '${word}'`;
-}
+/** "Did you mean …" suggestions live in didYouMean.ts; re-exported here, where the messages are built. */
+export { closest, editDistance, unknownWithSuggestion } from "./didYouMean.js";
