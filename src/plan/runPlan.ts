@@ -29,7 +29,7 @@ import { planFiguresFor } from "./planFiguresFor.js";
 import { MAX_LEVELS, type LayerSetting, type Plan, type PlanLevel, type PlanOverrides, type PlanProgress, type TargetComponent } from "./planTypes.js";
 import { isConstant, quantizeTargets } from "./quantize/quantizeTargets.js";
 import { reductionNotes } from "./reductionNotes.js";
-import { planReductionIndex, resolveSettings, type SettingsSource } from "./resolveSettings.js";
+import { givenBackgroundIndex, resolveSettings, type SettingsSource } from "./resolveSettings.js";
 import { planVerdict } from "./verdict.js";
 import { markUnresolvable, mergeUnresolvable } from "./levelSteps.js";
 import { RUNNERS_UP } from "./match/chooseRecipes.js";
@@ -113,7 +113,7 @@ export function planFromField(
     polarization: settings.polarization,
     scheme: settings.scheme,
     unitAxis: settings.unitAxis,
-    backgroundIndex: planReductionIndex(settings),
+    backgroundIndex: givenBackgroundIndex(design, overrides),
     // name the place the choice came from: an override (command line, session) or the design file
     where: {
       polarization: overrides.polarization !== undefined ? "polarization (override)" : `${design.sourcePath}: $.polarization`,
