@@ -190,7 +190,7 @@ export function planFromField(
     rectTables: { left: RECT_TABLES_PER_PLAN },
     process: settings.process === null ? null : catalogs.processes.find((p) => p.id === settings.process)!,
     bandwidth: settings.bandwidth,
-    backgroundIndex: settings.backgroundIndex,
+    backgroundIndex: reduced.settings.backgroundIndex,
   };
   const cellCounts = new Int32Array(q.centres.length);
   const maxQ = new Float64Array(q.centres.length);
@@ -284,6 +284,7 @@ export function planFromField(
   const plan: Plan = {
     design: { name: design.name, notes: design.notes ?? "", sourcePath: design.sourcePath, frequencyHz: f, wavelengthM: C0 / f, transform: design.transform.kind },
     settings,
+    reductionBackground: { index: reduced.settings.backgroundIndex, given: givenBackgroundIndex(design, overrides) !== undefined },
     reductionNotes: reductionNotes(summary, settings, Number.isFinite(cheapestEps) ? cheapestEps : 1),
     grid,
     components: comps,

@@ -6,6 +6,7 @@ import { loadProcessCatalog } from "../../src/io/processCatalog.js";
 import { planFromField, type PlanCatalogs } from "../../src/plan/runPlan.js";
 import { reduceField } from "../../src/reduce/reduceField.js";
 import { givenBackgroundIndex } from "../../src/plan/resolveSettings.js";
+import { reportMarkdown } from "../../src/plan/outputs/reportMarkdown.js";
 import { beamBendDesign } from "../helpers/beamBendDesign.js";
 import type { ReducedField } from "../../src/reduce/reducedField.js";
 
@@ -53,5 +54,17 @@ describe("the background index a plan reduces with", () => {
     const field = computeTensorField(none);
     const plan = planFromField(none, field, catalogs, { backgroundIndex: 1 });
     expect(plan.targets[0]).toEqual(first(reduceField(field, { polarization: "Ez", scheme: "isotropic", backgroundIndex: 1 })));
+  });
+
+  it("is the index the report names: the glass's 1.5 when none is given, 1 when 1 is given", async () => {
+    const none = await design();
+    const given = await design(1);
+    const planNone = planFromField(none, computeTensorField(none), catalogs);
+    const planGiven = planFromField(given, computeTensorField(given), catalogs);
+    // index of the background ε 2.25, μ 1: √2.25 = 1.5
+    expect(planNone.reductionBackground).toEqual({ index: 1.5, given: false });
+    expect(planGiven.reductionBackground).toEqual({ index: 1, given: true });
+    expect(reportMarkdown(planNone)).toContain("background index 1.5 (the design's own background; no background index given).");
+    expect(reportMarkdown(planGiven)).toContain("background index 1.\n");
   });
 });
