@@ -329,9 +329,13 @@ export interface PlanSummary {
     buildable: boolean;
     overrides: PlanOverrides;
     pitchM: number | null;
+    /** design keys the remedy sets (another background material and its index; absent: none) */
+    design?: { backgroundMaterial: string; backgroundIndex: number };
     /** each changed requirement: its figure before and after (null: met) and its limit */
     effects: { what: RequirementName; before: number | null; after: number | null; limit: number }[];
   }[];
+  /** what the remedy search did not try and why (absent: nothing to say) */
+  remedyNotes?: string[];
   polarization: Polarization;
   scheme: SchemeName;
   tolerance: number;

@@ -8,6 +8,11 @@
  * ("recipes: 2640 → 641 cells without recipe; tolerance: met → 18.6 %"). The best MAX_SHOWN are
  * returned, ranked the same way. Nothing untried is ever returned.
  *
+ * A design that names the material its device sits in (`reduction.backgroundMaterial`) cannot take a
+ * bare background index (the plan refuses an index more than 1 % from the material's): its
+ * background remedies name a catalog material instead, with both design keys to set, and are
+ * re-planned with that design; when no catalog material lifts every ε, a note says so.
+ *
  * Pure: the caller supplies `replan` (settings overrides and an optional pitch → a new Plan, or
  * null when that change cannot be planned, e.g. a new pitch for an imported field). Cost: one plan
  * per candidate, at most MAX_TRIES candidates (about as long as MAX_TRIES plans of the design).
@@ -33,6 +38,11 @@ export interface RemedyChange {
   overrides: PlanOverrides;
   /** a new pitch, metres (null: keep) */
   pitchM: number | null;
+  /**
+   * design keys the change sets (absent: none): another background material and its index, which
+   * no option gives (`overrides.backgroundIndex` carries the same index for the re-plan)
+   */
+  design?: { backgroundMaterial: string; backgroundIndex: number };
 }
 
 /** One requirement before and after a remedy. */
@@ -60,6 +70,8 @@ export interface RemedyResult {
   remedies: Remedy[];
   /** how many changes were tried by re-planning */
   tried: number;
+  /** what was not tried and why, for people (absent: nothing to say) */
+  notes?: string[];
 }
 
 export type Replan = (change: RemedyChange) => Plan | null;
@@ -68,6 +80,12 @@ export type Replan = (change: RemedyChange) => Plan | null;
 export interface RemedyContext {
   /** the catalog's materials valid at the design frequency, with Re n (for "a lower-index material") */
   materials?: readonly { id: string; index: number }[];
+  /**
+   * the design's `reduction.backgroundMaterial` and the catalog's materials that can be a background
+   * (dielectric, non-magnetic, valid at the design frequency) with their index there; absent when
+   * the design names no background material
+   */
+  background?: { materialId: string; choices: readonly { id: string; name: string; index: number }[] };
 }
 
 /**
@@ -85,13 +103,12 @@ export function candidateChanges(plan: Plan, context: RemedyContext = {}): Remed
     if (subunity && plan.minBackgroundIndex !== null && Number.isFinite(plan.minBackgroundIndex) && plan.minBackgroundIndex > s.backgroundIndex) {
       // the smallest index that lifts every ε above the lowest material, then a third more (room
       // for the mixes between the materials), alone and with every material and family allowed
-      const nb = Number((plan.minBackgroundIndex * 1.02).toPrecision(3));
-      const nb2 = Number((plan.minBackgroundIndex * 1.33).toPrecision(3));
-      out.push({ label: `embed the device in a background of index ${nb}`, overrides: { backgroundIndex: nb }, pitchM: null });
-      if (s.families !== null || s.materials !== null) {
-        out.push({ label: `embed the device in a background of index ${nb} and allow every material and family`, overrides: { backgroundIndex: nb, materials: null, families: null }, pitchM: null });
+      const [first, second] = backgroundChoices(plan.minBackgroundIndex, context);
+      if (first) {
+        out.push(first([]));
+        if (s.families !== null || s.materials !== null) out.push(first(["materials", "families"]));
       }
-      out.push({ label: `embed the device in a background of index ${nb2} and allow every material and family`, overrides: { backgroundIndex: nb2, materials: null, families: null }, pitchM: null });
+      if (second) out.push(second(["materials", "families"]));
     }
     if (s.families !== null) {
       const wanted = [...(magnetic ? ["split-ring"] : []), ...(subunity ? ["wire-medium"] : [])].filter((id) => !s.families!.includes(id) && CELL_FAMILIES.some((f) => f.id === id));
@@ -130,6 +147,53 @@ export function candidateChanges(plan: Plan, context: RemedyContext = {}): Remed
     out.push({ label: `finer pitch (${pitchText(plan.grid.pitchM / 1.5)})`, overrides: {}, pitchM: plan.grid.pitchM / 1.5 });
   }
   return [...out.slice(0, MAX_TRIES - kept.length), ...kept];
+}
+
+type BackgroundChange = (allowEvery: ("materials" | "families")[]) => RemedyChange;
+
+/**
+ * The two backgrounds to try for a plan whose ε must be lifted to `minIndex`: an index 2 % above it
+ * and one a third above it; for a design that names its background material, the catalog's
+ * material with the lowest index from `minIndex` up and the one nearest a third above it (null when
+ * none, or the same one). Each as a change builder: alone, or allowing every material and family.
+ */
+function backgroundChoices(minIndex: number, context: RemedyContext): [BackgroundChange | null, BackgroundChange | null] {
+  const every = (allow: ("materials" | "families")[]): PlanOverrides => Object.fromEntries(allow.map((k) => [k, null]));
+  const tail = (allow: readonly string[]): string => (allow.length ? " and allow every material and family" : "");
+  const bg = context.background;
+  if (!bg) {
+    const byIndex = (nb: number): BackgroundChange => (allow) => ({ label: `embed the device in a background of index ${nb}${tail(allow)}`, overrides: { backgroundIndex: nb, ...every(allow) }, pitchM: null });
+    return [byIndex(Number((minIndex * 1.02).toPrecision(3))), byIndex(Number((minIndex * 1.33).toPrecision(3)))];
+  }
+  // the index as printed (5 digits, as the background check prints it) is the index re-planned
+  const fits = bg.choices.filter((m) => m.id !== bg.materialId && m.index >= minIndex);
+  if (fits.length === 0) return [null, null];
+  const lowest = fits.reduce((a, m) => (m.index < a.index ? m : a));
+  const target = minIndex * 1.33;
+  const nearest = fits.reduce((a, m) => (Math.abs(Math.log(m.index / target)) < Math.abs(Math.log(a.index / target)) ? m : a));
+  const byMaterial = (m: { id: string; name: string; index: number }): BackgroundChange => (allow) => {
+    const n = Number(m.index.toPrecision(5));
+    return {
+      label: `embed the device in ${m.name}, index ${n} at the design frequency (set reduction.backgroundMaterial to "${m.id}", reduction.backgroundIndex to ${n})${allow.length ? "," : ""}${tail(allow)}`,
+      overrides: { backgroundIndex: n, ...every(allow) },
+      pitchM: null,
+      design: { backgroundMaterial: m.id, backgroundIndex: n },
+    };
+  };
+  return [byMaterial(lowest), nearest.id === lowest.id ? null : byMaterial(nearest)];
+}
+
+/** "no catalog material … lifts every ε" when the design names its background and none does. */
+function backgroundNotes(plan: Plan, context: RemedyContext): string[] {
+  const bg = context.background;
+  const min = plan.minBackgroundIndex;
+  if (!bg || min === null || !Number.isFinite(min) || !(min > plan.settings.backgroundIndex)) return [];
+  // the same conditions as the background changes in candidateChanges
+  const counts = plan.figures.flagCounts;
+  if ((counts.subunity ?? 0) === 0 && (counts.unreachable ?? 0) === 0) return [];
+  if (!plan.verdict.missed.some((m) => m.what === "recipes" || m.what === "tolerance")) return [];
+  if (bg.choices.some((m) => m.id !== bg.materialId && m.index >= min)) return [];
+  return [`no other background tried: the design names its background material ('${bg.materialId}'), and no catalog material that can surround the device has index ${Number(min.toPrecision(4))} or more at the design frequency (the index that lifts every ε above the lowest allowed material)`];
 }
 
 /** Finer pitch than needed to bring a coarse figure to its limit (no more than 4× finer, at least 1.2×). */
@@ -273,5 +337,6 @@ export function findRemedies(plan: Plan, replan: Replan, shouldStop: () => boole
     kept.push({ ...change, buildable: next.verdict.buildable, effects, missedAfter: next.verdict.missed, changes: changesText(effects) });
   }
   kept.sort((a, b) => (betterThan(a.missedAfter, b.missedAfter) ? -1 : betterThan(b.missedAfter, a.missedAfter) ? 1 : 0));
-  return { remedies: kept.slice(0, MAX_SHOWN), tried };
+  const notes = backgroundNotes(plan, context);
+  return { remedies: kept.slice(0, MAX_SHOWN), tried, ...(notes.length ? { notes } : {}) };
 }

@@ -74,6 +74,7 @@ export function humanSummary(plan: Plan, outputs: string[]): string {
     ...(plan.remedies && plan.remedies.remedies.length
       ? ["what would help (each tried by re-planning):", ...plan.remedies.remedies.map((r, k) => `  ${k + 1}. ${r.label}${r.buildable ? " — buildable" : ""}: ${r.changes}`)]
       : plan.remedies ? [`what would help: none of ${plan.remedies.tried} changes tried improves the plan`] : []),
+    ...(plan.remedies?.notes ?? []).map((n) => `  note: ${n}`),
     `${s.design}`,
     `  ${s.cells} cells, ${s.levels} levels, ${s.regions} regions (${s.polarization}, ${s.scheme}, tolerance ${pct(s.tolerance)})`,
     `  error${(s.flags.norecipe ?? 0) > 0 ? " (cells with a recipe)" : ""}: largest ${pct(s.maxRelError)}, median ${pct(s.medianRelError)}; loss ${Number(s.lossDb.toPrecision(3))} dB; boundary reflection ${pct(s.boundaryReflection)}`,

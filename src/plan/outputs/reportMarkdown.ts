@@ -68,6 +68,7 @@ export function reportMarkdown(plan: Plan): string {
       plan.remedies.remedies.forEach((r, k) => L.push(`${k + 1}. **${r.label}**${r.buildable ? " (buildable as asked)" : ""}: ${r.changes}.`));
       L.push("");
     }
+    for (const n of plan.remedies.notes ?? []) L.push(`Note: ${n}.`, "");
   }
   L.push(`Checked: recipes for every cell; tolerance ${pct(s.tolerance)} on the largest error (quantization and loss included); ${s.lossBudgetDb === null ? "no loss budget stated" : `loss budget ${fmt(s.lossBudgetDb, 3)} dB`}; ${s.bandwidth === null ? "no bandwidth stated" : `bandwidth ${pct(s.bandwidth)}`}; anisotropy limit ${fmt(s.maxAnisotropy, 3)}; ${s.process === null ? "no process stated" : `process ${s.process} (smallest feature, level steps)`}.`, "");
   L.push("## Design", "");

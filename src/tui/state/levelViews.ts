@@ -115,6 +115,7 @@ export function verdictLines(plan: Plan): string[] {
     out.push(`what would help (tried by re-planning; ${r.tried} tried; key w applies one):`);
     r.remedies.forEach((x, k) => out.push(`  ${k + 1}. ${x.label}${x.buildable ? " (buildable)" : ""}: ${x.changes}`));
   }
+  for (const n of r?.notes ?? []) out.push(`  note: ${n}`);
   for (const m of plan.verdict.missed) out.push(`missed ${m.what}: ${m.text}`);
   out.push("");
   return out;

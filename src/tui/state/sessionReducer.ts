@@ -192,9 +192,10 @@ function globalCommand(state: SessionState, command: CommandId): SessionState {
     case "levelsAuto":
       return changeChoices(state, { levels: null }, "levels: as few as the tolerance allows");
     case "applyRemedy": {
-      // the best remedy the session can apply (a new pitch is a change of the design's grid)
-      const r = state.plan?.remedies?.remedies.find((x) => x.pitchM === null);
-      if (!r) return { ...state, status: state.plan?.verdict.buildable ? "the plan is buildable as asked: nothing to remedy" : "no remedy the session can apply (none tried helps, or only a new pitch does: change grid.pitch in the design)" };
+      // the best remedy the session can apply (a new pitch is a change of the design's grid, another
+      // background material a change of its reduction keys: the remedy's label names them)
+      const r = state.plan?.remedies?.remedies.find((x) => x.pitchM === null && !x.design);
+      if (!r) return { ...state, status: state.plan?.verdict.buildable ? "the plan is buildable as asked: nothing to remedy" : "no remedy the session can apply (none tried helps, or only a change of the design does: a new grid.pitch or background material, as the remedy says)" };
       return changeChoices(state, r.overrides, `applied: ${r.label}`);
     }
     case "toleranceTighter":

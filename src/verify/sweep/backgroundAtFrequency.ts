@@ -49,6 +49,30 @@ export interface BackgroundMaterialInfo {
 }
 
 /**
+ * Whether `material` can be a background at `designFrequencyHz`: not a metal, non-magnetic, valid
+ * there, Re ε > 0. Returns its Re ε and index, or the reason it cannot (a message fragment).
+ */
+export function materialAsBackground(material: Material, designFrequencyHz: number): { ok: true; epsRe: number; index: number } | { ok: false; message: string } {
+  const id = material.id;
+  if (material.class === "metal") return { ok: false, message: `'${id}' is a metal: a background must be a dielectric the wave travels in` };
+  const v = evaluateMaterial(material, designFrequencyHz);
+  if (material.mu && (material.mu.re !== 1 || material.mu.im !== 0)) return { ok: false, message: `'${id}' is magnetic (μ = ${material.mu.re}): only a non-magnetic background is followed` };
+  if (!v.inRange) return { ok: false, message: `${v.warning ?? `'${id}' is not valid at the design frequency`}` };
+  if (!(v.eps.re > 0) || !Number.isFinite(v.eps.re)) return { ok: false, message: `'${id}' has Re ε = ${v.eps.re} at the design frequency: expected a dielectric (Re ε > 0)` };
+  return { ok: true, epsRe: v.eps.re, index: Math.sqrt(v.eps.re) };
+}
+
+/** The catalog's materials that can be a background at `designFrequencyHz` (materialAsBackground), with their index there, lowest index first. */
+export function backgroundMaterialChoices(catalog: readonly Material[], designFrequencyHz: number): { id: string; name: string; index: number }[] {
+  const out: { id: string; name: string; index: number }[] = [];
+  for (const m of catalog) {
+    const r = materialAsBackground(m, designFrequencyHz);
+    if (r.ok) out.push({ id: m.id, name: m.name, index: r.index });
+  }
+  return out.sort((a, b) => a.index - b.index || (a.id < b.id ? -1 : 1));
+}
+
+/**
  * Look up and check the background material `id` (`where` names the JSON path): in the catalog, not a
  * metal, non-magnetic, valid at the design frequency, its index within 1 % of `backgroundIndex`
  * (the reduction's background index, `indexWhere` naming where it came from). Throws InputError.
@@ -59,19 +83,16 @@ export function checkBackgroundMaterial(id: string, catalog: readonly Material[]
     const near = closest(id, catalog.map((m) => m.id), 3);
     throw new InputError({ where, message: `unknown material '${id}'${near.length ? `; did you mean ${near.join(", ")}?` : ""} (see cellwright material)` });
   }
-  if (material.class === "metal") throw new InputError({ where, message: `'${id}' is a metal: a background must be a dielectric the wave travels in` });
-  const v = evaluateMaterial(material, designFrequencyHz);
-  if (material.mu && (material.mu.re !== 1 || material.mu.im !== 0)) throw new InputError({ where, message: `'${id}' is magnetic (μ = ${material.mu.re}): only a non-magnetic background is followed` });
-  if (!v.inRange) throw new InputError({ where, message: `${v.warning ?? `'${id}' is not valid at the design frequency`}` });
-  if (!(v.eps.re > 0) || !Number.isFinite(v.eps.re)) throw new InputError({ where, message: `'${id}' has Re ε = ${v.eps.re} at the design frequency: expected a dielectric (Re ε > 0)` });
-  const index = Math.sqrt(v.eps.re);
+  const r = materialAsBackground(material, designFrequencyHz);
+  if (!r.ok) throw new InputError({ where, message: r.message });
+  const { epsRe, index } = r;
   if (Math.abs(index / backgroundIndex - 1) > BACKGROUND_INDEX_TOLERANCE) {
     throw new InputError({
       where,
-      message: `'${id}' has index ${index.toPrecision(5)} at the design frequency (Re ε ${v.eps.re.toPrecision(5)}), the device's background index is ${backgroundIndex.toPrecision(5)} (${indexWhere}): expected them equal within ${BACKGROUND_INDEX_TOLERANCE * 100} % (set reduction.backgroundIndex to ${index.toPrecision(5)})`,
+      message: `'${id}' has index ${index.toPrecision(5)} at the design frequency (Re ε ${epsRe.toPrecision(5)}), the device's background index is ${backgroundIndex.toPrecision(5)} (${indexWhere}): expected them equal within ${BACKGROUND_INDEX_TOLERANCE * 100} % (set reduction.backgroundIndex to ${index.toPrecision(5)})`,
     });
   }
-  return { material, epsRe: v.eps.re, index };
+  return { material, epsRe, index };
 }
 
 /**

@@ -247,4 +247,20 @@ describe("what would help", () => {
     expect(after.planWanted).toBe(none.planWanted);
     expect(after.status).toContain("no remedy");
   });
+
+  it("w skips a remedy that changes the design's background material (the session cannot edit the design)", () => {
+    const plan = syntheticPlan();
+    const effects = [{ what: "recipes" as const, before: 8, after: null, limit: 0, met: true }];
+    const material = { label: "embed the device in polypropylene, index 1.5067 at the design frequency (set reduction.backgroundMaterial to \"polypropylene\", reduction.backgroundIndex to 1.5067)", overrides: { backgroundIndex: 1.5067 }, pitchM: null, design: { backgroundMaterial: "polypropylene", backgroundIndex: 1.5067 }, buildable: true, effects, missedAfter: [], changes: "recipes: 8 → met" };
+    plan.remedies = { tried: 3, remedies: [material] };
+    const s0 = initialSessionState({ designPath: "/d/bend.json", outDir: "/d/out", sessionPath: "/d/out/session.json", mapArea: { width: 60, height: 10 } });
+    const ready1 = run(s0, { type: "designLoaded", base: SYNTHETIC_SETTINGS, options: OPTIONS }, { type: "planReady", seq: 1, plan }, "screenLevels");
+    const s = run(ready1, "applyRemedy");
+    expect(s.overrides).toEqual(ready1.overrides);
+    expect(s.planWanted).toBe(ready1.planWanted);
+    expect(s.status).toContain("background material");
+    plan.remedies = { tried: 4, remedies: [material, { label: "allow every catalog material", overrides: { materials: null }, pitchM: null, buildable: false, effects, missedAfter: [], changes: "recipes: 8 → met" }] };
+    const s2 = run(run(s0, { type: "designLoaded", base: { ...SYNTHETIC_SETTINGS, materials: ["ptfe"] }, options: OPTIONS }, { type: "planReady", seq: 1, plan }, "screenLevels"), "applyRemedy");
+    expect(s2.overrides).toEqual({ materials: null });
+  });
 });
