@@ -14,7 +14,7 @@ import { refractiveIndex } from "../core/complex.js";
 import type { Plan, PlanOverrides } from "../plan/planTypes.js";
 import type { FieldDesign } from "../field/transformSpec.js";
 import type { Design } from "./design/designSchema.js";
-import { planReductionIndex, resolveSettings } from "../plan/resolveSettings.js";
+import { givenBackgroundIndex } from "../plan/resolveSettings.js";
 import { backgroundMaterialChoices, checkBackgroundMaterialBeforeReduction } from "../verify/sweep/backgroundAtFrequency.js";
 
 /** Wall-clock budget of one remedy search, ms. */
@@ -42,7 +42,7 @@ export function searchRemedies(
     const d = change.design && design.reduction ? { ...design, reduction: { ...design.reduction, ...change.design } } : design;
     const o = { ...overrides, ...change.overrides };
     // refused as `plan` refuses it (InputError: the change is not offered)
-    checkBackgroundMaterialBeforeReduction(d, o.backgroundIndex !== undefined, catalogs.materials, planReductionIndex(resolveSettings(d, o)));
+    checkBackgroundMaterialBeforeReduction(d, o.backgroundIndex !== undefined, catalogs.materials, givenBackgroundIndex(d, o));
     return planFromField(d, f, catalogs, o);
   }, () => Date.now() - start > budgetMs, context);
 }

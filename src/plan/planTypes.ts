@@ -226,6 +226,11 @@ export interface Plan {
     transform: string;
   };
   settings: PlanSettings;
+  /**
+   * the background the reduction used: the index given (`settings.backgroundIndex`, from the design
+   * or an override), or when none was (`given` false) the design's own background's, √(ε_b μ_b)
+   */
+  reductionBackground: { index: number; given: boolean };
   /** why the reduction costs what it costs: short plain sentences for the report */
   reductionNotes: string[];
   grid: DeviceGrid;

@@ -47,9 +47,12 @@ export function resolveSettings(design: SettingsSource, overrides: PlanOverrides
 }
 
 /**
- * The background index a plan hands its reduction: undefined for 1, which keeps the design's own
- * background (`$.background`, as the field was computed), else the index.
+ * The background index a reduction is handed: the one given — by an override (command line,
+ * session) or by the design's `reduction.backgroundIndex`, 1 included (a background of index 1) —
+ * or undefined when none is, which keeps the design's own background (`$.background`, as the field
+ * was computed). `plan`, `reduce`, `verify` and the session all reduce with it, so they reduce
+ * alike; the settings' `backgroundIndex` (1 when none is given) is what they show.
  */
-export function planReductionIndex(settings: Pick<PlanSettings, "backgroundIndex">): number | undefined {
-  return settings.backgroundIndex === 1 ? undefined : settings.backgroundIndex;
+export function givenBackgroundIndex(design: SettingsSource, overrides: PlanOverrides = {}): number | undefined {
+  return overrides.backgroundIndex ?? design.reduction?.backgroundIndex;
 }

@@ -29,7 +29,7 @@ import { planFiguresFor } from "./planFiguresFor.js";
 import { MAX_LEVELS, type LayerSetting, type Plan, type PlanLevel, type PlanOverrides, type PlanProgress, type TargetComponent } from "./planTypes.js";
 import { isConstant, quantizeTargets } from "./quantize/quantizeTargets.js";
 import { reductionNotes } from "./reductionNotes.js";
-import { planReductionIndex, resolveSettings, type SettingsSource } from "./resolveSettings.js";
+import { givenBackgroundIndex, resolveSettings, type SettingsSource } from "./resolveSettings.js";
 import { planVerdict } from "./verdict.js";
 import { markUnresolvable, mergeUnresolvable } from "./levelSteps.js";
 import { RUNNERS_UP } from "./match/chooseRecipes.js";
@@ -113,7 +113,7 @@ export function planFromField(
     polarization: settings.polarization,
     scheme: settings.scheme,
     unitAxis: settings.unitAxis,
-    backgroundIndex: planReductionIndex(settings),
+    backgroundIndex: givenBackgroundIndex(design, overrides),
     // name the place the choice came from: an override (command line, session) or the design file
     where: {
       polarization: overrides.polarization !== undefined ? "polarization (override)" : `${design.sourcePath}: $.polarization`,
@@ -190,7 +190,7 @@ export function planFromField(
     rectTables: { left: RECT_TABLES_PER_PLAN },
     process: settings.process === null ? null : catalogs.processes.find((p) => p.id === settings.process)!,
     bandwidth: settings.bandwidth,
-    backgroundIndex: settings.backgroundIndex,
+    backgroundIndex: reduced.settings.backgroundIndex,
   };
   const cellCounts = new Int32Array(q.centres.length);
   const maxQ = new Float64Array(q.centres.length);
@@ -284,6 +284,7 @@ export function planFromField(
   const plan: Plan = {
     design: { name: design.name, notes: design.notes ?? "", sourcePath: design.sourcePath, frequencyHz: f, wavelengthM: C0 / f, transform: design.transform.kind },
     settings,
+    reductionBackground: { index: reduced.settings.backgroundIndex, given: givenBackgroundIndex(design, overrides) !== undefined },
     reductionNotes: reductionNotes(summary, settings, Number.isFinite(cheapestEps) ? cheapestEps : 1),
     grid,
     components: comps,

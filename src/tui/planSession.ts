@@ -8,7 +8,7 @@ import type { Design } from "../io/design/designSchema.js";
 import { searchRemedies } from "../io/planRemedies.js";
 import type { Material } from "../media/material.js";
 import type { Plan, PlanOverrides, PlanProgress } from "../plan/planTypes.js";
-import { planReductionIndex, resolveSettings } from "../plan/resolveSettings.js";
+import { givenBackgroundIndex } from "../plan/resolveSettings.js";
 import { planFromField } from "../plan/runPlan.js";
 import { checkBackgroundMaterialBeforeReduction } from "../verify/sweep/backgroundAtFrequency.js";
 import type { PlanInputs } from "./planInputs.js";
@@ -19,7 +19,7 @@ import type { PlanInputs } from "./planInputs.js";
  */
 export function checkSessionBackground(design: Design, materials: readonly Material[], overrides: PlanOverrides, sessionPath: string): void {
   const overridden = overrides.backgroundIndex !== undefined && `${sessionPath}: $.overrides.backgroundIndex`;
-  checkBackgroundMaterialBeforeReduction(design, overridden, materials, planReductionIndex(resolveSettings(design, overrides)));
+  checkBackgroundMaterialBeforeReduction(design, overridden, materials, givenBackgroundIndex(design, overrides));
 }
 
 /** Check, plan and (when not buildable) try the remedies. Throws InputError as `plan` would. */

@@ -131,11 +131,14 @@ export function createSessionServices(opts: ServiceOptions): SessionServices & {
     },
 
     async schemes(settings) {
-      const { field } = await load();
+      const { field, design } = await load();
       await yieldToEventLoop();
+      // the index the plans reduce with (givenBackgroundIndex): one the design or the session gives, 1
+      // included; none keeps the design's own background
+      const given = design.reduction?.backgroundIndex !== undefined || settings.backgroundIndex !== 1;
       const summaries = compareSchemes(field, settings.polarization, {
         unitAxis: settings.unitAxis,
-        ...(settings.backgroundIndex !== 1 ? { backgroundIndex: settings.backgroundIndex } : {}),
+        ...(given ? { backgroundIndex: settings.backgroundIndex } : {}),
       });
       return schemeTableView(settings.polarization, summaries, summaries.skipped ?? []);
     },

@@ -8,23 +8,13 @@ import { loadProcessCatalog } from "../../src/io/processCatalog.js";
 import { planFromField } from "../../src/plan/runPlan.js";
 import { writePlanOutputs } from "../../src/io/planOutputs.js";
 import { BUILD_LIST_CHUNK_BYTES, emitBuildList } from "../../src/plan/outputs/buildListRows.js";
+import { beamBendDesign } from "../helpers/beamBendDesign.js";
 import { tempDir } from "../helpers/tempDir.js";
 
 describe("build list on disk", () => {
   it("holds exactly the bytes the rows were made of, over many reused chunk buffers", async () => {
     // the printed bend demo at a 0.25 mm pitch: about 3.5 × 10⁴ cells, several 1 MB chunks
-    const design = await parseDesign(
-      {
-        name: "chunked bend",
-        frequency: "28 GHz",
-        transform: { kind: "beam-bend", innerRadius: "60 mm", outerRadius: "80 mm", angle: "90 deg", referenceRadius: "80 mm" },
-        grid: { pitch: "0.25 mm" },
-        polarization: "Ez",
-        reduction: { scheme: "isotropic", backgroundIndex: 1.2 },
-        realization: { materials: ["photopolymer-resin", "air"], lattice: "cubic", tolerance: 0.03 },
-      },
-      "chunked.json",
-    );
+    const design = await parseDesign(beamBendDesign({ name: "chunked bend", frequency: "28 GHz", pitch: "0.25 mm", materials: ["photopolymer-resin", "air"] }), "chunked.json");
     const plan = planFromField(design, computeTensorField(design), { materials: await loadMaterialCatalog(), processes: await loadProcessCatalog() });
     // the rows as made, each chunk copied at once (the emitter reuses its buffers)
     const parts: Buffer[] = [];

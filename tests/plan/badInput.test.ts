@@ -10,6 +10,7 @@ import { loadProcessCatalog } from "../../src/io/processCatalog.js";
 import { planFromField } from "../../src/plan/runPlan.js";
 import { writePlanOutputs } from "../../src/io/planOutputs.js";
 import { tempDir } from "../helpers/tempDir.js";
+import { beamBendDesign } from "../helpers/beamBendDesign.js";
 
 async function designFile(dir: string, body: object): Promise<string> {
   const p = join(dir, "design.json");
@@ -17,14 +18,7 @@ async function designFile(dir: string, body: object): Promise<string> {
   return p;
 }
 
-const bend = {
-  name: "bad-input check",
-  frequency: "2.5 GHz",
-  transform: { kind: "beam-bend", innerRadius: "60 mm", outerRadius: "80 mm", angle: "90 deg", referenceRadius: "80 mm" },
-  grid: { pitch: "6 mm" },
-  polarization: "Ez",
-  reduction: { scheme: "isotropic", backgroundIndex: 1.2 },
-};
+const bend = beamBendDesign({ name: "bad-input check", frequency: "2.5 GHz", pitch: "6 mm" });
 
 describe("plan with bad or impossible input", () => {
   it("refuses a 3D device, even its z = 0 slice (not invariant along z), and writes nothing", async () => {

@@ -21,7 +21,7 @@ import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_INPUT, EXIT_INTERRUPTED, EXIT_NOT_BUILDABLE, EXIT_OK } from "../run.js";
 import { runInterruptible } from "../interruptible.js";
-import { planReductionIndex, resolveSettings } from "../../plan/resolveSettings.js";
+import { givenBackgroundIndex } from "../../plan/resolveSettings.js";
 import { checkBackgroundMaterialBeforeReduction } from "../../verify/sweep/backgroundAtFrequency.js";
 import { join, resolve } from "node:path";
 
@@ -97,7 +97,7 @@ export async function runPlanCommand(designPath: string, overrides: PlanOverride
   const [materials, processes] = await Promise.all([loadMaterialCatalog(), loadProcessCatalog()]);
   // a background material (read by verify's sweep) is checked as every command checks it, before the
   // field is computed so a typo does not wait; against the index the plan's reduction uses (runPlan.ts)
-  checkBackgroundMaterialBeforeReduction(design, overrides.backgroundIndex !== undefined && (opts.backgroundIndexWhere ?? true), materials, planReductionIndex(resolveSettings(design, overrides)));
+  checkBackgroundMaterialBeforeReduction(design, overrides.backgroundIndex !== undefined && (opts.backgroundIndexWhere ?? true), materials, givenBackgroundIndex(design, overrides));
   const field = await loadFieldForDesign(design);
   const timeWarning = expectedTimeWarning(planSeconds(field.grid.count), `planning ${field.grid.count.toExponential(2)} cells and writing the outputs`);
   if (timeWarning !== null) io.stderr(`warning: ${timeWarning}\n`);

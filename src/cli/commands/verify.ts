@@ -15,7 +15,7 @@ import { loadMaterialCatalog } from "../../io/materialCatalog.js";
 import { loadProcessCatalog } from "../../io/processCatalog.js";
 import { parseQuantity } from "../../io/quantity.js";
 import { planFromField } from "../../plan/runPlan.js";
-import { resolveSettings } from "../../plan/resolveSettings.js";
+import { givenBackgroundIndex, resolveSettings } from "../../plan/resolveSettings.js";
 import { reduceField } from "../../reduce/reduceField.js";
 import { deviceCases } from "../../verify/deviceCases.js";
 import { bulkMaterials } from "../../verify/bulkMaterials.js";
@@ -294,7 +294,7 @@ export const command: Command = {
     }
     const design = await loadDesign(designPath, io.cwd);
     const s = resolveSettings(design, overrides);
-    const backgroundIndex = s.backgroundIndex === 1 && !design.reduction?.backgroundIndex ? undefined : s.backgroundIndex;
+    const backgroundIndex = givenBackgroundIndex(design, overrides);
     // a background material is checked as plan, reduce and the session check it, before the field and
     // the plan are computed, against the index of this command's reductions (below)
     let plan = null, bulk, catalog: Material[] = [];

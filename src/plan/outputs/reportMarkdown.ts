@@ -77,7 +77,7 @@ export function reportMarkdown(plan: Plan): string {
   L.push(`- ${plan.grid.count} device cells of pitch ${si(plan.grid.pitchM, "m")} (λ₀/${fmt(d.wavelengthM / plan.grid.pitchM, 3)})`);
   L.push("");
   L.push("## Reduction", "");
-  L.push(`Polarization ${s.polarization}, scheme \`${s.scheme}\`${s.scheme === "unit-mu" ? ` (the ${s.unitAxis} in-plane μ set to 1)` : ""}, background index ${fmt(s.backgroundIndex, 4)}.`, "");
+  L.push(`Polarization ${s.polarization}, scheme \`${s.scheme}\`${s.scheme === "unit-mu" ? ` (the ${s.unitAxis} in-plane μ set to 1)` : ""}, background index ${fmt(plan.reductionBackground.index, 4)}${plan.reductionBackground.given || plan.reductionBackground.index === 1 ? "" : " (the design's own background; no background index given)"}.`, "");
   for (const n of plan.reductionNotes) L.push(`- ${n}`);
   L.push(`- outer-boundary reflection (normal incidence, power): ${f.boundaryReflection === null ? "not known for this field" : pct(f.boundaryReflection)}`);
   L.push(`- largest in-plane anisotropy of the targets: ${fmt(f.largestAnisotropy, 4)} (limit ${fmt(s.maxAnisotropy, 3)})`);

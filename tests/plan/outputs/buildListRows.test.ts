@@ -8,6 +8,7 @@ import { emitBuildList, type BuildListTextLimits } from "../../../src/plan/outpu
 import { makeTextPool, poolText } from "../../../src/plan/outputs/textPool.js";
 import { flagList } from "../../../src/plan/flags.js";
 import type { Plan } from "../../../src/plan/planTypes.js";
+import { beamBendDesign } from "../../helpers/beamBendDesign.js";
 
 /** The build list as one string. */
 async function buildList(plan: Plan, limits?: BuildListTextLimits): Promise<string> {
@@ -22,18 +23,7 @@ const IN_PARTS: BuildListTextLimits = { regions: 0, tails: 0 };
 describe("build list rows: texts made once and the same bytes written in parts", () => {
   let plan: Plan;
   beforeAll(async () => {
-    const design = await parseDesign(
-      {
-        name: "rows bend",
-        frequency: "28 GHz",
-        transform: { kind: "beam-bend", innerRadius: "60 mm", outerRadius: "80 mm", angle: "90 deg", referenceRadius: "80 mm" },
-        grid: { pitch: "0.8 mm" },
-        polarization: "Ez",
-        reduction: { scheme: "isotropic", backgroundIndex: 1.2 },
-        realization: { materials: ["photopolymer-resin", "air"], lattice: "cubic", tolerance: 0.03 },
-      },
-      "rows.json",
-    );
+    const design = await parseDesign(beamBendDesign({ name: "rows bend", frequency: "28 GHz", pitch: "0.8 mm", materials: ["photopolymer-resin", "air"] }), "rows.json");
     plan = planFromField(design, computeTensorField(design), { materials: await loadMaterialCatalog(), processes: await loadProcessCatalog() });
   });
 

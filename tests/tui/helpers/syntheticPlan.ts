@@ -85,6 +85,7 @@ export function syntheticPlan(settings: Partial<PlanSettings> = {}): Plan {
   return {
     design: { name: "synthetic bend", notes: "", sourcePath: "/tmp/synthetic.json", frequencyHz: 1e10, wavelengthM: 0.0299792458, transform: "synthetic" },
     settings: { ...SYNTHETIC_SETTINGS, ...settings },
+    reductionBackground: { index: 1, given: false },
     reductionNotes: [],
     grid,
     components: [

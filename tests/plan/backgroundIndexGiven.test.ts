@@ -1,0 +1,70 @@
+import { describe, it, expect, beforeAll } from "vitest";
+import { parseDesign } from "../../src/io/design/loadDesign.js";
+import { computeTensorField } from "../../src/field/computeTensorField.js";
+import { loadMaterialCatalog } from "../../src/io/materialCatalog.js";
+import { loadProcessCatalog } from "../../src/io/processCatalog.js";
+import { planFromField, type PlanCatalogs } from "../../src/plan/runPlan.js";
+import { reduceField } from "../../src/reduce/reduceField.js";
+import { givenBackgroundIndex } from "../../src/plan/resolveSettings.js";
+import { reportMarkdown } from "../../src/plan/outputs/reportMarkdown.js";
+import { beamBendDesign } from "../helpers/beamBendDesign.js";
+import type { ReducedField } from "../../src/reduce/reducedField.js";
+
+/** The reduction's first component (Ez: ε_zz), the plan's first target column. */
+const first = (r: ReducedField): Float64Array => r.components[r.componentNames[0]];
+
+/**
+ * A background index of 1 that the design or the command line gives is a background of index 1,
+ * for `plan` as for `reduce` and `verify` (which reduce with `givenBackgroundIndex` too); only when
+ * none is given does the reduction keep the design's own background. Before, `plan` read an index
+ * of 1 as "none given", so a design with a glass background ($.background ε 2.25) and
+ * `reduction.backgroundIndex: 1` was planned for the glass and verified for index 1.
+ */
+describe("the background index a plan reduces with", () => {
+  let catalogs: PlanCatalogs;
+  beforeAll(async () => {
+    catalogs = { materials: await loadMaterialCatalog(), processes: await loadProcessCatalog() };
+  });
+
+  const design = async (backgroundIndex?: number) => {
+    const d = beamBendDesign({ name: "glass-background bend", frequency: "10 GHz", pitch: "2 mm", materials: ["alumina-96", "air"] });
+    return parseDesign({ ...d, background: { eps: 2.25, mu: 1 }, reduction: { scheme: "isotropic", ...(backgroundIndex !== undefined ? { backgroundIndex } : {}) } }, "glass.json");
+  };
+
+  it("is 1 when the design gives 1, as reduce and verify take it; the design's own background when none is given", async () => {
+    const given = await design(1);
+    const none = await design();
+    expect(givenBackgroundIndex(given)).toBe(1);
+    expect(givenBackgroundIndex(none)).toBeUndefined();
+    const field = computeTensorField(given);
+    const atOne = reduceField(field, { polarization: "Ez", scheme: "isotropic", backgroundIndex: 1 });
+    const own = reduceField(field, { polarization: "Ez", scheme: "isotropic" });
+    const planGiven = planFromField(given, field, catalogs);
+    const planNone = planFromField(none, computeTensorField(none), catalogs);
+    expect(planGiven.targets[0]).toEqual(first(atOne));
+    expect(planNone.targets[0]).toEqual(first(own));
+    // ε′ = J ε_b Jᵀ / det J is linear in the background's ε (form invariance; Ward & Pendry, J. Mod.
+    // Opt. 43, 773 (1996)): the glass background's targets are 2.25 times those of index 1
+    for (let c = 0; c < field.grid.count; c += 37) expect(planNone.targets[0][c] / planGiven.targets[0][c]).toBeCloseTo(2.25, 9);
+  });
+
+  it("is the command line's or session's index when one overrides the design, 1 included", async () => {
+    const none = await design();
+    expect(givenBackgroundIndex(none, { backgroundIndex: 1 })).toBe(1);
+    const field = computeTensorField(none);
+    const plan = planFromField(none, field, catalogs, { backgroundIndex: 1 });
+    expect(plan.targets[0]).toEqual(first(reduceField(field, { polarization: "Ez", scheme: "isotropic", backgroundIndex: 1 })));
+  });
+
+  it("is the index the report names: the glass's 1.5 when none is given, 1 when 1 is given", async () => {
+    const none = await design();
+    const given = await design(1);
+    const planNone = planFromField(none, computeTensorField(none), catalogs);
+    const planGiven = planFromField(given, computeTensorField(given), catalogs);
+    // index of the background ε 2.25, μ 1: √2.25 = 1.5
+    expect(planNone.reductionBackground).toEqual({ index: 1.5, given: false });
+    expect(planGiven.reductionBackground).toEqual({ index: 1, given: true });
+    expect(reportMarkdown(planNone)).toContain("background index 1.5 (the design's own background; no background index given).");
+    expect(reportMarkdown(planGiven)).toContain("background index 1.\n");
+  });
+});
