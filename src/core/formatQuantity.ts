@@ -9,6 +9,20 @@ export function significant(v: number, digits = 3): string {
   return Number.isFinite(v) ? Number(v.toPrecision(digits)).toString() : "—";
 }
 
+/**
+ * The smallest number of `digits` significant digits that is ≥ v (v > 0): a threshold printed
+ * for a user to give back ("a background of index 1.501 or more") must still meet it when taken
+ * as printed, which rounding to nearest does not promise (1.50037 → 1.5). Other values pass as
+ * they are. Example: significantAtLeast(1.50037, 4) → 1.501; significantAtLeast(1.5, 4) → 1.5.
+ */
+export function significantAtLeast(v: number, digits = 3): number {
+  if (!(v > 0) || !Number.isFinite(v)) return v;
+  const nearest = Number(v.toPrecision(digits));
+  if (nearest >= v) return nearest;
+  const unit = 10 ** (Math.floor(Math.log10(nearest)) - digits + 1);
+  return Number((nearest + unit).toPrecision(digits));
+}
+
 const LENGTH_UNITS: [number, string][] = [[1, "m"], [1e-3, "mm"], [1e-6, "µm"], [1e-9, "nm"]];
 const FREQUENCY_UNITS: [number, string][] = [[1e12, "THz"], [1e9, "GHz"], [1e6, "MHz"], [1e3, "kHz"]];
 

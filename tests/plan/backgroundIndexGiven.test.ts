@@ -7,6 +7,8 @@ import { planFromField, type PlanCatalogs } from "../../src/plan/runPlan.js";
 import { reduceField } from "../../src/reduce/reduceField.js";
 import { givenBackgroundIndex } from "../../src/plan/resolveSettings.js";
 import { reportMarkdown } from "../../src/plan/outputs/reportMarkdown.js";
+import { significantAtLeast } from "../../src/core/formatQuantity.js";
+import { readFile } from "node:fs/promises";
 import { beamBendDesign } from "../helpers/beamBendDesign.js";
 import type { ReducedField } from "../../src/reduce/reducedField.js";
 
@@ -66,5 +68,30 @@ describe("the background index a plan reduces with", () => {
     expect(planGiven.reductionBackground).toEqual({ index: 1, given: true });
     expect(reportMarkdown(planNone)).toContain("background index 1.5 (the design's own background; no background index given).");
     expect(reportMarkdown(planGiven)).toContain("background index 1.\n");
+  });
+
+  it("prints the smallest index that lifts every ε as a value that still does when given back as printed", async () => {
+    // the sub-unity concentrator demo in the glass background: its threshold lies a hair above 1.5
+    const demo = JSON.parse(await readFile("demo-designs/plan-concentrator-subunity.json", "utf8"));
+    const glass = await parseDesign({ ...demo, background: { eps: 2.25, mu: 1 }, reduction: { scheme: "non-magnetic" } }, "glass-concentrator.json");
+    const field = computeTensorField(glass);
+    const plan = planFromField(glass, field, catalogs);
+    expect(plan.minBackgroundIndex).not.toBeNull();
+    const printed = Number(/a background of index ([0-9.]+) or more lifts every ε above it/.exec(reportMarkdown(plan))?.[1]);
+    expect(printed).toBeGreaterThanOrEqual(plan.minBackgroundIndex!);
+    expect(significantAtLeast(plan.minBackgroundIndex!, 4)).toBe(printed);
+    const lifted = planFromField(glass, field, catalogs, { backgroundIndex: printed });
+    expect(lifted.minBackgroundIndex).toBeNull(); // no cell left below the lowest material
+  });
+});
+
+describe("significantAtLeast (a threshold printed to be given back)", () => {
+  it("rounds up to the digits asked, and leaves a value already at them as it is", () => {
+    expect(significantAtLeast(1.50037, 4)).toBe(1.501);
+    expect(significantAtLeast(1.5, 4)).toBe(1.5);
+    expect(significantAtLeast(1.4996, 4)).toBe(1.5);
+    expect(significantAtLeast(9.9991, 4)).toBe(10);
+    expect(significantAtLeast(0.0123401, 3)).toBe(0.0124);
+    expect(significantAtLeast(Infinity, 3)).toBe(Infinity);
   });
 });

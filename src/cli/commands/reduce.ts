@@ -23,6 +23,7 @@ import { flagOption, stringOption } from "../args.js";
 import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_OK } from "../run.js";
+import { significantAtLeast } from "../../core/formatQuantity.js";
 
 /** JSON-safe number: non-finite values become null. */
 const jn = (v: number): number | null => (Number.isFinite(v) ? v : null);
@@ -112,7 +113,7 @@ function schemeReport(design: Design, s: SchemeSummary, outPath?: string): strin
   else {
     lines.push(...wrap(`  outer edge: Z/Z_b ${f(b.impedanceMin)}…${f(b.impedanceMax)}, power reflection worst ${f(b.reflectionMax, 2)}, mean ${f(b.reflectionMean, 2)} (${b.source === "boundary-samples" ? `${b.samples} exact boundary points` : `${b.samples} edge cells, estimated`})`, 80));
   }
-  lines.push(`  smallest background index with no ε below ${f(s.epsFloor)}: ${f(s.minBackgroundIndex)}`);
+  lines.push(`  smallest background index with no ε below ${f(s.epsFloor)}: ${f(significantAtLeast(s.minBackgroundIndex, 3))}`);
   lines.push(`  capped cells: ${s.capped}${s.capped ? `, e.g. ${s.cappedCells.slice(0, 3).map(where).join(", ")}` : ""}`);
   lines.push(`  cells with no reduced value: ${s.undefinedCells}${s.undefinedCells ? `, e.g. ${s.undefinedList.slice(0, 3).map(where).join(", ")}` : ""}`);
   if (s.outOfPlaneCells) lines.push(`  cells coupling the plane to z: ${s.outOfPlaneCells} (the polarizations do not separate there)`);
@@ -297,7 +298,7 @@ export const command: Command = {
     const table = schemeTable(summaries, { polarization, chosen: designScheme, skipped: summaries.skipped });
     const lines = [design.name, ...table.lines];
     if (best) {
-      lines.push("", ...wrap(`smallest background index with no ε below ${f(epsFloor)}${floorNote ? ` (${floorNote})` : ""}: ${f(best.minBackgroundIndex)}, with ${best.scheme}`, 80));
+      lines.push("", ...wrap(`smallest background index with no ε below ${f(epsFloor)}${floorNote ? ` (${floorNote})` : ""}: ${f(significantAtLeast(best.minBackgroundIndex, 3))}, with ${best.scheme}`, 80));
     }
     if (polarization !== "3D") {
       const other = polarization === "Ez" ? "Hz" : "Ez";

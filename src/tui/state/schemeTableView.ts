@@ -7,6 +7,7 @@ import { REDUCTION_SCHEMES } from "../../reduce/schemes/registry.js";
 import type { Polarization } from "../../plan/planTypes.js";
 import { formatPercent, formatValue } from "./formatValue.js";
 import type { SchemeTableView } from "./sessionState.js";
+import { significantAtLeast } from "../../core/formatQuantity.js";
 
 export const SCHEME_COLUMNS = ["ε<1 cells", "μ≠1 cells", "max aniso", "edge R", "min n_b"] as const;
 
@@ -28,7 +29,7 @@ export function schemeTableView(
       cellsText(s.cellsMagnetic, s.fractionMagnetic),
       formatValue(s.maxAnisotropy),
       Number.isFinite(s.boundaryReflection) ? formatPercent(s.boundaryReflection) : "—",
-      formatValue(s.minBackgroundIndex),
+      formatValue(significantAtLeast(s.minBackgroundIndex, 3)),
     ],
   }));
   const notes = [
