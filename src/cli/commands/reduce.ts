@@ -24,6 +24,7 @@ import type { CliIo } from "../cliIo.js";
 import type { Command, ParsedArgs } from "../command.js";
 import { EXIT_OK } from "../run.js";
 import { significantAtLeast } from "../../core/formatQuantity.js";
+import { givenBackgroundIndex } from "../../plan/resolveSettings.js";
 
 /** JSON-safe number: non-finite values become null. */
 const jn = (v: number): number | null => (Number.isFinite(v) ? v : null);
@@ -175,13 +176,15 @@ export const command: Command = {
     const point = at !== undefined ? await parsePoint(at) : undefined;
 
     const design = await loadDesign(designPath, io.cwd);
+    // the index every command reduces with: the option's, else the design's, else none (its own background)
+    const nb = givenBackgroundIndex(design, { backgroundIndex: nbFromFlag });
     // a background material is checked as plan and verify check it, against the index this
     // reduction uses, before the field is computed (catalog and check loaded only when named)
     if (design.reduction?.backgroundMaterial !== undefined) {
       const [{ loadMaterialCatalog }, { checkBackgroundMaterialBeforeReduction }] = await Promise.all([
         import("../../io/materialCatalog.js"), import("../../verify/sweep/backgroundAtFrequency.js"),
       ]);
-      checkBackgroundMaterialBeforeReduction(design, nbFromFlag !== undefined, await loadMaterialCatalog(), nbFromFlag ?? design.reduction.backgroundIndex);
+      checkBackgroundMaterialBeforeReduction(design, nbFromFlag !== undefined, await loadMaterialCatalog(), nb);
     }
     const field = await loadFieldForDesign(design, "reduce");
     const file = design.sourcePath;
@@ -216,7 +219,7 @@ export const command: Command = {
     const base: Omit<ReduceOptions, "scheme"> = {
       polarization,
       unitAxis: (unitAxisFlag as "larger" | "smaller" | undefined) ?? spec?.unitAxis,
-      backgroundIndex: nbFromFlag ?? spec?.backgroundIndex,
+      backgroundIndex: nb,
       muTolerance: tolFromFlag ?? spec?.muTolerance,
       where: {
         polarization: wherePol,

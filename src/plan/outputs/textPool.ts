@@ -41,7 +41,7 @@ export function makeTextPool(texts: readonly Uint8Array[]): TextPool {
   return { words: new Float64Array(bytes.buffer), start, length };
 }
 
-/** The bytes of text `id` (for tests and for sizing). */
+/** The bytes of text `id` (the tests read the pool through it). */
 export function poolText(pool: TextPool, id: number): Uint8Array {
   return new Uint8Array(pool.words.buffer, 8 * pool.start[id], pool.length[id]);
 }
