@@ -24,6 +24,7 @@ import { REDUCTION_SCHEME_NAMES } from "../reduce/schemes/schemeNames.js";
 import { MAX_LEVELS, type MissedRequirement, type Plan, type PlanOverrides, type RequirementName, type SchemeName } from "./planTypes.js";
 import { missSeverity } from "./verdict.js";
 import { F_COARSE } from "./flags.js";
+import { significantAtLeast } from "../core/formatQuantity.js";
 
 /** Largest number of re-plans one call may run. */
 export const MAX_TRIES = 10;
@@ -193,7 +194,7 @@ function backgroundNotes(plan: Plan, context: RemedyContext): string[] {
   if ((counts.subunity ?? 0) === 0 && (counts.unreachable ?? 0) === 0) return [];
   if (!plan.verdict.missed.some((m) => m.what === "recipes" || m.what === "tolerance")) return [];
   if (bg.choices.some((m) => m.id !== bg.materialId && m.index >= min)) return [];
-  return [`no other background tried: the design names its background material ('${bg.materialId}'), and no catalog material that can surround the device has index ${Number(min.toPrecision(4))} or more at the design frequency (the index that lifts every ε above the lowest allowed material)`];
+  return [`no other background tried: the design names its background material ('${bg.materialId}'), and no catalog material that can surround the device has index ${significantAtLeast(min, 4)} or more at the design frequency (the index that lifts every ε above the lowest allowed material)`];
 }
 
 /** Finer pitch than needed to bring a coarse figure to its limit (no more than 4× finer, at least 1.2×). */
