@@ -86,8 +86,11 @@ export interface RemedyContext {
    * (dielectric, non-magnetic, valid at the design frequency) with their index there; absent when
    * the design names no background material
    */
-  background?: { materialId: string; choices: readonly { id: string; name: string; index: number }[] };
+  background?: { materialId: string; choices: readonly BackgroundChoice[] };
 }
+
+/** A catalog material that can surround the device, with its index at the design frequency. */
+export interface BackgroundChoice { id: string; name: string; index: number }
 
 /**
  * Candidate changes for a plan's misses, most promising first (at most MAX_TRIES). The changes
@@ -101,10 +104,11 @@ export function candidateChanges(plan: Plan, context: RemedyContext = {}): Remed
   const subunity = (counts.subunity ?? 0) > 0 || (counts.unreachable ?? 0) > 0;
   const magnetic = (counts.magnetic ?? 0) > 0;
   if (missed.has("recipes") || missed.has("tolerance")) {
-    if (subunity && plan.minBackgroundIndex !== null && Number.isFinite(plan.minBackgroundIndex) && plan.minBackgroundIndex > s.backgroundIndex) {
+    const lift = backgroundLiftIndex(plan);
+    if (lift !== null) {
       // the smallest index that lifts every ε above the lowest material, then a third more (room
       // for the mixes between the materials), alone and with every material and family allowed
-      const [first, second] = backgroundChoices(plan.minBackgroundIndex, context);
+      const [first, second] = backgroundChoices(lift, context);
       if (first) {
         out.push(first([]));
         if (s.families !== null || s.materials !== null) out.push(first(["materials", "families"]));
@@ -167,12 +171,12 @@ function backgroundChoices(minIndex: number, context: RemedyContext): [Backgroun
     return [byIndex(Number((minIndex * 1.02).toPrecision(3))), byIndex(Number((minIndex * 1.33).toPrecision(3)))];
   }
   // the index as printed (5 digits, as the background check prints it) is the index re-planned
-  const fits = bg.choices.filter((m) => m.id !== bg.materialId && m.index >= minIndex);
+  const fits = backgroundFits(minIndex, bg);
   if (fits.length === 0) return [null, null];
   const lowest = fits.reduce((a, m) => (m.index < a.index ? m : a));
   const target = minIndex * 1.33;
   const nearest = fits.reduce((a, m) => (Math.abs(Math.log(m.index / target)) < Math.abs(Math.log(a.index / target)) ? m : a));
-  const byMaterial = (m: { id: string; name: string; index: number }): BackgroundChange => (allow) => {
+  const byMaterial = (m: BackgroundChoice): BackgroundChange => (allow) => {
     const n = Number(m.index.toPrecision(5));
     return {
       label: `embed the device in ${m.name}, index ${n} at the design frequency (set reduction.backgroundMaterial to "${m.id}", reduction.backgroundIndex to ${n})${allow.length ? "," : ""}${tail(allow)}`,
@@ -184,16 +188,42 @@ function backgroundChoices(minIndex: number, context: RemedyContext): [Backgroun
   return [byMaterial(lowest), nearest.id === lowest.id ? null : byMaterial(nearest)];
 }
 
+/**
+ * The index a background must reach to lift every ε above the lowest allowed material, when the
+ * search tries such a background (candidateChanges) or says why it cannot (backgroundNotes): cells
+ * need ε below every material (flag subunity or unreachable), recipes or the tolerance are missed,
+ * and the plan gives a finite index. Null when no background lift is to be tried.
+ *
+ * The index is not compared with a background index: the plan holds one only when cells of its own
+ * reduction need ε below the floor, and it then exceeds the index of the non-magnetic background
+ * that gives this reduction's ε (reduce/schemeMetrics.ts: n_b = √(floor/(k·ε_min)), k the
+ * reduction's `epsAtUnitIndex`, 1/√k that background's index; ε_min < floor, so n_b > 1/√k), so
+ * the change is never the background the plan already has.
+ * `settings.backgroundIndex` is 1 when the design gives no index, whatever its own background (a
+ * background of ε 0.64 needed index 1 and was never tried), and the index the reduction used,
+ * √(ε_b μ_b), is not that background either when μ_b ≠ 1 under the full scheme, whose ε depend
+ * on ε_b alone (tests/plan/remediesBackgroundLift.test.ts).
+ */
+function backgroundLiftIndex(plan: Plan): number | null {
+  const min = plan.minBackgroundIndex;
+  if (min === null || !Number.isFinite(min)) return null;
+  const counts = plan.figures.flagCounts;
+  if ((counts.subunity ?? 0) === 0 && (counts.unreachable ?? 0) === 0) return null;
+  if (!plan.verdict.missed.some((m) => m.what === "recipes" || m.what === "tolerance")) return null;
+  return min;
+}
+
+/** The catalog backgrounds other than the design's own that reach `minIndex`. */
+function backgroundFits(minIndex: number, bg: NonNullable<RemedyContext["background"]>): BackgroundChoice[] {
+  return bg.choices.filter((m) => m.id !== bg.materialId && m.index >= minIndex);
+}
+
 /** "no catalog material … lifts every ε" when the design names its background and none does. */
 function backgroundNotes(plan: Plan, context: RemedyContext): string[] {
   const bg = context.background;
-  const min = plan.minBackgroundIndex;
-  if (!bg || min === null || !Number.isFinite(min) || !(min > plan.settings.backgroundIndex)) return [];
-  // the same conditions as the background changes in candidateChanges
-  const counts = plan.figures.flagCounts;
-  if ((counts.subunity ?? 0) === 0 && (counts.unreachable ?? 0) === 0) return [];
-  if (!plan.verdict.missed.some((m) => m.what === "recipes" || m.what === "tolerance")) return [];
-  if (bg.choices.some((m) => m.id !== bg.materialId && m.index >= min)) return [];
+  const min = backgroundLiftIndex(plan);
+  if (!bg || min === null) return [];
+  if (backgroundFits(min, bg).length > 0) return [];
   return [`no other background tried: the design names its background material ('${bg.materialId}'), and no catalog material that can surround the device has index ${significantAtLeast(min, 4)} or more at the design frequency (the index that lifts every ε above the lowest allowed material)`];
 }
 
