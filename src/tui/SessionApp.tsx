@@ -26,8 +26,8 @@ export interface SessionServices {
   open(): Promise<{ base: PlanSettings; options: SessionState["options"] }>;
   /** a plan for the design with these overrides; must not block the event loop for long */
   plan(overrides: PlanOverrides, onProgress: (stage: PlanStage, fraction: number) => void): Promise<Plan>;
-  /** the scheme comparison for the settings' polarization */
-  schemes(settings: PlanSettings): Promise<SchemeTableView>;
+  /** the scheme comparison for the settings' polarization, reduced with the background index of `overrides` as plans are (givenBackgroundIndex) */
+  schemes(settings: PlanSettings, overrides: PlanOverrides): Promise<SchemeTableView>;
   /** write every output of `plan` and the session file; returns the paths written */
   exportPlan(plan: Plan, overrides: PlanOverrides, view: ReturnType<typeof sessionView>, options?: { layout?: boolean }): Promise<string[]>;
   /** write only the session file; returns its path */
@@ -122,11 +122,11 @@ export function SessionApp({ initial, services, inputActive, size, onExit }: Ses
 
   // the scheme table follows the polarization and the background index
   const settings = effectiveSettings(state);
-  const schemeKey = settings ? `${settings.polarization}|${settings.backgroundIndex}|${settings.unitAxis}` : "";
+  const schemeKey = settings ? `${settings.polarization}|${settings.backgroundIndex}|${state.overrides.backgroundIndex !== undefined}|${settings.unitAxis}` : "";
   useEffect(() => {
     if (!settings) return;
     let live = true;
-    services.schemes(settings).then(
+    services.schemes(settings, state.overrides).then(
       (table) => live && dispatch({ type: "schemesReady", table }),
       (err) => live && dispatch({ type: "schemesFailed", polarization: settings.polarization, message: message(err) }),
     );

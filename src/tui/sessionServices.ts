@@ -12,7 +12,7 @@ import { InputError } from "../core/errors.js";
 import { writePlanOutputs } from "../io/planOutputs.js";
 import { saveSessionFile } from "../io/sessionFile.js";
 import type { Plan, PlanOverrides, PlanSettings, PlanStage } from "../plan/planTypes.js";
-import { resolveSettings } from "../plan/resolveSettings.js";
+import { givenBackgroundIndex, resolveSettings } from "../plan/resolveSettings.js";
 import { layoutFiles } from "../io/layout/layoutFiles.js";
 import { compareSchemes } from "../reduce/schemeMetrics.js";
 import { loadPlanInputs, type PlanInputs } from "./planInputs.js";
@@ -130,15 +130,15 @@ export function createSessionServices(opts: ServiceOptions): SessionServices & {
       return planSession(inputs, overrides, opts.sessionPath, onProgress);
     },
 
-    async schemes(settings) {
+    async schemes(settings, overrides) {
       const { field, design } = await load();
       await yieldToEventLoop();
-      // the index the plans reduce with (givenBackgroundIndex): one the design or the session gives, 1
-      // included; none keeps the design's own background
-      const given = design.reduction?.backgroundIndex !== undefined || settings.backgroundIndex !== 1;
+      // the index the plans reduce with: one the design or the session gives, 1 included; none keeps
+      // the design's own background
+      const backgroundIndex = givenBackgroundIndex(design, overrides);
       const summaries = compareSchemes(field, settings.polarization, {
         unitAxis: settings.unitAxis,
-        ...(given ? { backgroundIndex: settings.backgroundIndex } : {}),
+        ...(backgroundIndex !== undefined ? { backgroundIndex } : {}),
       });
       return schemeTableView(settings.polarization, summaries, summaries.skipped ?? []);
     },

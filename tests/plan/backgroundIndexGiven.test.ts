@@ -11,6 +11,12 @@ import { significantAtLeast } from "../../src/core/formatQuantity.js";
 import { readFile } from "node:fs/promises";
 import { beamBendDesign } from "../helpers/beamBendDesign.js";
 import type { ReducedField } from "../../src/reduce/reducedField.js";
+import { createSessionServices } from "../../src/tui/sessionServices.js";
+import { compareSchemes } from "../../src/reduce/schemeMetrics.js";
+import { schemeTableView } from "../../src/tui/state/schemeTableView.js";
+import { tempDir } from "../helpers/tempDir.js";
+import { writeFileSync } from "node:fs";
+import { join } from "node:path";
 
 /** The reduction's first component (Ez: ε_zz), the plan's first target column. */
 const first = (r: ReducedField): Float64Array => r.components[r.componentNames[0]];
@@ -82,6 +88,34 @@ describe("the background index a plan reduces with", () => {
     expect(significantAtLeast(plan.minBackgroundIndex!, 4)).toBe(printed);
     const lifted = planFromField(glass, field, catalogs, { backgroundIndex: printed });
     expect(lifted.minBackgroundIndex).toBeNull(); // no cell left below the lowest material
+  });
+
+  it("is the index the session's scheme table reduces with, an index of 1 from the session included", async () => {
+    // a magnetic background (ε 1, μ 2.25: index 1.5, impedance 1.5): the table's μ ≠ 1 cells and edge
+    // reflection are not invariant under a change of it, as they are under a scaled isotropic one
+    const dir = tempDir("cw-bg-schemes-");
+    const path = join(dir, "magnetic.json");
+    const magnetic = { ...beamBendDesign({ name: "magnetic-background bend", frequency: "10 GHz", pitch: "2 mm", materials: ["alumina-96", "air"] }), background: { eps: 1, mu: 2.25 }, reduction: { scheme: "isotropic" } };
+    writeFileSync(path, JSON.stringify(magnetic));
+    const services = createSessionServices({ designPath: path, cwd: dir, outDir: join(dir, "out"), sessionPath: join(dir, "out", "session.json"), useWorker: false });
+    try {
+      const { base } = await services.open();
+      const field = computeTensorField(await parseDesign(magnetic, path));
+      // the full scheme's row: cells needing ε < 1, μ ≠ 1, anisotropy, edge reflection, n_b min
+      const row = (table: Awaited<ReturnType<typeof services.schemes>>) => table.rows.find((r) => r.scheme === "full")!.cells;
+      const expected = (backgroundIndex?: number) => {
+        const s = compareSchemes(field, "Ez", backgroundIndex === undefined ? {} : { backgroundIndex }).find((x) => x.scheme === "full")!;
+        return schemeTableView("Ez", [s]).rows[0].cells;
+      };
+      // the session sets index 1: a background of index 1, as its plans reduce with; none: the design's
+      const atOne = await services.schemes({ ...base, backgroundIndex: 1 }, { backgroundIndex: 1 });
+      const own = await services.schemes(base, {});
+      expect(row(atOne)).toEqual(expected(1));
+      expect(row(own)).toEqual(expected(undefined));
+      expect(expected(1)).not.toEqual(expected(undefined));
+    } finally {
+      await services.close();
+    }
   });
 });
 
