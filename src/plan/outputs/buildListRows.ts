@@ -15,7 +15,7 @@ import type { Plan } from "../planTypes.js";
 import { flagList } from "../flags.js";
 import { csvField, fmt } from "./csvText.js";
 import { NUMBER_ROOM, runEveryBranch, writeFmt } from "./decimalBytes.js";
-import { makeTextPool } from "./textPool.js";
+import { HOST_LITTLE_ENDIAN, makeTextPool } from "./textPool.js";
 
 /** Dimension keys (metres, "radius_m") used by any level's recipe, sorted by name. */
 export function dimensionColumns(plan: Plan): string[] {
@@ -105,13 +105,12 @@ function putBytes(buf: Uint8Array, at: number, b: Uint8Array): number {
 /** Text `id` of the pool at `at` through the buffer's DataView; returns the position after it. */
 function putText(view: DataView, at: number, words: Float64Array, start: Int32Array, length: Int32Array, id: number): number {
   const len = length[id];
-  for (let q = start[id], n = q + ((len + 7) >> 3), p = at; q < n; q++, p += 8) view.setFloat64(p, words[q], true);
+  for (let q = start[id], n = q + ((len + 7) >> 3), p = at; q < n; q++, p += 8) view.setFloat64(p, words[q], HOST_LITTLE_ENDIAN);
   return at + len;
 }
 
 /** `fmt(x, digits)` at `at` without making a string (decimalBytes.ts). */
 const putNumber = writeFmt;
-
 
 /**
  * Everything a row needs besides the cell index: the plan's per-cell arrays and the ids of the

@@ -58,8 +58,8 @@ for (let v = 0; v < 1000; v++) {
   TRAILING_ZEROS[v] = v === 0 ? 3 : v % 100 === 0 ? 2 : v % 10 === 0 ? 1 : 0;
 }
 
-/** The bytes "0.000000" as one little-endian 8-byte word (a double whose bits they are; not a NaN). */
-const ZERO_POINT_ZEROS = new Float64Array(new Uint8Array([ZERO, DOT, ZERO, ZERO, ZERO, ZERO, ZERO, ZERO]).buffer)[0];
+/** The bytes "0.000000" as one 8-byte word read little-endian (a double whose bits they are; not a NaN), written back the same way. */
+const ZERO_POINT_ZEROS = new DataView(new Uint8Array([ZERO, DOT, ZERO, ZERO, ZERO, ZERO, ZERO, ZERO]).buffer).getFloat64(0, true);
 
 /**
  * Write `fmt(x, digits)` for a finite, non-zero `x` into `buf` at `at` (`view` over the same bytes;

@@ -12,7 +12,13 @@
  * it exactly.
  */
 
-/** The pool: text `id` is `length[id]` bytes from word `start[id]` of `words`. */
+/**
+ * Whether this machine stores numbers little-endian: a word read from `words` (host order) is
+ * written back with `DataView.setFloat64(at, word, HOST_LITTLE_ENDIAN)` to keep its bytes in order.
+ */
+export const HOST_LITTLE_ENDIAN = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
+
+/** The pool: text `id` is `length[id]` bytes from word `start[id]` of `words` (host byte order). */
 export interface TextPool {
   words: Float64Array;
   start: Int32Array;
