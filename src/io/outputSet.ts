@@ -67,7 +67,8 @@ export function abortError(): Error {
   return e;
 }
 
-function isAlive(pid: number): boolean {
+/** Whether process `pid` exists (this one included; EPERM: it exists but is someone else's). */
+export function isAlive(pid: number): boolean {
   if (pid === process.pid) return true;
   try {
     process.kill(pid, 0);

@@ -18,26 +18,17 @@
 import { mkdtempSync, readdirSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
+import { isAlive } from "../../src/io/outputSet.js";
 
 export const RUN_PREFIX = "cellwright-test-run-";
 const TOOL_CACHES = /^tsx-\d+$/;
-
-function alive(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch (err) {
-    // EPERM: the process exists but belongs to someone else
-    return (err as NodeJS.ErrnoException).code === "EPERM";
-  }
-}
 
 /** Remove the folders of runs whose process is gone (killed before teardown); returns how many. */
 function removeAbandonedRuns(parent: string): number {
   let removed = 0;
   for (const name of readdirSync(parent)) {
     const m = new RegExp(`^${RUN_PREFIX}(\\d+)-`).exec(name);
-    if (!m || alive(Number(m[1]))) continue;
+    if (!m || isAlive(Number(m[1]))) continue;
     rmSync(join(parent, name), { recursive: true, force: true });
     removed++;
   }
