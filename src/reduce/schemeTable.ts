@@ -3,6 +3,7 @@
  * command line prints `lines`; the interactive session can use `rows` and `columns` directly.
  */
 import { formatNumber as f } from "./formatNumber.js";
+import { significantAtLeast } from "../core/formatQuantity.js";
 import { polarizationSummary, type Polarization } from "./polarization.js";
 import type { NamedCell, SchemeSummary } from "./schemeMetrics.js";
 import { REDUCTION_SCHEMES } from "./schemes/registry.js";
@@ -120,7 +121,8 @@ export function schemeTable(
       anisotropy: f(s.maxAnisotropy),
       dropped: s.scheme === "isotropic" ? f(s.maxDroppedAnisotropy) : "–",
       reflection: reflection(s.boundaryReflection),
-      minIndex: f(s.minBackgroundIndex),
+      // rounded up: an index given back as printed still lifts every ε (significantAtLeast)
+      minIndex: f(significantAtLeast(s.minBackgroundIndex, 3)),
       epsRange: range(s.epsRange),
       muRange: range(s.muRange),
       impedance: range([s.boundaryImpedance.min, s.boundaryImpedance.max]),

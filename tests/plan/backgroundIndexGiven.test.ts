@@ -14,6 +14,7 @@ import type { ReducedField } from "../../src/reduce/reducedField.js";
 import { createSessionServices } from "../../src/tui/sessionServices.js";
 import { compareSchemes } from "../../src/reduce/schemeMetrics.js";
 import { schemeTableView } from "../../src/tui/state/schemeTableView.js";
+import { schemeTable } from "../../src/reduce/schemeTable.js";
 import { tempDir } from "../helpers/tempDir.js";
 import { writeFileSync } from "node:fs";
 import { join } from "node:path";
@@ -88,6 +89,15 @@ describe("the background index a plan reduces with", () => {
     expect(significantAtLeast(plan.minBackgroundIndex!, 4)).toBe(printed);
     const lifted = planFromField(glass, field, catalogs, { backgroundIndex: printed });
     expect(lifted.minBackgroundIndex).toBeNull(); // no cell left below the lowest material
+    // reduce's table and the session's print the n_b min column rounded up alike (3 digits)
+    const summaries = compareSchemes(field, "Hz", { backgroundIndex: 1.5 });
+    const exact = summaries.find((x) => x.scheme === "non-magnetic")!.minBackgroundIndex;
+    expect(exact).toBeGreaterThan(1.5); // a hair above: nearest rounding would print 1.5
+    const inReduce = Number(schemeTable(summaries, { polarization: "Hz" }).rows.find((r) => r.scheme === "non-magnetic")!.cells.minIndex);
+    const inSession = Number(schemeTableView("Hz", summaries).rows.find((r) => r.scheme === "non-magnetic")!.cells.at(-1));
+    expect(inReduce).toBe(significantAtLeast(exact, 3));
+    expect(inSession).toBe(inReduce);
+    expect(inReduce).toBeGreaterThanOrEqual(exact);
   });
 
   it("is the index the session's scheme table reduces with, an index of 1 from the session included", async () => {
